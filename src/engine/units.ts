@@ -1,0 +1,58 @@
+/**
+ * Every US customary ↔ SI constant of Headroom, and nothing else holds one.
+ *
+ * The engine works in US customary units (gpm, psi, in, ft, ft², gpm/ft², K in gpm/psi^0.5). The cell-function layer
+ * converts SI arguments to US on the way in and US results to SI on the way out with `toUS` / `fromUS`.
+ * Each constant is exact by definition of the units, or derived from exact ones; the test suite confirms each one
+ * against mathjs's own unit definitions.
+ */
+
+/** US liquid gallon in litres (exact by definition: 231 in³). 1 gpm = 3.785411784 L/min. */
+export const L_PER_GAL = 3.785411784;
+/** Pound-force per square inch in bar: 6894.757293168 Pa (exact from lbf and in) / 100000 Pa. */
+export const BAR_PER_PSI = 0.06894757293168361;
+/** Inch in millimetres (exact). */
+export const MM_PER_IN = 25.4;
+/** Foot in metres (exact). */
+export const M_PER_FT = 0.3048;
+/** Square foot in square metres (exact: 0.3048²). */
+export const M2_PER_FT2 = M_PER_FT * M_PER_FT;
+/** 1 gpm/ft² in mm/min (= L/min per m²): 3.785411784 / 0.09290304 ≈ 40.746. */
+export const MMMIN_PER_GPMFT2 = L_PER_GAL / M2_PER_FT2;
+/** K-factor: 1 gpm/psi^0.5 in L/min/bar^0.5: 3.785411784 / √0.0689476 ≈ 14.416 (NFPA 13: K_SI ≈ 14.4 K_US). */
+export const KSI_PER_KUS = L_PER_GAL / Math.sqrt(BAR_PER_PSI);
+/** Friction rate: 1 psi/ft in bar/m. */
+export const BARM_PER_PSIFT = BAR_PER_PSI / M_PER_FT;
+/** Pressure of a one-foot column of water, psi (NFPA 13: 0.433 psi per ft). */
+export const PSI_PER_FT_WATER = 0.433;
+
+/** The quantities that cross the cell boundary, with their US and SI unit names (for messages and labels). */
+export const QUANTITIES = {
+  flow: { us: "gpm", si: "L/min", factor: L_PER_GAL },
+  pressure: { us: "psi", si: "bar", factor: BAR_PER_PSI },
+  diameter: { us: "in", si: "mm", factor: MM_PER_IN },
+  length: { us: "ft", si: "m", factor: M_PER_FT },
+  area: { us: "ft²", si: "m²", factor: M2_PER_FT2 },
+  density: { us: "gpm/ft²", si: "mm/min", factor: MMMIN_PER_GPMFT2 },
+  kfactor: { us: "gpm/psi^0.5", si: "L/min/bar^0.5", factor: KSI_PER_KUS },
+  frictionRate: { us: "psi/ft", si: "bar/m", factor: BARM_PER_PSIFT },
+  velocity: { us: "ft/s", si: "m/s", factor: M_PER_FT },
+} as const;
+
+export type Quantity = keyof typeof QUANTITIES;
+export type UnitSystem = "US" | "SI";
+
+/** Convert a value of `quantity` given in `units` to US customary. */
+export function toUS(quantity: Quantity, value: number, units: UnitSystem): number {
+  return units === "SI" ? value / QUANTITIES[quantity].factor : value;
+}
+
+/** Convert a US customary value of `quantity` to `units`. */
+export function fromUS(quantity: Quantity, value: number, units: UnitSystem): number {
+  return units === "SI" ? value * QUANTITIES[quantity].factor : value;
+}
+
+/** The unit name of `quantity` in `units`, e.g. unitName("pressure", "SI") = "bar". */
+export function unitName(quantity: Quantity, units: UnitSystem): string {
+  return units === "SI" ? QUANTITIES[quantity].si : QUANTITIES[quantity].us;
+}

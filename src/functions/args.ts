@@ -1,0 +1,177 @@
+/**
+ * Turns what a cell hands a custom function into checked numbers and codes, or into a HeadroomError whose one-line
+ * message names the argument, the value given and what is allowed.
+ *
+ * Excel hands an omitted optional argument over as null, an empty cell as null (or 0 on older desktop builds),
+ * numbers as numbers and text as text; every cell-function parameter is typed `any` so that this module, not the
+ * host, decides what a value means. An empty required argument is an error that says so, never a zero.
+ */
+import { HeadroomError, fail, show } from "../engine/errors";
+import { type Quantity, type UnitSystem, QUANTITIES, fromUS, toUS, unitName } from "../engine/units";
+
+/**
+ * The largest value each quantity may take, in US units. These are plausibility bounds of the trade, not design
+ * limits: they catch a mistyped 1e308 or a diameter typed in mm while the sheet is in US units. (common practice)
+ */
+export const LIMITS_US: Record<Quantity, number> = {
+  flow: 100_000, // gpm: far above any single fire-protection supply
+  pressure: 1_000, // psi
+  diameter: 120, // in
+  length: 100_000, // ft
+  area: 1_000_000, // ft²
+  density: 5, // gpm/ft²
+  kfactor: 100, // gpm/psi^0.5
+  frictionRate: 1_000, // psi/ft (output only)
+  velocity: 1_000, // ft/s (output only)
+};
+
+/** True when a cell value stands for "nothing here": an omitted argument, an empty cell or empty text. */
+export function isBlank(value: unknown): boolean {
+  return value === null || value === undefined || (typeof value === "string" && value.trim() === "");
+}
+
+const NUMERIC_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)(e[+-]?\d+)?$/i;
+
+/** Any cell value as a finite number, or an error naming `name`. Numeric text ("12.5") is accepted. */
+export function toNumber(value: unknown, name: string): number {
+  if (isBlank(value)) fail(`${name} is empty: type a number`);
+  if (typeof value === "number") {
+    if (Number.isFinite(value)) return value;
+    fail(`${name}: got ${show(value)}; must be a finite number`);
+  }
+  if (typeof value === "string") {
+    const t = value.trim();
+    if (NUMERIC_TEXT.test(t)) {
+      const n = Number(t);
+      if (Number.isFinite(n)) return n;
+    }
+    fail(`${name}: got ${show(value)}; must be a number`);
+  }
+  if (typeof value === "boolean") fail(`${name}: got ${show(value)}; must be a number, not TRUE/FALSE`);
+  if (Array.isArray(value)) fail(`${name}: got a range; must be a single value`);
+  fail(`${name}: got ${show(value)}; must be a number`);
+}
+
+export interface NumberRule {
+  /** value must be greater than this */
+  gt?: number;
+  /** value must be at least this */
+  min?: number;
+  /** value must be at most this */
+  max?: number;
+  /** value must be a whole number */
+  integer?: boolean;
+  /** unit to name in messages, e.g. "%" */
+  unit?: string;
+}
+
+function describeRule(rule: NumberRule): string {
+  const u = rule.unit ? ` ${rule.unit}` : "";
+  const parts: string[] = [];
+  if (rule.integer) parts.push("a whole number");
+  if (rule.gt !== undefined && rule.max !== undefined) parts.push(`greater than ${show(rule.gt)} and at most ${show(rule.max)}${u}`);
+  else if (rule.min !== undefined && rule.max !== undefined) parts.push(`from ${show(rule.min)} to ${show(rule.max)}${u}`);
+  else if (rule.gt !== undefined) parts.push(`greater than ${show(rule.gt)}${u}`);
+  else if (rule.min !== undefined) parts.push(`at least ${show(rule.min)}${u}`);
+  else if (rule.max !== undefined) parts.push(`at most ${show(rule.max)}${u}`);
+  return parts.join(", ");
+}
+
+/** A plain number (no unit conversion) checked against `rule`. */
+export function numberArg(value: unknown, name: string, rule: NumberRule = {}): number {
+  const x = toNumber(value, name);
+  const bad =
+    (rule.gt !== undefined && !(x > rule.gt)) ||
+    (rule.min !== undefined && !(x >= rule.min)) ||
+    (rule.max !== undefined && !(x <= rule.max)) ||
+    (rule.integer === true && !Number.isInteger(x));
+  if (bad) fail(`${name}: got ${show(x)}${rule.unit ? " " + rule.unit : ""}; must be ${describeRule(rule)}`);
+  return x;
+}
+
+/** Like numberArg, but an omitted or empty argument gives `fallback`. */
+export function optionalNumberArg(value: unknown, name: string, fallback: number, rule: NumberRule = {}): number {
+  return isBlank(value) ? fallback : numberArg(value, name, rule);
+}
+
+export interface QuantityRule {
+  /** zero is allowed (a flow of 0, a length of 0); otherwise the value must be greater than zero */
+  zero?: boolean;
+  /** negative values are allowed (a rise may be a drop) */
+  signed?: boolean;
+}
+
+/**
+ * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with
+ * `zero`, or either sign with `signed`) up to the plausibility bound of LIMITS_US, stated in the user's units.
+ */
+export function quantityArg(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule = {}): number {
+  const given = toNumber(value, name);
+  const us = toUS(quantity, given, units);
+  const limitUS = LIMITS_US[quantity];
+  const limit = Number(fromUS(quantity, limitUS, units).toPrecision(6));
+  const u = unitName(quantity, units);
+  const low = rule.signed ? -limitUS : 0;
+  const tooLow = rule.signed ? us < low : rule.zero ? us < 0 : !(us > 0);
+  if (tooLow || Math.abs(us) > limitUS) {
+    const allowed = rule.signed
+      ? `from ${show(-limit)} to ${show(limit)} ${u}`
+      : rule.zero
+        ? `from 0 to ${show(limit)} ${u}`
+        : `greater than 0 and at most ${show(limit)} ${u}`;
+    fail(`${name}: got ${show(given)} ${u}; must be ${allowed}`);
+  }
+  return us;
+}
+
+/** Like quantityArg, but an omitted or empty argument gives `fallbackUS` (already in US units). */
+export function optionalQuantityArg(
+  value: unknown,
+  name: string,
+  quantity: Quantity,
+  units: UnitSystem,
+  fallbackUS: number,
+  rule: QuantityRule = {},
+): number {
+  return isBlank(value) ? fallbackUS : quantityArg(value, name, quantity, units, rule);
+}
+
+/** Normalise text for code matching: trimmed, lower case, inner white space folded to one space. */
+export function normaliseText(value: string): string {
+  return value.trim().toLowerCase().replace(/\s+/g, " ");
+}
+
+/**
+ * A code from a fixed list. `codes` maps each canonical code to the spellings accepted for it (matched after
+ * normaliseText; the canonical code itself is always accepted). Numbers are accepted as their text ("40").
+ */
+export function codeArg<C extends string>(value: unknown, name: string, codes: Record<C, readonly string[]>): C {
+  const list = Object.keys(codes) as C[];
+  const allowed = list.map((c) => `"${c}"`).join(", ");
+  if (isBlank(value)) fail(`${name} is empty: type one of ${allowed}`);
+  if (typeof value !== "string" && typeof value !== "number") fail(`${name}: got ${show(value)}; must be one of ${allowed}`);
+  const t = normaliseText(String(value));
+  for (const c of list) {
+    if (normaliseText(c) === t || codes[c].some((a) => normaliseText(a) === t)) return c;
+  }
+  fail(`${name}: got ${show(value)}; must be one of ${allowed}`);
+}
+
+/** Like codeArg, but an omitted or empty argument gives `fallback`. */
+export function optionalCodeArg<C extends string>(value: unknown, name: string, codes: Record<C, readonly string[]>, fallback: C): C {
+  return isBlank(value) ? fallback : codeArg(value, name, codes);
+}
+
+/** The `[units]` argument: "US" (default) or "SI", case-insensitive and trimmed. */
+export function unitsArg(value: unknown): UnitSystem {
+  return optionalCodeArg<UnitSystem>(value, "units", { US: ["us", "imperial", "customary"], SI: ["si", "metric"] }, "US");
+}
+
+/** Check an engine result before it leaves for a cell: a finite number, and not negative unless `signed`. */
+export function finiteResult(x: number, what: string, signed = false): number {
+  if (!Number.isFinite(x)) fail(`${what}: the inputs give no finite result; check their magnitudes`);
+  if (!signed && x < 0) fail(`${what}: the inputs give a negative result (${show(x)}); check them`);
+  return x;
+}
+
+export { HeadroomError, QUANTITIES };

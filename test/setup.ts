@@ -1,0 +1,3 @@
+import { installCustomFunctionsShim } from "../src/preview/customFunctionsShim";
+
+installCustomFunctionsShim();

@@ -1,0 +1,11 @@
+import { defineConfig } from "vitest/config";
+
+export default defineConfig({
+  test: {
+    include: ["test/**/*.test.ts"],
+    exclude: ["test/browser/**", "node_modules/**"],
+    setupFiles: ["test/setup.ts"],
+    environment: "node",
+    testTimeout: 20_000,
+  },
+});
