@@ -1,0 +1,73 @@
+/**
+ * Sprinkler discharge and the design-area counts of the density/area method. US units: gpm, psi, ft, ft².
+ */
+
+/** Minimum operating pressure of a sprinkler, psi. [NFPA 13] */
+export const MIN_SPRINKLER_PRESSURE_PSI = 7;
+/** Factor for the branch-line length of a rectangular design area: 1.2 √A. [NFPA 13] */
+export const DESIGN_AREA_LENGTH_FACTOR = 1.2;
+
+/** Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10). */
+export function ceilCount(x: number): number {
+  return Math.ceil(x - 1e-9);
+}
+
+/**
+ * Sprinkler discharge, Q = K √P.
+ * @param k K-factor, gpm/psi^0.5; @param pressure psi
+ * @returns gpm. Source: [NFPA 13]. Worked value: K 5.6 at 7 psi → 14.8 gpm.
+ */
+export function headDischarge(k: number, pressure: number): number {
+  return k * Math.sqrt(pressure);
+}
+
+/**
+ * Design flow of the most remote sprinkler by the density/area method:
+ *
+ *   q = max(density × coverage, K √Pmin)
+ *
+ * @param density gpm/ft²; @param coverage ft² per sprinkler; @param k gpm/psi^0.5; @param minPressure psi
+ * @returns gpm
+ * Source: [NFPA 13] density/area method. Worked value: 0.15 gpm/ft² × 130 ft², K 5.6, 7 psi → 19.5 gpm.
+ */
+export function headFlow(density: number, coverage: number, k: number, minPressure: number): number {
+  return Math.max(density * coverage, headDischarge(k, minPressure));
+}
+
+/**
+ * Pressure a sprinkler needs to discharge a flow, not below the minimum operating pressure:
+ *
+ *   p = max((q / K)², Pmin)
+ *
+ * @param flow gpm; @param k gpm/psi^0.5; @param minPressure psi
+ * @returns psi
+ * Source: [NFPA 13]. Worked value: K 8.0 flowing 24 gpm → 9 psi (common practice check).
+ */
+export function headPressure(flow: number, k: number, minPressure: number): number {
+  return Math.max((flow / k) ** 2, minPressure);
+}
+
+/**
+ * Sprinklers in the design area, n = ceil(A / coverage).
+ * @param area ft²; @param coverage ft² per sprinkler
+ * Source: [NFPA 13] (fractions round up). Worked value: 1500 ft² at 130 ft² → 12.
+ */
+export function headCount(area: number, coverage: number): number {
+  return ceilCount(area / coverage);
+}
+
+/**
+ * Sprinklers along one branch line of a rectangular design area whose long side, factor × √A, runs along the lines:
+ *
+ *   n_line = ceil(factor √A / S)
+ *
+ * @param area ft² (or m²); @param spacing S, between sprinklers on the line, ft (or m: the ratio has no unit)
+ * @param factor 1.2 by default
+ * Source: [NFPA 13]. Worked value: 1500 ft², S 12 ft → ceil(1.2 × 38.73 / 12) = ceil(3.87) = 4.
+ */
+export function headsPerLine(area: number, spacing: number, factor: number): number {
+  return ceilCount((factor * Math.sqrt(area)) / spacing);
+}
+
+/** Minimum operating pressure of a sprinkler in SI work, bar (the vocabulary's SI default). [NFPA 13] */
+export const MIN_SPRINKLER_PRESSURE_BAR = 0.5;

@@ -1,0 +1,38 @@
+import { describe, expect, it } from "vitest";
+import { headCount, headDischarge, headFlow, headPressure, headsPerLine } from "../../src/engine/sprinkler";
+
+describe("sprinkler discharge [NFPA 13]", () => {
+  it("is Q = K √P [NFPA 13]", () => {
+    // K 5.6 at the 7 psi minimum: 5.6 × 2.6458 = 14.82 gpm
+    expect(headDischarge(5.6, 7)).toBeCloseTo(14.816, 3);
+  });
+  it("a K 8.0 sprinkler flowing 24 gpm needs 9 psi (common practice)", () => {
+    expect(headPressure(24, 8.0, 7)).toBeCloseTo(9, 12);
+  });
+  it("never asks less than the minimum operating pressure, 7 psi [NFPA 13]", () => {
+    // K 8.0 flowing 16 gpm would need (16/8)² = 4 psi: the minimum 7 psi governs
+    expect(headPressure(16, 8.0, 7)).toBe(7);
+  });
+  it("design flow is the larger of density × coverage and K √Pmin [NFPA 13]", () => {
+    // OH1 0.15 gpm/ft² × 130 ft² = 19.5 gpm > 5.6 √7 = 14.8 gpm
+    expect(headFlow(0.15, 130, 5.6, 7)).toBeCloseTo(19.5, 12);
+    // LH 0.10 × 100 ft² = 10 gpm < 14.8 gpm: the minimum pressure governs
+    expect(headFlow(0.1, 100, 5.6, 7)).toBeCloseTo(5.6 * Math.sqrt(7), 12);
+  });
+});
+
+describe("design-area counts [NFPA 13]", () => {
+  it("sprinklers in the area round up: n = ceil(A / coverage) [NFPA 13]", () => {
+    expect(headCount(1500, 130)).toBe(12); // 11.54 → 12
+    expect(headCount(1500, 150)).toBe(10); // exactly 10
+    expect(headCount(1500, 225)).toBe(7); // 6.67 → 7
+  });
+  it("sprinklers on a line: ceil(1.2 √A / S) [NFPA 13]", () => {
+    // 1.2 × √1500 / 12 = 1.2 × 38.73 / 12 = 3.87 → 4
+    expect(headsPerLine(1500, 12, 1.2)).toBe(4);
+    // 1.2 × √1500 / 10 = 4.65 → 5
+    expect(headsPerLine(1500, 10, 1.2)).toBe(5);
+    // 1.2 × √2500 / 15 = 60 / 15 = 4 exactly
+    expect(headsPerLine(2500, 15, 1.2)).toBe(4);
+  });
+});
