@@ -8,17 +8,327 @@
  * the vocabulary; never rename one without keeping the old name working.
  */
 import { cell } from "./bridge";
+import { LIMITS_US, finiteResult, numberArg, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
+import { demandArgs, flowTestArgs, minPressureArg, pipeArgs } from "./common";
+import { convertUnit } from "./unit";
+import { assess, margin as supplyMargin, pumpBoost, verdictSentence } from "../engine/decision";
+import { elevationPressure, frictionRateIn, velocity as pipeVelocity } from "../engine/friction";
+import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
+import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, supplyAt } from "../engine/supply";
+import { fromUS } from "../engine/units";
 
 // ─── Water supply ────────────────────────────────────────────────────────────────────────────────────────────────
+/**
+ * Pressure the water supply delivers at a flow, along the supply curve through the hydrant flow test:
+ * P = static − (static − residual) × (flow / test_flow)^1.85 (NFPA 291). An error beyond the flow where it reaches 0.
+ * @customfunction
+ * @param flow Flow drawn from the supply (gpm; SI: L/min).
+ * @param static_pressure Static pressure of the flow test, no flow (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param units "US" (default) or "SI".
+ * @returns Supply pressure at the flow (psi; SI: bar).
+ */
+export function supplyat(flow: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const t = flowTestArgs(static_pressure, residual, test_flow, u);
+    const q = quantityArg(flow, "flow", "flow", u, { zero: true });
+    return fromUS("pressure", finiteResult(supplyAt(q, t), "SUPPLYAT"), u);
+  });
+}
+
+/**
+ * Flow the water supply delivers at a pressure, along the supply curve: FLOWAT(20, ...) is the fire flow at 20 psi
+ * (NFPA 291).
+ * @customfunction
+ * @param pressure Pressure left in the main (psi; SI: bar), from 0 to the static pressure.
+ * @param static_pressure Static pressure of the flow test (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param units "US" (default) or "SI".
+ * @returns Flow at that pressure (gpm; SI: L/min).
+ */
+export function flowat(pressure: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const t = flowTestArgs(static_pressure, residual, test_flow, u);
+    const p = quantityArg(pressure, "pressure", "pressure", u, { zero: true });
+    return fromUS("flow", finiteResult(flowAt(p, t), "FLOWAT"), u);
+  });
+}
+
+/**
+ * Hydrant outlet flow from a pitot reading: Q = 29.83 c d² √p (NFPA 291).
+ * @customfunction
+ * @param pitot Pitot (velocity) pressure at the outlet (psi; SI: bar).
+ * @param outlet_diameter Internal diameter of the hydrant outlet (in; SI: mm).
+ * @param coefficient Outlet coefficient: 0.90 smooth rounded (default), 0.80 square and sharp, 0.70 square projecting.
+ * @param units "US" (default) or "SI".
+ * @returns Flow from the outlet (gpm; SI: L/min).
+ */
+export function pitotflow(pitot: any, outlet_diameter: any, coefficient?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const p = quantityArg(pitot, "pitot", "pressure", u);
+    const d = quantityArg(outlet_diameter, "outlet_diameter", "diameter", u);
+    const c = optionalNumberArg(coefficient, "coefficient", PITOT_COEFFICIENT_SMOOTH, { gt: 0, max: 1 });
+    return fromUS("flow", finiteResult(pitotFlow(p, d, c), "PITOTFLOW"), u);
+  });
+}
+
 
 // ─── Demand ──────────────────────────────────────────────────────────────────────────────────────────────────────
+/**
+ * Design flow of the most remote sprinkler: the larger of density × coverage and K × √(minimum pressure) (NFPA 13
+ * density/area method).
+ * @customfunction
+ * @param density Design density (gpm/ft²; SI: mm/min).
+ * @param coverage Floor area one sprinkler protects (ft²; SI: m²).
+ * @param k_factor Sprinkler K-factor (gpm/psi^0.5; SI: L/min/bar^0.5).
+ * @param min_pressure Minimum operating pressure (psi; SI: bar); default 7 psi (SI: 0.5 bar).
+ * @param units "US" (default) or "SI".
+ * @returns Flow of that sprinkler (gpm; SI: L/min).
+ */
+export function headflow(density: any, coverage: any, k_factor: any, min_pressure?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const dens = quantityArg(density, "density", "density", u);
+    const cov = quantityArg(coverage, "coverage", "area", u);
+    const k = quantityArg(k_factor, "k_factor", "kfactor", u);
+    const pmin = minPressureArg(min_pressure, u);
+    return fromUS("flow", finiteResult(headFlow(dens, cov, k, pmin), "HEADFLOW"), u);
+  });
+}
+
+/**
+ * Pressure a sprinkler needs to discharge a flow: (flow / K)², not below the minimum operating pressure (NFPA 13).
+ * @customfunction
+ * @param flow Flow of the sprinkler (gpm; SI: L/min).
+ * @param k_factor Sprinkler K-factor (gpm/psi^0.5; SI: L/min/bar^0.5).
+ * @param min_pressure Minimum operating pressure (psi; SI: bar); default 7 psi (SI: 0.5 bar).
+ * @param units "US" (default) or "SI".
+ * @returns Pressure at the sprinkler (psi; SI: bar).
+ */
+export function headpressure(flow: any, k_factor: any, min_pressure?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const q = quantityArg(flow, "flow", "flow", u);
+    const k = quantityArg(k_factor, "k_factor", "kfactor", u);
+    const pmin = minPressureArg(min_pressure, u);
+    return fromUS("pressure", finiteResult(headPressure(q, k, pmin), "HEADPRESSURE"), u);
+  });
+}
+
+/**
+ * Sprinklers flowing in the design area: design area ÷ coverage per sprinkler, rounded up (NFPA 13).
+ * @customfunction
+ * @param area Design area (ft² or m²: the same unit as coverage).
+ * @param coverage Floor area one sprinkler protects (same unit as area).
+ * @returns Number of sprinklers.
+ */
+export function headcount(area: any, coverage: any): number {
+  return cell(() => {
+    const a = numberArg(area, "area", { gt: 0, max: LIMITS_US.area });
+    const c = numberArg(coverage, "coverage", { gt: 0, max: LIMITS_US.area });
+    return headCount(a, c);
+  });
+}
+
+/**
+ * Sprinklers along one branch line of the design area: factor × √area ÷ spacing, rounded up (NFPA 13: the long
+ * side of the rectangular area, 1.2 √A, runs along the branch lines).
+ * @customfunction
+ * @param area Design area (ft²; SI: m²).
+ * @param head_spacing Distance between sprinklers along the branch line (ft; SI: m).
+ * @param factor Long side of the area as a multiple of √area; default 1.2.
+ * @param units "US" (default) or "SI".
+ * @returns Number of sprinklers on the line.
+ */
+export function headsperline(area: any, head_spacing: any, factor?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const a = quantityArg(area, "area", "area", u);
+    const s = quantityArg(head_spacing, "head_spacing", "length", u);
+    const f = optionalNumberArg(factor, "factor", DESIGN_AREA_LENGTH_FACTOR, { gt: 0, max: 10 });
+    return headsPerLine(a, s, f);
+  });
+}
+
 
 // ─── Piping ──────────────────────────────────────────────────────────────────────────────────────────────────────
+/**
+ * Friction loss over a length of pipe, Hazen-Williams: 4.52 Q^1.85 / (C^1.85 d^4.87) psi/ft × length (NFPA 13);
+ * in SI the EN 12845 form 6.05e5 Q^1.85 / (C^1.85 d^4.87) bar/m.
+ * @customfunction
+ * @param flow Flow in the pipe (gpm; SI: L/min).
+ * @param diameter Actual internal diameter (in; SI: mm); use PIPEID for a nominal size.
+ * @param c_factor Hazen-Williams C (e.g. 120 for wet steel; CFACTOR gives the table value).
+ * @param length Pipe length plus fitting equivalent length (ft; SI: m).
+ * @param units "US" (default) or "SI".
+ * @returns Friction loss (psi; SI: bar).
+ */
+export function friction(flow: any, diameter: any, c_factor: any, length: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
+    const l = quantityArg(length, "length", "length", u, { zero: true });
+    return finiteResult(frictionRateIn(q, d, c, u) * fromUS("length", l, u), "FRICTION");
+  });
+}
+
+/**
+ * Friction loss per unit length of pipe, Hazen-Williams (NFPA 13; SI: EN 12845).
+ * @customfunction
+ * @param flow Flow in the pipe (gpm; SI: L/min).
+ * @param diameter Actual internal diameter (in; SI: mm).
+ * @param c_factor Hazen-Williams C.
+ * @param units "US" (default) or "SI".
+ * @returns Loss per length (psi/ft; SI: bar/m).
+ */
+export function frictionrate(flow: any, diameter: any, c_factor: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
+    return finiteResult(frictionRateIn(q, d, c, u), "FRICTIONRATE");
+  });
+}
+
+/**
+ * Mean water velocity in a pipe: flow ÷ bore area (v = 0.4085 Q / d² ft/s).
+ * @customfunction
+ * @param flow Flow in the pipe (gpm; SI: L/min).
+ * @param diameter Actual internal diameter (in; SI: mm).
+ * @param units "US" (default) or "SI".
+ * @returns Velocity (ft/s; SI: m/s).
+ */
+export function velocity(flow: any, diameter: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const q = quantityArg(flow, "flow", "flow", u, { zero: true });
+    const d = quantityArg(diameter, "diameter", "diameter", u);
+    return fromUS("velocity", finiteResult(pipeVelocity(q, d), "VELOCITY"), u);
+  });
+}
+
+/**
+ * Pressure to lift water through a rise: 0.433 psi per ft (NFPA 13). A negative rise (a drop) gives a gain: a
+ * negative result, allowed here alone.
+ * @customfunction
+ * @param rise Height from the lower to the upper point (ft; SI: m); negative for a drop.
+ * @param units "US" (default) or "SI".
+ * @returns Elevation pressure (psi; SI: bar).
+ */
+export function elevation(rise: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const h = quantityArg(rise, "rise", "length", u, { signed: true });
+    return fromUS("pressure", finiteResult(elevationPressure(h), "ELEVATION", true), u);
+  });
+}
+
 
 // ─── Trade tables: pipes, C factors, fittings, density/area, hose, duration ──────────────────────────────────────
 
 // ─── Range functions and solvers: RUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE ─────────────────────
 
 // ─── Decision ────────────────────────────────────────────────────────────────────────────────────────────────────
+/**
+ * Supply pressure at the demand flow minus the demand pressure: positive is pressure to spare, negative means the
+ * supply falls short. An error where the supply reaches 0 before the demand flow.
+ * @customfunction
+ * @param demand_flow Total demand flow at the supply connection, sprinklers plus hose (gpm; SI: L/min).
+ * @param demand_pressure Pressure the system needs there at that flow (psi; SI: bar).
+ * @param static_pressure Static pressure of the flow test (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param units "US" (default) or "SI".
+ * @returns Margin (psi; SI: bar).
+ */
+export function margin(demand_flow: any, demand_pressure: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
+    return fromUS("pressure", finiteResult(supplyMargin(q, p, t, u), "MARGIN", true), u);
+  });
+}
+
+/**
+ * A plain sentence for a project manager, e.g. "No pump needed: 12.4 psi to spare at 562 gpm." or "Pump needed: the
+ * supply is 10.7 psi short at 562 gpm." A preliminary estimate: the adopted codes, the authority having
+ * jurisdiction and a licensed fire-protection professional decide.
+ * @customfunction
+ * @param demand_flow Total demand flow at the supply connection (gpm; SI: L/min).
+ * @param demand_pressure Pressure the system needs there (psi; SI: bar).
+ * @param static_pressure Static pressure of the flow test (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param required_margin Safety margin the supply must exceed the demand by (psi; SI: bar); default 0.
+ * @param units "US" (default) or "SI".
+ * @returns The verdict sentence.
+ */
+export function verdict(
+  demand_flow: any,
+  demand_pressure: any,
+  static_pressure: any,
+  residual: any,
+  test_flow: any,
+  required_margin?: any,
+  units?: any,
+): string {
+  return cell(() => {
+    const u = unitsArg(units);
+    const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
+    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, { zero: true });
+    return verdictSentence(assess(q, p, t, m), u);
+  });
+}
+
+/**
+ * Pressure a fire pump must add at the demand flow to give the demand pressure plus the required margin; 0 where the
+ * supply suffices. PUMPSIZE rounds it to a rating.
+ * @customfunction
+ * @param demand_flow Total demand flow at the supply connection (gpm; SI: L/min).
+ * @param demand_pressure Pressure the system needs there (psi; SI: bar).
+ * @param static_pressure Static pressure of the flow test (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param required_margin Safety margin to include (psi; SI: bar); default 0.
+ * @param units "US" (default) or "SI".
+ * @returns Pump boost (psi; SI: bar).
+ */
+export function pumpboost(
+  demand_flow: any,
+  demand_pressure: any,
+  static_pressure: any,
+  residual: any,
+  test_flow: any,
+  required_margin?: any,
+  units?: any,
+): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
+    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, { zero: true });
+    return fromUS("pressure", finiteResult(pumpBoost(q, p, t, m, u), "PUMPBOOST"), u);
+  });
+}
+
 
 // ─── Units ───────────────────────────────────────────────────────────────────────────────────────────────────────
+/**
+ * Converts a value between units of the same kind: flow "gpm", "L/min", "m3/h"; pressure "psi", "bar", "kPa";
+ * length "ft", "m", "in", "mm"; area "ft2", "m2"; density "gpm/ft2", "mm/min"; K-factors "K-US", "K-SI".
+ * @customfunction
+ * @param value The value to convert (0 or more).
+ * @param from Its unit, e.g. "gpm".
+ * @param to The unit wanted, e.g. "L/min".
+ * @returns The converted value.
+ */
+export function unit(value: any, from: any, to: any): number {
+  return cell(() => {
+    const v = numberArg(value, "value", { min: 0 });
+    return finiteResult(convertUnit(v, from, to), "UNIT");
+  });
+}
+

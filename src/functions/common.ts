@@ -1,0 +1,58 @@
+/**
+ * Argument groups that several cell functions share: a flow test, a pipe, a demand point, a minimum pressure.
+ * Each returns US values and throws a HeadroomError naming the argument at fault.
+ */
+import { fail, show } from "../engine/errors";
+import { MIN_SPRINKLER_PRESSURE_BAR, MIN_SPRINKLER_PRESSURE_PSI } from "../engine/sprinkler";
+import type { FlowTest } from "../engine/supply";
+import { type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
+import { numberArg, optionalQuantityArg, quantityArg } from "./args";
+
+/** Largest Hazen-Williams C accepted: above every value of the C table. (common practice) */
+export const MAX_C_FACTOR = 200;
+
+/** static, residual, test_flow of a hydrant flow test; residual must be below static. */
+export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unknown, u: UnitSystem): FlowTest {
+  const s = quantityArg(staticP, "static_pressure", "pressure", u);
+  const r = quantityArg(residual, "residual", "pressure", u, { zero: true });
+  const q = quantityArg(testFlow, "test_flow", "flow", u);
+  if (!(r < s)) {
+    const p = (x: number) => `${show(fromUS("pressure", x, u))} ${unitName("pressure", u)}`;
+    fail(`residual: got ${p(r)}; must be below the static pressure ${p(s)}`);
+  }
+  return { static: s, residual: r, testFlow: q };
+}
+
+/** The C factor of a pipe: greater than 0, at most MAX_C_FACTOR. */
+export function cFactorArg(value: unknown, name = "c_factor"): number {
+  return numberArg(value, name, { gt: 0, max: MAX_C_FACTOR });
+}
+
+/** flow (0 allowed), internal diameter, C factor of a pipe. */
+export function pipeArgs(flow: unknown, diameter: unknown, cFactor: unknown, u: UnitSystem): [number, number, number] {
+  return [
+    quantityArg(flow, "flow", "flow", u, { zero: true }),
+    quantityArg(diameter, "diameter", "diameter", u),
+    cFactorArg(cFactor),
+  ];
+}
+
+/** A sprinkler's minimum operating pressure: default 7 psi in US work, 0.5 bar in SI work [NFPA 13]. */
+export function minPressureArg(value: unknown, u: UnitSystem): number {
+  const fallback = u === "SI" ? toUS("pressure", MIN_SPRINKLER_PRESSURE_BAR, u) : MIN_SPRINKLER_PRESSURE_PSI;
+  return optionalQuantityArg(value, "min_pressure", "pressure", u, fallback);
+}
+
+/** demand_flow, demand_pressure and the flow test. */
+export function demandArgs(
+  demandFlow: unknown,
+  demandPressure: unknown,
+  staticP: unknown,
+  residual: unknown,
+  testFlow: unknown,
+  u: UnitSystem,
+): [number, number, FlowTest] {
+  const q = quantityArg(demandFlow, "demand_flow", "flow", u);
+  const p = quantityArg(demandPressure, "demand_pressure", "pressure", u, { zero: true });
+  return [q, p, flowTestArgs(staticP, residual, testFlow, u)];
+}
