@@ -1,0 +1,92 @@
+/**
+ * Builds the Excel add-in into dist/:
+ *   functions.js    the cell functions (src/functions/functions.ts), with CustomFunctions.associate calls added by
+ *                   the metadata plugin
+ *   functions.json  their metadata, generated from the JSDoc of src/functions/functions.ts
+ *   taskpane.html   the task pane page, which is also the shared runtime: it loads Office.js, functions.js and
+ *                   taskpane.js
+ *   assets/*.png    the icons the manifest names
+ *
+ * `npm run build` (production) never touches certificates; only `webpack serve` (npm run dev-server) asks
+ * office-addin-dev-certs for the https localhost certificate that Office needs.
+ *
+ * The export is a list of configurations so that another bundle (the browser preview host, src/preview/) can be
+ * added as its own entry in that list, built with `commonConfig` but without the metadata plugin.
+ */
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import CopyWebpackPlugin from "copy-webpack-plugin";
+import CustomFunctionsMetadataPlugin from "custom-functions-metadata-plugin";
+import HtmlWebpackPlugin from "html-webpack-plugin";
+
+const root = path.dirname(fileURLToPath(import.meta.url));
+export const DEV_SERVER_PORT = 3000;
+const FUNCTIONS_INPUT = "./src/functions/functions.ts";
+
+/** What every bundle of the project shares: TypeScript through ts-loader (type checking is `npm run typecheck`). */
+export function commonConfig(mode) {
+  const production = mode === "production";
+  return {
+    mode,
+    context: root,
+    devtool: production ? "source-map" : "eval-source-map",
+    resolve: { extensions: [".ts", ".js"] },
+    module: {
+      rules: [
+        {
+          test: /\.ts$/,
+          exclude: /node_modules/,
+          use: { loader: "ts-loader", options: { transpileOnly: true } },
+        },
+      ],
+    },
+    performance: { hints: production ? "warning" : false },
+  };
+}
+
+/** The add-in itself: cell functions, task pane page (= shared runtime) and icons. */
+export function addinConfig(mode) {
+  return {
+    ...commonConfig(mode),
+    name: "addin",
+    entry: {
+      functions: FUNCTIONS_INPUT,
+      taskpane: "./src/taskpane/taskpane.ts",
+    },
+    output: {
+      path: path.join(root, "dist"),
+      filename: "[name].js",
+      // Other configurations write under dist/preview/; leave that to them.
+      clean: { keep: /^preview\// },
+    },
+    plugins: [
+      // First, as the templates have it: it generates functions.json and adds the associate calls to functions.ts.
+      new CustomFunctionsMetadataPlugin({ output: "functions.json", input: FUNCTIONS_INPUT }),
+      new HtmlWebpackPlugin({
+        filename: "taskpane.html",
+        template: "./src/taskpane/taskpane.html",
+        // The shared runtime page runs both bundles; Office.js is loaded by the template itself, before them.
+        chunks: ["functions", "taskpane"],
+        chunksSortMode: "manual",
+      }),
+      new CopyWebpackPlugin({ patterns: [{ from: "assets/*.png", to: "assets/[name][ext]" }] }),
+    ],
+  };
+}
+
+export default async function config(env = {}, argv = {}) {
+  const mode = argv.mode ?? "production";
+  const addin = addinConfig(mode);
+  if (env.WEBPACK_SERVE) {
+    // Only when serving: this may create and install a localhost certificate (see DEVELOPERS.md).
+    const { default: devCerts } = await import("office-addin-dev-certs");
+    addin.devServer = {
+      port: DEV_SERVER_PORT,
+      host: "localhost",
+      hot: false,
+      headers: { "Access-Control-Allow-Origin": "*" },
+      server: { type: "https", options: await devCerts.getHttpsServerOptions() },
+    };
+  }
+  return [addin];
+}
