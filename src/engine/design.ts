@@ -1,0 +1,193 @@
+/**
+ * The density/area method's design criteria by occupancy hazard: the density/area curves, hose stream allowances
+ * and water supply durations.
+ *
+ * Pure data and arithmetic, US units (density gpm/ft², area ft², flow gpm, time min). Hazard codes are the
+ * vocabulary's (LH, OH1, OH2, EH1, EH2); plain-word aliases are matched in the cell layer
+ * (src/functions/tableCodes.ts). HAZARDS is the metadata the task pane and the preview read.
+ */
+import { fail } from "./errors";
+
+/** Occupancy hazard codes: light, ordinary group 1 and 2, extra group 1 and 2. */
+export type Hazard = "LH" | "OH1" | "OH2" | "EH1" | "EH2";
+
+/** Every hazard code, lightest first. */
+export const HAZARD_CODES: readonly Hazard[] = ["LH", "OH1", "OH2", "EH1", "EH2"];
+
+/** One end of a density/area curve. */
+export interface CurvePoint {
+  /** gpm/ft² */
+  readonly density: number;
+  /** ft² */
+  readonly area: number;
+}
+
+/** The design criteria of one hazard. */
+export interface HazardInfo {
+  readonly code: Hazard;
+  /** the standard's name of the occupancy class */
+  readonly name: string;
+  /** the curve's upper point: highest density at the smallest design area */
+  readonly upper: CurvePoint;
+  /** the curve's lower point: lowest density at the largest design area */
+  readonly lower: CurvePoint;
+  /** hose stream allowance, inside + outside, gpm */
+  readonly hoseTotal: number;
+  /** the inside hose allowances the standard offers, gpm */
+  readonly insideHoseOptions: readonly number[];
+  /** required water supply duration, min: the range's lower and upper bound */
+  readonly duration: { readonly min: number; readonly max: number };
+}
+
+/**
+ * [NFPA 13] density/area curves (from memory), each a straight line between its two points, with the hose stream
+ * allowance and water supply duration table (from memory).
+ */
+export const HAZARDS: Readonly<Record<Hazard, HazardInfo>> = {
+  LH: {
+    code: "LH",
+    name: "light hazard",
+    upper: { density: 0.1, area: 1500 }, // [NFPA 13] (from memory)
+    lower: { density: 0.07, area: 3000 }, // [NFPA 13] (from memory)
+    hoseTotal: 100, // [NFPA 13] (from memory)
+    insideHoseOptions: [0, 50, 100], // [NFPA 13] (from memory)
+    duration: { min: 30, max: 30 }, // [NFPA 13] (from memory)
+  },
+  OH1: {
+    code: "OH1",
+    name: "ordinary hazard group 1",
+    upper: { density: 0.15, area: 1500 }, // [NFPA 13] (from memory)
+    lower: { density: 0.12, area: 4000 }, // [NFPA 13] (from memory)
+    hoseTotal: 250, // [NFPA 13] (from memory)
+    insideHoseOptions: [0, 50, 100], // [NFPA 13] (from memory)
+    duration: { min: 60, max: 90 }, // [NFPA 13] (from memory)
+  },
+  OH2: {
+    code: "OH2",
+    name: "ordinary hazard group 2",
+    upper: { density: 0.2, area: 1500 }, // [NFPA 13] (from memory)
+    lower: { density: 0.17, area: 4000 }, // [NFPA 13] (from memory)
+    hoseTotal: 250, // [NFPA 13] (from memory)
+    insideHoseOptions: [0, 50, 100], // [NFPA 13] (from memory)
+    duration: { min: 60, max: 90 }, // [NFPA 13] (from memory)
+  },
+  EH1: {
+    code: "EH1",
+    name: "extra hazard group 1",
+    upper: { density: 0.3, area: 2500 }, // [NFPA 13] (from memory)
+    lower: { density: 0.28, area: 5000 }, // [NFPA 13] (from memory)
+    hoseTotal: 500, // [NFPA 13] (from memory)
+    insideHoseOptions: [0, 50, 100], // [NFPA 13] (from memory)
+    duration: { min: 90, max: 120 }, // [NFPA 13] (from memory)
+  },
+  EH2: {
+    code: "EH2",
+    name: "extra hazard group 2",
+    upper: { density: 0.4, area: 2500 }, // [NFPA 13] (from memory)
+    lower: { density: 0.38, area: 5000 }, // [NFPA 13] (from memory)
+    hoseTotal: 500, // [NFPA 13] (from memory)
+    insideHoseOptions: [0, 50, 100], // [NFPA 13] (from memory)
+    duration: { min: 90, max: 120 }, // [NFPA 13] (from memory)
+  },
+};
+
+/**
+ * Relative slack accepted at each end of a curve's area span, so that an area typed as the standard's rounded metric
+ * equivalent still lands on the curve: the metric edition writes 1500 ft² as 139 m², which is 1496 ft² (0.25 % short).
+ * An area within the slack is read as the end point itself; anything further off is an error. 0.5 %.
+ */
+export const AREA_SPAN_SLACK = 0.005;
+
+/** Design criteria of a hazard. Example: hazardInfo("OH2").name = "ordinary hazard group 2". */
+export function hazardInfo(hazard: Hazard): HazardInfo {
+  const info = HAZARDS[hazard];
+  if (!info) fail(`hazard: got ${JSON.stringify(hazard)}; must be one of ${HAZARD_CODES.join(", ")}`);
+  return info;
+}
+
+/** The area span of a hazard's curve, ft²: from the upper point's area to the lower point's. Example: OH1 → 1500 to 4000. */
+export function areaSpan(hazard: Hazard): { min: number; max: number } {
+  const h = hazardInfo(hazard);
+  return { min: h.upper.area, max: h.lower.area };
+}
+
+/**
+ * `area` (ft²) placed on a hazard's curve: the area itself inside the span, the end point within AREA_SPAN_SLACK of
+ * an end, undefined when it is off the curve.
+ */
+export function areaOnCurve(hazard: Hazard, area: number): number | undefined {
+  const { min, max } = areaSpan(hazard);
+  if (!Number.isFinite(area)) return undefined;
+  if (area >= min && area <= max) return area;
+  if (area < min && area >= min * (1 - AREA_SPAN_SLACK)) return min;
+  if (area > max && area <= max * (1 + AREA_SPAN_SLACK)) return max;
+  return undefined;
+}
+
+/**
+ * Design density of a hazard at a design area, read from the straight density/area line.
+ *
+ * Formula: D(A) = D_u + (D_l − D_u) × (A − A_u) / (A_l − A_u), (D_u, A_u) the upper point, (D_l, A_l) the lower one.
+ * Units: area ft², density gpm/ft². Source: [NFPA 13] density/area curves (from memory). An area off the curve is an
+ * error stating the span. Without an area, the curve's smallest area (the upper point) is used.
+ *
+ * Example: designDensity("OH2", 2000) = 0.20 + (0.17 − 0.20) × (2000 − 1500) / (4000 − 1500) = 0.20 − 0.006 = 0.194 gpm/ft².
+ */
+export function designDensity(hazard: Hazard, area?: number): number {
+  const h = hazardInfo(hazard);
+  if (area === undefined) return h.upper.density;
+  const a = areaOnCurve(hazard, area);
+  if (a === undefined) {
+    fail(`area: got ${area} ft²; the ${hazard} (${h.name}) curve spans ${h.upper.area} to ${h.lower.area} ft²`);
+  }
+  return h.upper.density + ((h.lower.density - h.upper.density) * (a - h.upper.area)) / (h.lower.area - h.upper.area);
+}
+
+/**
+ * The smallest design area of a hazard's curve (its upper point), ft².
+ *
+ * Source: [NFPA 13] density/area curves (from memory). Example: designArea("EH1") = 2500 ft².
+ */
+export function designArea(hazard: Hazard): number {
+  return hazardInfo(hazard).upper.area;
+}
+
+/** Parts of the hose stream allowance: the total, the inside hose part, the outside hose part. */
+export type HosePart = "total" | "inside" | "outside";
+
+/**
+ * Hose stream allowance of a hazard, gpm.
+ *
+ * Formula: "total" = inside + outside from the table; "inside" = the largest inside allowance the table offers
+ * (100 gpm); "outside" = total − inside. Units: gpm. Source: [NFPA 13] hose stream allowance table (from memory).
+ *
+ * Example: hoseAllowance("OH1", "outside") = 250 − 100 = 150 gpm.
+ */
+export function hoseAllowance(hazard: Hazard, part: HosePart = "total"): number {
+  const h = hazardInfo(hazard);
+  const inside = Math.max(...h.insideHoseOptions);
+  switch (part) {
+    case "total":
+      return h.hoseTotal;
+    case "inside":
+      return inside;
+    case "outside":
+      return h.hoseTotal - inside;
+    default:
+      fail(`part: got ${JSON.stringify(part)}; must be "total", "inside" or "outside"`);
+  }
+}
+
+/** Which end of a duration range. */
+export type DurationBound = "min" | "max";
+
+/**
+ * Required water supply duration of a hazard, minutes: the lower ("min") or upper ("max") end of the table's range.
+ *
+ * Source: [NFPA 13] water supply duration table (from memory). Example: supplyDuration("EH2", "max") = 120 min.
+ */
+export function supplyDuration(hazard: Hazard, bound: DurationBound = "min"): number {
+  const h = hazardInfo(hazard);
+  if (bound !== "min" && bound !== "max") fail(`bound: got ${JSON.stringify(bound)}; must be "min" or "max"`);
+  return h.duration[bound];
+}
