@@ -5,8 +5,13 @@
 import { fail, show } from "../engine/errors";
 import { MIN_SPRINKLER_PRESSURE_BAR, MIN_SPRINKLER_PRESSURE_PSI } from "../engine/sprinkler";
 import type { FlowTest } from "../engine/supply";
-import { type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
+import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
 import { numberArg, optionalQuantityArg, quantityArg } from "./args";
+
+/** A US value shown in the user's units for a message: "1968 gpm", "4.83 bar". */
+export function showIn(quantity: Quantity, valueUS: number, u: UnitSystem): string {
+  return `${show(fromUS(quantity, valueUS, u))} ${unitName(quantity, u)}`;
+}
 
 /** Largest Hazen-Williams C accepted: above every value of the C table. (common practice) */
 export const MAX_C_FACTOR = 200;
@@ -17,8 +22,7 @@ export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unkn
   const r = quantityArg(residual, "residual", "pressure", u, { zero: true });
   const q = quantityArg(testFlow, "test_flow", "flow", u);
   if (!(r < s)) {
-    const p = (x: number) => `${show(fromUS("pressure", x, u))} ${unitName("pressure", u)}`;
-    fail(`residual: got ${p(r)}; must be below the static pressure ${p(s)}`);
+    fail(`residual: got ${showIn("pressure", r, u)}; must be below the static pressure ${showIn("pressure", s, u)}`);
   }
   return { static: s, residual: r, testFlow: q };
 }

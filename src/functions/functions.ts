@@ -9,13 +9,14 @@
  */
 import { cell } from "./bridge";
 import { LIMITS_US, finiteResult, numberArg, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
-import { demandArgs, flowTestArgs, minPressureArg, pipeArgs } from "./common";
+import { demandArgs, flowTestArgs, minPressureArg, pipeArgs, showIn } from "./common";
 import { convertUnit } from "./unit";
 import { assess, margin as supplyMargin, pumpBoost, verdictSentence } from "../engine/decision";
 import { elevationPressure, frictionRateIn, velocity as pipeVelocity } from "../engine/friction";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
-import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, supplyAt } from "../engine/supply";
-import { fromUS } from "../engine/units";
+import { fail } from "../engine/errors";
+import { PITOT_COEFFICIENT_SMOOTH, exhaustionFlow, flowAt, pitotFlow, supplyAt } from "../engine/supply";
+import { fromUS, unitName } from "../engine/units";
 
 // ─── Water supply ────────────────────────────────────────────────────────────────────────────────────────────────
 /**
@@ -34,6 +35,10 @@ export function supplyat(flow: any, static_pressure: any, residual: any, test_fl
     const u = unitsArg(units);
     const t = flowTestArgs(static_pressure, residual, test_flow, u);
     const q = quantityArg(flow, "flow", "flow", u, { zero: true });
+    const qMax = exhaustionFlow(t);
+    if (q >= qMax) {
+      fail(`flow: got ${showIn("flow", q, u)}; this supply reaches 0 ${unitName("pressure", u)} at ${showIn("flow", qMax, u)}`);
+    }
     return fromUS("pressure", finiteResult(supplyAt(q, t), "SUPPLYAT"), u);
   });
 }
@@ -54,6 +59,9 @@ export function flowat(pressure: any, static_pressure: any, residual: any, test_
     const u = unitsArg(units);
     const t = flowTestArgs(static_pressure, residual, test_flow, u);
     const p = quantityArg(pressure, "pressure", "pressure", u, { zero: true });
+    if (p > t.static) {
+      fail(`pressure: got ${showIn("pressure", p, u)}; must be from 0 to the static pressure ${showIn("pressure", t.static, u)}`);
+    }
     return fromUS("flow", finiteResult(flowAt(p, t), "FLOWAT"), u);
   });
 }
