@@ -1,0 +1,106 @@
+/**
+ * Runs the custom-functions metadata generator (the package custom-functions-metadata, the same code the webpack
+ * plugin runs to write dist/functions.json) on src/functions/functions.ts and checks what Excel will show:
+ * exactly the vocabulary's functions, each with a description and a description for every parameter.
+ * The check itself is first tried on small made-up inputs, so a broken check cannot pass silently.
+ */
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { afterAll, describe, expect, it } from "vitest";
+import { generateCustomFunctionsMetadata } from "custom-functions-metadata";
+import { VOCABULARY } from "./vocabulary";
+
+interface Parameter {
+  name: string;
+  description?: string;
+}
+interface RegisteredFunction {
+  id: string;
+  name: string;
+  description?: string;
+  parameters: Parameter[];
+}
+
+/** Every problem with the metadata generated from `file` against the list of names; empty when all is well. */
+async function metadataProblems(file: string, vocabulary: string[]): Promise<string[]> {
+  const result = await generateCustomFunctionsMetadata(file);
+  const problems = result.errors.map((e) => `generator error: ${e}`);
+  if (problems.length > 0) return problems;
+  const functions: RegisteredFunction[] = result.metadataJson ? JSON.parse(result.metadataJson).functions : [];
+  const byId = new Map(functions.map((f) => [f.id, f]));
+  for (const name of vocabulary) {
+    const f = byId.get(name);
+    if (!f) {
+      problems.push(`${name}: not registered`);
+      continue;
+    }
+    if (f.name !== name) problems.push(`${name}: registered under the display name ${f.name}`);
+    if (!f.description?.trim()) problems.push(`${name}: no description`);
+    for (const p of f.parameters) {
+      if (!p.description?.trim()) problems.push(`${name}: parameter ${p.name} has no description`);
+    }
+  }
+  for (const f of functions) {
+    if (!vocabulary.includes(f.id)) problems.push(`${f.id}: registered but not in the vocabulary list`);
+  }
+  return problems;
+}
+
+const scratch = mkdtempSync(path.join(tmpdir(), "headroom-metadata-"));
+afterAll(() => rmSync(scratch, { recursive: true, force: true }));
+
+function toy(name: string, source: string): string {
+  const file = path.join(scratch, name);
+  writeFileSync(file, source);
+  return file;
+}
+
+const GOOD = `
+/**
+ * Doubles a flow.
+ * @customfunction
+ * @param flow flow to double (gpm)
+ * @param units "US" or "SI"
+ */
+export function twice(flow: any, units?: any): number {
+  return Number(flow) * 2;
+}
+`;
+
+describe("the metadata check itself, on made-up inputs", () => {
+  it("passes a function with its descriptions", async () => {
+    expect(await metadataProblems(toy("good.ts", GOOD), ["TWICE"])).toEqual([]);
+  });
+
+  it("reports a missing parameter description and a missing function description", async () => {
+    const file = toy("bare.ts", `/**\n * @customfunction\n * @param flow\n */\nexport function bare(flow: any): number {\n  return 1;\n}\n`);
+    expect(await metadataProblems(file, ["BARE"])).toEqual(["BARE: no description", "BARE: parameter flow has no description"]);
+  });
+
+  it("reports a vocabulary function that is missing and one registered outside the vocabulary", async () => {
+    expect(await metadataProblems(toy("good2.ts", GOOD), ["HALF"])).toEqual([
+      "HALF: not registered",
+      "TWICE: registered but not in the vocabulary list",
+    ]);
+  });
+
+  it("reports generator errors (here a type alias, which the generator rejects)", async () => {
+    const file = toy("alias.ts", `type Flow = number;\n/**\n * Flow.\n * @customfunction\n * @param flow a flow (gpm)\n */\nexport function f(flow: Flow): number {\n  return flow;\n}\n`);
+    const problems = await metadataProblems(file, ["F"]);
+    expect(problems.length).toBeGreaterThan(0);
+    expect(problems[0]).toMatch(/^generator error: .*Flow/);
+  });
+});
+
+describe("src/functions/functions.ts", () => {
+  it("registers exactly the vocabulary, each function and parameter described", async () => {
+    const problems = await metadataProblems(path.resolve(__dirname, "../../src/functions/functions.ts"), VOCABULARY);
+    expect(problems).toEqual([]);
+  });
+
+  it("the vocabulary list names each function once, in upper case", () => {
+    expect(new Set(VOCABULARY).size).toBe(VOCABULARY.length);
+    for (const name of VOCABULARY) expect(name).toMatch(/^[A-Z][A-Z0-9.]*$/);
+  });
+});

@@ -1,0 +1,28 @@
+/**
+ * The cell functions Headroom registers, by their cell names (upper case), as ../shared/spec/functions.md names them.
+ * test/functions/metadata.test.ts checks that the metadata generator finds exactly these in src/functions/functions.ts,
+ * each with a description and a description for every parameter. Add a function's name here when you add the
+ * function.
+ */
+export const VOCABULARY: string[] = [
+  // Water supply
+  "SUPPLYAT",
+  "FLOWAT",
+  "PITOTFLOW",
+  // Demand
+  "HEADFLOW",
+  "HEADPRESSURE",
+  "HEADCOUNT",
+  "HEADSPERLINE",
+  // Piping
+  "FRICTION",
+  "FRICTIONRATE",
+  "VELOCITY",
+  "ELEVATION",
+  // Decision
+  "MARGIN",
+  "VERDICT",
+  "PUMPBOOST",
+  // Units
+  "UNIT",
+];
