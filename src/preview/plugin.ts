@@ -11,7 +11,7 @@
  * Install the CustomFunctions stand-in (./customFunctionsShim) before any of these functions is called.
  */
 import { ArraySize, CellError, EmptyValue, ErrorType, FunctionArgumentType, FunctionPlugin, HyperFormula, SimpleRangeValue } from "hyperformula";
-import type { FunctionArgument, ImplementedFunctions } from "hyperformula";
+import type { FunctionArgument, FunctionPluginDefinition, ImplementedFunctions } from "hyperformula";
 import { bindFunctions, type BoundFunction, type FunctionsMetadata } from "./metadata";
 import { SPILL_SHAPES, checkShapes, predictShape, type AstNode, type PredictedShape, type SpillShape } from "./spill";
 
@@ -128,10 +128,10 @@ function rangeHeightOf(plugin: FunctionPlugin, state: unknown): (node: AstNode) 
 
 export interface HeadroomRegistration {
   functions: BoundFunction[];
-  plugin: typeof FunctionPlugin;
+  plugin: FunctionPluginDefinition;
 }
 
-let registered: typeof FunctionPlugin | undefined;
+let registered: FunctionPluginDefinition | undefined;
 
 /**
  * Build the plugin class for these functions. Throws when the metadata and the module disagree or a spilling
