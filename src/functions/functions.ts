@@ -17,6 +17,15 @@ import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerL
 import { fail } from "../engine/errors";
 import { PITOT_COEFFICIENT_SMOOTH, exhaustionFlow, flowAt, pitotFlow, supplyAt } from "../engine/supply";
 import { fromUS, unitName } from "../engine/units";
+import { isBlank } from "./args";
+import { cFactorArg } from "./common";
+import { fittingArg, fittingListArg } from "./fittingList";
+import { nominalArg } from "./nominal";
+import { boundArg, hazardArg, hosePartArg, materialArg, scheduleArg, systemArg } from "./tableCodes";
+import { hazenWilliamsC } from "../engine/cfactor";
+import { areaOnCurve, areaSpan, designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
+import { TABLE_C_FACTOR, equivalentLength } from "../engine/fittings";
+import { internalDiameter } from "../engine/pipes";
 
 // ─── Water supply ────────────────────────────────────────────────────────────────────────────────────────────────
 /**
@@ -237,6 +246,146 @@ export function elevation(rise: any, units?: any): number {
 
 
 // ─── Trade tables: pipes, C factors, fittings, density/area, hose, duration ──────────────────────────────────────
+/**
+ * Internal diameter of a pipe from its nominal size and schedule, read from the pipe tables (ASME B36.10M steel;
+ * ASTM F442 CPVC, ASTM B88 copper, AWWA C900 PVC with ID = OD × (1 − 2/DR)).
+ * @customfunction
+ * @param nominal Nominal size: 2, 2.5, "2-1/2", "2 1/2" or "2½" (SI: DN, e.g. 65).
+ * @param schedule "10", "40" (default), "CPVC" (SDR 13.5), "K", "L", "M" (copper), "DR14" or "DR18" (C900 PVC).
+ * @param units "US" (default) or "SI".
+ * @returns Internal diameter (in; SI: mm).
+ */
+export function pipeid(nominal: any, schedule?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const s = scheduleArg(schedule);
+    const n = nominalArg(nominal, "nominal", s, u);
+    return fromUS("diameter", internalDiameter(n, s), u);
+  });
+}
+
+/**
+ * Hazen-Williams C of new pipe from the NFPA 13 C table, by material and system type.
+ * @customfunction
+ * @param material "steel" (black), "galvanized", "plastic", "cpvc", "copper", "stainless", "brass", "ductile" or "cast" (unlined), "lined ductile" (cement-lined), "asbestos cement", "concrete".
+ * @param system "wet" (default; deluge reads as wet) or "dry" (preaction reads as dry).
+ * @returns C factor.
+ */
+export function cfactor(material: any, system?: any): number {
+  return cell(() => hazenWilliamsC(materialArg(material), systemArg(system)));
+}
+
+/**
+ * Equivalent pipe length of one fitting or valve (NFPA 13 chart, Schedule 40 steel at C 120), adjusted by
+ * (C / 120)^1.85 and by (internal diameter / Schedule 40 internal diameter)^4.87. #N/A where the chart has no value.
+ * @customfunction
+ * @param fitting EE (45° elbow), E (elbow), LtE (long-turn elbow), T (tee or cross), BV (butterfly), GV (gate) or CV (check); plain words too.
+ * @param nominal Nominal size: 2, 2.5, "2-1/2", "2½" (SI: DN, e.g. 65).
+ * @param c_factor Hazen-Williams C of the pipe; default 120.
+ * @param schedule Pipe the fitting sits in: "40" (default), "10", "CPVC", "K", "L", "M", "DR14", "DR18".
+ * @param units "US" (default) or "SI".
+ * @returns Equivalent length (ft; SI: m).
+ */
+export function fittinglength(fitting: any, nominal: any, c_factor?: any, schedule?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const f = fittingArg(fitting);
+    const s = scheduleArg(schedule);
+    const n = nominalArg(nominal, "nominal", s, u);
+    const c = isBlank(c_factor) ? TABLE_C_FACTOR : cFactorArg(c_factor);
+    return fromUS("length", finiteResult(equivalentLength(f, n, c, s), "FITTINGLENGTH"), u);
+  });
+}
+
+/**
+ * Total equivalent pipe length of a list of fittings and valves such as "2E T GV", "E, E, T, CV" or
+ * "elbow tee check" (counts lead: "2E" is two elbows), each adjusted as in FITTINGLENGTH.
+ * @customfunction
+ * @param list Fittings: codes EE, E, LtE, T, BV, GV, CV or plain words, separated by spaces or commas, with counts.
+ * @param nominal Nominal size: 2, 2.5, "2-1/2", "2½" (SI: DN, e.g. 65).
+ * @param c_factor Hazen-Williams C of the pipe; default 120.
+ * @param schedule Pipe the fittings sit in: "40" (default), "10", "CPVC", "K", "L", "M", "DR14", "DR18".
+ * @param units "US" (default) or "SI".
+ * @returns Total equivalent length (ft; SI: m).
+ */
+export function fittings(list: any, nominal: any, c_factor?: any, schedule?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const items = fittingListArg(list);
+    const s = scheduleArg(schedule);
+    const n = nominalArg(nominal, "nominal", s, u);
+    const c = isBlank(c_factor) ? TABLE_C_FACTOR : cFactorArg(c_factor);
+    const total = items.reduce((sum, { fitting, count }) => sum + count * equivalentLength(fitting, n, c, s), 0);
+    return fromUS("length", finiteResult(total, "FITTINGS"), u);
+  });
+}
+
+/**
+ * Design density from the NFPA 13 density/area curve of a hazard: the straight line between its two points.
+ * An area off the curve is an error stating the curve's span.
+ * @customfunction
+ * @param hazard LH, OH1, OH2, EH1 or EH2 (or "light", "ordinary 1", "ordinary 2", "extra 1", "extra 2").
+ * @param area Design area (ft²; SI: m²); default the curve's smallest area.
+ * @param units "US" (default) or "SI".
+ * @returns Density (gpm/ft²; SI: mm/min).
+ */
+export function designdensity(hazard: any, area?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    const h = hazardArg(hazard);
+    if (isBlank(area)) return fromUS("density", designDensity(h), u);
+    const a = quantityArg(area, "area", "area", u);
+    const onCurve = areaOnCurve(h, a);
+    if (onCurve === undefined) {
+      const { min, max } = areaSpan(h);
+      const shown = (x: number) => Number(fromUS("area", x, u).toPrecision(4));
+      fail(`area: got ${showIn("area", a, u)}; the ${h} curve spans ${shown(min)} to ${shown(max)} ${unitName("area", u)}`);
+    }
+    return fromUS("density", designDensity(h, onCurve), u);
+  });
+}
+
+/**
+ * The smallest design area of a hazard's NFPA 13 density/area curve (its upper point).
+ * @customfunction
+ * @param hazard LH, OH1, OH2, EH1 or EH2 (or "light", "ordinary 1", "ordinary 2", "extra 1", "extra 2").
+ * @param units "US" (default) or "SI".
+ * @returns Design area (ft²; SI: m²).
+ */
+export function designarea(hazard: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    return fromUS("area", designArea(hazardArg(hazard)), u);
+  });
+}
+
+/**
+ * Hose stream allowance of a hazard (NFPA 13): the inside + outside total, the inside part (the largest inside
+ * allowance, 100 gpm) or the outside part (total − inside).
+ * @customfunction
+ * @param hazard LH, OH1, OH2, EH1 or EH2 (or "light", "ordinary 1", "ordinary 2", "extra 1", "extra 2").
+ * @param part "total" (default), "inside" or "outside".
+ * @param units "US" (default) or "SI".
+ * @returns Hose allowance (gpm; SI: L/min).
+ */
+export function hoseallowance(hazard: any, part?: any, units?: any): number {
+  return cell(() => {
+    const u = unitsArg(units);
+    return fromUS("flow", hoseAllowance(hazardArg(hazard), hosePartArg(part)), u);
+  });
+}
+
+/**
+ * Required water supply duration of a hazard in minutes (NFPA 13): the lower or upper end of the range.
+ * @customfunction
+ * @param hazard LH, OH1, OH2, EH1 or EH2 (or "light", "ordinary 1", "ordinary 2", "extra 1", "extra 2").
+ * @param bound "min" (default) or "max".
+ * @returns Duration (min).
+ */
+export function duration(hazard: any, bound?: any): number {
+  return cell(() => supplyDuration(hazardArg(hazard), boundArg(bound)));
+}
+
 
 // ─── Range functions and solvers: RUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE ─────────────────────
 

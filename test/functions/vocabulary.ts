@@ -25,4 +25,13 @@ export const VOCABULARY: string[] = [
   "PUMPBOOST",
   // Units
   "UNIT",
+  // Trade tables
+  "PIPEID",
+  "CFACTOR",
+  "FITTINGLENGTH",
+  "FITTINGS",
+  "DESIGNDENSITY",
+  "DESIGNAREA",
+  "HOSEALLOWANCE",
+  "DURATION",
 ];
