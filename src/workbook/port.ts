@@ -1,0 +1,119 @@
+/**
+ * The Workbook port: everything the task pane needs from a workbook, and nothing of Office.js.
+ *
+ * Two hosts implement it: ./excel.ts over Office.js, and the preview host over its embedded formula engine. Both
+ * pass the same contract tests (test/workbook/contract.ts). The pane reads the named cells listed here, watches for
+ * changes, and asks for two actions: insert an estimate sheet, make a values-only share copy.
+ *
+ * The port reports what a cell holds; it does not judge it. Whether text in Supply_Static is wrong, or an empty
+ * Pump_RatedFlow means "no pump", is the pane's decision (src/taskpane/model.ts).
+ */
+import type { Scenario } from "./template";
+
+/** The named cells the pane reads. Units holds "US" or "SI"; every other name holds a number in those units. */
+export const INPUT_NAMES = [
+  "Units",
+  "Supply_Static",
+  "Supply_Residual",
+  "Supply_TestFlow",
+  "Demand_Flow",
+  "Demand_Pressure",
+  "Demand_HoseFlow",
+  "Required_Margin",
+  "Pump_RatedFlow",
+  "Pump_RatedPressure",
+] as const;
+
+export type InputName = (typeof INPUT_NAMES)[number];
+
+/** Names an estimate must define; the others are optional. */
+export const REQUIRED_NAMES: readonly InputName[] = [
+  "Supply_Static",
+  "Supply_Residual",
+  "Supply_TestFlow",
+  "Demand_Flow",
+  "Demand_Pressure",
+];
+
+/**
+ * What one named cell holds.
+ * - number: a numeric value
+ * - text: a text value (for a numeric name: "not a number")
+ * - empty: the name refers to an empty cell
+ * - error: the cell shows an error; `code` is what the cell shows ("#VALUE!", "#BUSY!", "#NAME?"...), `message` the
+ *   custom message where the host knows it
+ * - missing: the workbook defines no such name
+ * - invalid: the name exists but is not one cell or a constant (e.g. it spans several cells, or its reference is
+ *   broken); `reason` says how
+ * `address` (e.g. "Estimate!B10") is given where the name refers to a cell.
+ */
+export type Reading =
+  | { kind: "number"; value: number; address?: string }
+  | { kind: "text"; value: string; address?: string }
+  | { kind: "empty"; address?: string }
+  | { kind: "error"; code: string; message?: string; address?: string }
+  | { kind: "missing" }
+  | { kind: "invalid"; reason: string; address?: string };
+
+export type Readings = Record<InputName, Reading>;
+
+export type UnitsCode = "US" | "SI";
+
+/** What "New estimate sheet" did. */
+export interface InsertResult {
+  /** name of the new worksheet */
+  sheetName: string;
+  /** names that pointed elsewhere before and now point to the new sheet */
+  namesMoved: InputName[];
+}
+
+/** What "Share copy" did, or why it refused. */
+export type ShareCopyResult =
+  | { ok: true; sheetName: string; sourceSheet: string }
+  | { ok: false; reason: string };
+
+export interface WorkbookPort {
+  /** Read every input name in one go. */
+  readInputs(): Promise<Readings>;
+  /**
+   * Call `onChange` after any change to or recalculation of the workbook (bursts may be coalesced into one call).
+   * Resolves once the host is listening; the returned function stops the calls.
+   */
+  subscribe(onChange: () => void): Promise<() => Promise<void>>;
+  /**
+   * Insert a complete estimate worksheet built from ./template.ts for the scenario (the demo scenario of those
+   * units if none is given), define its named cells, activate it.
+   */
+  insertEstimateSheet(units: UnitsCode, scenario?: Scenario): Promise<InsertResult>;
+  /**
+   * Copy the estimate sheet (the sheet Supply_Static refers to, else the active sheet) to a new sheet whose cells
+   * hold values only, stamped with the date and "values frozen; recalculation needs the Headroom add-in". The
+   * source is never modified. Refuses, saying why, while any cell of the source shows #BUSY! or another error.
+   */
+  makeShareCopy(): Promise<ShareCopyResult>;
+}
+
+/** The stamp a share copy carries, after its date. */
+export const SHARE_STAMP = "values frozen; recalculation needs the Headroom add-in";
+
+/** The stamp line of a share copy made on `date`: "Share copy of Estimate, 2026-05-04: values frozen; ...". */
+export function shareStamp(sourceSheet: string, date: Date): string {
+  return `Share copy of ${sourceSheet}, ${isoDate(date)}: ${SHARE_STAMP}.`;
+}
+
+/** A date as YYYY-MM-DD in local time: one form for every locale. */
+export function isoDate(date: Date): string {
+  const p = (n: number) => String(n).padStart(2, "0");
+  return `${date.getFullYear()}-${p(date.getMonth() + 1)}-${p(date.getDate())}`;
+}
+
+/** The refusal of a share copy while cells show errors; `cells` are [address, shown] pairs, first ones only. */
+export function shareRefusal(cells: Array<[string, string]>, total: number): string {
+  const busy = cells.some(([, shown]) => shown === "#BUSY!");
+  const list = cells.map(([a, shown]) => `${a} shows ${shown}`).join(", ");
+  const more = total > cells.length ? ` and ${total - cells.length} more` : "";
+  const why = busy
+    ? "Excel is still calculating: wait until no cell shows #BUSY!, then try again."
+    : "fix those cells first, so that the copy holds numbers.";
+  return `No share copy made: ${list}${more}; ${why}`;
+}

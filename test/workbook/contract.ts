@@ -1,0 +1,213 @@
+/**
+ * The contract every Workbook port host passes: the Excel side (excel.test.ts, over office-addin-mock) and the
+ * preview host (over its formula engine) both call `portContract` with a harness that drives their workbook.
+ *
+ * The harness does what a user would do in the workbook (type into a named cell, delete a name) and lets the test
+ * look at the workbook afterwards; the port under test is only used through its interface.
+ */
+import { describe, expect, it } from "vitest";
+import { INPUT_NAMES, type InputName, REQUIRED_NAMES, SHARE_STAMP, type WorkbookPort, isoDate } from "../../src/workbook/port";
+import { demoScenario, estimateTemplate } from "../../src/workbook/template";
+
+export interface PortHarness {
+  port: WorkbookPort;
+  /**
+   * Put `content` into the cell `name` refers to, as a user typing it would (null clears the cell), defining the
+   * name on a cell of the harness's own input sheet first if the workbook does not define it. Fires the host's
+   * change events.
+   */
+  put(name: InputName, content: number | string | null): Promise<void>;
+  /**
+   * Put a formula into the cell `name` refers to (defining the name as `put` does). `value` is what the formula
+   * evaluates to: hosts that calculate ignore it, hosts that cannot (a mock) show it.
+   */
+  putFormula(name: InputName, formula: string, value: number): Promise<void>;
+  /** Make the cell `name` refers to show an error (whichever error the host can produce). */
+  putError(name: InputName): Promise<void>;
+  /** Delete the workbook's definition of `name`. */
+  remove(name: InputName): Promise<void>;
+  /** Wait until change notifications caused by earlier calls have been delivered. */
+  settle(): Promise<void>;
+  /** Names of the worksheets, in order. */
+  sheetNames(): Promise<string[]>;
+  /** Every non-empty cell of a sheet: address ("B10") → { value shown, formula if any }. */
+  cells(sheet: string): Promise<Record<string, { value: unknown; formula?: string }>>;
+  /** The sheet and cell a workbook name refers to, or null when it is not defined. */
+  nameTarget(name: string): Promise<{ sheet: string; address: string } | null>;
+  dispose?(): Promise<void>;
+}
+
+const REQUIRED_VALUES: Record<string, number> = {
+  Supply_Static: 72,
+  Supply_Residual: 58,
+  Supply_TestFlow: 1100,
+  Demand_Flow: 562,
+  Demand_Pressure: 48,
+};
+
+async function fillRequired(h: PortHarness): Promise<void> {
+  for (const name of REQUIRED_NAMES) await h.put(name, REQUIRED_VALUES[name]);
+  await h.put("Units", "US");
+}
+
+export function portContract(host: string, makeHarness: () => Promise<PortHarness>): void {
+  const withHarness = (body: (h: PortHarness) => Promise<void>) => async () => {
+    const h = await makeHarness();
+    try {
+      await body(h);
+    } finally {
+      await h.dispose?.();
+    }
+  };
+
+  describe(`Workbook port contract: ${host}`, () => {
+    it(
+      "reads every input name, numbers as numbers and Units as text",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        const r = await h.port.readInputs();
+        expect(Object.keys(r).sort()).toEqual([...INPUT_NAMES].sort());
+        for (const name of REQUIRED_NAMES) {
+          expect(r[name]).toMatchObject({ kind: "number", value: REQUIRED_VALUES[name] });
+        }
+        expect(r.Units).toMatchObject({ kind: "text", value: "US" });
+      }),
+    );
+
+    it(
+      "says which names the workbook does not define",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.remove("Demand_Pressure");
+        const r = await h.port.readInputs();
+        expect(r.Demand_Pressure).toEqual({ kind: "missing" });
+        expect(r.Pump_RatedFlow).toEqual({ kind: "missing" });
+        expect(r.Supply_Static.kind).toBe("number");
+      }),
+    );
+
+    it(
+      "tells an empty cell, text and an error apart, with the cell's address",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.put("Supply_Static", "seventy");
+        await h.put("Supply_Residual", null);
+        await h.putError("Supply_TestFlow");
+        const r = await h.port.readInputs();
+        expect(r.Supply_Static).toMatchObject({ kind: "text", value: "seventy" });
+        expect(r.Supply_Residual.kind).toBe("empty");
+        expect(r.Supply_TestFlow.kind).toBe("error");
+        if (r.Supply_TestFlow.kind === "error") expect(r.Supply_TestFlow.code).toMatch(/^#[A-Z0-9/]+[!?]?$/);
+        const target = await h.nameTarget("Supply_Static");
+        expect(target).not.toBeNull();
+        if (r.Supply_Static.kind === "text") expect(r.Supply_Static.address).toMatch(new RegExp(`${target!.address}$`));
+      }),
+    );
+
+    it(
+      "reads the value a formula gives, not the formula",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.putFormula("Supply_Residual", "=50+8", 58);
+        const r = await h.port.readInputs();
+        expect(r.Supply_Residual).toMatchObject({ kind: "number", value: 58 });
+      }),
+    );
+
+    it(
+      "calls the subscriber after a change, and stops after unsubscribing",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        let calls = 0;
+        const unsubscribe = await h.port.subscribe(() => calls++);
+        await h.put("Demand_Flow", 600);
+        await h.settle();
+        expect(calls).toBeGreaterThanOrEqual(1);
+        expect((await h.port.readInputs()).Demand_Flow).toMatchObject({ kind: "number", value: 600 });
+        await unsubscribe();
+        const before = calls;
+        await h.put("Demand_Flow", 650);
+        await h.settle();
+        expect(calls).toBe(before);
+      }),
+    );
+
+    it(
+      "inserts an estimate sheet whose named cells the port then reads",
+      withHarness(async (h) => {
+        const sheetsBefore = await h.sheetNames();
+        const result = await h.port.insertEstimateSheet("US");
+        const sheetsAfter = await h.sheetNames();
+        expect(sheetsAfter).toContain(result.sheetName);
+        expect(sheetsBefore).not.toContain(result.sheetName);
+        const template = estimateTemplate(demoScenario("US"));
+        for (const n of template.names) {
+          expect(await h.nameTarget(n.name)).toEqual({ sheet: result.sheetName, address: n.address });
+        }
+        const r = await h.port.readInputs();
+        const demo = demoScenario("US");
+        expect(r.Units).toMatchObject({ kind: "text", value: "US" });
+        expect(r.Supply_Static).toMatchObject({ kind: "number", value: demo.flowTest.static });
+        expect(r.Supply_Residual).toMatchObject({ kind: "number", value: demo.flowTest.residual });
+        expect(r.Required_Margin).toMatchObject({ kind: "number", value: demo.requiredMargin });
+        for (const name of REQUIRED_NAMES) expect(r[name].kind).not.toBe("missing");
+      }),
+    );
+
+    it(
+      "a second estimate sheet gets its own name and takes the named cells over",
+      withHarness(async (h) => {
+        const first = await h.port.insertEstimateSheet("US");
+        const second = await h.port.insertEstimateSheet("SI");
+        expect(second.sheetName).not.toBe(first.sheetName);
+        expect(second.namesMoved).toContain("Supply_Static");
+        expect((await h.nameTarget("Supply_Static"))?.sheet).toBe(second.sheetName);
+        const r = await h.port.readInputs();
+        expect(r.Units).toMatchObject({ kind: "text", value: "SI" });
+        expect(r.Supply_Static).toMatchObject({ kind: "number", value: demoScenario("SI").flowTest.static });
+      }),
+    );
+
+    it(
+      "makes a share copy holding values only, stamped, and leaves the source untouched",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.putFormula("Supply_Residual", "=50+8", 58);
+        const source = (await h.nameTarget("Supply_Static"))!.sheet;
+        const before = await h.cells(source);
+        const result = await h.port.makeShareCopy();
+        expect(result).toMatchObject({ ok: true, sourceSheet: source });
+        if (!result.ok) return;
+        expect(await h.sheetNames()).toContain(result.sheetName);
+        expect(await h.cells(source)).toEqual(before);
+        const copy = await h.cells(result.sheetName);
+        const formulas = Object.entries(copy).filter(([, c]) => c.formula);
+        expect(formulas).toEqual([]);
+        const shown = Object.values(copy).map((c) => c.value);
+        expect(shown).toContain(58);
+        expect(shown).toContain(72);
+        const stamp = shown.find((v) => typeof v === "string" && v.includes(SHARE_STAMP));
+        expect(stamp).toContain(isoDate(new Date()));
+      }),
+    );
+
+    it(
+      "refuses a share copy while a cell shows an error, naming the cell, and adds no sheet",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.putError("Demand_Flow");
+        const sheetsBefore = await h.sheetNames();
+        const target = (await h.nameTarget("Demand_Flow"))!;
+        const before = await h.cells(target.sheet);
+        const result = await h.port.makeShareCopy();
+        expect(result.ok).toBe(false);
+        if (!result.ok) {
+          expect(result.reason).toContain(target.address);
+          expect(result.reason).toMatch(/#[A-Z0-9/]+[!?]?/);
+        }
+        expect(await h.sheetNames()).toEqual(sheetsBefore);
+        expect(await h.cells(target.sheet)).toEqual(before);
+      }),
+    );
+  });
+}
