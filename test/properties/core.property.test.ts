@@ -128,7 +128,8 @@ describe("inverses and SI consistency", () => {
   test.prop([arb.flowTest, fc.double({ min: 0, max: 1, noNaN: true })], RUNS)("FLOWAT(SUPPLYAT(q)) = q", (t, frac) => {
     const q = frac * t.testFlow;
     const p = f.supplyat(q, t.static, t.residual, t.testFlow);
-    expect(f.flowat(p, t.static, t.residual, t.testFlow)).toBeCloseTo(q, 6);
+    // near zero flow the curve is flat (dP/dQ → 0), so the inverse is held to a millionth of the test flow there
+    expect(Math.abs(f.flowat(p, t.static, t.residual, t.testFlow) - q)).toBeLessThanOrEqual(1e-6 * t.testFlow + 1e-9 * q);
   });
   test.prop([arb.kFactor, fc.double({ min: 7, max: 175, noNaN: true })], RUNS)("HEADPRESSURE(K √p) = p above the minimum", (k, p) => {
     expect(rel(f.headpressure(k * Math.sqrt(p), k), p)).toBeLessThan(1e-12);
