@@ -1,0 +1,60 @@
+/**
+ * A workbook as plain data: what an .xlsx file holds for the preview, what the estimate template produces, and what
+ * the preview engine is built from and saved back to. No engine, no DOM, no file format here.
+ *
+ * Formulas are written as the engine reads them: "=HEADROOM.FRICTION(B2,B3,B4,B5)" (./formulaText maps to and from
+ * the file's spelling).
+ */
+import type { CellRole as TemplateRole } from "../workbook/template";
+
+/** What a cell holds as typed: a number, text, a boolean, a formula ("=…"), or nothing. */
+export type CellContent = number | string | boolean | null;
+
+/** A computed value as a file caches it: a number, text, boolean, or an error code with its message. */
+export type CachedValue = number | string | boolean | null | { error: string; message?: string };
+
+/**
+ * What a cell is for on an estimate sheet (the template's roles): inputs are the values a user types; computed cells
+ * hold formulas; the rest are words around them. The grid and the saved file show each role its own way.
+ */
+export type CellRole = TemplateRole;
+
+export interface CellStyle {
+  role?: CellRole;
+  /** Excel number format, e.g. "0.0", "#,##0", "0.00%" */
+  numFmt?: string;
+  bold?: boolean;
+  italic?: boolean;
+  /** wrap long text within the cell's width */
+  wrap?: boolean;
+}
+
+export interface CellData {
+  content: CellContent;
+  style?: CellStyle;
+  /** The last computed value (from a file, or written on save). */
+  cached?: CachedValue;
+}
+
+export interface SheetData {
+  name: string;
+  /** Keyed by A1 address ("B7"). */
+  cells: Record<string, CellData>;
+  /** Column widths in points, by 0-based column. */
+  columnWidths?: Record<number, number>;
+  /** Cells spanning several columns, as "A1:F1". */
+  merges?: string[];
+}
+
+/** A workbook-scoped defined name: `ref` like "Estimate!$B$8" (or a constant such as "=0"). */
+export interface DefinedName {
+  name: string;
+  ref: string;
+}
+
+export interface WorkbookData {
+  sheets: SheetData[];
+  names: DefinedName[];
+  /** name of the sheet shown first */
+  activeSheet?: string;
+}

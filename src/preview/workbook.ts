@@ -1,0 +1,355 @@
+/**
+ * The preview's workbook: sheets, cells, styles and defined names over one HyperFormula engine that runs Headroom's
+ * cell functions (./plugin). Built from plain workbook data (./model) and saved back to it with cached values.
+ *
+ * Call ./plugin's registerHeadroomFunctions (with the CustomFunctions stand-in installed) before creating one.
+ */
+import { DetailedCellError, HyperFormula } from "hyperformula";
+import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformula";
+import { absoluteRef, cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
+import type { CachedValue, CellContent, CellData, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
+import { formatValue, parseTyped, type ShownValue } from "./format";
+
+/** The engine's settings: the licence key, Excel's dynamic-array behaviour, and full-precision results. */
+export const ENGINE_CONFIG: Partial<ConfigParams> = {
+  // HyperFormula is used under the GPL v3 (see README, "Licences"); without the key custom functions give #LIC!.
+  licenseKey: "gpl-v3",
+  // Spilling formulas behave as in Excel 365: IF(…, RUN(…), …) spills, =A1:A3*2 spills.
+  useArrayArithmetic: true,
+  // Values exactly as the functions compute them (the grid rounds for display; files get every digit).
+  smartRounding: false,
+};
+
+/** One cell as the grid and the port see it. */
+export interface CellView {
+  address: string;
+  /** what the cell holds as typed: a formula "=…", a value, or null */
+  content: CellContent;
+  /** what it evaluates to */
+  value: ShownValue;
+  /** the value in the cell's number format */
+  display: string;
+  style?: CellStyle;
+  /** for a cell filled by a spilling formula elsewhere: that formula's address */
+  spilledFrom?: string;
+  /** for a spilling formula: the block it fills, e.g. "M40:P43" */
+  spillRange?: string;
+}
+
+export type ChangeListener = () => void;
+
+function shown(v: unknown): ShownValue {
+  if (v instanceof DetailedCellError) return v.message ? { error: v.value, message: v.message } : { error: v.value };
+  if (v === undefined || v === null) return null;
+  if (typeof v === "number" || typeof v === "string" || typeof v === "boolean") return v;
+  return String(v);
+}
+
+export class PreviewWorkbook {
+  readonly hf: HyperFormula;
+  private readonly styles = new Map<string, Map<string, CellStyle>>();
+  private readonly widths = new Map<string, Record<number, number>>();
+  private readonly merges = new Map<string, string[]>();
+  private readonly listeners = new Set<ChangeListener>();
+  private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
+  activeSheet: string;
+
+  constructor(data: WorkbookData) {
+    if (!data.sheets.length) throw new Error("a workbook needs at least one sheet");
+    const sheets: Record<string, RawCellContent[][]> = {};
+    for (const s of data.sheets) {
+      sheets[s.name] = toRows(s);
+      this.keepLayout(s);
+    }
+    this.hf = HyperFormula.buildFromSheets(sheets, ENGINE_CONFIG);
+    for (const n of data.names) this.setName(n.name, n.ref, { quiet: true });
+    this.activeSheet = data.activeSheet && sheets[data.activeSheet] ? data.activeSheet : data.sheets[0].name;
+    this.hf.on("valuesUpdated", () => this.changed());
+  }
+
+  // ─── Sheets ────────────────────────────────────────────────────────────────────────────────────────────────────
+
+  sheetNames(): string[] {
+    return this.hf.getSheetNames();
+  }
+
+  private sheetId(sheet: string): number {
+    const id = this.hf.getSheetId(sheet);
+    if (id === undefined) throw new Error(`no sheet named "${sheet}"`);
+    return id;
+  }
+
+  /** Show this sheet (the grid follows). */
+  activate(sheet: string): void {
+    this.sheetId(sheet);
+    this.activeSheet = sheet;
+    this.changed();
+  }
+
+  /** Add a sheet (renamed " 2", " 3"… when the name is taken); returns its name. */
+  addSheet(data: SheetData): string {
+    const name = freeSheetName(data.name, this.sheetNames());
+    const sheet = { ...data, name };
+    this.keepLayout(sheet);
+    this.hf.batch(() => {
+      this.hf.addSheet(name);
+      this.hf.setSheetContent(this.sheetId(name), toRows(sheet));
+    });
+    this.changed();
+    return name;
+  }
+
+  /** Rows and columns in use (at least 1×1), spills included. */
+  extent(sheet: string): { rows: number; cols: number } {
+    const d = this.hf.getSheetDimensions(this.sheetId(sheet));
+    let rows = d.height;
+    let cols = d.width;
+    for (const addr of this.styles.get(sheet)?.keys() ?? []) {
+      const a = parseCell(addr);
+      rows = Math.max(rows, a.row + 1);
+      cols = Math.max(cols, a.col + 1);
+    }
+    return { rows: Math.max(rows, 1), cols: Math.max(cols, 1) };
+  }
+
+  columnWidths(sheet: string): Record<number, number> {
+    return this.widths.get(sheet) ?? {};
+  }
+
+  mergedRanges(sheet: string): string[] {
+    return this.merges.get(sheet) ?? [];
+  }
+
+  // ─── Cells ─────────────────────────────────────────────────────────────────────────────────────────────────────
+
+  private addr(sheet: string, address: string): SimpleCellAddress {
+    const a = parseCell(address);
+    return { sheet: this.sheetId(sheet), row: a.row, col: a.col };
+  }
+
+  content(sheet: string, address: string): CellContent {
+    const v = this.hf.getCellSerialized(this.addr(sheet, address));
+    if (v === undefined || v === null) return null;
+    if (typeof v === "number" || typeof v === "string" || typeof v === "boolean") return v;
+    return String(v);
+  }
+
+  value(sheet: string, address: string): ShownValue {
+    return shown(this.hf.getCellValue(this.addr(sheet, address)));
+  }
+
+  style(sheet: string, address: string): CellStyle | undefined {
+    return this.styles.get(sheet)?.get(address);
+  }
+
+  cell(sheet: string, address: string): CellView {
+    const content = this.content(sheet, address);
+    const value = this.value(sheet, address);
+    const style = this.style(sheet, address);
+    const spill = this.spills(sheet).get(address);
+    const view: CellView = { address, content, value, display: formatValue(value, style?.numFmt), style };
+    if (spill && spill.anchor !== address) view.spilledFrom = spill.anchor;
+    if (spill && spill.anchor === address) view.spillRange = spill.range;
+    return view;
+  }
+
+  /** Put content into a cell (null clears it). */
+  setContent(sheet: string, address: string, content: CellContent): void {
+    this.hf.setCellContents(this.addr(sheet, address), [[content]]);
+  }
+
+  /** Put what a user typed into a cell: formulas, numbers, TRUE/FALSE and text as a spreadsheet reads them. */
+  setTyped(sheet: string, address: string, typed: string): void {
+    this.setContent(sheet, address, parseTyped(typed));
+  }
+
+  setStyle(sheet: string, address: string, style: CellStyle | undefined): void {
+    let m = this.styles.get(sheet);
+    if (!m) this.styles.set(sheet, (m = new Map()));
+    if (style) m.set(address, style);
+    else m.delete(address);
+  }
+
+  /** Every cell of a sheet that holds something or has a style, with its view. */
+  cells(sheet: string): CellView[] {
+    const out: CellView[] = [];
+    const { rows, cols } = this.extent(sheet);
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < cols; c++) {
+        const address = cellAddress({ row: r, col: c });
+        const v = this.cell(sheet, address);
+        if (v.content !== null || v.value !== null || v.style) out.push(v);
+      }
+    }
+    return out;
+  }
+
+  /**
+   * The spilled blocks of a sheet: every cell a spilling formula fills → its anchor and block. Read from the engine
+   * (cells that are part of an array) after each change.
+   */
+  spills(sheet: string): Map<string, { anchor: string; range: string }> {
+    const cached = this.spillCache.get(sheet);
+    if (cached) return cached;
+    const map = new Map<string, { anchor: string; range: string }>();
+    const id = this.sheetId(sheet);
+    const serial = this.hf.getSheetSerialized(id);
+    serial.forEach((row, r) =>
+      row.forEach((content, c) => {
+        if (typeof content !== "string" || !content.startsWith("=")) return;
+        if (!this.hf.isCellPartOfArray({ sheet: id, row: r, col: c })) return;
+        const isFilled = (rr: number, cc: number) =>
+          this.hf.isCellPartOfArray({ sheet: id, row: rr, col: cc }) && this.hf.getCellFormula({ sheet: id, row: rr, col: cc }) === undefined && !map.has(cellAddress({ row: rr, col: cc }));
+        let width = 1;
+        while (isFilled(r, c + width)) width++;
+        let height = 1;
+        while (isFilled(r + height, c)) height++;
+        const anchor = cellAddress({ row: r, col: c });
+        const range = `${anchor}:${cellAddress({ row: r + height - 1, col: c + width - 1 })}`;
+        for (let i = 0; i < height; i++) for (let k = 0; k < width; k++) map.set(cellAddress({ row: r + i, col: c + k }), { anchor, range });
+      }),
+    );
+    this.spillCache.set(sheet, map);
+    return map;
+  }
+
+  // ─── Names ─────────────────────────────────────────────────────────────────────────────────────────────────────
+
+  names(): DefinedName[] {
+    return this.hf.listNamedExpressions().map((name) => ({ name, ref: (this.hf.getNamedExpressionFormula(name) ?? "").replace(/^=/, "") }));
+  }
+
+  /** Define (or redefine) a workbook name: `ref` like "Estimate!$B$8" or "=Estimate!$B$8". */
+  setName(name: string, ref: string, opts: { quiet?: boolean } = {}): void {
+    const expression = ref.startsWith("=") ? ref : `=${ref}`;
+    if (this.hf.listNamedExpressions().some((n) => n.toLowerCase() === name.toLowerCase())) {
+      this.hf.changeNamedExpression(name, expression);
+    } else {
+      this.hf.addNamedExpression(name, expression);
+    }
+    if (!opts.quiet) this.changed();
+  }
+
+  /** Point a name at one cell. */
+  setNameToCell(name: string, sheet: string, address: string): void {
+    this.setName(name, absoluteRef(sheet, address));
+  }
+
+  removeName(name: string): void {
+    const existing = this.hf.listNamedExpressions().find((n) => n.toLowerCase() === name.toLowerCase());
+    if (existing) {
+      this.hf.removeNamedExpression(existing);
+      this.changed();
+    }
+  }
+
+  /**
+   * What a name refers to: one cell, a block of cells, something else (a constant or formula), or nothing (the name
+   * is not defined). Matching is case-insensitive, as in Excel.
+   */
+  nameTarget(
+    name: string,
+  ):
+    | { kind: "cell"; sheet: string; address: string }
+    | { kind: "range"; sheet: string; range: string }
+    | { kind: "other"; expression: string }
+    | null {
+    const existing = this.hf.listNamedExpressions().find((n) => n.toLowerCase() === name.toLowerCase());
+    if (!existing) return null;
+    const expression = (this.hf.getNamedExpressionFormula(existing) ?? "").replace(/^=/, "");
+    const { sheet, range } = splitSheet(expression);
+    if (sheet && this.hf.getSheetId(sheet) !== undefined && /^\$?[A-Za-z]{1,3}\$?\d+(:\$?[A-Za-z]{1,3}\$?\d+)?$/.test(range)) {
+      const r = parseRange(range.replace(/\$/g, ""));
+      if (r.rows === 1 && r.cols === 1) return { kind: "cell", sheet, address: cellAddress(r.start) };
+      return { kind: "range", sheet, range: range.replace(/\$/g, "") };
+    }
+    return { kind: "other", expression };
+  }
+
+  nameValue(name: string): ShownValue {
+    const existing = this.hf.listNamedExpressions().find((n) => n.toLowerCase() === name.toLowerCase());
+    return existing ? shown(this.hf.getNamedExpressionValue(existing)) : null;
+  }
+
+  // ─── Changes ───────────────────────────────────────────────────────────────────────────────────────────────────
+
+  /** Call `listener` after every change or recalculation; returns the function that stops it. */
+  onChange(listener: ChangeListener): () => void {
+    this.listeners.add(listener);
+    return () => this.listeners.delete(listener);
+  }
+
+  private changed(): void {
+    this.spillCache = new Map();
+    for (const l of [...this.listeners]) l();
+  }
+
+  undo(): boolean {
+    if (!this.hf.isThereSomethingToUndo()) return false;
+    this.hf.undo();
+    this.changed();
+    return true;
+  }
+
+  redo(): boolean {
+    if (!this.hf.isThereSomethingToRedo()) return false;
+    this.hf.redo();
+    this.changed();
+    return true;
+  }
+
+  // ─── Export ────────────────────────────────────────────────────────────────────────────────────────────────────
+
+  /** The whole workbook as data, every cell with its current value cached. */
+  toData(): WorkbookData {
+    const sheets: SheetData[] = this.sheetNames().map((name) => this.sheetData(name));
+    return { sheets, names: this.names(), activeSheet: this.activeSheet };
+  }
+
+  sheetData(name: string): SheetData {
+    const cells: Record<string, CellData> = {};
+    for (const v of this.cells(name)) {
+      const cell: CellData = { content: v.content };
+      if (v.style) cell.style = v.style;
+      if (v.value !== null || v.content !== null) cell.cached = cachedOf(v.value);
+      cells[v.address] = cell;
+    }
+    const data: SheetData = { name, cells };
+    const widths = this.widths.get(name);
+    if (widths && Object.keys(widths).length) data.columnWidths = { ...widths };
+    const merges = this.merges.get(name);
+    if (merges?.length) data.merges = [...merges];
+    return data;
+  }
+
+  /** A formula that refers to `address` on `sheet` from another sheet. */
+  static reference(sheet: string, address: string): string {
+    return `${quoteSheet(sheet)}!${address}`;
+  }
+
+  private keepLayout(s: SheetData): void {
+    const m = new Map<string, CellStyle>();
+    for (const [address, cell] of Object.entries(s.cells)) if (cell.style) m.set(address, cell.style);
+    this.styles.set(s.name, m);
+    this.widths.set(s.name, { ...(s.columnWidths ?? {}) });
+    this.merges.set(s.name, [...(s.merges ?? [])]);
+  }
+}
+
+function cachedOf(v: ShownValue): CachedValue {
+  return v;
+}
+
+/** A sheet's cells as the engine's rows of raw content. */
+function toRows(s: SheetData): RawCellContent[][] {
+  const rows: RawCellContent[][] = [];
+  for (const [address, cell] of Object.entries(s.cells)) {
+    if (cell.content === null || cell.content === undefined) continue;
+    const a = parseCell(address);
+    while (rows.length <= a.row) rows.push([]);
+    const row = rows[a.row];
+    while (row.length < a.col) row.push(null);
+    row[a.col] = cell.content;
+  }
+  return rows;
+}

@@ -1,0 +1,149 @@
+/**
+ * The Workbook port over the preview's own workbook (src/preview/workbook.ts): the same task pane runs beside the
+ * preview grid as in Excel, reading the same named cells, and its two actions work on the preview's sheets.
+ *
+ * It passes the same contract tests as the Excel side (test/workbook/contract.ts, run by test/preview/port.test.ts).
+ */
+import type { PreviewWorkbook } from "../preview/workbook";
+import { templateNames, templateSheet } from "../preview/fromTemplate";
+import type { CellData, SheetData } from "../preview/model";
+import { cellAddress, freeSheetName, parseCell } from "./a1";
+import {
+  INPUT_NAMES,
+  type InsertResult,
+  type InputName,
+  type Reading,
+  type Readings,
+  type ShareCopyResult,
+  type UnitsCode,
+  type WorkbookPort,
+  shareRefusal,
+  shareStamp,
+} from "./port";
+import { demoScenario, estimateTemplate, type Scenario } from "./template";
+
+/** How many error cells a refused share copy names before "and N more". */
+const REFUSAL_LIST = 5;
+
+/** Rows a share copy puts above the copied cells: the stamp, then a blank row. */
+const STAMP_ROWS = 2;
+
+export class PreviewPort implements WorkbookPort {
+  /** `now` gives the date a share copy is stamped with (a parameter for tests). */
+  constructor(
+    readonly workbook: PreviewWorkbook,
+    private readonly now: () => Date = () => new Date(),
+  ) {}
+
+  async readInputs(): Promise<Readings> {
+    const out = {} as Readings;
+    for (const name of INPUT_NAMES) out[name] = this.read(name);
+    return out;
+  }
+
+  private read(name: InputName): Reading {
+    const wb = this.workbook;
+    const target = wb.nameTarget(name);
+    if (!target) return { kind: "missing" };
+    if (target.kind === "range") {
+      return {
+        kind: "invalid",
+        reason: `${name} refers to several cells (${target.sheet}!${target.range}); point it at one cell`,
+        address: `${target.sheet}!${target.range}`,
+      };
+    }
+    const address = target.kind === "cell" ? `${target.sheet}!${target.address}` : undefined;
+    const value = target.kind === "cell" ? wb.value(target.sheet, target.address) : wb.nameValue(name);
+    if (target.kind === "other" && value !== null && typeof value === "object" && value.error === "#REF!") {
+      return { kind: "invalid", reason: `${name} refers to ${target.expression}, which is not a cell of this workbook` };
+    }
+    const at = address ? { address } : {};
+    if (value === null || value === "") return { kind: "empty", ...at };
+    if (typeof value === "number") return { kind: "number", value, ...at };
+    if (typeof value === "string") return { kind: "text", value, ...at };
+    if (typeof value === "boolean") return { kind: "text", value: value ? "TRUE" : "FALSE", ...at };
+    return { kind: "error", code: value.error, ...(value.message ? { message: value.message } : {}), ...at };
+  }
+
+  async subscribe(onChange: () => void): Promise<() => Promise<void>> {
+    // bursts of engine events (one edit recalculates many cells) reach the subscriber as one call
+    let pending = false;
+    let active = true;
+    const stop = this.workbook.onChange(() => {
+      if (pending || !active) return;
+      pending = true;
+      queueMicrotask(() => {
+        pending = false;
+        if (active) onChange();
+      });
+    });
+    return async () => {
+      active = false;
+      stop();
+    };
+  }
+
+  async insertEstimateSheet(units: UnitsCode, scenario?: Scenario): Promise<InsertResult> {
+    const wb = this.workbook;
+    const t = estimateTemplate(scenario ?? demoScenario(units));
+    const sheetName = wb.addSheet(templateSheet(t, freeSheetName(t.sheetName, wb.sheetNames())));
+    const namesMoved: InputName[] = [];
+    for (const n of templateNames(t, sheetName)) {
+      const before = wb.nameTarget(n.name);
+      if (before) namesMoved.push(n.name as InputName);
+      wb.setName(n.name, n.ref);
+    }
+    wb.activate(sheetName);
+    return { sheetName, namesMoved };
+  }
+
+  /** The sheet a share copy is made of: the one Supply_Static refers to, else the active one. */
+  estimateSheet(): string {
+    const t = this.workbook.nameTarget("Supply_Static");
+    return t && (t.kind === "cell" || t.kind === "range") ? t.sheet : this.workbook.activeSheet;
+  }
+
+  /** The share copy's sheet data (not added to the workbook), or why there is none. */
+  shareCopyData(): { ok: true; sheet: SheetData; sourceSheet: string } | { ok: false; reason: string } {
+    const wb = this.workbook;
+    const source = this.estimateSheet();
+    const views = wb.cells(source);
+    const bad = views.filter((v) => v.value !== null && typeof v.value === "object");
+    if (bad.length) {
+      const shown = bad.slice(0, REFUSAL_LIST).map((v) => [v.address, (v.value as { error: string }).error] as [string, string]);
+      return { ok: false, reason: shareRefusal(shown, bad.length) };
+    }
+    const cells: Record<string, CellData> = {};
+    const stampAt = "A1";
+    cells[stampAt] = { content: shareStamp(source, this.now()), style: { role: "caution", bold: true } };
+    for (const v of views) {
+      const a = parseCell(v.address);
+      const to = cellAddress({ row: a.row + STAMP_ROWS, col: a.col });
+      const value = v.value as number | string | boolean | null;
+      cells[to] = { content: value, ...(v.style ? { style: v.style } : {}) };
+    }
+    const merges = wb.mergedRanges(source).map((m) =>
+      m
+        .split(":")
+        .map((x) => {
+          const a = parseCell(x);
+          return cellAddress({ row: a.row + STAMP_ROWS, col: a.col });
+        })
+        .join(":"),
+    );
+    const sheet: SheetData = {
+      name: freeSheetName(`${source} (values)`, wb.sheetNames()),
+      cells,
+      columnWidths: { ...wb.columnWidths(source) },
+      ...(merges.length ? { merges } : {}),
+    };
+    return { ok: true, sheet, sourceSheet: source };
+  }
+
+  async makeShareCopy(): Promise<ShareCopyResult> {
+    const made = this.shareCopyData();
+    if (!made.ok) return made;
+    const sheetName = this.workbook.addSheet(made.sheet);
+    return { ok: true, sheetName, sourceSheet: made.sourceSheet };
+  }
+}
