@@ -78,6 +78,8 @@ export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
     fail(`${name}: got ${Array.isArray(value) ? "a range" : show(value)}; must be text such as "2E T GV"`);
   }
   const text = String(value);
+  // a hyphen joins words ("long-turn"); before a count it would be a minus sign, and a count is 1 or more
+  if (/(^|[\s,;+&])[-−]\s*\d/.test(text)) fail(`${name}: ${show(text)} has a negative count; a count is a whole number of 1 or more`);
   const original = text
     .replace(/[,;+&]/g, " , ")
     .replace(/[-_°º]/g, " ")
