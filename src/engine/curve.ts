@@ -1,0 +1,59 @@
+/**
+ * Points of the water supply curve, ready for a chart. US units: gpm, psi.
+ */
+import { fail, show } from "./errors";
+import { HW_FLOW_EXPONENT } from "./friction";
+import { type FlowTest, checkFlowTest, exhaustionFlow } from "./supply";
+
+/** Rows of a supply curve by default: enough for a smooth native chart line. */
+export const SUPPLY_CURVE_POINTS = 16;
+/** The curve runs to this multiple of the test flow by default. */
+export const SUPPLY_CURVE_FLOW_FACTOR = 1.5;
+/** The most rows a curve may have (a plausibility bound on `points`). (common practice) */
+export const SUPPLY_CURVE_MAX_POINTS = 1000;
+
+/** One point of the curve: [flow gpm, pressure psi]. */
+export type CurvePoint = readonly [flow: number, pressure: number];
+
+/**
+ * `points` evenly spaced points of the supply curve from 0 to `maxFlow`:
+ *
+ *   Q_i = maxFlow × i / (points − 1),   P_i = Ps − (Ps − Pr) (Q_i / Qt)^1.85,   i = 0 … points − 1
+ *
+ * If the supply reaches 0 psi before maxFlow (at Qe = Qt (Ps / (Ps − Pr))^(1/1.85)), the first point at or beyond
+ * Qe becomes [Qe, 0] and every later point is null (the cell layer shows it as blank cells), so the number of rows
+ * never depends on the values, only on `points`.
+ *
+ * @param t the flow test (psi, gpm)
+ * @param maxFlow gpm (> 0)
+ * @param points number of rows, a whole number from 2 to SUPPLY_CURVE_MAX_POINTS
+ * @returns `points` entries, each a point or null
+ * Source: [NFPA 291] supply curve.
+ * Worked value: static 70, residual 50 at 1000 gpm, maxFlow 1500, 4 points → [0, 70], [500, 64.45],
+ * [1000, 50], [1500, 27.66] psi.
+ */
+export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number): (CurvePoint | null)[] {
+  checkFlowTest(t);
+  if (!(maxFlow > 0) || !Number.isFinite(maxFlow)) fail(`max_flow: got ${show(maxFlow)}; must be greater than 0`);
+  if (!(Number.isInteger(points) && points >= 2 && points <= SUPPLY_CURVE_MAX_POINTS)) {
+    fail(`points: got ${show(points)}; must be a whole number from 2 to ${SUPPLY_CURVE_MAX_POINTS}`);
+  }
+  const qe = exhaustionFlow(t);
+  const rows: (CurvePoint | null)[] = [];
+  let exhausted = false;
+  for (let i = 0; i < points; i++) {
+    if (exhausted) {
+      rows.push(null);
+      continue;
+    }
+    const q = (maxFlow * i) / (points - 1);
+    const p = t.static - (t.static - t.residual) * Math.pow(q / t.testFlow, HW_FLOW_EXPONENT);
+    if (q >= qe || !(p > 0)) {
+      rows.push([qe, 0]);
+      exhausted = true;
+    } else {
+      rows.push([q, p]);
+    }
+  }
+  return rows;
+}

@@ -1,0 +1,131 @@
+/**
+ * Fire pumps: picking a standard rating for a demand, and the pressure a pump gives along its curve.
+ * US units: gpm, psi.
+ */
+import { HeadroomError, fail, notInTable, show } from "./errors";
+import { ceilCount } from "./sprinkler";
+
+/**
+ * Standard rated capacities of centrifugal fire pumps, gpm, ascending.
+ * [NFPA 20] (from memory)
+ */
+export const STANDARD_RATED_CAPACITIES_GPM: readonly number[] = [
+  25, 50, 100, 150, 200, 250, 300, 400, 450, 500, 750, 1000, 1250, 1500, 2000, 2500, 3000, 3500, 4000, 4500, 5000,
+]; // [NFPA 20] (from memory)
+
+/** PUMPSIZE rounds the boost up to a whole number of these steps in US work, psi (the vocabulary's rule). */
+export const RATED_PRESSURE_STEP_PSI = 5;
+/** PUMPSIZE rounds the boost up to a whole number of these steps in SI work, bar (the vocabulary's rule). */
+export const RATED_PRESSURE_STEP_BAR = 0.5;
+
+/** Flow of the overload point as a multiple of rated flow. [NFPA 20] */
+export const OVERLOAD_FLOW_RATIO = 1.5;
+/** Churn (shutoff) pressure may be at most this multiple of rated pressure. [NFPA 20] */
+export const MAX_SHUTOFF_RATIO = 1.4;
+/** At 150 % of rated flow the pump must give at least this multiple of rated pressure. [NFPA 20] */
+export const MIN_OVERLOAD_RATIO = 0.65;
+/** Default curve shape when only the rating is known: shutoff at 120 % of rated pressure. (common practice) */
+export const DEFAULT_SHUTOFF_RATIO = 1.2;
+/** Default curve shape: 70 % of rated pressure at 150 % of rated flow. (common practice) */
+export const DEFAULT_OVERLOAD_RATIO = 0.7;
+
+/**
+ * The smallest standard rated capacity not below the demand flow.
+ *
+ * @param demandFlow gpm (> 0)
+ * @returns gpm, one of STANDARD_RATED_CAPACITIES_GPM; `#N/A` kind above the largest (5000 gpm)
+ * Source: [NFPA 20] standard rated capacities (from memory). Worked value: 562 gpm → 750 gpm; 500 gpm → 500 gpm.
+ */
+export function ratedCapacity(demandFlow: number): number {
+  if (!(demandFlow > 0) || !Number.isFinite(demandFlow)) fail(`demand_flow: got ${show(demandFlow)}; must be greater than 0`);
+  const tolerance = 1e-9 * demandFlow; // a flow converted from L/min may land a hair above a rating
+  const found = STANDARD_RATED_CAPACITIES_GPM.find((c) => c >= demandFlow - tolerance);
+  if (found === undefined) {
+    const largest = STANDARD_RATED_CAPACITIES_GPM[STANDARD_RATED_CAPACITIES_GPM.length - 1];
+    notInTable(`demand_flow: got ${show(demandFlow)} gpm; the standard rated capacities go up to ${largest} gpm: split the demand between pumps`);
+  }
+  return found;
+}
+
+/**
+ * Round a value up to a whole number of steps; an exact multiple stays as it is.
+ *
+ *   rounded = step × ceil(value / step)
+ *
+ * @param value ≥ 0; @param step > 0 (same unit)
+ * Worked value: 22.0 psi in 5 psi steps → 25 psi; 25 psi → 25 psi; 1.52 bar in 0.5 bar steps → 2.0 bar.
+ */
+export function roundUpToStep(value: number, step: number): number {
+  if (!(step > 0)) fail(`step: got ${show(step)}; must be greater than 0`);
+  if (!(value >= 0) || !Number.isFinite(value)) fail(`value: got ${show(value)}; must be 0 or more`);
+  return step * ceilCount(value / step);
+}
+
+/**
+ * A pump's net pressure along a curve shaped as the parabola through three points: shutoff (0, s·Pr), rated
+ * (Qr, Pr) and overload (1.5 Qr, o·Pr). With x = Q / Qr:
+ *
+ *   P / Pr = s + b x + c x²,   c = (o − 1.5 + 0.5 s) / 0.75,   b = 1 − s − c
+ *
+ * (from P/Pr = 1 at x = 1 and P/Pr = o at x = 1.5). For the defaults s = 1.2, o = 0.7: c = −0.26667, b = 0.06667, so
+ * the curve rises a little (to 1.2042 Pr at x = 0.125) before it falls; that is the parabola through those points.
+ *
+ * Inputs are held to the centrifugal fire pump envelope: 1 < s ≤ 1.4 and 0.65 ≤ o < 1; flow from 0 to 1.5 Qr.
+ * Outside that a PumpEnvelopeError is thrown (the cell layer shows it as `#NUM!`).
+ *
+ * @param flow Q, gpm (≥ 0, at most 1.5 Qr)
+ * @param ratedFlow Qr, gpm (> 0); @param ratedPressure Pr, psi (> 0)
+ * @param shutoffRatio s; @param overloadRatio o
+ * @returns psi
+ * Source: envelope [NFPA 20]; the three-point shape with s = 1.2 and o = 0.7 (common practice).
+ * Worked value: rated 500 gpm at 100 psi, defaults: 0 gpm → 120 psi, 250 gpm → 116.67 psi, 500 gpm → 100 psi,
+ * 750 gpm → 70 psi.
+ */
+export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: number, shutoffRatio: number, overloadRatio: number): number {
+  if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail(`rated_flow: got ${show(ratedFlow)}; must be greater than 0`);
+  if (!(ratedPressure > 0) || !Number.isFinite(ratedPressure)) fail(`rated_pressure: got ${show(ratedPressure)}; must be greater than 0`);
+  if (!(flow >= 0) || !Number.isFinite(flow)) fail(`flow: got ${show(flow)}; must be 0 or more`);
+  const [a, b, c] = pumpCurveShape(shutoffRatio, overloadRatio);
+  const x = flow / ratedFlow;
+  if (x > OVERLOAD_FLOW_RATIO * (1 + 1e-9)) {
+    throw new PumpEnvelopeError(
+      `flow: got ${show(flow)}, ${show(Math.round(x * 1000) / 10)} % of rated flow; a fire pump curve runs to 150 % of rated flow (${show(OVERLOAD_FLOW_RATIO * ratedFlow)})`,
+    );
+  }
+  return ratedPressure * (a + b * x + c * x * x);
+}
+
+/**
+ * The coefficients [s, b, c] of P / Pr = s + b x + c x² (x = Q / Qr) through shutoff, rated and overload points,
+ * after checking the ratios against the [NFPA 20] envelope. See pumpPressure.
+ * Worked value: s 1.2, o 0.7 → [1.2, 0.066667, −0.266667].
+ */
+export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [number, number, number] {
+  if (!(shutoffRatio > 1 && shutoffRatio <= MAX_SHUTOFF_RATIO)) {
+    throw new PumpEnvelopeError(
+      `shutoff_ratio: got ${show(shutoffRatio)}; a fire pump's shutoff pressure must be above rated pressure and at most ${MAX_SHUTOFF_RATIO} × rated`,
+    );
+  }
+  if (!(overloadRatio >= MIN_OVERLOAD_RATIO && overloadRatio < 1)) {
+    throw new PumpEnvelopeError(
+      `overload_ratio: got ${show(overloadRatio)}; at 150 % of rated flow a fire pump gives at least ${MIN_OVERLOAD_RATIO} × rated pressure and less than rated`,
+    );
+  }
+  const x2 = OVERLOAD_FLOW_RATIO;
+  // Through (0, s), (1, 1), (x2, o): s + b + c = 1 and s + b x2 + c x2² = o.
+  const c = (overloadRatio - shutoffRatio - (1 - shutoffRatio) * x2) / (x2 * x2 - x2);
+  const b = 1 - shutoffRatio - c;
+  return [shutoffRatio, b, c];
+}
+
+/**
+ * An input outside the centrifugal fire pump envelope [NFPA 20]: a flow beyond 150 % of rated, or a shutoff or
+ * overload ratio the envelope does not allow. Its kind is "value" so that, if nothing maps it, it still reaches a
+ * cell as `#VALUE!` with its message; PUMPCURVE maps it to `#NUM!` as the vocabulary says.
+ */
+export class PumpEnvelopeError extends HeadroomError {
+  constructor(message: string) {
+    super("value", message);
+    this.name = "PumpEnvelopeError";
+  }
+}

@@ -1,0 +1,97 @@
+import { describe, expect, it } from "vitest";
+import { HeadroomError } from "../../src/engine/errors";
+import {
+  PumpEnvelopeError,
+  STANDARD_RATED_CAPACITIES_GPM,
+  pumpCurveShape,
+  pumpPressure,
+  ratedCapacity,
+  roundUpToStep,
+} from "../../src/engine/pump";
+
+describe("standard rated capacities [NFPA 20] (from memory)", () => {
+  it("holds the list of reference.md", () => {
+    // [NFPA 20] (from memory)
+    expect(STANDARD_RATED_CAPACITIES_GPM).toEqual([
+      25, 50, 100, 150, 200, 250, 300, 400, 450, 500, 750, 1000, 1250, 1500, 2000, 2500, 3000, 3500, 4000, 4500, 5000,
+    ]);
+  });
+  it("picks the smallest capacity not below the demand [NFPA 20] (from memory)", () => {
+    expect(ratedCapacity(562)).toBe(750);
+    expect(ratedCapacity(500)).toBe(500); // an exact rating is kept
+    expect(ratedCapacity(500.0000000001)).toBe(500); // a hair above from a unit conversion stays
+    expect(ratedCapacity(401)).toBe(450);
+    expect(ratedCapacity(1)).toBe(25);
+    expect(ratedCapacity(4999)).toBe(5000);
+  });
+  it("has no rating above 5000 gpm: a not-in-table error [NFPA 20] (from memory)", () => {
+    try {
+      ratedCapacity(5200);
+      expect.unreachable();
+    } catch (e) {
+      expect(e).toBeInstanceOf(HeadroomError);
+      expect((e as HeadroomError).kind).toBe("na");
+      expect((e as Error).message).toMatch(/demand_flow: got 5200 gpm; the standard rated capacities go up to 5000 gpm/);
+    }
+  });
+  it("rejects a demand that is not positive", () => {
+    expect(() => ratedCapacity(0)).toThrow(/demand_flow: got 0/);
+  });
+});
+
+describe("rounding the boost", () => {
+  it("rounds up to the next step; an exact multiple stays", () => {
+    expect(roundUpToStep(22.04, 5)).toBe(25);
+    expect(roundUpToStep(25, 5)).toBe(25);
+    expect(roundUpToStep(25.01, 5)).toBe(30);
+    expect(roundUpToStep(1.52, 0.5)).toBe(2);
+    expect(roundUpToStep(1.5, 0.5)).toBe(1.5);
+  });
+});
+
+describe("pump curve: the parabola through shutoff, rated and 150 % points", () => {
+  // (common practice) shape: shutoff 120 % of rated pressure, 70 % at 150 % flow; rated 500 gpm at 100 psi
+  it("passes through its three points", () => {
+    expect(pumpPressure(0, 500, 100, 1.2, 0.7)).toBeCloseTo(120, 10);
+    expect(pumpPressure(500, 500, 100, 1.2, 0.7)).toBeCloseTo(100, 10);
+    expect(pumpPressure(750, 500, 100, 1.2, 0.7)).toBeCloseTo(70, 10);
+    // and for another shape inside the [NFPA 20] envelope: shutoff 140 %, 65 % at 150 %
+    expect(pumpPressure(0, 1000, 80, 1.4, 0.65)).toBeCloseTo(112, 10);
+    expect(pumpPressure(1000, 1000, 80, 1.4, 0.65)).toBeCloseTo(80, 10);
+    expect(pumpPressure(1500, 1000, 80, 1.4, 0.65)).toBeCloseTo(52, 10);
+  });
+  it("has the coefficients worked by hand", () => {
+    // through (0, 1.2), (1, 1), (1.5, 0.7): c = (0.7 − 1.5 + 0.5 × 1.2) / 0.75 = −0.2 / 0.75 = −0.266667;
+    // b = 1 − 1.2 + 0.266667 = 0.066667
+    const [a, b, c] = pumpCurveShape(1.2, 0.7);
+    expect(a).toBe(1.2);
+    expect(b).toBeCloseTo(0.066667, 6);
+    expect(c).toBeCloseTo(-0.266667, 6);
+    // at half the rated flow: 100 × (1.2 + 0.066667 × 0.5 − 0.266667 × 0.25) = 100 × 1.166667 = 116.67 psi
+    expect(pumpPressure(250, 500, 100, 1.2, 0.7)).toBeCloseTo(116.6667, 4);
+  });
+  it("stays positive over the whole curve anywhere in the envelope [NFPA 20]", () => {
+    for (const s of [1.01, 1.1, 1.2, 1.3, 1.4]) {
+      for (const o of [0.65, 0.7, 0.8, 0.9, 0.99]) {
+        for (let i = 0; i <= 30; i++) expect(pumpPressure(i * 50, 1000, 100, s, o)).toBeGreaterThan(60);
+      }
+    }
+  });
+  it("is #NUM!-kind beyond 150 % of rated flow [NFPA 20]", () => {
+    expect(() => pumpPressure(751, 500, 100, 1.2, 0.7)).toThrow(PumpEnvelopeError);
+    expect(() => pumpPressure(751, 500, 100, 1.2, 0.7)).toThrow(/flow: got 751, 150.2 % of rated flow; a fire pump curve runs to 150 %/);
+  });
+  it("holds the ratios to the [NFPA 20] envelope: shutoff ≤ 140 % (and above 100 %), 150 % point ≥ 65 % (and below 100 %)", () => {
+    expect(pumpCurveShape(1.4, 0.65)).toHaveLength(3);
+    expect(() => pumpCurveShape(1.41, 0.7)).toThrow(/shutoff_ratio: got 1.41; .* at most 1.4 × rated/);
+    expect(() => pumpCurveShape(1, 0.7)).toThrow(PumpEnvelopeError);
+    expect(() => pumpCurveShape(1.2, 0.64)).toThrow(/overload_ratio: got 0.64; .* at least 0.65 × rated/);
+    expect(() => pumpCurveShape(1.2, 1)).toThrow(PumpEnvelopeError);
+  });
+  it("rejects a negative flow or a rating that is not positive (#VALUE! kind)", () => {
+    expect(() => pumpPressure(-1, 500, 100, 1.2, 0.7)).toThrow(/flow: got -1; must be 0 or more/);
+    expect(() => pumpPressure(-1, 500, 100, 1.2, 0.7)).not.toThrow(PumpEnvelopeError);
+    expect(() => pumpPressure(100, 0, 100, 1.2, 0.7)).toThrow(/rated_flow/);
+    expect(() => pumpPressure(100, 500, 0, 1.2, 0.7)).toThrow(/rated_pressure/);
+  });
+});

@@ -1,0 +1,154 @@
+import { describe, expect, it } from "vitest";
+import { frictionRate } from "../../src/engine/friction";
+import { headPressure } from "../../src/engine/sprinkler";
+import { type AreaDemandInput, solveAreaDemand } from "../../src/engine/tree";
+
+// Hazen-Williams, US form [NFPA 13]: psi/ft = 4.52 Q^1.85 / (C^1.85 d^4.87), written out here so the test does not
+// lean on the engine's own formula.
+const hw = (q: number, d: number, c = 120) => (4.52 * q ** 1.85) / (c ** 1.85 * d ** 4.87);
+
+const base: AreaDemandInput = {
+  density: 0.15, // OH1 upper point [NFPA 13] (from memory)
+  area: 1500, // [NFPA 13] (from memory)
+  coverage: 130,
+  kFactor: 5.6,
+  headSpacing: 13,
+  branchDiameter: 1.38, // 1¼ Schedule 40 [ASME B36.10M]
+  mainDiameter: 2.469, // 2½ Schedule 40 [ASME B36.10M]
+  cFactor: 120, // black steel, wet [NFPA 13]
+  minPressure: 7, // [NFPA 13]
+};
+
+describe("AREADEMAND solve: a worked two-line example [NFPA 13]", () => {
+  // 300 ft² at 0.20 gpm/ft², 100 ft² per sprinkler, K 5.6, 12 ft between sprinklers, 1.049 in branch lines
+  // (1 in Schedule 40 [ASME B36.10M]), 1.38 in cross main (1¼ Schedule 40 [ASME B36.10M]), C 120, Pmin 7 psi.
+  const r = solveAreaDemand(
+    { density: 0.2, area: 300, coverage: 100, kFactor: 5.6, headSpacing: 12, branchDiameter: 1.049, mainDiameter: 1.38, cFactor: 120, minPressure: 7 },
+    frictionRate,
+    true,
+  );
+
+  it("counts sprinklers, sprinklers per line and lines [NFPA 13]", () => {
+    // n = ceil(300 / 100) = 3; m = ceil(1.2 √300 / 12) = ceil(1.2 × 17.3205 / 12) = ceil(1.7321) = 2;
+    // L = ceil(3 / 2) = 2, the line nearest the feed flowing 3 − 2 = 1; line spacing 100 / 12 = 8.3333 ft
+    expect(r.heads).toBe(3);
+    expect(r.headsPerLine).toBe(2);
+    expect(r.lines).toBe(2);
+    expect(r.lineSpacing).toBeCloseTo(8.3333, 4);
+  });
+
+  it("solves the most remote line sprinkler by sprinkler [NFPA 13]", () => {
+    // end sprinkler: q1 = max(0.20 × 100, 5.6 √7) = max(20, 14.82) = 20 gpm; p1 = (20 / 5.6)² = 12.7551 psi
+    expect(r.endPressure).toBeCloseTo(12.7551, 4);
+    // pipe 1→2 carries 20 gpm: 4.52 × 20^1.85 / (120^1.85 × 1.049^4.87) = 4.52 × 255.215 / (7022.40 × 1.26234)
+    //   = 0.130131 psi/ft; × 12 ft = 1.56158 psi
+    expect(hw(20, 1.049)).toBeCloseTo(0.130131, 6);
+    // p2 = 12.7551 + 1.56158 = 14.3167 psi; q2 = 5.6 √14.3167 = 5.6 × 3.78374 = 21.1889 gpm
+    const s = r.sprinklers!;
+    expect(s[1]).toMatchObject({ line: 1, position: 2 });
+    expect(s[1].pressure).toBeCloseTo(14.3167, 4);
+    expect(s[1].flow).toBeCloseTo(21.1889, 4);
+    // to the cross main: 20 + 21.1889 = 41.1889 gpm; 4.52 × 41.1889^1.85 / (7022.40 × 1.26234) = 4.52 × 971.279 / 8864.69
+    //   = 0.495246 psi/ft; × 12 ft = 5.94295 psi; P_line = 14.3167 + 5.9429 = 20.2596 psi
+    expect(hw(41.1889, 1.049)).toBeCloseTo(0.495246, 5);
+    expect(r.lineFlows[0]).toBeCloseTo(41.1889, 4);
+    expect(r.linePressures[0]).toBeCloseTo(20.2596, 4);
+  });
+
+  it("adds the cross-main loss and the partial line nearest the feed [NFPA 13]", () => {
+    // cross main over 8.3333 ft carrying 41.1889 gpm in 1.38 in: 4.52 × 971.279 / (7022.40 × 4.79967) = 0.130252 psi/ft;
+    //   × 8.3333 ft = 1.08544 psi; pressure at line 2: 20.2596 + 1.0854 = 21.3451 psi
+    expect(hw(41.1889, 1.38) * (100 / 12)).toBeCloseTo(1.08544, 4);
+    expect(r.pressure).toBeCloseTo(21.3451, 4);
+    // line 2 (1 sprinkler) solved on its own: 20 gpm; inlet 12.7551 + 1.56158 = 14.3167 psi; K_line = 20 / √14.3167
+    //   = 5.28578; fed at 21.3451 psi it flows 5.28578 × √21.3451 = 5.28578 × 4.62008 = 24.4207 gpm
+    expect(r.lineFlows[1]).toBeCloseTo(24.4207, 4);
+    // total 41.1889 + 24.4207 = 65.6096 gpm in the cross main at the last line
+    expect(r.flow).toBeCloseTo(65.6096, 4);
+    // never below density × area: 0.20 × 300 = 60 gpm
+    expect(r.flow).toBeGreaterThanOrEqual(60);
+  });
+});
+
+describe("AREADEMAND solve: invariants [NFPA 13]", () => {
+  const cases: AreaDemandInput[] = [
+    base,
+    { ...base, density: 0.05 }, // the minimum pressure governs the end sprinkler
+    { ...base, area: 1950 }, // a partial line
+    { ...base, density: 0.3, area: 2500, coverage: 100, kFactor: 8, headSpacing: 10, branchDiameter: 1.61, mainDiameter: 3.068 },
+    { ...base, density: 0.4, area: 4000, coverage: 100, kFactor: 11.2, headSpacing: 10, branchDiameter: 2.067, mainDiameter: 4.026 },
+    { ...base, density: 0.1, area: 3000, coverage: 225, kFactor: 5.6, headSpacing: 15, branchDiameter: 1.049, mainDiameter: 2.067 },
+  ];
+
+  it("flow equals the sum of the individual sprinkler flows, each K √p [NFPA 13]", () => {
+    for (const c of cases) {
+      const r = solveAreaDemand(c, frictionRate, true);
+      const s = r.sprinklers!;
+      expect(s.length).toBe(r.heads);
+      for (const h of s) expect(h.flow).toBeCloseTo(c.kFactor * Math.sqrt(h.pressure), 9);
+      const sum = s.reduce((a, h) => a + h.flow, 0);
+      expect(r.flow / sum).toBeCloseTo(1, 12);
+      expect(r.lineFlows.reduce((a, q) => a + q, 0) / r.flow).toBeCloseTo(1, 12);
+    }
+  });
+
+  it("flow is never below density × area [NFPA 13]", () => {
+    for (const c of cases) {
+      const r = solveAreaDemand(c);
+      expect(r.flow).toBeGreaterThanOrEqual(c.density * c.area);
+    }
+  });
+
+  it("pressure rises as either pipe shrinks", () => {
+    for (const c of cases) {
+      const r = solveAreaDemand(c);
+      const smallerBranch = solveAreaDemand({ ...c, branchDiameter: c.branchDiameter * 0.9 });
+      const smallerMain = solveAreaDemand({ ...c, mainDiameter: c.mainDiameter * 0.9 });
+      expect(smallerBranch.pressure).toBeGreaterThan(r.pressure);
+      if (r.lines > 1) expect(smallerMain.pressure).toBeGreaterThan(r.pressure);
+      else expect(smallerMain.pressure).toBe(r.pressure); // one line: no cross main between lines
+    }
+  });
+
+  it("a single line with a single sprinkler is HEADPRESSURE plus one Hazen-Williams step [NFPA 13]", () => {
+    // 100 ft² at 100 ft² per sprinkler: n = 1; m = ceil(1.2 √100 / 15) = ceil(0.8) = 1
+    const c: AreaDemandInput = { ...base, density: 0.2, area: 100, coverage: 100, headSpacing: 15, branchDiameter: 1.049 };
+    const r = solveAreaDemand(c);
+    expect([r.heads, r.lines]).toEqual([1, 1]);
+    // q = 0.20 × 100 = 20 gpm; HEADPRESSURE = (20 / 5.6)² = 12.7551 psi;
+    // one step: 4.52 × 20^1.85 / (120^1.85 × 1.049^4.87) × 15 ft = 0.130131 × 15 = 1.95197 psi → 14.7071 psi
+    expect(r.flow).toBe(20);
+    expect(r.pressure).toBeCloseTo(headPressure(20, 5.6, 7) + 0.130131 * 15, 4);
+    expect(r.pressure).toBeCloseTo(14.7071, 4);
+    expect(r.endPressure).toBeCloseTo(12.7551, 4);
+  });
+
+  it("with the minimum pressure governing, the end sprinkler sits at 7 psi [NFPA 13]", () => {
+    // 0.05 × 130 = 6.5 gpm < 5.6 √7 = 14.82 gpm: q1 = 14.82 gpm at 7 psi
+    const r = solveAreaDemand({ ...base, density: 0.05 }, frictionRate, true);
+    expect(r.endPressure).toBeCloseTo(7, 12);
+    expect(r.sprinklers![0].flow).toBeCloseTo(14.816, 3);
+  });
+
+  it("no line flows more sprinklers than the area holds", () => {
+    // 100 ft², 100 ft² per sprinkler, 10 ft spacing: ceil(1.2 × 10 / 10) = 2 per line, but only 1 sprinkler flows
+    const r = solveAreaDemand({ ...base, area: 100, coverage: 100, headSpacing: 10 });
+    expect([r.heads, r.headsPerLine, r.lines]).toEqual([1, 1, 1]);
+  });
+
+  it("solves a 4,000 ft² extra-hazard area well under 1 ms", () => {
+    const c = cases[4];
+    solveAreaDemand(c);
+    const runs = 200;
+    const t0 = performance.now();
+    for (let i = 0; i < runs; i++) solveAreaDemand({ ...c, density: 0.4 + i * 1e-6 });
+    const perSolve = (performance.now() - t0) / runs;
+    expect(perSolve).toBeLessThan(0.2);
+  });
+
+  it("rejects inputs that are not positive, naming them", () => {
+    expect(() => solveAreaDemand({ ...base, headSpacing: 0 })).toThrow(/head_spacing: got 0; must be greater than 0/);
+    expect(() => solveAreaDemand({ ...base, mainDiameter: -1 })).toThrow(/main_diameter/);
+    expect(() => solveAreaDemand({ ...base, density: Number.NaN })).toThrow(/density/);
+  });
+});
