@@ -1,0 +1,336 @@
+/**
+ * The Workbook port over Office.js (Excel JavaScript API): named cells, change and calculation events, the estimate
+ * sheet, the values-only share copy.
+ *
+ * Requirement sets used: ExcelApi 1.4 (names.getItemOrNullObject, NamedItem.getRangeOrNullObject), 1.7 (chart
+ * series, worksheet.copy), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom).
+ * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
+ */
+import { cellAddress, freeSheetName, parseRange, splitSheet } from "./a1";
+import {
+  INPUT_NAMES,
+  type InputName,
+  type InsertResult,
+  type Reading,
+  type Readings,
+  type ShareCopyResult,
+  type UnitsCode,
+  type WorkbookPort,
+  isoDate,
+  shareRefusal,
+  shareStamp,
+} from "./port";
+import { ROLE_STYLES, type Scenario, type SheetTemplate, type TemplateChart, demoScenario, estimateTemplate } from "./template";
+
+type Ctx = Excel.RequestContext;
+
+/** How the port reaches Excel: Excel.run in the add-in, a mock in tests. */
+export interface ExcelHost {
+  run<T>(batch: (context: Ctx) => Promise<T>): Promise<T>;
+  /** Run a batch in an existing context (event handlers must be removed in the context that added them). */
+  runIn<T>(context: Ctx, batch: (context: Ctx) => Promise<T>): Promise<T>;
+  /** today, for the share copy's stamp */
+  now(): Date;
+  /** quiet time before a burst of change events becomes one call, ms */
+  settleMs: number;
+}
+
+/** The host of a running add-in. */
+export function officeExcelHost(): ExcelHost {
+  return {
+    run: (batch) => Excel.run(batch),
+    runIn: (context, batch) => Excel.run(context, batch),
+    now: () => new Date(),
+    settleMs: 150,
+  };
+}
+
+/** How many cells a share-copy refusal lists by address. */
+const REFUSAL_LIST = 5;
+/** How many "Estimate", "Estimate 2"... names are probed for a free sheet name in one round trip. */
+const NAME_PROBES = 40;
+
+export function createExcelPort(host: ExcelHost = officeExcelHost()): WorkbookPort {
+  return {
+    readInputs: () => host.run(readInputs),
+    subscribe: (onChange) => subscribe(host, onChange),
+    insertEstimateSheet: (units, scenario) => host.run((ctx) => insertEstimateSheet(ctx, units, scenario)),
+    makeShareCopy: () => host.run((ctx) => makeShareCopy(ctx, host.now())),
+  };
+}
+
+// ─── Reading ─────────────────────────────────────────────────────────────────────────────────────────────────────
+
+async function readInputs(ctx: Ctx): Promise<Readings> {
+  const items = INPUT_NAMES.map((n) => {
+    const item = ctx.workbook.names.getItemOrNullObject(n);
+    item.load("type,value");
+    return item;
+  });
+  await ctx.sync();
+  const ranges = items.map((item) => {
+    if (item.isNullObject || item.type !== "Range") return null;
+    const range = item.getRangeOrNullObject();
+    range.load("address,values,valueTypes,rowCount,columnCount");
+    return range;
+  });
+  await ctx.sync();
+  const out = {} as Readings;
+  INPUT_NAMES.forEach((n, i) => {
+    out[n] = reading(items[i], ranges[i]);
+  });
+  return out;
+}
+
+function reading(item: Excel.NamedItem, range: Excel.Range | null): Reading {
+  if (item.isNullObject) return { kind: "missing" };
+  if (item.type !== "Range") return constantReading(item);
+  if (!range || range.isNullObject) return { kind: "invalid", reason: `its reference ${String(item.value)} is not a cell` };
+  const address = range.address;
+  const cells = range.rowCount * range.columnCount;
+  if (cells !== 1) return { kind: "invalid", reason: `it refers to ${cells} cells (${address}); it must refer to one cell`, address };
+  return cellReading(range.values[0][0], range.valueTypes[0][0], address);
+}
+
+/** A name defined as a constant (=10, ="SI") rather than a cell. */
+function constantReading(item: Excel.NamedItem): Reading {
+  const v = item.value as unknown;
+  switch (item.type) {
+    case "Double":
+    case "Integer":
+      return typeof v === "number" ? { kind: "number", value: v } : { kind: "invalid", reason: `its value ${String(v)} is not a number` };
+    case "String":
+      return { kind: "text", value: String(v) };
+    case "Boolean":
+      return { kind: "text", value: v ? "TRUE" : "FALSE" };
+    case "Error":
+      return { kind: "error", code: String(v) };
+    default:
+      return { kind: "invalid", reason: `it is ${String(item.type).toLowerCase()}, not one cell` };
+  }
+}
+
+/** What one cell holds, from its value and Excel's value type. */
+export function cellReading(value: unknown, type: string, address?: string): Reading {
+  switch (type) {
+    case "Empty":
+      return { kind: "empty", address };
+    case "Double":
+    case "Integer":
+      return typeof value === "number" && Number.isFinite(value)
+        ? { kind: "number", value, address }
+        : { kind: "text", value: String(value), address };
+    case "String":
+      return { kind: "text", value: String(value), address };
+    case "Boolean":
+      return { kind: "text", value: value ? "TRUE" : "FALSE", address };
+    case "Error":
+      return { kind: "error", code: String(value), address };
+    default:
+      return { kind: "invalid", reason: `it holds a ${type.toLowerCase()} value, not a number or text`, address };
+  }
+}
+
+// ─── Events ──────────────────────────────────────────────────────────────────────────────────────────────────────
+
+async function subscribe(host: ExcelHost, onChange: () => void): Promise<() => Promise<void>> {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let live = true;
+  const poke = async () => {
+    if (!live) return;
+    if (timer !== undefined) clearTimeout(timer);
+    timer = setTimeout(() => {
+      timer = undefined;
+      if (live) onChange();
+    }, host.settleMs);
+  };
+  const { context, handlers } = await host.run(async (ctx) => {
+    const changed = ctx.workbook.worksheets.onChanged.add(poke);
+    const calculated = ctx.workbook.worksheets.onCalculated.add(poke);
+    await ctx.sync();
+    return { context: ctx, handlers: [changed, calculated] };
+  });
+  return async () => {
+    live = false;
+    if (timer !== undefined) clearTimeout(timer);
+    await host.runIn(context, async (ctx) => {
+      for (const h of handlers) h.remove();
+      await ctx.sync();
+    });
+  };
+}
+
+// ─── New estimate sheet ──────────────────────────────────────────────────────────────────────────────────────────
+
+/** Candidate sheet names "base", "base 2", ... probed in one round trip; the first free one. */
+async function freeName(ctx: Ctx, base: string): Promise<string> {
+  const candidates: string[] = [];
+  for (let i = 0; i < NAME_PROBES; i++) candidates.push(freeSheetName(base, candidates));
+  const probes = candidates.map((c) => ctx.workbook.worksheets.getItemOrNullObject(c));
+  await ctx.sync();
+  const i = probes.findIndex((p) => p.isNullObject);
+  if (i < 0) throw new Error(`every sheet name from "${candidates[0]}" to "${candidates[candidates.length - 1]}" is taken; rename or delete some sheets`);
+  return candidates[i];
+}
+
+/** A constant for range.values: text that Excel would read as a formula or a number keeps its text with a '. */
+function cellConstant(v: string | number): string | number {
+  if (typeof v === "number") return v;
+  return /^[=+\-@]/.test(v) ? `'${v}` : v;
+}
+
+async function insertEstimateSheet(ctx: Ctx, units: UnitsCode, scenario?: Scenario): Promise<InsertResult> {
+  const template = estimateTemplate(scenario ?? demoScenario(units));
+  const wb = ctx.workbook;
+  const sheetName = await freeName(ctx, template.sheetName);
+  const existing = template.names.map((n) => wb.names.getItemOrNullObject(n.name));
+  await ctx.sync();
+
+  ctx.application.suspendApiCalculationUntilNextSync();
+  const sheet = wb.worksheets.add(sheetName);
+  writeCells(sheet, template);
+  const namesMoved: InputName[] = [];
+  template.names.forEach((n, i) => {
+    if (!existing[i].isNullObject) {
+      existing[i].delete();
+      namesMoved.push(n.name);
+    }
+    wb.names.add(n.name, sheet.getRange(n.address), n.comment);
+  });
+  addChart(sheet, template.chart);
+  sheet.activate();
+  await ctx.sync();
+  return { sheetName, namesMoved };
+}
+
+function writeCells(sheet: Excel.Worksheet, t: SheetTemplate): void {
+  for (const [col, width] of Object.entries(t.columnWidths)) sheet.getRange(`${col}:${col}`).format.columnWidth = width;
+  for (const c of t.cells) {
+    const r = sheet.getRange(c.address);
+    if (c.formula !== undefined) r.formulas = [[c.formula]];
+    else if (c.value !== undefined && c.value !== "") r.values = [[cellConstant(c.value)]];
+    if (c.format) r.numberFormat = [[c.format]];
+    const style = ROLE_STYLES[c.role];
+    if (style.fill) r.format.fill.color = style.fill;
+    if (style.font) r.format.font.color = style.font;
+    if (style.bold) r.format.font.bold = true;
+    if (style.italic) r.format.font.italic = true;
+    if (style.size) r.format.font.size = style.size;
+  }
+}
+
+const MARKERS = { none: "None", circle: "Circle", square: "Square", diamond: "Diamond", triangle: "Triangle" } as const;
+
+function addChart(sheet: Excel.Worksheet, spec: TemplateChart): void {
+  const [first, ...rest] = spec.series;
+  const chart = sheet.charts.add("XYScatterLinesNoMarkers", sheet.getRange(pairRange(first.x, first.y)), "Columns");
+  chart.name = "Headroom supply and demand";
+  chart.title.text = spec.title;
+  chart.axes.categoryAxis.title.text = spec.xTitle;
+  chart.axes.valueAxis.title.text = spec.yTitle;
+  chart.axes.categoryAxis.minimum = 0;
+  chart.axes.valueAxis.minimum = 0;
+  chart.legend.position = "Bottom";
+  chart.setPosition(spec.from, spec.to);
+  const s0 = chart.series.getItemAt(0);
+  s0.name = first.name;
+  s0.setXAxisValues(sheet.getRange(first.x));
+  s0.setValues(sheet.getRange(first.y));
+  s0.format.line.color = first.color;
+  for (const s of rest) {
+    const series = chart.series.add(s.name);
+    series.setXAxisValues(sheet.getRange(s.x));
+    series.setValues(sheet.getRange(s.y));
+    series.chartType = s.style === "line" ? "XYScatterLinesNoMarkers" : "XYScatter";
+    series.markerStyle = MARKERS[s.marker];
+    series.markerSize = 9;
+    series.markerBackgroundColor = s.color;
+    series.markerForegroundColor = s.color;
+  }
+}
+
+/** "B74:B89" and "C74:C89" → "B74:C89": the x and y columns of the first series as one block. */
+function pairRange(x: string, y: string): string {
+  const a = parseRange(x).start;
+  const b = parseRange(y);
+  return `${cellAddress(a)}:${cellAddress({ row: b.start.row + b.rows - 1, col: b.start.col + b.cols - 1 })}`;
+}
+
+// ─── Share copy ──────────────────────────────────────────────────────────────────────────────────────────────────
+
+async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
+  const wb = ctx.workbook;
+  const item = wb.names.getItemOrNullObject("Supply_Static");
+  item.load("type");
+  const active = wb.worksheets.getActiveWorksheet();
+  active.load("name");
+  await ctx.sync();
+  let source = active;
+  if (!item.isNullObject && item.type === "Range") source = item.getRange().worksheet;
+  source.load("name");
+  const used = source.getUsedRangeOrNullObject();
+  used.load("address,values,valueTypes,rowCount,columnCount");
+  await ctx.sync();
+  if (used.isNullObject) return { ok: false, reason: `No share copy made: the sheet ${source.name} is empty.` };
+
+  const errors = errorCells(used);
+  if (errors.length > 0) return { ok: false, reason: shareRefusal(errors.slice(0, REFUSAL_LIST), errors.length) };
+
+  const sourceName = source.name;
+  const copyName = await freeName(ctx, `${sourceName} values ${isoDate(now)}`);
+  const copy = source.copy("After", source);
+  copy.name = copyName;
+  const area = splitSheet(used.address).range;
+  copy.getRange(area).copyFrom(used, "Values");
+  copy.getRange("1:2").insert("Down");
+  const stamp = copy.getRange("A1");
+  stamp.values = [[shareStamp(sourceName, now)]];
+  stamp.format.font.bold = true;
+  stamp.format.fill.color = ROLE_STYLES.caution.fill!;
+  stamp.format.font.color = ROLE_STYLES.caution.font!;
+  copy.activate();
+  await ctx.sync();
+
+  // The copy must hold values alone and no error: if a cell recalculated in between, undo and say so.
+  const check = copy.getUsedRange();
+  check.load("address,formulas,values,valueTypes,rowCount,columnCount");
+  await ctx.sync();
+  const stillFormulas = formulaCells(check);
+  const copyErrors = errorCells(check);
+  if (stillFormulas.length > 0 || copyErrors.length > 0) {
+    copy.delete();
+    source.activate();
+    await ctx.sync();
+    if (copyErrors.length > 0) return { ok: false, reason: shareRefusal(copyErrors.slice(0, REFUSAL_LIST), copyErrors.length) };
+    return { ok: false, reason: `No share copy made: ${stillFormulas.slice(0, REFUSAL_LIST).join(", ")} kept a formula; try again.` };
+  }
+  return { ok: true, sheetName: copyName, sourceSheet: sourceName };
+}
+
+/** Addresses (Sheet!A1) and shown errors of every error cell of a loaded range. */
+function errorCells(range: Excel.Range): Array<[string, string]> {
+  const { sheet, range: area } = splitSheet(range.address);
+  const start = parseRange(area).start;
+  const out: Array<[string, string]> = [];
+  range.valueTypes.forEach((row, i) =>
+    row.forEach((type, j) => {
+      if (type === "Error") {
+        const a = cellAddress({ row: start.row + i, col: start.col + j });
+        out.push([sheet ? `${sheet}!${a}` : a, String(range.values[i][j])]);
+      }
+    }),
+  );
+  return out;
+}
+
+/** Addresses of cells of a loaded range that still hold a formula. */
+function formulaCells(range: Excel.Range): string[] {
+  const start = parseRange(splitSheet(range.address).range).start;
+  const out: string[] = [];
+  range.formulas.forEach((row, i) =>
+    row.forEach((f, j) => {
+      if (typeof f === "string" && f.startsWith("=")) out.push(cellAddress({ row: start.row + i, col: start.col + j }));
+    }),
+  );
+  return out;
+}

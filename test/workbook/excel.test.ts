@@ -1,0 +1,243 @@
+import { describe, expect, it } from "vitest";
+import { cellAddress, parseCell } from "../../src/workbook/a1";
+import { createExcelPort } from "../../src/workbook/excel";
+import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
+import { CAUTION, ROLE_STYLES, demoScenario, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { portContract, type PortHarness } from "./contract";
+import { FakeExcel } from "./fakeExcel";
+
+const SETTLE_MS = 5;
+const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
+
+function excelPort(fake: FakeExcel, now = new Date()) {
+  return createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => now, settleMs: SETTLE_MS });
+}
+
+/** The harness keeps hand-defined names on a sheet "Inputs": name i of INPUT_NAMES in B(i+1). */
+function harness(fake = new FakeExcel(["Inputs"])): PortHarness {
+  const target = (name: InputName) => {
+    if (!fake.names.has(name)) {
+      const row = INPUT_NAMES.indexOf(name);
+      fake.names.set(name, { sheetId: fake.sheetByName("Inputs")!.id, address: cellAddress({ row, col: 1 }) });
+      fake.setCell("Inputs", cellAddress({ row, col: 0 }), { value: name });
+    }
+    return fake.nameTarget(name)!;
+  };
+  return {
+    port: excelPort(fake),
+    put: async (name, content) => {
+      const t = target(name);
+      fake.setCell(t.sheet, t.address, content === null ? null : { value: content });
+    },
+    putFormula: async (name, formula, value) => {
+      const t = target(name);
+      fake.setCell(t.sheet, t.address, { value, formula });
+    },
+    putError: async (name) => {
+      const t = target(name);
+      fake.setCell(t.sheet, t.address, { value: "#VALUE!", error: true, formula: "=HEADROOM.FLOWAT(-1,1,1,1)" });
+    },
+    remove: async (name) => {
+      fake.names.delete(name);
+    },
+    settle: () => wait(SETTLE_MS * 4),
+    sheetNames: async () => fake.sheets.map((s) => s.name),
+    cells: async (sheet) => fake.cellsOf(sheet),
+    nameTarget: async (name) => fake.nameTarget(name),
+  };
+}
+
+portContract("Excel (office-addin-mock)", async () => harness());
+
+/** Give every formula cell of a sheet a calculated value, as Excel would once the functions have answered. */
+function calculate(fake: FakeExcel, sheet: string, value: (address: string) => number | string = () => 1): void {
+  for (const [a, c] of fake.sheetByName(sheet)!.cells) {
+    if (c.formula) Object.assign(c, { value: value(a), error: false });
+  }
+}
+
+describe("Excel port: reading names", () => {
+  it("reads all ten names in two round trips", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    const h = harness(fake);
+    await h.put("Supply_Static", 72);
+    const before = fake.syncs;
+    const r = await h.port.readInputs();
+    expect(fake.syncs - before).toBe(2);
+    expect(r.Supply_Static).toEqual({ kind: "number", value: 72, address: "Inputs!B2" });
+    expect(r.Supply_Residual).toEqual({ kind: "missing" });
+  });
+
+  it("reports #BUSY! as an error the pane can wait out", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    const h = harness(fake);
+    await h.put("Demand_Flow", 1);
+    fake.setCell("Inputs", fake.nameTarget("Demand_Flow")!.address, { value: "#BUSY!", error: true, formula: "=HEADROOM.AREADEMAND(1)" });
+    expect((await h.port.readInputs()).Demand_Flow).toMatchObject({ kind: "error", code: "#BUSY!" });
+  });
+
+  it("says a name that spans several cells is invalid", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    fake.names.set("Supply_Static", { sheetId: fake.sheetByName("Inputs")!.id, address: "B2:C3" });
+    const r = await excelPort(fake).readInputs();
+    expect(r.Supply_Static.kind).toBe("invalid");
+    if (r.Supply_Static.kind === "invalid") expect(r.Supply_Static.reason).toMatch(/refers to 4 cells/);
+  });
+
+  it("says a name whose sheet was deleted is invalid, not missing", async () => {
+    const fake = new FakeExcel(["Inputs", "Old"]);
+    fake.names.set("Supply_Static", { sheetId: fake.sheetByName("Old")!.id, address: "B2" });
+    fake.sheets.splice(1, 1);
+    const r = await excelPort(fake).readInputs();
+    expect(r.Supply_Static.kind).toBe("error");
+  });
+});
+
+describe("Excel port: events", () => {
+  it("listens to both change and calculation events and makes one call of a burst", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    const h = harness(fake);
+    let calls = 0;
+    const stop = await h.port.subscribe(() => calls++);
+    expect(fake.changed.size).toBe(1);
+    expect(fake.calculated.size).toBe(1);
+    for (let i = 0; i < 5; i++) await h.put("Demand_Flow", 500 + i);
+    await h.putFormula("Demand_Pressure", "=B1+1", 3);
+    await wait(SETTLE_MS * 6);
+    expect(calls).toBe(1);
+    await stop();
+    expect(fake.changed.size).toBe(0);
+    expect(fake.calculated.size).toBe(0);
+  });
+});
+
+describe("Excel port: the estimate sheet", () => {
+  it("writes every formula, value, number format and input shading of the template", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const { sheetName } = await excelPort(fake).insertEstimateSheet("US");
+    const sheet = fake.sheetByName(sheetName)!;
+    const t = estimateTemplate(demoScenario("US"));
+    let formulas = 0;
+    for (const c of t.cells) {
+      const cell = sheet.cells.get(c.address);
+      if (c.formula) {
+        formulas++;
+        expect(cell?.formula, c.address).toBe(c.formula);
+      } else if (c.value !== undefined && c.value !== "") {
+        expect(cell?.value, c.address).toBe(c.value);
+      }
+      if (c.format) expect(cell?.numberFormat, c.address).toBe(c.format);
+      if (c.role === "input") expect(cell?.style?.["fill/color"], c.address).toBe(ROLE_STYLES.input.fill);
+    }
+    expect(formulas).toBeGreaterThan(30);
+    expect(sheet.cells.get("A2")?.value).toBe(CAUTION);
+    // spilled blocks are left free for their formulas
+    for (const a of spillCells(t)) expect(sheet.cells.get(a)?.value ?? "", a).toBe("");
+    expect(sheet.columnWidths.get("A")).toBe(t.columnWidths.A);
+    expect(fake.sheetById(fake.activeId).name).toBe(sheetName);
+  });
+
+  it("defines every named cell of the template on the new sheet", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const { sheetName, namesMoved } = await excelPort(fake).insertEstimateSheet("SI");
+    expect(namesMoved).toEqual([]);
+    const t = estimateTemplate(demoScenario("SI"));
+    expect(t.names.map((n) => n.name).sort()).toEqual([...INPUT_NAMES].sort());
+    for (const n of t.names) expect(fake.nameTarget(n.name)).toEqual({ sheet: sheetName, address: n.address });
+    expect(fake.sheetByName(sheetName)!.cells.get(t.names.find((n) => n.name === "Units")!.address)?.value).toBe("SI");
+  });
+
+  it("adds an XY scatter chart of the supply curve against the demand points", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const { sheetName } = await excelPort(fake).insertEstimateSheet("US");
+    const [chart] = fake.sheetByName(sheetName)!.charts;
+    const t = estimateTemplate(demoScenario("US"));
+    expect(chart.type).toBe("XYScatterLinesNoMarkers");
+    expect(chart.series.map((s) => ({ name: s.name, x: s.x, y: s.y }))).toEqual(t.chart.series.map((s) => ({ name: s.name, x: s.x, y: s.y })));
+    expect(chart.series[1].props.chartType).toBe("XYScatter");
+    expect(chart.series[2].props.markerStyle).toBe("Diamond");
+    expect(chart.props["axes/categoryAxis/title/text"]).toBe("Flow (gpm)");
+    expect(chart.props["axes/valueAxis/title/text"]).toBe("Pressure (psi)");
+    expect(chart.position).toEqual([t.chart.from, t.chart.to]);
+  });
+
+  it("keeps text that looks like a formula as text", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const s = demoScenario("US");
+    s.site = "-North yard";
+    const { sheetName } = await excelPort(fake).insertEstimateSheet("US", s);
+    const siteCell = estimateTemplate(s).cells.find((c) => c.value === "-North yard")!;
+    expect(fake.sheetByName(sheetName)!.cells.get(siteCell.address)).toMatchObject({ value: "-North yard", formula: undefined });
+  });
+});
+
+describe("Excel port: share copy", () => {
+  async function calculatedEstimate() {
+    const fake = new FakeExcel(["Sheet1"]);
+    const port = excelPort(fake, new Date(2026, 4, 4));
+    const { sheetName } = await port.insertEstimateSheet("US");
+    // what Excel shows once every function has answered: a number per formula cell (its row, to tell them apart)
+    calculate(fake, sheetName, (a) => parseCell(a).row + 1);
+    return { fake, port, sheetName };
+  }
+
+  it("copies values only, two rows down under the stamp, and leaves the source untouched", async () => {
+    const { fake, port, sheetName } = await calculatedEstimate();
+    const source = structuredClone([...fake.sheetByName(sheetName)!.cells]);
+    const result = await port.makeShareCopy();
+    expect(result).toEqual({ ok: true, sheetName: `${sheetName} values 2026-05-04`, sourceSheet: sheetName });
+    if (!result.ok) return;
+    expect([...fake.sheetByName(sheetName)!.cells]).toEqual(source);
+    const copy = fake.sheetByName(result.sheetName)!;
+    expect(fake.sheets.map((s) => s.name)).toEqual(["Sheet1", sheetName, result.sheetName]);
+    expect(copy.cells.get("A1")?.value).toBe(`Share copy of ${sheetName}, 2026-05-04: ${SHARE_STAMP}.`);
+    for (const [a, c] of source) {
+      const p = parseCell(a);
+      const moved = copy.cells.get(cellAddress({ row: p.row + 2, col: p.col }));
+      expect(moved?.formula, a).toBeUndefined();
+      expect(moved?.value, a).toEqual(c.value);
+    }
+    // the names still point at the source
+    expect(fake.nameTarget("Supply_Static")?.sheet).toBe(sheetName);
+    expect(copy.charts).toHaveLength(1);
+  });
+
+  it("refuses while cells show #BUSY!, says so, and adds no sheet", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const port = excelPort(fake);
+    const { sheetName } = await port.insertEstimateSheet("US"); // fresh formulas show #BUSY!
+    const before = structuredClone([...fake.sheetByName(sheetName)!.cells]);
+    const result = await port.makeShareCopy();
+    expect(result.ok).toBe(false);
+    if (!result.ok) {
+      expect(result.reason).toMatch(/^No share copy made: Estimate!B\d+ shows #BUSY!/);
+      expect(result.reason).toMatch(/and \d+ more; Excel is still calculating/);
+    }
+    expect(fake.sheets.map((s) => s.name)).toEqual(["Sheet1", sheetName]);
+    expect([...fake.sheetByName(sheetName)!.cells]).toEqual(before);
+  });
+
+  it("refuses while a cell shows an error, naming it", async () => {
+    const { fake, port, sheetName } = await calculatedEstimate();
+    const margin = estimateTemplate(demoScenario("US")).cells.find((c) => c.formula?.startsWith("=HEADROOM.MARGIN("))!;
+    Object.assign(fake.sheetByName(sheetName)!.cells.get(margin.address)!, { value: "#VALUE!", error: true });
+    const result = await port.makeShareCopy();
+    expect(result).toEqual({
+      ok: false,
+      reason: `No share copy made: ${sheetName}!${margin.address} shows #VALUE!; fix those cells first, so that the copy holds numbers.`,
+    });
+  });
+
+  it("copies the active sheet when no estimate names are defined", async () => {
+    const fake = new FakeExcel(["Notes"]);
+    fake.setCell("Notes", "A1", { value: "hand-made" });
+    fake.setCell("Notes", "B3", { value: 12, formula: "=6*2" });
+    const result = await excelPort(fake, new Date(2026, 0, 9)).makeShareCopy();
+    expect(result).toMatchObject({ ok: true, sourceSheet: "Notes", sheetName: "Notes values 2026-01-09" });
+    expect(fake.cellsOf("Notes values 2026-01-09")).toEqual({
+      A1: { value: `Share copy of Notes, 2026-01-09: ${SHARE_STAMP}.` },
+      A3: { value: "hand-made" },
+      B5: { value: 12 },
+    });
+  });
+});

@@ -1,0 +1,474 @@
+/**
+ * A small in-memory workbook behind office-addin-mock, for testing the Office.js side of the Workbook port.
+ *
+ * office-addin-mock gives the load/sync semantics of Office.js objects (a property read before load and sync is an
+ * error string) but no Excel behaviour and no collections. This fake supplies the behaviour the port relies on:
+ * sheets of cells (value, formula, number format, look), workbook names, used ranges, sheet copy, copyFrom values,
+ * row insertion, charts and events. Every Office.js object the port asks for is a fresh OfficeMockObject hung under
+ * the context (so that context.sync() reaches it); property writes the port queues are applied to the model at the
+ * next sync, method calls at once. The fake does not calculate: a formula shows whatever value it was given, and a
+ * formula written by the port shows #BUSY! (as a custom function does before Excel has its result).
+ */
+import { OfficeMockObject } from "office-addin-mock";
+import { cellAddress, parseCell, parseRange, quoteSheet, splitSheet } from "../../src/workbook/a1";
+
+export interface FakeCell {
+  value: number | string | boolean;
+  /** an error shown by the cell, e.g. "#BUSY!" (value is then that text) */
+  error?: boolean;
+  formula?: string;
+  numberFormat?: string;
+  style?: Record<string, unknown>;
+}
+
+export interface FakeSheet {
+  id: number;
+  name: string;
+  cells: Map<string, FakeCell>;
+  columnWidths: Map<string, number>;
+  charts: FakeChart[];
+  tabColor?: string;
+}
+
+export interface FakeChart {
+  type: string;
+  source: string;
+  seriesBy: string;
+  props: Record<string, unknown>;
+  position?: [string, string];
+  series: Array<{ name: string; x?: string; y?: string; props: Record<string, unknown> }>;
+}
+
+type NameTarget = { sheetId: number; address: string; comment?: string };
+type Handler = (args: unknown) => Promise<unknown> | unknown;
+
+interface Proxy {
+  mock: OfficeMockObject;
+  baseline: Map<string, unknown>;
+  onWrite: (path: string, value: unknown) => void;
+}
+
+const NOT_READ = /^Error, /;
+
+/** The parts of office-addin-mock's objects the fake works with (addMock and populate are public in its README). */
+interface MockNode {
+  addMock(name: string): void;
+  populate(seed: object): void;
+  _properties: Map<string, MockNode & { _isObject?: boolean }>;
+  [key: string]: unknown;
+}
+const node = (m: OfficeMockObject): MockNode => m as unknown as MockNode;
+
+/** Every scalar property of a mock and its nested objects: [path, value shown]. */
+function leaves(mock: OfficeMockObject | MockNode, prefix = ""): Array<[string, unknown]> {
+  const m = mock as MockNode;
+  const out: Array<[string, unknown]> = [];
+  for (const [key, child] of m._properties) {
+    if (child._isObject) out.push(...leaves(child, `${prefix}${key}/`));
+    else out.push([`${prefix}${key}`, m[key]]);
+  }
+  return out;
+}
+
+export class FakeExcel {
+  sheets: FakeSheet[] = [];
+  names = new Map<string, NameTarget>();
+  activeId = 0;
+  changed = new Set<Handler>();
+  calculated = new Set<Handler>();
+  /** every batch run, for tests that count round trips */
+  syncs = 0;
+  private nextId = 1;
+
+  constructor(sheetNames: string[] = ["Sheet1"]) {
+    for (const n of sheetNames) this.addSheet(n);
+    this.activeId = this.sheets[0].id;
+  }
+
+  // ── model ──
+  addSheet(name: string, after?: FakeSheet): FakeSheet {
+    if (this.sheetByName(name)) throw new Error(`A resource with the same name or identifier already exists: ${name}`);
+    const s: FakeSheet = { id: this.nextId++, name, cells: new Map(), columnWidths: new Map(), charts: [] };
+    if (after) this.sheets.splice(this.sheets.indexOf(after) + 1, 0, s);
+    else this.sheets.push(s);
+    return s;
+  }
+
+  sheetByName(name: string): FakeSheet | undefined {
+    return this.sheets.find((s) => s.name.toLowerCase() === name.toLowerCase());
+  }
+
+  sheetById(id: number): FakeSheet {
+    const s = this.sheets.find((x) => x.id === id);
+    if (!s) throw new Error(`sheet ${id} was deleted`);
+    return s;
+  }
+
+  /** Set a cell as a user would; fires the change events. */
+  setCell(sheet: string, address: string, cell: FakeCell | null): void {
+    const s = this.sheetByName(sheet)!;
+    if (cell === null) s.cells.delete(address);
+    else s.cells.set(address, cell);
+    void this.fire(this.changed, { address: `${sheet}!${address}`, changeType: "RangeEdited", source: "Local" });
+    if (cell?.formula) void this.fire(this.calculated, { address: `${sheet}!${address}` });
+  }
+
+  private async fire(set: Set<Handler>, args: unknown): Promise<void> {
+    for (const h of [...set]) await h(args);
+  }
+
+  /** Values of a block of a sheet in Office.js shape. */
+  block(sheet: FakeSheet, range: string) {
+    const r = parseRange(range);
+    const values: unknown[][] = [];
+    const valueTypes: string[][] = [];
+    const formulas: unknown[][] = [];
+    for (let i = 0; i < r.rows; i++) {
+      values.push([]);
+      valueTypes.push([]);
+      formulas.push([]);
+      for (let j = 0; j < r.cols; j++) {
+        const c = sheet.cells.get(cellAddress({ row: r.start.row + i, col: r.start.col + j }));
+        values[i].push(c ? c.value : "");
+        formulas[i].push(c ? (c.formula ?? c.value) : "");
+        valueTypes[i].push(
+          !c ? "Empty" : c.error ? "Error" : typeof c.value === "number" ? "Double" : typeof c.value === "boolean" ? "Boolean" : c.value === "" ? "Empty" : "String",
+        );
+      }
+    }
+    return { values, valueTypes, formulas, rowCount: r.rows, columnCount: r.cols };
+  }
+
+  usedRange(sheet: FakeSheet): string | null {
+    let r0 = Infinity;
+    let c0 = Infinity;
+    let r1 = -1;
+    let c1 = -1;
+    for (const [a, c] of sheet.cells) {
+      if (c.value === "" && !c.formula) continue;
+      const p = parseCell(a);
+      r0 = Math.min(r0, p.row);
+      c0 = Math.min(c0, p.col);
+      r1 = Math.max(r1, p.row);
+      c1 = Math.max(c1, p.col);
+    }
+    if (r1 < 0) return null;
+    return `${cellAddress({ row: r0, col: c0 })}:${cellAddress({ row: r1, col: c1 })}`;
+  }
+
+  // ── Office.js surface ──
+  /** Excel.run over the fake: a fresh context each batch. */
+  run = async <T>(batch: (ctx: Excel.RequestContext) => Promise<T>): Promise<T> => {
+    const ctx = new Session(this).context;
+    return batch(ctx as unknown as Excel.RequestContext);
+  };
+
+  runIn = async <T>(ctx: Excel.RequestContext, batch: (ctx: Excel.RequestContext) => Promise<T>): Promise<T> => batch(ctx);
+
+  // ── test helpers ──
+  cellsOf(sheet: string): Record<string, { value: unknown; formula?: string }> {
+    const s = this.sheetByName(sheet);
+    if (!s) throw new Error(`no sheet ${sheet}`);
+    const out: Record<string, { value: unknown; formula?: string }> = {};
+    for (const [a, c] of s.cells) {
+      if (c.value === "" && !c.formula) continue;
+      out[a] = c.formula ? { value: c.value, formula: c.formula } : { value: c.value };
+    }
+    return out;
+  }
+
+  nameTarget(n: string): { sheet: string; address: string } | null {
+    const t = this.names.get(n);
+    if (!t) return null;
+    return { sheet: this.sheetById(t.sheetId).name, address: splitSheet(t.address).range };
+  }
+}
+
+/** One Excel.run batch: its context, and the Office.js objects handed out in it. */
+class Session {
+  readonly context: OfficeMockObject;
+  private proxies: Proxy[] = [];
+  private pool: OfficeMockObject;
+  private poolKey = 0;
+
+  constructor(private readonly x: FakeExcel) {
+    // eslint-disable-next-line @typescript-eslint/no-this-alias
+    const session = this;
+    const ctx = new OfficeMockObject({
+      pool: {},
+      application: { suspendApiCalculationUntilNextSync() {} },
+      workbook: {},
+      sync: async function (this: OfficeMockObject) {
+        session.commit();
+        x.syncs++;
+        await OfficeMockObject.prototype.sync.call(this);
+        await new Promise((r) => setTimeout(r, 0));
+        session.rebaseline();
+      },
+    });
+    this.context = ctx;
+    this.pool = (ctx as unknown as { pool: OfficeMockObject }).pool;
+    const wb = (ctx as unknown as { workbook: OfficeMockObject }).workbook;
+    node(wb).populate({
+      names: {
+        getItemOrNullObject: (n: string) => this.nameItem(n),
+        add: (n: string, ref: unknown, comment?: string) => {
+          if (this.x.names.has(n)) throw new Error(`A resource with the same name or identifier already exists: ${n}`);
+          const target = (ref as { _ref?: NameTarget })._ref;
+          if (!target) throw new Error("names.add: the fake takes a Range");
+          this.x.names.set(n, { ...target, comment });
+          return this.nameItem(n);
+        },
+      },
+      worksheets: {
+        getItemOrNullObject: (n: string) => {
+          const s = this.x.sheetByName(n);
+          return s ? this.sheetProxy(s) : this.nullProxy();
+        },
+        add: (n: string) => this.sheetProxy(this.x.addSheet(n)),
+        getActiveWorksheet: () => this.sheetProxy(this.x.sheetById(this.x.activeId)),
+        onChanged: { add: (h: Handler) => this.handler(this.x.changed, h, ctx) },
+        onCalculated: { add: (h: Handler) => this.handler(this.x.calculated, h, ctx) },
+      },
+    });
+  }
+
+  private handler(set: Set<Handler>, h: Handler, ctx: OfficeMockObject) {
+    set.add(h);
+    const p = this.proxy({ remove: () => set.delete(h) });
+    (p as unknown as { context: unknown }).context = ctx;
+    return p;
+  }
+
+  private proxy(seed: Record<string, unknown>, onWrite: (path: string, value: unknown) => void = () => {}, plain: Record<string, unknown> = {}): OfficeMockObject {
+    const key = `p${this.poolKey++}`;
+    node(this.pool).addMock(key);
+    const mock = node(this.pool)[key] as OfficeMockObject;
+    node(mock).populate(seed);
+    Object.assign(mock, { isNullObject: false }, plain);
+    const p: Proxy = { mock, baseline: new Map(), onWrite };
+    for (const [path, v] of leaves(mock)) p.baseline.set(path, v);
+    this.proxies.push(p);
+    return mock;
+  }
+
+  private nullProxy(): OfficeMockObject {
+    return this.proxy({ name: "", type: "", value: "" }, undefined, { isNullObject: true });
+  }
+
+  private nameItem(n: string): OfficeMockObject {
+    const t = [...this.x.names].find(([k]) => k.toLowerCase() === n.toLowerCase())?.[1];
+    if (!t) {
+      const nul = this.nullProxy();
+      Object.assign(nul, { getRangeOrNullObject: () => this.nullProxy() });
+      return nul;
+    }
+    const sheet = this.x.sheets.find((s) => s.id === t.sheetId);
+    return this.proxy(
+      {
+        name: n,
+        type: sheet ? "Range" : "Error",
+        value: sheet ? `=${quoteSheet(sheet.name)}!${t.address}` : "#REF!",
+        getRange: () => this.rangeProxy(this.x.sheetById(t.sheetId), t.address),
+        getRangeOrNullObject: () => (sheet ? this.rangeProxy(sheet, t.address) : this.nullProxy()),
+        delete: () => this.x.names.delete(n),
+      },
+      undefined,
+    );
+  }
+
+  private sheetProxy(sheet: FakeSheet): OfficeMockObject {
+    const seed = {
+      name: sheet.name,
+      position: this.x.sheets.indexOf(sheet),
+      tabColor: sheet.tabColor ?? "",
+      getRange: (a: string) => this.rangeProxy(sheet, a),
+      getUsedRange: () => {
+        const u = this.x.usedRange(sheet);
+        if (!u) throw new Error("the sheet is empty");
+        return this.rangeProxy(sheet, u);
+      },
+      getUsedRangeOrNullObject: () => {
+        const u = this.x.usedRange(sheet);
+        return u ? this.rangeProxy(sheet, u) : this.nullProxy();
+      },
+      activate: () => {
+        this.x.activeId = sheet.id;
+      },
+      delete: () => {
+        this.x.sheets.splice(this.x.sheets.indexOf(sheet), 1);
+      },
+      copy: (_position: string, relativeTo?: { _sheetId?: number }) => {
+        const after = relativeTo?._sheetId ? this.x.sheetById(relativeTo._sheetId) : sheet;
+        const copy = this.x.addSheet(this.copyName(sheet.name), after);
+        for (const [a, c] of sheet.cells) copy.cells.set(a, structuredClone(c));
+        copy.columnWidths = new Map(sheet.columnWidths);
+        copy.charts = structuredClone(sheet.charts);
+        return this.sheetProxy(copy);
+      },
+      charts: {
+        add: (type: string, source: { _ref?: NameTarget }, seriesBy: string) => this.chartProxy(sheet, type, source._ref!.address, seriesBy),
+      },
+    };
+    return this.proxy(
+      seed,
+      (path, v) => {
+        if (path === "name") {
+          if (this.x.sheetByName(String(v)) && this.x.sheetByName(String(v)) !== sheet) throw new Error(`sheet name taken: ${v}`);
+          sheet.name = String(v);
+        } else if (path === "tabColor") sheet.tabColor = String(v);
+      },
+      { _sheetId: sheet.id },
+    );
+  }
+
+  /** Excel names a copy "Name (2)". */
+  private copyName(name: string): string {
+    for (let i = 2; ; i++) if (!this.x.sheetByName(`${name} (${i})`)) return `${name} (${i})`;
+  }
+
+  private rangeProxy(sheet: FakeSheet, address: string): OfficeMockObject {
+    const rowOrColumn = /^(\d+):(\d+)$|^([A-Z]+):([A-Z]+)$/.exec(address);
+    const block = rowOrColumn ? { values: [], valueTypes: [], formulas: [], rowCount: 0, columnCount: 0 } : this.x.block(sheet, address);
+    const range = rowOrColumn ? null : parseRange(address);
+    const fullAddress = `${quoteSheet(sheet.name)}!${address.replace(/\$/g, "")}`;
+    const seed = {
+      address: fullAddress,
+      ...block,
+      numberFormat: [] as unknown[],
+      format: { columnWidth: 0, fill: { color: "" }, font: { color: "", bold: false, italic: false, size: 11 } },
+      copyFrom: (src: { _ref?: NameTarget }, type: string) => {
+        if (type !== "Values" || !src._ref || !range) throw new Error("the fake copies values between blocks only");
+        const from = this.x.sheetById(src._ref.sheetId);
+        const s = parseRange(src._ref.address);
+        for (let i = 0; i < s.rows; i++)
+          for (let j = 0; j < s.cols; j++) {
+            const c = from.cells.get(cellAddress({ row: s.start.row + i, col: s.start.col + j }));
+            const to = cellAddress({ row: range.start.row + i, col: range.start.col + j });
+            if (!c) sheet.cells.delete(to);
+            else sheet.cells.set(to, { ...structuredClone(c), formula: undefined });
+          }
+      },
+      insert: (shift: string) => {
+        const m = /^(\d+):(\d+)$/.exec(address);
+        if (!m || shift !== "Down") throw new Error("the fake inserts whole rows only");
+        const first = Number(m[1]) - 1;
+        const n = Number(m[2]) - first;
+        const moved = new Map<string, FakeCell>();
+        for (const [a, c] of sheet.cells) {
+          const p = parseCell(a);
+          moved.set(cellAddress(p.row >= first ? { row: p.row + n, col: p.col } : p), c);
+        }
+        sheet.cells = moved;
+        return this.rangeProxy(sheet, address);
+      },
+    };
+    const mock = this.proxy(
+      seed,
+      (path, v) => this.writeRange(sheet, address, path, v),
+      { _ref: { sheetId: sheet.id, address: address.replace(/\$/g, "") } },
+    );
+    // the range's worksheet: made when first asked for (a plain property, so that sync leaves it alone)
+    let ws: OfficeMockObject | undefined;
+    Object.defineProperty(mock, "worksheet", { get: () => (ws ??= this.sheetProxy(sheet)) });
+    return mock;
+  }
+
+  private writeRange(sheet: FakeSheet, address: string, path: string, v: unknown): void {
+    if (path === "format/columnWidth") {
+      const m = /^([A-Z]+):([A-Z]+)$/.exec(address);
+      if (m) sheet.columnWidths.set(m[1], Number(v));
+      return;
+    }
+    const r = parseRange(address);
+    const each = (f: (cell: FakeCell, i: number, j: number) => void) => {
+      for (let i = 0; i < r.rows; i++)
+        for (let j = 0; j < r.cols; j++) {
+          const a = cellAddress({ row: r.start.row + i, col: r.start.col + j });
+          const cell = sheet.cells.get(a) ?? { value: "" };
+          f(cell, i, j);
+          sheet.cells.set(a, cell);
+        }
+    };
+    const grid = v as unknown[][];
+    if (path === "values") {
+      each((c, i, j) => {
+        const x = grid[i][j];
+        if (x === null) return;
+        c.value = typeof x === "string" && x.startsWith("'") ? x.slice(1) : (x as number | string);
+        c.formula = undefined;
+        c.error = false;
+      });
+    } else if (path === "formulas") {
+      each((c, i, j) => {
+        const x = grid[i][j];
+        if (typeof x === "string" && x.startsWith("=")) {
+          c.formula = x;
+          c.value = "#BUSY!";
+          c.error = true;
+        } else if (x !== null) {
+          c.value = x as number | string;
+          c.formula = undefined;
+        }
+      });
+    } else if (path === "numberFormat") {
+      each((c, i, j) => (c.numberFormat = String(grid[i][j])));
+    } else if (path.startsWith("format/")) {
+      each((c) => (c.style = { ...c.style, [path.slice("format/".length)]: v }));
+    }
+  }
+
+  private chartProxy(sheet: FakeSheet, type: string, source: string, seriesBy: string): OfficeMockObject {
+    const chart: FakeChart = { type, source, seriesBy, props: {}, series: [{ name: "", props: {} }] };
+    sheet.charts.push(chart);
+    const seriesProxy = (s: FakeChart["series"][number]) =>
+      this.proxy(
+        {
+          name: s.name,
+          chartType: "",
+          markerStyle: "",
+          markerSize: 0,
+          markerBackgroundColor: "",
+          markerForegroundColor: "",
+          format: { line: { color: "" } },
+          setXAxisValues: (r: { _ref: NameTarget }) => (s.x = r._ref.address),
+          setValues: (r: { _ref: NameTarget }) => (s.y = r._ref.address),
+        },
+        (path, v) => (path === "name" ? (s.name = String(v)) : (s.props[path] = v)),
+      );
+    return this.proxy(
+      {
+        name: "",
+        title: { text: "" },
+        legend: { position: "" },
+        axes: { categoryAxis: { minimum: 0, title: { text: "" } }, valueAxis: { minimum: 0, title: { text: "" } } },
+        setPosition: (a: string, b: string) => (chart.position = [a, b]),
+        series: {
+          getItemAt: (i: number) => seriesProxy(chart.series[i]),
+          add: (name: string) => {
+            const s = { name, props: {} };
+            chart.series.push(s);
+            return seriesProxy(s);
+          },
+        },
+      },
+      (path, v) => (chart.props[path] = v),
+    );
+  }
+
+  /** Apply the property writes queued since the last sync. */
+  private commit(): void {
+    for (const p of this.proxies) {
+      for (const [path, v] of leaves(p.mock)) {
+        if (v === p.baseline.get(path)) continue;
+        if (typeof v === "string" && NOT_READ.test(v)) continue;
+        p.onWrite(path, v);
+        p.baseline.set(path, v);
+      }
+    }
+  }
+
+  private rebaseline(): void {
+    for (const p of this.proxies) for (const [path, v] of leaves(p.mock)) p.baseline.set(path, v);
+  }
+}
