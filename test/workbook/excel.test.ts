@@ -40,7 +40,9 @@ function harness(fake = new FakeExcel(["Inputs"])): PortHarness {
     remove: async (name) => {
       fake.names.delete(name);
     },
-    settle: () => wait(SETTLE_MS * 4),
+    settle: async () => {
+      await wait(SETTLE_MS * 4);
+    },
     sheetNames: async () => fake.sheets.map((s) => s.name),
     cells: async (sheet) => fake.cellsOf(sheet),
     nameTarget: async (name) => fake.nameTarget(name),
