@@ -10,6 +10,7 @@
  *
  * Text inside string literals ("…") and quoted sheet names ('…') is never touched.
  */
+import { NAMESPACE } from "./metadata";
 
 /** Built-ins that Excel writes with the `_xlfn.` prefix and that the engine knows (Excel 2010 and later). */
 const XLFN_FUNCTIONS = new Set([
@@ -62,9 +63,20 @@ export function fileNameOf(formulaName: string): string {
 }
 
 /**
+ * An `_xldudf_HEADROOM_…` name the known list does not hold (a function of a newer or older Headroom): read as
+ * HEADROOM.<rest>, so that the engine says which function it does not know.
+ */
+function ownNamespace(fileName: string): string | undefined {
+  const prefix = `_XLDUDF_${NAMESPACE}_`;
+  const upper = fileName.toUpperCase();
+  return upper.startsWith(prefix) && upper.length > prefix.length ? `${NAMESPACE}.${upper.slice(prefix.length)}` : undefined;
+}
+
+/**
  * A formula as stored in a file (ExcelJS gives it without the leading "=") → formula text for the engine ("=…").
  * `known` lists the add-in's function names as written in cells ("HEADROOM.FRICTION"); an `_xldudf_` name not in
- * it is left alone (the engine shows #NAME? for it, as Excel does without the add-in).
+ * it and not in Headroom's namespace is left alone (the engine shows #NAME? for it, as Excel does without the
+ * add-in).
  */
 export function fromFileFormula(formula: string, known: Iterable<string>): string {
   const byFileName = new Map<string, string>();
@@ -72,7 +84,7 @@ export function fromFileFormula(formula: string, known: Iterable<string>): strin
   const body = formula.startsWith("=") ? formula.slice(1) : formula;
   const mapped = outsideQuotes(body, (code) =>
     code
-      .replace(/_xldudf_[A-Za-z0-9_.]+(?=\s*\()/g, (m) => byFileName.get(m.toUpperCase()) ?? m)
+      .replace(/_xldudf_[A-Za-z0-9_.]+(?=\s*\()/g, (m) => byFileName.get(m.toUpperCase()) ?? ownNamespace(m) ?? m)
       .replace(/_xlfn\.(?:_xlws\.)?/gi, "")
       .replace(/_xlws\./gi, "")
       .replace(/(^|[^A-Za-z0-9_.$])(\d+\.?\d*|\.\d+)E([+-]?\d+)/g, (_m, pre, mant, exp) => `${pre}${mant}e${exp}`),
@@ -82,7 +94,8 @@ export function fromFileFormula(formula: string, known: Iterable<string>): strin
 
 /**
  * Formula text of the engine ("=…") → the formula as a file stores it (no leading "="): the add-in's functions as
- * `_xldudf_…`, newer built-ins with `_xlfn.`.
+ * `_xldudf_…` (every name in the add-in's namespace, known or not: this direction is unambiguous), newer built-ins
+ * with `_xlfn.`.
  */
 export function toFileFormula(formula: string, known: Iterable<string>): string {
   const names = new Map<string, string>();
@@ -91,7 +104,7 @@ export function toFileFormula(formula: string, known: Iterable<string>): string 
   return outsideQuotes(body, (code) =>
     code.replace(/(^|[^A-Za-z0-9_.])([A-Za-z][A-Za-z0-9_.]*)(?=\s*\()/g, (m, pre: string, name: string) => {
       const upper = name.toUpperCase();
-      const own = names.get(upper);
+      const own = names.get(upper) ?? (upper.startsWith(`${NAMESPACE}.`) ? upper : undefined);
       if (own) return `${pre}${fileNameOf(own)}`;
       if (XLFN_FUNCTIONS.has(upper)) return `${pre}_xlfn.${upper}`;
       return m;

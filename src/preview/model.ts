@@ -34,6 +34,8 @@ export interface CellData {
   style?: CellStyle;
   /** The last computed value (from a file, or written on save). */
   cached?: CachedValue;
+  /** For a formula whose result spills: the block it fills, anchor included ("M48:P51"). */
+  spill?: string;
 }
 
 export interface SheetData {
@@ -44,6 +46,8 @@ export interface SheetData {
   columnWidths?: Record<number, number>;
   /** Cells spanning several columns, as "A1:F1". */
   merges?: string[];
+  /** Row heights in points, by 0-based row (rows not listed have the default height). */
+  rowHeights?: Record<number, number>;
 }
 
 /** A workbook-scoped defined name: `ref` like "Estimate!$B$8" (or a constant such as "=0"). */

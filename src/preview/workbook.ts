@@ -50,6 +50,7 @@ export class PreviewWorkbook {
   private readonly styles = new Map<string, Map<string, CellStyle>>();
   private readonly widths = new Map<string, Record<number, number>>();
   private readonly merges = new Map<string, string[]>();
+  private readonly heights = new Map<string, Record<number, number>>();
   private readonly listeners = new Set<ChangeListener>();
   private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
   activeSheet: string;
@@ -114,6 +115,10 @@ export class PreviewWorkbook {
 
   columnWidths(sheet: string): Record<number, number> {
     return this.widths.get(sheet) ?? {};
+  }
+
+  rowHeights(sheet: string): Record<number, number> {
+    return this.heights.get(sheet) ?? {};
   }
 
   mergedRanges(sheet: string): string[] {
@@ -312,6 +317,7 @@ export class PreviewWorkbook {
       const cell: CellData = { content: v.content };
       if (v.style) cell.style = v.style;
       if (v.value !== null || v.content !== null) cell.cached = cachedOf(v.value);
+      if (v.spillRange) cell.spill = v.spillRange;
       cells[v.address] = cell;
     }
     const data: SheetData = { name, cells };
@@ -319,6 +325,8 @@ export class PreviewWorkbook {
     if (widths && Object.keys(widths).length) data.columnWidths = { ...widths };
     const merges = this.merges.get(name);
     if (merges?.length) data.merges = [...merges];
+    const heights = this.heights.get(name);
+    if (heights && Object.keys(heights).length) data.rowHeights = { ...heights };
     return data;
   }
 
@@ -333,6 +341,7 @@ export class PreviewWorkbook {
     this.styles.set(s.name, m);
     this.widths.set(s.name, { ...(s.columnWidths ?? {}) });
     this.merges.set(s.name, [...(s.merges ?? [])]);
+    this.heights.set(s.name, { ...(s.rowHeights ?? {}) });
   }
 }
 

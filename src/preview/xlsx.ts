@@ -1,0 +1,258 @@
+/**
+ * .xlsx files in and out, through ExcelJS, loaded only when a file is opened or saved (`await import("exceljs")`).
+ *
+ * Reading: every formula with its cached value (the add-in's functions mapped from `_xldudf_HEADROOM_…` back to
+ * `HEADROOM.…` by the known function list, `_xlfn.` dropped, exponents made lowercase: ./formulaText), values,
+ * number formats, the cell roles recognised from the styles this module writes, column widths, merges, row heights
+ * and the workbook's defined names. A spilled block (an array formula with its `ref`) becomes its anchor formula;
+ * the other cells of the block keep only their cached values, so that the engine can spill into them.
+ *
+ * Writing: formulas in the file's spelling with their current values cached (so a colleague with the add-in sees
+ * numbers at once, and Excel recalculates on open: fullCalcOnLoad), spills as array formulas over their block,
+ * roles as fills and fonts (ROLE_STYLES of the template), names. ExcelJS cannot write charts; the pane draws the
+ * plot.
+ */
+import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
+import { parseRange } from "../workbook/a1";
+import { ROLE_STYLES } from "../workbook/template";
+import { fromFileFormula, toFileFormula } from "./formulaText";
+import type { CachedValue, CellData, CellRole, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
+
+type ExcelJSModule = typeof import("exceljs");
+
+let loading: Promise<ExcelJSModule> | undefined;
+
+/** ExcelJS, loaded on first use. */
+async function excel(): Promise<ExcelJSModule> {
+  loading ??= import("exceljs").then((m) => ((m as unknown as { default?: ExcelJSModule }).default ?? m) as ExcelJSModule);
+  return loading;
+}
+
+const ERROR_CODES = new Set(["#NULL!", "#DIV/0!", "#VALUE!", "#REF!", "#NAME?", "#NUM!", "#N/A", "#SPILL!", "#CALC!", "#BUSY!", "#ERROR!", "#CYCLE!", "#LIC!"]);
+
+/** Excel stores dates as days since 1899-12-30. */
+function dateSerial(d: Date): number {
+  return (d.getTime() - Date.UTC(1899, 11, 30)) / 86_400_000;
+}
+
+/** The colour of a role's fill or font as ExcelJS writes it (ARGB, opaque). */
+const argb = (hex: string) => `FF${hex.replace("#", "").toUpperCase()}`;
+
+/** "FFFFF2B3" or "FFF2B3" → "#FFF2B3"; theme or indexed colours → undefined. */
+function hexOf(color: { argb?: string } | undefined): string | undefined {
+  const a = color?.argb;
+  if (!a) return undefined;
+  return `#${a.slice(-6).toUpperCase()}`;
+}
+
+/** The role whose look (fill, font colour, bold, italic) is exactly this cell's, if any. */
+function roleOfStyle(fill: string | undefined, font: string | undefined, bold: boolean, italic: boolean): CellRole | undefined {
+  for (const [role, look] of Object.entries(ROLE_STYLES) as Array<[CellRole, (typeof ROLE_STYLES)[CellRole]]>) {
+    if (!look.fill && !look.font && !look.bold && !look.italic) continue; // a role with no look of its own
+    if ((look.fill ?? undefined) !== fill) continue;
+    if ((look.font ?? undefined) !== font) continue;
+    if (Boolean(look.bold) !== bold || Boolean(look.italic) !== italic) continue;
+    return role;
+  }
+  return undefined;
+}
+
+/** A cell's typed value as the preview's content (formulas aside). */
+function contentOfValue(v: CellValue): CachedValue | string {
+  if (v === null || v === undefined) return null;
+  if (typeof v === "number" || typeof v === "string" || typeof v === "boolean") return v;
+  if (v instanceof Date) return dateSerial(v);
+  if (typeof v === "object") {
+    if ("richText" in v && Array.isArray(v.richText)) return v.richText.map((r) => r.text).join("");
+    if ("error" in v) return { error: String((v as { error: unknown }).error) };
+    if ("text" in v && typeof (v as { text: unknown }).text === "string") return (v as { text: string }).text; // hyperlink
+  }
+  return String(v);
+}
+
+function cachedOf(result: unknown): CachedValue {
+  if (result === undefined || result === null) return null;
+  if (typeof result === "number" || typeof result === "string" || typeof result === "boolean") return result;
+  if (result instanceof Date) return dateSerial(result);
+  if (typeof result === "object" && "error" in (result as object)) return { error: String((result as { error: unknown }).error) };
+  return String(result);
+}
+
+export interface ReadResult {
+  workbook: WorkbookData;
+  /** what could not be read as it was (charts dropped, names skipped…), for the user */
+  notes: string[];
+}
+
+/** Read an .xlsx file. `known` lists the add-in's functions as written in cells ("HEADROOM.FRICTION"). */
+export async function readXlsx(data: ArrayBuffer | Uint8Array, known: readonly string[]): Promise<ReadResult> {
+  const ExcelJS = await excel();
+  const wb = new ExcelJS.Workbook();
+  await wb.xlsx.load(data as ArrayBuffer);
+  const notes: string[] = [];
+  const sheets: SheetData[] = [];
+  wb.eachSheet((ws) => sheets.push(readSheet(ws, known)));
+  if (!sheets.length) throw new Error("the file holds no worksheet");
+
+  const names: DefinedName[] = [];
+  for (const n of wb.definedNames.model as Array<{ name: string; ranges: string[] }>) {
+    if (n.name.startsWith("_xlnm.")) continue; // print areas and the like
+    if (n.ranges.length !== 1) {
+      notes.push(`name ${n.name} refers to ${n.ranges.length} ranges; left out`);
+      continue;
+    }
+    names.push({ name: n.name, ref: n.ranges[0] });
+  }
+  const activeTab = (wb.views?.[0] as { activeTab?: number } | undefined)?.activeTab ?? 0;
+  return { workbook: { sheets, names, activeSheet: sheets[activeTab]?.name ?? sheets[0].name }, notes };
+}
+
+function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
+  const cells: Record<string, CellData> = {};
+  const covered = new Set<string>(); // cells of a spilled block other than its anchor
+  ws.eachRow({ includeEmpty: false }, (row) =>
+    row.eachCell({ includeEmpty: false }, (cell) => {
+      const v = cell.value as { shareType?: string; ref?: string } | null;
+      if (v && typeof v === "object" && v.shareType === "array" && v.ref && v.ref.includes(":")) {
+        const r = parseRange(v.ref);
+        for (let i = 0; i < r.rows; i++)
+          for (let k = 0; k < r.cols; k++) if (i || k) covered.add(addressOf(r.start.row + i, r.start.col + k));
+      }
+    }),
+  );
+  ws.eachRow({ includeEmpty: true }, (row) =>
+    row.eachCell({ includeEmpty: true }, (cell) => {
+      const style = styleOf(cell);
+      const address = cell.address;
+      const formula = cell.formula as string | undefined;
+      let data: CellData | undefined;
+      if (formula) {
+        data = { content: fromFileFormula(formula, known), cached: cachedOf(cell.result) };
+        const ref = (cell.value as { ref?: string; shareType?: string }).ref;
+        if ((cell.value as { shareType?: string }).shareType === "array" && ref) data.spill = ref;
+      } else {
+        const value = contentOfValue(cell.value);
+        if (covered.has(address)) {
+          data = { content: null, cached: value as CachedValue };
+        } else if (value !== null && typeof value === "object") {
+          // a constant error typed into a cell
+          data = { content: ERROR_CODES.has(value.error) ? value.error : String(value.error) };
+        } else if (value !== null && value !== "") {
+          data = { content: value };
+        }
+      }
+      if (!data && !style) return;
+      data ??= { content: null };
+      if (style) data.style = style;
+      if (!data.style?.role) {
+        // cells without a look of their own: formulas are computed, text is a label
+        const role: CellRole | undefined = formula ? "computed" : typeof data.content === "string" ? "label" : undefined;
+        if (role) data.style = { ...(data.style ?? {}), role };
+      }
+      cells[address] = data;
+    }),
+  );
+
+  const sheet: SheetData = { name: ws.name, cells };
+  const widths: Record<number, number> = {};
+  for (let c = 1; c <= ws.columnCount; c++) {
+    const w = ws.getColumn(c).width;
+    if (w) widths[c - 1] = Math.round(((w * 7 + 5) * 0.75) * 10) / 10;
+  }
+  if (Object.keys(widths).length) sheet.columnWidths = widths;
+  const heights: Record<number, number> = {};
+  ws.eachRow({ includeEmpty: true }, (row, n) => {
+    if (row.height) heights[n - 1] = row.height;
+  });
+  if (Object.keys(heights).length) sheet.rowHeights = heights;
+  const merges = (ws.model as { merges?: string[] }).merges;
+  if (merges?.length) sheet.merges = [...merges];
+  return sheet;
+}
+
+function addressOf(row: number, col: number): string {
+  let n = col + 1;
+  let s = "";
+  while (n > 0) {
+    const r = (n - 1) % 26;
+    s = String.fromCharCode(65 + r) + s;
+    n = Math.floor((n - 1) / 26);
+  }
+  return `${s}${row + 1}`;
+}
+
+function styleOf(cell: Cell): CellStyle | undefined {
+  const style: CellStyle = {};
+  const numFmt = cell.numFmt;
+  if (numFmt && numFmt !== "General") style.numFmt = numFmt;
+  const fill = cell.fill as Fill | undefined;
+  const fillHex = fill && fill.type === "pattern" && fill.pattern === "solid" ? hexOf(fill.fgColor as { argb?: string }) : undefined;
+  const font = cell.font as Partial<Font> | undefined;
+  const fontHex = hexOf(font?.color as { argb?: string } | undefined);
+  const bold = Boolean(font?.bold);
+  const italic = Boolean(font?.italic);
+  const role = roleOfStyle(fillHex, fontHex, bold, italic);
+  if (role) style.role = role;
+  if (bold) style.bold = true;
+  if (italic) style.italic = true;
+  if (cell.alignment?.wrapText) style.wrap = true;
+  return Object.keys(style).length ? style : undefined;
+}
+
+/** Write an .xlsx file. `known` lists the add-in's functions as written in cells. */
+export async function writeXlsx(data: WorkbookData, known: readonly string[]): Promise<Uint8Array> {
+  const ExcelJS = await excel();
+  const wb: ExcelWorkbook = new ExcelJS.Workbook();
+  wb.creator = "Headroom";
+  wb.calcProperties.fullCalcOnLoad = true;
+  for (const s of data.sheets) writeSheet(wb.addWorksheet(s.name), s, known);
+  for (const n of data.names) wb.definedNames.add(n.ref.replace(/^=/, ""), n.name);
+  const active = Math.max(0, data.sheets.findIndex((s) => s.name === data.activeSheet));
+  wb.views = [{ x: 0, y: 0, width: 20000, height: 12000, firstSheet: 0, activeTab: active, visibility: "visible" }];
+  const buffer = await wb.xlsx.writeBuffer();
+  return new Uint8Array(buffer as ArrayBuffer);
+}
+
+function resultOf(v: CachedValue | undefined): unknown {
+  if (v === undefined || v === null) return undefined;
+  if (typeof v === "object") return { error: v.error };
+  return v;
+}
+
+function writeSheet(ws: Worksheet, s: SheetData, known: readonly string[]): void {
+  for (const [col, points] of Object.entries(s.columnWidths ?? {})) {
+    ws.getColumn(Number(col) + 1).width = Math.max(1, Math.round(((points / 0.75 - 5) / 7) * 100) / 100);
+  }
+  for (const [address, c] of Object.entries(s.cells)) {
+    const cell = ws.getCell(address);
+    const content = c.content;
+    if (typeof content === "string" && content.startsWith("=")) {
+      const formula = toFileFormula(content, known);
+      const result = resultOf(c.cached);
+      cell.value = (c.spill
+        ? { formula, result, shareType: "array", ref: c.spill }
+        : { formula, result }) as CellValue;
+    } else if (content !== null && content !== undefined) {
+      cell.value = content;
+    } else if (c.cached !== undefined && c.cached !== null) {
+      // a cell a spill fills: its value, so the file shows it before Excel recalculates
+      cell.value = (typeof c.cached === "object" ? { error: c.cached.error } : c.cached) as CellValue;
+    }
+    if (c.style) applyStyle(cell, c.style);
+  }
+  for (const m of s.merges ?? []) ws.mergeCells(m);
+  for (const [row, points] of Object.entries(s.rowHeights ?? {})) ws.getRow(Number(row) + 1).height = points;
+}
+
+function applyStyle(cell: Cell, style: CellStyle): void {
+  if (style.numFmt) cell.numFmt = style.numFmt;
+  const look = style.role ? ROLE_STYLES[style.role] : undefined;
+  if (look?.fill) cell.fill = { type: "pattern", pattern: "solid", fgColor: { argb: argb(look.fill) } };
+  const font: Partial<Font> = {};
+  if (look?.font) font.color = { argb: argb(look.font) };
+  if (style.bold || look?.bold) font.bold = true;
+  if (style.italic || look?.italic) font.italic = true;
+  if (look?.size) font.size = look.size;
+  if (Object.keys(font).length) cell.font = font as Font;
+  if (style.wrap) cell.alignment = { wrapText: true, vertical: "top" };
+}

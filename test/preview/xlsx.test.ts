@@ -1,0 +1,119 @@
+/**
+ * .xlsx in and out: an estimate sheet saved with formulas and cached values, opened again with the same formulas,
+ * values, roles, names and spills; saved and opened once more unchanged. The file spells the add-in's functions as
+ * Excel does (`_xldudf_HEADROOM_…`) and asks Excel to recalculate on open.
+ */
+import { beforeAll, describe, expect, test } from "vitest";
+import ExcelJS from "exceljs";
+import * as functions from "../../src/functions/functions";
+import { registerHeadroomFunctions } from "../../src/preview/plugin";
+import { PreviewWorkbook } from "../../src/preview/workbook";
+import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
+import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
+import type { WorkbookData } from "../../src/preview/model";
+import { PreviewPort } from "../../src/workbook/preview";
+import { demoScenario, estimateTemplate } from "../../src/workbook/template";
+import { generatedMetadata } from "./metadataFixture";
+import { zipEntry } from "./zipEntry";
+
+let known: string[];
+beforeAll(async () => {
+  const reg = registerHeadroomFunctions(await generatedMetadata(), functions);
+  known = reg.functions.map((f) => f.formulaName);
+});
+
+function demoWorkbook(units: "US" | "SI" = "US"): PreviewWorkbook {
+  const t = estimateTemplate(demoScenario(units));
+  return new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
+}
+
+/** Formulas and values of every cell, for comparing two workbooks. */
+function snapshot(data: WorkbookData) {
+  return data.sheets.map((s) => ({
+    name: s.name,
+    cells: Object.fromEntries(
+      Object.entries(s.cells).map(([a, c]) => [a, { content: c.content, cached: c.cached, spill: c.spill, role: c.style?.role, numFmt: c.style?.numFmt }]),
+    ),
+  }));
+}
+
+describe("round trip", () => {
+  test("open → save → open gives the same formulas, values, roles, names and spills", async () => {
+    const wb = demoWorkbook();
+    wb.setTyped("Estimate", "B12", "80"); // an edit before saving
+    const first = wb.toData();
+    const bytes = await writeXlsx(first, known);
+    const { workbook: opened } = await readXlsx(bytes, known);
+    const reopened = new PreviewWorkbook(opened);
+    const second = reopened.toData();
+    expect(snapshot(second)).toEqual(snapshot(first));
+    expect(second.names.sort((a, b) => a.name.localeCompare(b.name))).toEqual(first.names.sort((a, b) => a.name.localeCompare(b.name)));
+    expect(second.sheets[0].columnWidths).toEqual(first.sheets[0].columnWidths);
+
+    // and once more: saving what was opened changes nothing
+    const { workbook: again } = await readXlsx(await writeXlsx(second, known), known);
+    expect(snapshot(new PreviewWorkbook(again).toData())).toEqual(snapshot(second));
+  });
+
+  test("the cached values in the file are what the engine computed, before the engine sees the file again", async () => {
+    const wb = demoWorkbook("SI");
+    const data = wb.toData();
+    const { workbook: opened } = await readXlsx(await writeXlsx(data, known), known);
+    let compared = 0;
+    for (const [address, cell] of Object.entries(opened.sheets[0].cells)) {
+      if (cell.cached === undefined) continue;
+      const engine = wb.value("Estimate", address);
+      // a file keeps an error's code, not its message
+      // and an empty text result reads back as no value (ExcelJS gives no result for an empty <v/>)
+      const expected = engine !== null && typeof engine === "object" ? { error: engine.error } : engine === "" ? null : engine;
+      expect(cell.cached, address).toEqual(expected);
+      compared++;
+    }
+    expect(compared).toBeGreaterThan(30);
+  });
+
+  test("the file spells the add-in's functions as Excel does, spills as array formulas, and recalculates on open", async () => {
+    const bytes = await writeXlsx(demoWorkbook().toData(), known);
+    const x = new ExcelJS.Workbook();
+    await x.xlsx.load(bytes as unknown as ArrayBuffer);
+    const ws = x.getWorksheet("Estimate")!;
+    const formulas: string[] = [];
+    ws.eachRow((row) => row.eachCell((c) => c.formula && formulas.push(c.formula)));
+    expect(formulas.some((f) => f.includes("_xldudf_HEADROOM_PIPEID("))).toBe(true);
+    expect(formulas.some((f) => /HEADROOM\./.test(f))).toBe(false);
+    expect(zipEntry(bytes, "xl/workbook.xml")).toMatch(/<calcPr[^>]*fullCalcOnLoad="1"/);
+    expect(x.definedNames.model.map((n: { name: string }) => n.name)).toContain("Supply_Static");
+    // the RUN anchor is an array formula over its block
+    const runAnchor = Object.entries(demoWorkbook().toData().sheets[0].cells).find(([, c]) => String(c.content).includes("HEADROOM.RUN("));
+    expect(runAnchor).toBeDefined();
+    const v = ws.getCell(runAnchor![0]).value as { shareType?: string; ref?: string };
+    if (runAnchor![1].spill) {
+      expect(v.shareType).toBe("array");
+      expect(v.ref).toBe(runAnchor![1].spill);
+    }
+    // an input keeps its shade: the template's input fill
+    const fill = ws.getCell("B12").fill as { fgColor?: { argb?: string } };
+    expect(fill.fgColor?.argb).toBe("FFFFF2B3");
+  });
+
+  test("a share copy saved alone holds values only, with the stamp", async () => {
+    const wb = demoWorkbook();
+    const port = new PreviewPort(wb, () => new Date(2026, 4, 4));
+    const made = port.shareCopyData();
+    if (!made.ok) {
+      // the demo sheet still shows an error somewhere (a function not written yet): the refusal names it
+      expect(made.reason).toMatch(/No share copy made: [A-Z]+\d+ shows #/);
+      return;
+    }
+    const bytes = await writeXlsx({ sheets: [made.sheet], names: [] }, known);
+    const x = new ExcelJS.Workbook();
+    await x.xlsx.load(bytes as unknown as ArrayBuffer);
+    const ws = x.worksheets[0];
+    let formulas = 0;
+    ws.eachRow((row) => row.eachCell((c) => void (c.formula && formulas++)));
+    expect(formulas).toBe(0);
+    expect(String(ws.getCell("A1").value)).toBe(
+      "Share copy of Estimate, 2026-05-04: values frozen; recalculation needs the Headroom add-in.",
+    );
+  });
+});
