@@ -17,6 +17,7 @@ import {
   type ShareCopyResult,
   type UnitsCode,
   type WorkbookPort,
+  isoDate,
   shareRefusal,
   shareStamp,
 } from "./port";
@@ -58,7 +59,7 @@ export class PreviewPort implements WorkbookPort {
       return { kind: "invalid", reason: `${name} refers to ${target.expression}, which is not a cell of this workbook` };
     }
     const at = address ? { address } : {};
-    if (value === null || value === "") return { kind: "empty", ...at };
+    if (value === null) return { kind: "empty", ...at };
     if (typeof value === "number") return { kind: "number", value, ...at };
     if (typeof value === "string") return { kind: "text", value, ...at };
     if (typeof value === "boolean") return { kind: "text", value: value ? "TRUE" : "FALSE", ...at };
@@ -131,11 +132,13 @@ export class PreviewPort implements WorkbookPort {
         })
         .join(":"),
     );
+    const heights = Object.fromEntries(Object.entries(wb.rowHeights(source)).map(([r, h]) => [Number(r) + STAMP_ROWS, h]));
     const sheet: SheetData = {
-      name: freeSheetName(`${source} (values)`, wb.sheetNames()),
+      name: freeSheetName(`${source} values ${isoDate(this.now())}`, wb.sheetNames()),
       cells,
       columnWidths: { ...wb.columnWidths(source) },
       ...(merges.length ? { merges } : {}),
+      ...(Object.keys(heights).length ? { rowHeights: heights } : {}),
     };
     return { ok: true, sheet, sourceSheet: source };
   }
@@ -144,6 +147,7 @@ export class PreviewPort implements WorkbookPort {
     const made = this.shareCopyData();
     if (!made.ok) return made;
     const sheetName = this.workbook.addSheet(made.sheet);
+    this.workbook.activate(sheetName);
     return { ok: true, sheetName, sourceSheet: made.sourceSheet };
   }
 }
