@@ -34,6 +34,14 @@ export function exhaustionFlow(t: FlowTest): number {
 }
 
 /**
+ * The supply curve itself, P(Q) = Ps − (Ps − Pr)(Q/Qt)^1.85, unchecked: for callers that have checked the flow test
+ * and the flow, and that handle P ≤ 0 themselves. [NFPA 291]
+ */
+export function supplyCurve(flow: number, t: FlowTest): number {
+  return t.static - (t.static - t.residual) * Math.pow(flow / t.testFlow, HW_FLOW_EXPONENT);
+}
+
+/**
  * Pressure the supply delivers at a flow, along the supply curve.
  *
  *   P(Q) = Ps − (Ps − Pr) (Q / Qt)^1.85
@@ -46,7 +54,7 @@ export function exhaustionFlow(t: FlowTest): number {
 export function supplyAt(flow: number, t: FlowTest): number {
   checkFlowTest(t);
   if (!(flow >= 0)) fail(`flow: got ${show(flow)}; must be 0 or more`);
-  const p = t.static - (t.static - t.residual) * Math.pow(flow / t.testFlow, HW_FLOW_EXPONENT);
+  const p = supplyCurve(flow, t);
   if (!(p > 0)) {
     fail(`flow: got ${show(flow)}; the supply reaches 0 at ${show(Math.round(exhaustionFlow(t)))} and cannot deliver more`);
   }

@@ -101,27 +101,33 @@ export interface QuantityRule {
   signed?: boolean;
 }
 
+/** Rules shared by many calls (one object, not one per call). */
+export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true });
+export const SIGNED: QuantityRule = Object.freeze({ signed: true });
+
 /**
  * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with
  * `zero`, or either sign with `signed`) up to the plausibility bound of LIMITS_US, stated in the user's units.
  */
 export function quantityArg(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule = {}): number {
-  const given = toNumber(value, name);
-  const us = toUS(quantity, given, units);
+  const given = typeof value === "number" && Number.isFinite(value) ? value : toNumber(value, name);
+  const us = units === "SI" ? toUS(quantity, given, units) : given;
   const limitUS = LIMITS_US[quantity];
-  const limit = Number(fromUS(quantity, limitUS, units).toPrecision(6));
-  const u = unitName(quantity, units);
-  const low = rule.signed ? -limitUS : 0;
-  const tooLow = rule.signed ? us < low : rule.zero ? us < 0 : !(us > 0);
-  if (tooLow || Math.abs(us) > limitUS) {
-    const allowed = rule.signed
-      ? `from ${show(-limit)} to ${show(limit)} ${u}`
-      : rule.zero
-        ? `from 0 to ${show(limit)} ${u}`
-        : `greater than 0 and at most ${show(limit)} ${u}`;
-    fail(`${name}: got ${show(given)} ${u}; must be ${allowed}`);
-  }
+  const inRange = rule.signed ? us >= -limitUS && us <= limitUS : (rule.zero ? us >= 0 : us > 0) && us <= limitUS;
+  if (!inRange) quantityOutOfRange(given, name, quantity, units, rule);
   return us;
+}
+
+/** The message for a quantity outside its allowed span, in the user's units (kept off the fast path). */
+function quantityOutOfRange(given: number, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule): never {
+  const limit = Number(fromUS(quantity, LIMITS_US[quantity], units).toPrecision(6));
+  const u = unitName(quantity, units);
+  const allowed = rule.signed
+    ? `from ${show(-limit)} to ${show(limit)} ${u}`
+    : rule.zero
+      ? `from 0 to ${show(limit)} ${u}`
+      : `greater than 0 and at most ${show(limit)} ${u}`;
+  fail(`${name}: got ${show(given)} ${u}; must be ${allowed}`);
 }
 
 /** Like quantityArg, but an omitted or empty argument gives `fallbackUS` (already in US units). */

@@ -6,7 +6,7 @@ import { fail, show } from "../engine/errors";
 import { MIN_SPRINKLER_PRESSURE_BAR, MIN_SPRINKLER_PRESSURE_PSI } from "../engine/sprinkler";
 import type { FlowTest } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { numberArg, optionalQuantityArg, quantityArg } from "./args";
+import { ZERO_ALLOWED, numberArg, optionalQuantityArg, quantityArg } from "./args";
 
 /** A US value shown in the user's units for a message: "1968 gpm", "4.83 bar". */
 export function showIn(quantity: Quantity, valueUS: number, u: UnitSystem): string {
@@ -19,7 +19,7 @@ export const MAX_C_FACTOR = 200;
 /** static, residual, test_flow of a hydrant flow test; residual must be below static. */
 export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unknown, u: UnitSystem): FlowTest {
   const s = quantityArg(staticP, "static_pressure", "pressure", u);
-  const r = quantityArg(residual, "residual", "pressure", u, { zero: true });
+  const r = quantityArg(residual, "residual", "pressure", u, ZERO_ALLOWED);
   const q = quantityArg(testFlow, "test_flow", "flow", u);
   if (!(r < s)) {
     fail(`residual: got ${showIn("pressure", r, u)}; must be below the static pressure ${showIn("pressure", s, u)}`);
@@ -35,7 +35,7 @@ export function cFactorArg(value: unknown, name = "c_factor"): number {
 /** flow (0 allowed), internal diameter, C factor of a pipe. */
 export function pipeArgs(flow: unknown, diameter: unknown, cFactor: unknown, u: UnitSystem): [number, number, number] {
   return [
-    quantityArg(flow, "flow", "flow", u, { zero: true }),
+    quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED),
     quantityArg(diameter, "diameter", "diameter", u),
     cFactorArg(cFactor),
   ];
@@ -57,6 +57,6 @@ export function demandArgs(
   u: UnitSystem,
 ): [number, number, FlowTest] {
   const q = quantityArg(demandFlow, "demand_flow", "flow", u);
-  const p = quantityArg(demandPressure, "demand_pressure", "pressure", u, { zero: true });
+  const p = quantityArg(demandPressure, "demand_pressure", "pressure", u, ZERO_ALLOWED);
   return [q, p, flowTestArgs(staticP, residual, testFlow, u)];
 }
