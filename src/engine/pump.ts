@@ -89,7 +89,7 @@ export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: num
   const x = flow / ratedFlow;
   if (x > OVERLOAD_FLOW_RATIO * (1 + 1e-9)) {
     throw new PumpEnvelopeError(
-      `flow: got ${show(flow)}, ${show(Math.round(x * 1000) / 10)} % of rated flow; a fire pump curve runs to 150 % of rated flow (${show(OVERLOAD_FLOW_RATIO * ratedFlow)})`,
+      `flow: got ${show(Math.round(x * 1000) / 10)} % of rated flow; a fire pump curve runs from 0 to 150 % of rated flow`,
     );
   }
   return ratedPressure * (a + b * x + c * x * x);

@@ -26,6 +26,7 @@ import { hazenWilliamsC } from "../engine/cfactor";
 import { areaOnCurve, areaSpan, designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
 import { TABLE_C_FACTOR, equivalentLength } from "../engine/fittings";
 import { internalDiameter } from "../engine/pipes";
+import { areaDemandRow, pumpCurvePressure, pumpSizeRow, runRows, sizeFor, supplyCurveRows } from "./solvers";
 
 // ─── Water supply ────────────────────────────────────────────────────────────────────────────────────────────────
 /**
@@ -388,6 +389,131 @@ export function duration(hazard: any, bound?: any): number {
 
 
 // ─── Range functions and solvers: RUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE ─────────────────────
+/**
+ * A run of pipe, segment by segment, from the design area back to the supply: friction (Hazen-Williams, NFPA 13;
+ * SI: EN 12845), elevation (0.433 psi per ft) and fixed losses of each row, and the pressure needed after it,
+ * start_pressure plus every loss so far. One output row per row of the range; a blank row gives blank cells.
+ * @customfunction
+ * @param segments Range, one row a segment: flow (gpm; SI: L/min), internal diameter (in; SI: mm), C factor, length (ft; SI: m), and optionally fitting equivalent length (ft; SI: m), rise towards the design area (ft; SI: m; negative for a drop) and a fixed loss (psi; SI: bar).
+ * @param start_pressure Pressure needed where the run begins, e.g. the design area's inlet (psi; SI: bar); default 0.
+ * @param units "US" (default) or "SI".
+ * @returns Rows of [friction, elevation, fixed, pressure_after] (psi; SI: bar).
+ */
+export function run(segments: any[][], start_pressure?: any, units?: any): any[][] {
+  return cell(() => runRows(segments, start_pressure, units));
+}
+
+/**
+ * Points of the water supply curve through the hydrant flow test, for a native chart: P = static − (static −
+ * residual) × (Q / test_flow)^1.85 (NFPA 291) at flows evenly spaced from 0 to max_flow. Where the supply reaches
+ * 0 before max_flow, that row holds [that flow, 0] and the rows after it are blank.
+ * @customfunction
+ * @param static_pressure Static pressure of the flow test (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param max_flow Largest flow of the curve (gpm; SI: L/min); default 1.5 × test_flow.
+ * @param points Number of rows, 2 to 1000; default 16.
+ * @param units "US" (default) or "SI".
+ * @returns Rows of [flow, pressure] (gpm, psi; SI: L/min, bar).
+ */
+export function supplycurve(
+  static_pressure: any,
+  residual: any,
+  test_flow: any,
+  max_flow?: any,
+  points?: any,
+  units?: any,
+): any[][] {
+  return cell(() => supplyCurveRows(static_pressure, residual, test_flow, max_flow, points, units));
+}
+
+/**
+ * Demand of a tree system's design area, solved sprinkler by sprinkler (NFPA 13 density/area method): the most
+ * remote line head by head (Q = K √p, Hazen-Williams between sprinklers), further lines by their line K, the
+ * partial line nearest the feed on its own, and the cross-main loss between lines. No elevation: add ELEVATION.
+ * @customfunction
+ * @param density Design density (gpm/ft²; SI: mm/min).
+ * @param area Design area (ft²; SI: m²).
+ * @param coverage Floor area one sprinkler protects (ft²; SI: m²).
+ * @param k_factor Sprinkler K-factor (gpm/psi^0.5; SI: L/min/bar^0.5).
+ * @param head_spacing Distance between sprinklers along a branch line (ft; SI: m); lines are coverage ÷ head_spacing apart.
+ * @param branch_diameter Internal diameter of the branch lines (in; SI: mm).
+ * @param main_diameter Internal diameter of the cross main (in; SI: mm).
+ * @param c_factor Hazen-Williams C of both; default 120.
+ * @param min_pressure Minimum sprinkler operating pressure (psi; SI: bar); default 7 psi (SI: 0.5 bar).
+ * @param units "US" (default) or "SI".
+ * @returns One row: [flow (gpm; SI: L/min), pressure (psi; SI: bar) in the cross main at the last line, sprinklers flowing, lines, end-sprinkler pressure].
+ */
+export function areademand(
+  density: any,
+  area: any,
+  coverage: any,
+  k_factor: any,
+  head_spacing: any,
+  branch_diameter: any,
+  main_diameter: any,
+  c_factor?: any,
+  min_pressure?: any,
+  units?: any,
+): any[][] {
+  return cell(() =>
+    areaDemandRow(density, area, coverage, k_factor, head_spacing, branch_diameter, main_diameter, c_factor, min_pressure, units),
+  );
+}
+
+/**
+ * Smallest nominal size of a pipe schedule whose Hazen-Williams friction loss over the length stays within the
+ * allowed loss; #N/A when even the largest size loses more. The result is a nominal size PIPEID takes.
+ * @customfunction
+ * @param flow Flow in the pipe (gpm; SI: L/min).
+ * @param length Pipe length plus fitting equivalent length (ft; SI: m).
+ * @param c_factor Hazen-Williams C.
+ * @param allowed_loss Largest friction loss allowed over the length (psi; SI: bar).
+ * @param schedule "10", "40" (default), "CPVC", "K", "L", "M", "DR14" or "DR18".
+ * @param units "US" (default) or "SI".
+ * @returns Nominal size (NPS in inches, e.g. 2.5; SI: DN, e.g. 65).
+ */
+export function sizefor(flow: any, length: any, c_factor: any, allowed_loss: any, schedule?: any, units?: any): number {
+  return cell(() => sizeFor(flow, length, c_factor, allowed_loss, schedule, units));
+}
+
+/**
+ * A fire pump rating for a demand: the smallest standard rated capacity not below the demand flow (NFPA 20), and
+ * the boost rounded up to the next 5 psi (SI: 0.5 bar).
+ * @customfunction
+ * @param demand_flow Flow the pump must deliver (gpm; SI: L/min).
+ * @param boost Pressure the pump must add at that flow, e.g. from PUMPBOOST (psi; SI: bar).
+ * @param units "US" (default) or "SI".
+ * @returns One row: [rated_flow (gpm; SI: L/min), rated_pressure (psi; SI: bar)].
+ */
+export function pumpsize(demand_flow: any, boost: any, units?: any): any[][] {
+  return cell(() => pumpSizeRow(demand_flow, boost, units));
+}
+
+/**
+ * Net pressure of a fire pump at a flow, from the parabola through its shutoff, rated and 150 % points. #NUM!
+ * beyond 150 % of rated flow or for ratios outside the NFPA 20 envelope (shutoff at most 140 % of rated pressure,
+ * at least 65 % at 150 % flow).
+ * @customfunction
+ * @param flow Flow through the pump (gpm; SI: L/min), 0 to 1.5 × rated_flow.
+ * @param rated_flow Rated flow of the pump (gpm; SI: L/min).
+ * @param rated_pressure Rated net pressure (psi; SI: bar).
+ * @param shutoff_ratio Shutoff (churn) pressure ÷ rated pressure, above 1 and at most 1.4; default 1.2.
+ * @param overload_ratio Pressure at 150 % flow ÷ rated pressure, from 0.65 to below 1; default 0.7.
+ * @param units "US" (default) or "SI".
+ * @returns Net pump pressure (psi; SI: bar).
+ */
+export function pumpcurve(
+  flow: any,
+  rated_flow: any,
+  rated_pressure: any,
+  shutoff_ratio?: any,
+  overload_ratio?: any,
+  units?: any,
+): number {
+  return cell(() => pumpCurvePressure(flow, rated_flow, rated_pressure, shutoff_ratio, overload_ratio, units));
+}
+
 
 // ─── Decision ────────────────────────────────────────────────────────────────────────────────────────────────────
 /**

@@ -34,4 +34,11 @@ export const VOCABULARY: string[] = [
   "DESIGNAREA",
   "HOSEALLOWANCE",
   "DURATION",
+  // Range functions and solvers
+  "RUN",
+  "SUPPLYCURVE",
+  "AREADEMAND",
+  "SIZEFOR",
+  "PUMPSIZE",
+  "PUMPCURVE",
 ];

@@ -1,0 +1,383 @@
+/**
+ * The range functions and solvers from a cell: RUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE, in US
+ * and SI units, with their spill shapes and every error path.
+ */
+import { describe, expect, it } from "vitest";
+import {
+  areademand,
+  elevation,
+  friction,
+  headpressure,
+  pipeid,
+  pumpboost,
+  pumpcurve,
+  pumpsize,
+  run,
+  sizefor,
+  supplyat,
+  supplycurve,
+} from "../../src/functions/functions";
+import { ShimCellError } from "../../src/preview/customFunctionsShim";
+import { BAR_PER_PSI, L_PER_GAL, M_PER_FT, MM_PER_IN } from "../../src/engine/units";
+import { errorOf } from "./errors";
+
+/** A cell value that is an error: its code and message. */
+function cellError(v: unknown): { code: string; message: string } {
+  expect(v, `expected an error value, got ${JSON.stringify(v)}`).toBeInstanceOf(ShimCellError);
+  const e = v as ShimCellError;
+  return { code: e.code, message: e.message };
+}
+
+// ─── RUN ─────────────────────────────────────────────────────────────────────────────────────────────────────────
+describe("RUN", () => {
+  // flow, diameter, C, length, fitting length, rise, fixed loss; 4 in and 6 in Schedule 40 [ASME B36.10M]
+  const segments = [
+    [500, 4.026, 120, 80, 20, 10, 5],
+    [500, 4.026, 120, 40, 10, null, null],
+    [650, 6.065, 140, 200, "", -12, 3],
+  ];
+
+  it("matches a column of FRICTION and ELEVATION calls, accumulated from start_pressure [NFPA 13]", () => {
+    const out = run(segments, 40);
+    expect(out).toHaveLength(3);
+    let p = 40;
+    segments.forEach((s, i) => {
+      const f = friction(s[0], s[1], s[2], Number(s[3]) + Number(s[4] || 0));
+      const e = s[5] === null ? 0 : elevation(s[5]);
+      const fixed = Number(s[6] || 0);
+      p += f + e + fixed;
+      expect(out[i][0]).toBeCloseTo(f, 12);
+      expect(out[i][1]).toBeCloseTo(e, 12);
+      expect(out[i][2]).toBe(fixed);
+      expect(out[i][3]).toBeCloseTo(p, 10);
+    });
+    // row 1 by hand: 0.07178 psi/ft × 100 ft = 7.178 psi [NFPA 13]; 0.433 × 10 = 4.33 psi [NFPA 13]; + 5 psi
+    //   → 40 + 7.178 + 4.33 + 5 = 56.508 psi
+    expect(out[0][3]).toBeCloseTo(56.508, 2);
+  });
+
+  it("in SI matches FRICTION and ELEVATION in SI [EN 12845] [NFPA 13]", () => {
+    const si = segments.map((s) => [
+      Number(s[0]) * L_PER_GAL,
+      Number(s[1]) * MM_PER_IN,
+      s[2],
+      Number(s[3]) * M_PER_FT,
+      s[4] === "" ? "" : Number(s[4]) * M_PER_FT,
+      s[5] === null ? null : Number(s[5]) * M_PER_FT,
+      s[6] === "" || s[6] === null ? s[6] : Number(s[6]) * BAR_PER_PSI,
+    ]);
+    const start = 40 * BAR_PER_PSI;
+    const out = run(si, start, "SI");
+    let p = start;
+    si.forEach((s, i) => {
+      const f = friction(s[0], s[1], s[2], Number(s[3]) + Number(s[4] || 0), "SI");
+      const e = s[5] === null ? 0 : elevation(s[5], "SI");
+      p += f + e + Number(s[6] || 0);
+      expect(out[i][0]).toBeCloseTo(f, 12);
+      expect(out[i][1]).toBeCloseTo(e, 12);
+      expect(out[i][3]).toBeCloseTo(p, 10);
+    });
+    // the same run in bar as in psi, within the 0.2 % the two Hazen-Williams forms differ by [NFPA 13] [EN 12845]
+    const us = run(segments, 40);
+    expect(Math.abs(out[2][3] / BAR_PER_PSI / us[2][3] - 1)).toBeLessThan(0.002);
+  });
+
+  it("gives one output row per input row: blank rows, trailing or not, give blank cells", () => {
+    const out = run([segments[0], [null, null, null, null], segments[1], ["", "", "", ""], [null, "", null, null]], 40);
+    expect(out).toHaveLength(5);
+    expect(out[1]).toEqual(["", "", "", ""]);
+    expect(out[3]).toEqual(["", "", "", ""]);
+    expect(out[4]).toEqual(["", "", "", ""]);
+    expect(out[2][3]).toBeCloseTo(run(segments.slice(0, 2), 40)[1][3], 12);
+  });
+
+  it("reads an untouched row of zeros (older Excel desktop) as blank", () => {
+    const out = run([segments[0], [0, 0, 0, 0, 0, 0, 0]], 40);
+    expect(out[1]).toEqual(["", "", "", ""]);
+  });
+
+  it("takes 4 to 7 columns; blank optional columns are 0; start_pressure defaults to 0", () => {
+    const four = run([[500, 4.026, 120, 100]]);
+    expect(four[0][0]).toBeCloseTo(friction(500, 4.026, 120, 100), 12);
+    expect(four[0][1]).toBe(0);
+    expect(four[0][2]).toBe(0);
+    expect(four[0][3]).toBeCloseTo(friction(500, 4.026, 120, 100), 12);
+  });
+
+  it("a blank required cell is an error naming the row and the column; the other rows compute", () => {
+    const out = run([segments[0], [500, null, 120, 40], segments[2]], 40);
+    expect(out).toHaveLength(3);
+    expect(out[0][3]).toBeCloseTo(56.508, 2);
+    for (const c of out[1]) {
+      const e = cellError(c);
+      expect(e.code).toBe("#VALUE!");
+      expect(e.message).toBe("segments row 2 diameter is empty: type a number");
+    }
+    // row 3's losses still compute; its pressure cannot be known past the broken row
+    expect(out[2][0]).toBeCloseTo(friction(650, 6.065, 140, 200), 12);
+    expect(cellError(out[2][3]).message).toBe("segments row 3 pressure_after: not known, because row 2 has an error");
+  });
+
+  it("a 0 where a diameter or C must be, text, or an impossible value: that row's error names row and column", () => {
+    const out = run([[500, 0, 120, 40], [500, 4.026, "C120", 40], [500, 4.026, 120, -5], [500, 4.026, 120, 40, null, null, -2], [true, 4, 120, 1]]);
+    expect(cellError(out[0][0]).message).toMatch(/^segments row 1 diameter: got 0 in; must be greater than 0/);
+    expect(cellError(out[1][2]).message).toBe('segments row 2 c_factor: got "C120"; must be a number');
+    expect(cellError(out[2][1]).message).toMatch(/^segments row 3 length: got -5 ft; must be from 0/);
+    expect(cellError(out[3][3]).message).toMatch(/^segments row 4 fixed_loss: got -2 psi/);
+    expect(cellError(out[4][0]).message).toMatch(/^segments row 5 flow: got TRUE; must be a number/);
+  });
+
+  it("a pressure that would go below 0 is an error in that row's pressure cell, and breaks the later rows", () => {
+    // 10 psi + friction − 0.433 × 50 ft = 10 + 0.18 − 21.65 < 0 [NFPA 13]
+    const out = run([[100, 4.026, 120, 50, null, -50], [100, 4.026, 120, 50]], 10);
+    expect(out[0][1]).toBeCloseTo(-21.65, 10);
+    expect(cellError(out[0][3]).message).toMatch(/^segments row 1 pressure_after: would be -11\.\d+ psi; the drops gain more/);
+    expect(cellError(out[1][3]).message).toMatch(/row 1 has an error/);
+  });
+
+  it("refuses a range of the wrong width, or no range", () => {
+    expect(errorOf(() => run([[500, 4.026, 120]])).message).toBe(
+      "segments: got a range 3 columns wide; must be 4 to 7 columns: flow, diameter, c_factor, length, [fitting_length], [rise], [fixed_loss]",
+    );
+    expect(errorOf(() => run([[1, 2, 3, 4, 5, 6, 7, 8]])).message).toMatch(/8 columns wide/);
+    expect(errorOf(() => run(5 as never)).message).toMatch(/1 column wide/);
+    expect(errorOf(() => run(null as never)).message).toBe("segments is empty: give a range of cells");
+    expect(errorOf(() => run(segments, -1)).message).toMatch(/^start_pressure: got -1 psi/);
+    expect(errorOf(() => run(segments, 0, "metric-ish")).message).toMatch(/^units/);
+  });
+});
+
+// ─── SUPPLYCURVE ─────────────────────────────────────────────────────────────────────────────────────────────────
+describe("SUPPLYCURVE", () => {
+  // invented flow test: static 72 psi, residual 58 psi at 1100 gpm
+  it("starts at the static pressure and passes the residual at the test flow [NFPA 291]", () => {
+    const rows = supplycurve(72, 58, 1100, 2200, 3);
+    expect(rows).toEqual([
+      [0, 72],
+      [1100, expect.closeTo(58, 10)],
+      [2200, expect.closeTo(supplyat(2200, 72, 58, 1100), 10)],
+    ]);
+  });
+
+  it("gives 16 rows from 0 to 1.5 × test_flow by default [NFPA 291]", () => {
+    const rows = supplycurve(72, 58, 1100);
+    expect(rows).toHaveLength(16);
+    expect(rows[15][0]).toBeCloseTo(1650, 10);
+    // 72 − 14 × 1.5^1.85 = 72 − 14 × 2.11723 = 42.359 psi [NFPA 291]
+    expect(rows[15][1]).toBeCloseTo(42.359, 3);
+  });
+
+  it("ends at the flow where the supply reaches 0 psi; later rows are blank [NFPA 291]", () => {
+    // 0 psi at 1100 × (72 / 14)^(1/1.85) = 1100 × 2.4235 = 2666 gpm
+    const rows = supplycurve(72, 58, 1100, 4000, 5); // 0, 1000, 2000, 3000, 4000
+    expect(rows).toHaveLength(5);
+    expect(rows[3][0]).toBeCloseTo(2665.8, 0);
+    expect(rows[3][1]).toBe(0);
+    expect(rows[4]).toEqual(["", ""]);
+  });
+
+  it("works in SI: L/min and bar [NFPA 291]", () => {
+    const rows = supplycurve(72 * BAR_PER_PSI, 58 * BAR_PER_PSI, 1100 * L_PER_GAL, null, 4, "SI");
+    expect(rows[0][1]).toBeCloseTo(72 * BAR_PER_PSI, 12);
+    const us = supplycurve(72, 58, 1100, null, 4);
+    rows.forEach((r, i) => {
+      expect(r[0]).toBeCloseTo(us[i][0] * L_PER_GAL, 8);
+      expect(r[1]).toBeCloseTo(us[i][1] * BAR_PER_PSI, 10);
+    });
+  });
+
+  it("refuses a bad points count, max_flow or flow test, with messages", () => {
+    expect(errorOf(() => supplycurve(72, 58, 1100, null, 1)).message).toBe("points: got 1; must be a whole number, from 2 to 1000");
+    expect(errorOf(() => supplycurve(72, 58, 1100, null, 2.5)).message).toMatch(/^points: got 2.5/);
+    expect(errorOf(() => supplycurve(72, 58, 1100, "lots")).message).toBe('max_flow: got "lots"; must be a number');
+    expect(errorOf(() => supplycurve(58, 72, 1100)).message).toMatch(/^residual: got 72 psi; must be below the static pressure 58 psi/);
+    expect(errorOf(() => supplycurve(72, 58, null)).message).toBe("test_flow is empty: type a number");
+  });
+});
+
+// ─── AREADEMAND ──────────────────────────────────────────────────────────────────────────────────────────────────
+describe("AREADEMAND", () => {
+  // OH1 0.15 gpm/ft² over 1500 ft² [NFPA 13] (from memory); 130 ft² per sprinkler, K 5.6, 13 ft between sprinklers,
+  // 1¼ branch lines (1.38 in) and 2½ cross main (2.469 in), Schedule 40 [ASME B36.10M]
+  const args = [0.15, 1500, 130, 5.6, 13, 1.38, 2.469] as const;
+
+  it("spills one row: flow, pressure, heads, lines, end pressure [NFPA 13]", () => {
+    const out = areademand(...args);
+    expect(out).toHaveLength(1);
+    expect(out[0]).toHaveLength(5);
+    const [flow, pressure, heads, lines, end] = out[0];
+    // 12 sprinklers (ceil(1500 / 130) = ceil(11.54)), 4 a line (ceil(1.2 √1500 / 13) = ceil(3.575)), 3 lines [NFPA 13]
+    expect([heads, lines]).toEqual([12, 3]);
+    // end sprinkler 0.15 × 130 = 19.5 gpm at (19.5 / 5.6)² = 12.125 psi [NFPA 13]
+    expect(end).toBeCloseTo(12.1253, 4);
+    expect(flow).toBeGreaterThanOrEqual(0.15 * 1500); // never below density × area [NFPA 13]
+    expect(flow).toBeCloseTo(254.26, 2); // the engine's worked value (test/engine/tree.test.ts works the method through)
+    expect(pressure).toBeCloseTo(25.163, 3);
+  });
+
+  it("defaults C to 120 and the minimum pressure to 7 psi [NFPA 13]", () => {
+    expect(areademand(...args, null, null)).toEqual(areademand(...args, 120, 7));
+  });
+
+  it("one sprinkler on one line: HEADPRESSURE plus one Hazen-Williams step [NFPA 13]", () => {
+    const [flow, pressure, heads, lines, end] = areademand(0.2, 100, 100, 5.6, 15, 1.049, 2.067)[0];
+    expect([heads, lines]).toEqual([1, 1]);
+    expect(flow).toBeCloseTo(20, 12); // 0.20 × 100
+    expect(end).toBeCloseTo(headpressure(20, 5.6), 12);
+    // 4.52 × 20^1.85 / (120^1.85 × 1.049^4.87) × 15 = 4.52 × 255.215 / (7022.40 × 1.26234) × 15 = 0.130131 × 15
+    //   = 1.95197 psi [NFPA 13]
+    expect(pressure).toBeCloseTo(headpressure(20, 5.6) + 1.95197, 4);
+  });
+
+  it("works in SI: the same area in mm/min, m², L/min/bar^0.5, m and mm [NFPA 13] [EN 12845]", () => {
+    const us = areademand(...args)[0];
+    const si = areademand(
+      0.15 * 40.746, // 1 gpm/ft² = 40.746 mm/min [NFPA 13]
+      1500 * 0.092903, // 1 ft² = 0.092903 m²
+      130 * 0.092903,
+      5.6 * 14.416, // K 5.6 US ≈ K 80 metric (common practice)
+      13 * M_PER_FT,
+      1.38 * MM_PER_IN,
+      2.469 * MM_PER_IN,
+      120,
+      null,
+      "SI",
+    )[0];
+    expect(si[2]).toBe(us[2]);
+    expect(si[3]).toBe(us[3]);
+    // within 0.2 %: the SI friction form differs by that much [NFPA 13] [EN 12845]; the inputs above are rounded
+    expect(Math.abs(Number(si[0]) / L_PER_GAL / Number(us[0]) - 1)).toBeLessThan(0.002);
+    expect(Math.abs(Number(si[1]) / BAR_PER_PSI / Number(us[1]) - 1)).toBeLessThan(0.002);
+    // the SI default minimum pressure is 0.5 bar [NFPA 13]
+    const low = areademand(0.01 * 40.746, 100, 10, 80, 3, 25, 50, null, null, "SI")[0];
+    expect(low[4]).toBeCloseTo(0.5, 12);
+  });
+
+  it("refuses bad input with messages", () => {
+    expect(errorOf(() => areademand(0.15, 1500, 130, 5.6, 13, "1-1/4", 2.469)).message).toBe(
+      'branch_diameter: got "1-1/4"; must be a number',
+    );
+    expect(errorOf(() => areademand(0.15, 1500, 130, 5.6, null, 1.38, 2.469)).message).toBe("head_spacing is empty: type a number");
+    expect(errorOf(() => areademand(0.15, 130, 1500, 5.6, 13, 1.38, 2.469)).message).toBe(
+      "coverage: got 1500 ft²; must not exceed the design area 130 ft²",
+    );
+    expect(errorOf(() => areademand(...args, 0)).message).toMatch(/^c_factor: got 0; must be greater than 0/);
+    expect(errorOf(() => areademand(...args, 120, 7, "imperial units")).message).toMatch(/^units/);
+  });
+});
+
+// ─── SIZEFOR ─────────────────────────────────────────────────────────────────────────────────────────────────────
+describe("SIZEFOR", () => {
+  it("gives the smallest size within the allowed loss [NFPA 13] [ASME B36.10M]", () => {
+    // 200 gpm over 100 ft, C 120, 5 psi allowed, Schedule 40: 4.52 × 200^1.85 / 7022.40 = 11.629 psi·in^4.87/ft;
+    // 2½ (2.469 in, 2.469^4.87 = 81.579): 11.629 / 81.579 × 100 = 14.26 psi: too much;
+    // 3 (3.068 in, 3.068^4.87 = 234.955): 11.629 / 234.955 × 100 = 4.95 psi: within 5
+    expect(sizefor(200, 100, 120, 5)).toBe(3);
+    expect(friction(200, pipeid(3), 120, 100)).toBeLessThanOrEqual(5);
+    expect(friction(200, pipeid(2.5), 120, 100)).toBeGreaterThan(5);
+    // a looser allowance gives a smaller pipe, and the result feeds PIPEID
+    expect(sizefor(200, 100, 120, 15)).toBe(2.5);
+    expect(pipeid(sizefor(200, 100, 120, 15))).toBe(2.469);
+  });
+
+  it("reads the schedule: Schedule 10's larger bores allow a smaller size [ASME B36.10M]", () => {
+    // 2½ Schedule 10 is 2.635 in: 11.629 / 2.635^4.87 × 100 = 11.629 / 111.59 × 100 = 10.42 psi
+    expect(sizefor(200, 100, 120, 10.5, "10")).toBe(2.5);
+    expect(sizefor(200, 100, 120, 10.5, "40")).toBe(3);
+    expect(sizefor(200, 100, 150, 5, "cpvc")).toBe(3); // CPVC 3 is 2.952 in [ASTM F442] (from memory)
+  });
+
+  it("in SI gives the DN [ASME B36.10M] (from memory) [EN 12845]", () => {
+    const dn = sizefor(200 * L_PER_GAL, 100 * M_PER_FT, 120, 5 * BAR_PER_PSI, "40", "SI");
+    expect(dn).toBe(80);
+    expect(pipeid(dn, "40", "SI")).toBeCloseTo(3.068 * MM_PER_IN, 10);
+  });
+
+  it("is #N/A with a message when even the largest size loses more [ASME B36.10M]", () => {
+    // 5000 gpm over 300 ft in 12 in Schedule 40 (11.938 in): 7.66 psi [NFPA 13]
+    const e = errorOf(() => sizefor(5000, 300, 120, 5));
+    expect(e.code).toBe("#N/A");
+    expect(e.message).toBe(
+      "allowed_loss: got 5 psi; even the largest Schedule 40 steel, 12 in (11.938 in bore), loses 7.65971 psi over 300 ft at 5000 gpm",
+    );
+    expect(errorOf(() => sizefor(5000, 300, 120, 5, "K")).message).toMatch(/largest copper tube Type K, 4 in/);
+  });
+
+  it("refuses bad input with messages", () => {
+    expect(errorOf(() => sizefor(200, 100, 120, 5, "sch 80")).message).toMatch(/^schedule: got "sch 80"; must be one of "10", "40"/);
+    expect(errorOf(() => sizefor(200, 100, 120, 0)).message).toMatch(/^allowed_loss: got 0 psi; must be greater than 0/);
+    expect(errorOf(() => sizefor(200, null, 120, 5)).message).toBe("length is empty: type a number");
+    expect(errorOf(() => sizefor("lots", 100, 120, 5)).code).toBe("#VALUE!");
+  });
+});
+
+// ─── PUMPSIZE ────────────────────────────────────────────────────────────────────────────────────────────────────
+describe("PUMPSIZE", () => {
+  it("picks the standard rated capacity and rounds the boost up to 5 psi [NFPA 20] (from memory)", () => {
+    expect(pumpsize(562, 22.04)).toEqual([[750, 25]]);
+    expect(pumpsize(500, 25)).toEqual([[500, 25]]); // exact values stay
+    expect(pumpsize(1001, 40.1)).toEqual([[1250, 45]]);
+    expect(pumpsize(20, 3)).toEqual([[25, 5]]);
+  });
+
+  it("chains with PUMPBOOST [NFPA 291] [NFPA 20] (from memory)", () => {
+    // boost at 562 gpm, 80 psi demand, 10 psi margin, supply 72/58 at 1100 gpm: 80 + 10 − 67.958 = 22.04 psi
+    expect(pumpsize(562, pumpboost(562, 80, 72, 58, 1100, 10))).toEqual([[750, 25]]);
+  });
+
+  it("works in SI: capacity in L/min, boost rounded up to 0.5 bar [NFPA 20] (from memory)", () => {
+    const [[flow, pressure]] = pumpsize(2000, 1.52, "SI");
+    // 2000 L/min = 528.3 gpm → 750 gpm = 750 × 3.785411784 = 2839.06 L/min
+    expect(flow).toBeCloseTo(750 * L_PER_GAL, 9);
+    expect(pressure).toBe(2);
+    // 500 gpm typed in L/min is still the 500 gpm rating; 1.5 bar stays 1.5
+    expect(pumpsize(500 * L_PER_GAL, 1.5, "SI")).toEqual([[expect.closeTo(500 * L_PER_GAL, 9), 1.5]]);
+  });
+
+  it("refuses a boost of 0 and demands above the table, with messages", () => {
+    expect(errorOf(() => pumpsize(562, 0)).message).toBe("boost: got 0 psi; no pump is needed (PUMPBOOST gives 0 where the supply suffices)");
+    const big = errorOf(() => pumpsize(6000, 30));
+    expect(big.code).toBe("#N/A");
+    expect(big.message).toMatch(/standard rated capacities go up to 5000 gpm/); // [NFPA 20] (from memory)
+    expect(errorOf(() => pumpsize(-5, 30)).message).toMatch(/^demand_flow: got -5 gpm/);
+    expect(errorOf(() => pumpsize(562, "20 psi")).message).toBe('boost: got "20 psi"; must be a number');
+  });
+});
+
+// ─── PUMPCURVE ───────────────────────────────────────────────────────────────────────────────────────────────────
+describe("PUMPCURVE", () => {
+  // (common practice) shape: 120 % at shutoff, 70 % at 150 % flow; rated 750 gpm at 25 psi
+  it("passes through its three points [NFPA 20] (common practice)", () => {
+    expect(pumpcurve(0, 750, 25)).toBeCloseTo(30, 10); // 1.2 × 25
+    expect(pumpcurve(750, 750, 25)).toBeCloseTo(25, 10);
+    expect(pumpcurve(1125, 750, 25)).toBeCloseTo(17.5, 10); // 0.7 × 25 at 1.5 × 750
+    expect(pumpcurve(0, 750, 25, 1.4, 0.65)).toBeCloseTo(35, 10); // the envelope's edges [NFPA 20]
+    expect(pumpcurve(1125, 750, 25, 1.4, 0.65)).toBeCloseTo(16.25, 10);
+  });
+
+  it("works in SI [NFPA 20]", () => {
+    expect(pumpcurve(0, 750 * L_PER_GAL, 2, null, null, "SI")).toBeCloseTo(2.4, 10);
+    expect(pumpcurve(1125 * L_PER_GAL, 750 * L_PER_GAL, 2, null, null, "SI")).toBeCloseTo(1.4, 10);
+  });
+
+  it("is #NUM! beyond 150 % of rated flow, the message kept for the preview and tests [NFPA 20]", () => {
+    const e = errorOf(() => pumpcurve(1200, 750, 25));
+    expect(e.code).toBe("#NUM!");
+    expect(e.message).toBe("flow: got 160 % of rated flow; a fire pump curve runs from 0 to 150 % of rated flow");
+  });
+
+  it("is #NUM! for ratios outside the envelope: shutoff above 140 %, 150 % point below 65 % [NFPA 20]", () => {
+    const s = errorOf(() => pumpcurve(500, 750, 25, 1.5));
+    expect(s.code).toBe("#NUM!");
+    expect(s.message).toMatch(/^shutoff_ratio: got 1.5; .* at most 1.4 × rated/);
+    const o = errorOf(() => pumpcurve(500, 750, 25, 1.2, 0.6));
+    expect(o.code).toBe("#NUM!");
+    expect(o.message).toMatch(/^overload_ratio: got 0.6; .* at least 0.65 × rated/);
+  });
+
+  it("is #VALUE! with a message for text, blanks and negative flow", () => {
+    expect(errorOf(() => pumpcurve(500, 750, 25, "high"))).toEqual({ code: "#VALUE!", message: 'shutoff_ratio: got "high"; must be a number' });
+    expect(errorOf(() => pumpcurve(-1, 750, 25)).code).toBe("#VALUE!");
+    expect(errorOf(() => pumpcurve(500, null, 25)).message).toBe("rated_flow is empty: type a number");
+  });
+});
