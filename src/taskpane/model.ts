@@ -1,0 +1,368 @@
+/**
+ * The pane's logic, free of the DOM: what the named cells say, what is wrong with them, the verdict, and the points
+ * of the supply/demand picture.
+ *
+ * Inputs arrive in the sheet's units (Units: "US" or "SI"); they are converted to US for the engine, as the cell
+ * functions do, so the pane's verdict is the very sentence VERDICT writes and its margin the number MARGIN gives.
+ */
+import { type Assessment, assess, formatFlow, formatPressure, pumpBoost, verdictSentence } from "../engine/decision";
+import { HeadroomError } from "../engine/errors";
+import {
+  DEFAULT_OVERLOAD_RATIO,
+  DEFAULT_SHUTOFF_RATIO,
+  OVERLOAD_FLOW_RATIO,
+  RATED_PRESSURE_STEP_BAR,
+  RATED_PRESSURE_STEP_PSI,
+  pumpPressure,
+  ratedCapacity,
+  roundUpToStep,
+} from "../engine/pump";
+import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
+import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
+import { type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
+
+/** What each name should hold, for messages: a description and its quantity. */
+export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; quantity: Quantity }> = {
+  Supply_Static: { what: "the static pressure of the flow test", quantity: "pressure" },
+  Supply_Residual: { what: "the residual pressure of the flow test", quantity: "pressure" },
+  Supply_TestFlow: { what: "the flow during the flow test", quantity: "flow" },
+  Demand_Flow: { what: "the demand flow at the supply, sprinklers plus hose", quantity: "flow" },
+  Demand_Pressure: { what: "the pressure the system needs at the supply", quantity: "pressure" },
+  Demand_HoseFlow: { what: "the hose stream allowance included in Demand_Flow", quantity: "flow" },
+  Required_Margin: { what: "the safety margin the supply must exceed the demand by", quantity: "pressure" },
+  Pump_RatedFlow: { what: "the rated flow of the pump to plot", quantity: "flow" },
+  Pump_RatedPressure: { what: "the rated pressure of the pump to plot", quantity: "pressure" },
+};
+
+export interface Problem {
+  name: InputName;
+  message: string;
+}
+
+/** A pump rating, US units. */
+export interface PumpRating {
+  ratedFlow: number;
+  ratedPressure: number;
+}
+
+/** A readable estimate, US units inside; `units` is how the sheet speaks. */
+export interface Estimate {
+  units: UnitSystem;
+  /** true when the workbook defines no Units name and US was assumed */
+  unitsAssumed: boolean;
+  test: FlowTest;
+  /** gpm, sprinklers plus hose */
+  demandFlow: number;
+  /** psi */
+  demandPressure: number;
+  /** gpm, or null when Demand_HoseFlow is not given */
+  hoseFlow: number | null;
+  /** psi */
+  requiredMargin: number;
+  /** false when Required_Margin is not given and 0 was used (VERDICT's default) */
+  requiredMarginGiven: boolean;
+  /** the pump the sheet names, if any */
+  pump: PumpRating | null;
+  assessment: Assessment;
+  /** VERDICT's sentence */
+  verdict: string;
+  /** margin as a percentage of the demand pressure, or null (no margin, or demand pressure 0) */
+  marginPercent: number | null;
+  /** PUMPBOOST's number where a pump is needed and the supply is not exhausted, psi */
+  boost: number | null;
+  /** PUMPSIZE's rating for the boost, or null */
+  pumpSize: PumpRating | null;
+  /** why no pump size is given where a pump is needed */
+  pumpSizeNote: string | null;
+}
+
+export type PaneModel =
+  | { kind: "ready"; estimate: Estimate }
+  | { kind: "problems"; problems: Problem[] }
+  /** some inputs are still being calculated (#BUSY!) */
+  | { kind: "busy"; names: InputName[] };
+
+const SHOWN_UNITS: Record<UnitSystem, Record<"pressure" | "flow", string>> = {
+  US: { pressure: "psi", flow: "gpm" },
+  SI: { pressure: "bar", flow: "L/min" },
+};
+
+function where(r: Reading): string {
+  return "address" in r && r.address ? ` (${r.address})` : "";
+}
+
+/** Why a reading is not a usable number, or null when it is one. `optional` names may be missing or empty. */
+function numberProblem(name: Exclude<InputName, "Units">, r: Reading, units: UnitSystem): string | null {
+  const m = NAME_MEANINGS[name];
+  const unit = SHOWN_UNITS[units][m.quantity as "pressure" | "flow"];
+  const type = `type ${m.what} in ${unit}`;
+  switch (r.kind) {
+    case "number":
+      return null;
+    case "missing":
+      return `${name} is not defined. Select the cell that holds ${m.what}, type ${name} in the Name Box and press Enter, or use New estimate sheet.`;
+    case "empty":
+      return `${name}${where(r)} is empty: ${type}.`;
+    case "text":
+      return `${name}${where(r)} holds "${r.value}", not a number: ${type}.`;
+    case "error":
+      return `${name}${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: fix the cells it is calculated from (Excel shows the message when you point at the cell).`;
+    case "invalid":
+      return `${name}: ${r.reason}. Point the name at one cell (Formulas > Name Manager).`;
+  }
+}
+
+function isBlank(r: Reading): boolean {
+  return r.kind === "missing" || r.kind === "empty" || (r.kind === "text" && r.value.trim() === "");
+}
+
+function readUnits(r: Reading): { units: UnitSystem; assumed: boolean } | string {
+  if (r.kind === "missing") return { units: "US", assumed: true };
+  if (r.kind === "text" && /^\s*(us|si)\s*$/i.test(r.value)) return { units: r.value.trim().toUpperCase() as UnitSystem, assumed: false };
+  const shown = r.kind === "text" ? `"${r.value}"` : r.kind === "number" ? String(r.value) : r.kind;
+  return `Units${where(r)} holds ${shown}: type US or SI.`;
+}
+
+/**
+ * Turn the readings into an estimate, or say what is wrong. Busy cells (#BUSY!) give "busy" rather than a problem:
+ * Excel is still working on them.
+ */
+export function buildModel(readings: Readings): PaneModel {
+  const busy = (Object.keys(readings) as InputName[]).filter((n) => {
+    const r = readings[n];
+    return r.kind === "error" && r.code === "#BUSY!";
+  });
+  if (busy.length > 0) return { kind: "busy", names: busy };
+
+  const problems: Problem[] = [];
+  const u = readUnits(readings.Units);
+  if (typeof u === "string") {
+    problems.push({ name: "Units", message: u });
+  }
+  const units = typeof u === "string" ? "US" : u.units;
+  const value = (n: Exclude<InputName, "Units">) => (readings[n] as { value: number }).value;
+
+  for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) {
+    const p = numberProblem(n, readings[n], units);
+    if (p) problems.push({ name: n, message: p });
+  }
+  const optional: Exclude<InputName, "Units">[] = ["Demand_HoseFlow", "Required_Margin", "Pump_RatedFlow", "Pump_RatedPressure"];
+  const given = new Set<InputName>();
+  for (const n of optional) {
+    if (isBlank(readings[n])) continue;
+    const p = numberProblem(n, readings[n], units);
+    if (p) problems.push({ name: n, message: p });
+    else given.add(n);
+  }
+  if (problems.length > 0) return { kind: "problems", problems };
+
+  // Magnitudes, in the sheet's units, named by the cell they come from.
+  const q = (n: Exclude<InputName, "Units">) => `${trim(value(n))} ${SHOWN_UNITS[units][NAME_MEANINGS[n].quantity as "pressure" | "flow"]}`;
+  const rule = (n: Exclude<InputName, "Units">, ok: boolean, must: string) => {
+    if (!ok) problems.push({ name: n, message: `${n}${where(readings[n])} is ${q(n)}; it must be ${must}.` });
+  };
+  rule("Supply_Static", value("Supply_Static") > 0, "greater than 0");
+  rule("Supply_Residual", value("Supply_Residual") >= 0, "0 or more");
+  if (value("Supply_Static") > 0 && value("Supply_Residual") >= 0) {
+    rule("Supply_Residual", value("Supply_Residual") < value("Supply_Static"), `below Supply_Static (${q("Supply_Static")})`);
+  }
+  rule("Supply_TestFlow", value("Supply_TestFlow") > 0, "greater than 0");
+  rule("Demand_Flow", value("Demand_Flow") > 0, "greater than 0");
+  rule("Demand_Pressure", value("Demand_Pressure") >= 0, "0 or more");
+  if (given.has("Demand_HoseFlow")) {
+    rule("Demand_HoseFlow", value("Demand_HoseFlow") >= 0 && value("Demand_HoseFlow") < value("Demand_Flow"), `0 or more and below Demand_Flow (${q("Demand_Flow")})`);
+  }
+  if (given.has("Required_Margin")) rule("Required_Margin", value("Required_Margin") >= 0, "0 or more");
+  const pumpGiven = given.has("Pump_RatedFlow") || given.has("Pump_RatedPressure");
+  if (pumpGiven) {
+    for (const [n, other] of [
+      ["Pump_RatedFlow", "Pump_RatedPressure"],
+      ["Pump_RatedPressure", "Pump_RatedFlow"],
+    ] as const) {
+      if (!given.has(n)) problems.push({ name: n, message: `${n} is empty while ${other} holds ${q(other)}: give both or neither.` });
+      else rule(n, value(n) > 0, "greater than 0");
+    }
+  }
+  if (problems.length > 0) return { kind: "problems", problems };
+
+  const us = (n: Exclude<InputName, "Units">) => toUS(NAME_MEANINGS[n].quantity, value(n), units);
+  const test: FlowTest = { static: us("Supply_Static"), residual: us("Supply_Residual"), testFlow: us("Supply_TestFlow") };
+  const demandFlow = us("Demand_Flow");
+  const demandPressure = us("Demand_Pressure");
+  const requiredMargin = given.has("Required_Margin") ? us("Required_Margin") : 0;
+  let assessment: Assessment;
+  try {
+    assessment = assess(demandFlow, demandPressure, test, requiredMargin);
+  } catch (e) {
+    // the checks above mirror the engine's; this is a last line, worded by the engine
+    return { kind: "problems", problems: [{ name: "Demand_Flow", message: e instanceof Error ? e.message : String(e) }] };
+  }
+  const verdict = verdictSentence(assessment, units);
+  const marginPercent = assessment.margin !== null && demandPressure > 0 ? (assessment.margin / demandPressure) * 100 : null;
+
+  let boost: number | null = null;
+  let pumpSize: PumpRating | null = null;
+  let pumpSizeNote: string | null = null;
+  if (assessment.pumpNeeded) {
+    try {
+      boost = pumpBoost(demandFlow, demandPressure, test, requiredMargin, units);
+      pumpSize = pumpSizeFor(demandFlow, boost, units);
+    } catch (e) {
+      if (!(e instanceof HeadroomError)) throw e;
+      pumpSizeNote = e.message;
+    }
+  }
+
+  return {
+    kind: "ready",
+    estimate: {
+      units,
+      unitsAssumed: typeof u !== "string" && u.assumed,
+      test,
+      demandFlow,
+      demandPressure,
+      hoseFlow: given.has("Demand_HoseFlow") ? us("Demand_HoseFlow") : null,
+      requiredMargin,
+      requiredMarginGiven: given.has("Required_Margin"),
+      pump: pumpGiven ? { ratedFlow: us("Pump_RatedFlow"), ratedPressure: us("Pump_RatedPressure") } : null,
+      assessment,
+      verdict,
+      marginPercent,
+      boost,
+      pumpSize,
+      pumpSizeNote,
+    },
+  };
+}
+
+function trim(x: number): string {
+  return String(Number(x.toPrecision(6)));
+}
+
+/**
+ * PUMPSIZE's rating for a demand flow and a boost, US units in and out: the smallest standard rated capacity not
+ * below the demand flow, and the boost rounded up to the next 5 psi (0.5 bar in SI work, rounded in bar).
+ * Source: [NFPA 20] standard rated capacities (from memory), via the engine (src/engine/pump.ts).
+ */
+export function pumpSizeFor(demandFlowGpm: number, boostPsi: number, units: UnitSystem): PumpRating {
+  const ratedFlow = ratedCapacity(demandFlowGpm);
+  const ratedPressure =
+    units === "SI"
+      ? toUS("pressure", roundUpToStep(fromUS("pressure", boostPsi, "SI"), RATED_PRESSURE_STEP_BAR), "SI")
+      : roundUpToStep(boostPsi, RATED_PRESSURE_STEP_PSI);
+  return { ratedFlow, ratedPressure };
+}
+
+// ─── The picture ─────────────────────────────────────────────────────────────────────────────────────────────────
+
+/** A point of the picture in the sheet's units: flow, pressure. */
+export type Pt = readonly [q: number, p: number];
+
+export interface DemandPoint {
+  id: "sprinklers" | "total";
+  label: string;
+  q: number;
+  p: number;
+}
+
+export interface PlotData {
+  units: UnitSystem;
+  flowUnit: string;
+  pressureUnit: string;
+  /** axis ends, sheet units */
+  qMax: number;
+  pMax: number;
+  /** the supply curve from the static pressure to qMax or to where it reaches 0; vertices include static and test */
+  supply: Pt[];
+  staticPoint: Pt;
+  testPoint: Pt;
+  /** flow where the supply reaches 0, when that lies on the plot */
+  exhaustedAt: number | null;
+  /** the supply less the required margin (the band's lower edge), or null when no margin is required */
+  band: Pt[] | null;
+  requiredMargin: number;
+  demand: DemandPoint[];
+  /** supply pressure at the total demand flow, or null where the supply is exhausted there */
+  supplyAtDemand: number | null;
+  /** the supply with the pump's net pressure added, or null without a pump */
+  pump: Pt[] | null;
+  pumpLabel: string | null;
+}
+
+/** Points along the curves: enough for a smooth line at any pane width. */
+export const CURVE_SAMPLES = 48;
+/** The plot runs to the larger of these multiples of the test flow and of the demand flow. (common practice) */
+export const PLOT_TEST_FLOW_FACTOR = 1.5;
+export const PLOT_DEMAND_FLOW_FACTOR = 1.15;
+/** Headroom above the highest point. */
+export const PLOT_PRESSURE_FACTOR = 1.1;
+
+/** The picture of an estimate, in the sheet's units. `niceMax` rounds an axis end (the plot's scale does it). */
+export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v): PlotData {
+  const u = e.units;
+  const f = (gpm: number) => fromUS("flow", gpm, u);
+  const p = (psi: number) => fromUS("pressure", psi, u);
+  const qe = exhaustionFlow(e.test);
+  const pumpReach = e.pump ? OVERLOAD_FLOW_RATIO * e.pump.ratedFlow : 0;
+  const qMaxUS = Math.max(PLOT_TEST_FLOW_FACTOR * e.test.testFlow, PLOT_DEMAND_FLOW_FACTOR * e.demandFlow, e.pump ? Math.min(pumpReach, qe) : 0);
+  const qMax = niceMax(f(qMaxUS));
+  const qEndUS = Math.min(qe, toUS("flow", qMax, u));
+
+  const supplyP = (q: number) => (q >= qe ? 0 : supplyAt(q, e.test));
+  const flows = sampleFlows(qEndUS, [e.test.testFlow]);
+  const supply: Pt[] = flows.map((q) => [f(q), p(supplyP(q))]);
+
+  let band: Pt[] | null = null;
+  if (e.requiredMargin > 0) {
+    band = flows.map((q) => [f(q), p(Math.max(0, supplyP(q) - e.requiredMargin))]);
+  }
+
+  let pump: Pt[] | null = null;
+  let pumpLabel: string | null = null;
+  if (e.pump) {
+    const { ratedFlow, ratedPressure } = e.pump;
+    const end = Math.min(pumpReach, qe, toUS("flow", qMax, u));
+    pump = sampleFlows(end, [Math.min(ratedFlow, end)]).map((q) => [
+      f(q),
+      p(supplyP(q) + pumpPressure(q, ratedFlow, ratedPressure, DEFAULT_SHUTOFF_RATIO, DEFAULT_OVERLOAD_RATIO)),
+    ]);
+    pumpLabel = `Supply + pump ${formatFlow(ratedFlow, u)} at ${formatPressure(ratedPressure, u)}`;
+  }
+
+  const demand: DemandPoint[] = [];
+  if (e.hoseFlow !== null && e.hoseFlow > 0) {
+    demand.push({ id: "sprinklers", label: "Sprinklers", q: f(e.demandFlow - e.hoseFlow), p: p(e.demandPressure) });
+    demand.push({ id: "total", label: "+ hose", q: f(e.demandFlow), p: p(e.demandPressure) });
+  } else {
+    demand.push({ id: "total", label: "Demand", q: f(e.demandFlow), p: p(e.demandPressure) });
+  }
+
+  const highest = Math.max(e.test.static, e.demandPressure, ...(pump ?? []).map((pt) => toUS("pressure", pt[1], u)));
+  const pMax = niceMax(p(highest * PLOT_PRESSURE_FACTOR));
+
+  return {
+    units: u,
+    flowUnit: unitName("flow", u),
+    pressureUnit: unitName("pressure", u),
+    qMax,
+    pMax,
+    supply,
+    staticPoint: [0, p(e.test.static)],
+    testPoint: [f(e.test.testFlow), p(e.test.residual)],
+    exhaustedAt: qe <= toUS("flow", qMax, u) ? f(qe) : null,
+    band,
+    requiredMargin: p(e.requiredMargin),
+    demand,
+    supplyAtDemand: e.assessment.supplyPressure === null ? null : p(e.assessment.supplyPressure),
+    pump,
+    pumpLabel,
+  };
+}
+
+/** 0 … end in CURVE_SAMPLES steps, plus the given flows that lie inside, sorted, without repeats. */
+function sampleFlows(end: number, extra: number[]): number[] {
+  const set = new Set<number>();
+  for (let i = 0; i <= CURVE_SAMPLES; i++) set.add((end * i) / CURVE_SAMPLES);
+  for (const x of extra) if (x > 0 && x < end) set.add(x);
+  return [...set].sort((a, b) => a - b);
+}

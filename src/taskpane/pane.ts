@@ -1,0 +1,323 @@
+/**
+ * The task pane: the verdict, large and plain; the caution beneath it, always; the supply/demand picture with its
+ * axis toggle; the inputs it read; "New estimate sheet" and "Share copy". It talks only to a Workbook port, so the
+ * Excel add-in (taskpane.ts) and the preview host mount the same pane: mountPane(root, port).
+ *
+ * Stable hooks: data-role="verdict", "margin", "pump", "problems", "caution", "plot" (the svg), "supply-curve",
+ * "demand-point", "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
+ */
+import { formatFlow, formatPressure } from "../engine/decision";
+import type { UnitsCode, WorkbookPort } from "../workbook/port";
+import { CAUTION, PALETTE } from "../workbook/template";
+import { type Estimate, type PaneModel, buildModel, plotData } from "./model";
+import { type FlowAxis, niceMax, renderPlot } from "./plot";
+import { PANE_CSS } from "./styles";
+
+export interface PaneOptions {
+  /** the pane's width in px for the plot; measured from the root when not given (320 where nothing can be measured) */
+  width?: number;
+  /** the flow axis to start with */
+  axis?: FlowAxis;
+}
+
+export interface PaneHandle {
+  /** resolves once the pane listens to the workbook and has drawn its first reading */
+  ready: Promise<void>;
+  /** read the workbook again and redraw */
+  refresh(): Promise<void>;
+  /** resolves when no reading is running or waiting */
+  idle(): Promise<void>;
+  /** the current model (for hosts and tests) */
+  model(): PaneModel | null;
+  destroy(): Promise<void>;
+}
+
+const DEFAULT_WIDTH = 320;
+/** Horizontal padding of the pane, px: the plot gets the rest. */
+const PANE_PADDING = 24;
+
+function h<K extends keyof HTMLElementTagNameMap>(
+  doc: Document,
+  tag: K,
+  attrs: Record<string, string> = {},
+  ...children: Array<Node | string>
+): HTMLElementTagNameMap[K] {
+  const e = doc.createElement(tag);
+  for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, v);
+  for (const c of children) e.append(c);
+  return e;
+}
+
+function legendIcon(doc: Document, kind: "supply" | "band" | "sprinklers" | "total" | "pump"): SVGSVGElement {
+  const ns = "http://www.w3.org/2000/svg";
+  const svg = doc.createElementNS(ns, "svg");
+  svg.setAttribute("width", "22");
+  svg.setAttribute("height", "12");
+  svg.setAttribute("aria-hidden", "true");
+  const add = (tag: string, attrs: Record<string, string | number>) => {
+    const e = doc.createElementNS(ns, tag);
+    for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, String(v));
+    svg.appendChild(e);
+  };
+  if (kind === "supply") add("line", { x1: 1, x2: 21, y1: 6, y2: 6, stroke: PALETTE.supply, "stroke-width": 2.5 });
+  if (kind === "band") add("rect", { x: 1, y: 2, width: 20, height: 8, fill: PALETTE.band, "fill-opacity": 0.35, stroke: PALETTE.supply, "stroke-dasharray": "2 2" });
+  if (kind === "pump") add("line", { x1: 1, x2: 21, y1: 6, y2: 6, stroke: PALETTE.pump, "stroke-width": 2.25, "stroke-dasharray": "7 3 2 3" });
+  if (kind === "sprinklers") add("rect", { x: 7, y: 2, width: 8, height: 8, fill: "#FFFFFF", stroke: PALETTE.sprinklers, "stroke-width": 2 });
+  if (kind === "total") add("path", { d: "M11,0L17,6L11,12L5,6Z", fill: PALETTE.demand });
+  return svg;
+}
+
+function signed(psi: number, units: UnitsCode): string {
+  return `${psi < 0 ? "−" : ""}${formatPressure(psi, units)}`;
+}
+
+/** The line under the verdict: the margin in pressure and percent, and the margin required. */
+export function marginLine(e: Estimate): string {
+  const a = e.assessment;
+  const required = e.requiredMarginGiven
+    ? `required ${formatPressure(e.requiredMargin, e.units)}`
+    : "no required margin set (define Required_Margin)";
+  if (a.margin === null) return `No margin: the supply reaches 0 at ${formatFlow(a.exhaustedAt, e.units)}; ${required}.`;
+  const pct = e.marginPercent === null ? "" : `, ${e.marginPercent < 0 ? "−" : ""}${Math.abs(Math.round(e.marginPercent))} % of the ${formatPressure(e.demandPressure, e.units)} demand pressure`;
+  return `Margin ${signed(a.margin, e.units)}${pct}; ${required}.`;
+}
+
+/** The pump line where a pump is needed: PUMPSIZE's rating for PUMPBOOST's boost. */
+export function pumpLine(e: Estimate): string | null {
+  if (!e.assessment.pumpNeeded) return null;
+  if (e.pumpSize && e.boost !== null) {
+    return (
+      `Pump: ${formatFlow(e.pumpSize.ratedFlow, e.units)} rated at ${formatPressure(e.pumpSize.ratedPressure, e.units)} ` +
+      `(PUMPSIZE), for a boost of ${formatPressure(e.boost, e.units)} (PUMPBOOST).`
+    );
+  }
+  return e.pumpSizeNote ? `No pump size: ${e.pumpSizeNote}.` : null;
+}
+
+export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOptions = {}): PaneHandle {
+  const doc = root.ownerDocument;
+  let axis: FlowAxis = options.axis ?? "linear";
+  let current: PaneModel | null = null;
+  let lastReady: Estimate | null = null;
+  let unitsTouched = false;
+  let destroyed = false;
+
+  // ── skeleton ──
+  const style = h(doc, "style", {}, PANE_CSS);
+  const verdict = h(doc, "p", { class: "hr-verdict", "data-role": "verdict", "aria-live": "polite" }, "Reading the workbook…");
+  const margin = h(doc, "p", { class: "hr-margin", "data-role": "margin" });
+  const pump = h(doc, "p", { class: "hr-pump", "data-role": "pump" });
+  const problems = h(doc, "ul", { class: "hr-problems", "data-role": "problems" });
+  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, verdict, margin, pump, problems);
+  const caution = h(doc, "p", { class: "hr-caution", "data-role": "caution" }, CAUTION);
+  const calcNote = h(doc, "p", { class: "hr-calc-note", "data-role": "calc-note" });
+  calcNote.hidden = true;
+  const linear = h(doc, "button", { type: "button", "data-role": "axis-linear" }, "Linear flow");
+  const pow = h(doc, "button", { type: "button", "data-role": "axis-pow", title: "Flow axis scaled as Q^1.85: the supply curve is a straight line" }, "Q^1.85 flow");
+  const toggle = h(doc, "div", { class: "hr-axis-toggle", role: "group", "aria-label": "Flow axis" }, linear, pow);
+  const holder = h(doc, "div", { "data-role": "plot-holder" });
+  const legend = h(doc, "ul", { class: "hr-legend", "data-role": "legend" });
+  const plotBox = h(doc, "section", { class: "hr-plot-box" }, toggle, holder, legend);
+  plotBox.hidden = true;
+  const readingsList = h(doc, "dl", { "data-role": "readings" });
+  const readingsBox = h(doc, "details", { class: "hr-readings" }, h(doc, "summary", {}, "Inputs read from the workbook"), readingsList);
+  readingsBox.hidden = true;
+  const unitsSelect = h(doc, "select", { "data-role": "units", "aria-label": "Units of a new estimate sheet" }, h(doc, "option", { value: "US" }, "US"), h(doc, "option", { value: "SI" }, "SI"));
+  const newSheet = h(doc, "button", { type: "button", "data-role": "new-sheet" }, "New estimate sheet");
+  const shareCopy = h(doc, "button", { type: "button", "data-role": "share-copy", class: "secondary" }, "Share copy");
+  const refreshButton = h(doc, "button", { type: "button", "data-role": "refresh", class: "secondary" }, "Read again");
+  const status = h(doc, "p", { class: "hr-status", "data-role": "status", "aria-live": "polite" });
+  const actions = h(doc, "section", { class: "hr-actions" }, unitsSelect, newSheet, shareCopy, refreshButton, status);
+  const head = h(doc, "header", { class: "hr-head" }, h(doc, "span", { class: "hr-brand" }, "Headroom"), h(doc, "span", { class: "hr-sub" }, "water supply against sprinkler demand"));
+  const pane = h(doc, "div", { class: "hr-pane" }, style, head, box, caution, calcNote, plotBox, readingsBox, actions);
+  root.replaceChildren(pane);
+
+  const width = () => {
+    if (options.width) return options.width;
+    const measured = root.getBoundingClientRect?.().width || root.clientWidth || 0;
+    return measured > 0 ? measured - PANE_PADDING : DEFAULT_WIDTH - PANE_PADDING;
+  };
+
+  // ── drawing ──
+  function drawPlot(e: Estimate): void {
+    const data = plotData(e, niceMax);
+    holder.replaceChildren(renderPlot(doc, data, axis, width()));
+    linear.setAttribute("aria-pressed", String(axis === "linear"));
+    pow.setAttribute("aria-pressed", String(axis === "pow"));
+    const items: Array<[Parameters<typeof legendIcon>[1], string]> = [["supply", "Water supply (flow test)"]];
+    if (data.band) items.push(["band", `Required margin ${formatPressure(e.requiredMargin, e.units)}`]);
+    for (const d of data.demand) items.push([d.id, d.id === "sprinklers" ? "Sprinklers alone" : data.demand.length > 1 ? "Sprinklers + hose" : "Demand"]);
+    if (data.pumpLabel) items.push(["pump", data.pumpLabel]);
+    legend.replaceChildren(...items.map(([k, label]) => h(doc, "li", {}, legendIcon(doc, k), label)));
+    plotBox.hidden = false;
+  }
+
+  function drawReadings(e: Estimate): void {
+    const u = e.units;
+    const rows: Array<[string, string]> = [
+      ["Units", e.unitsAssumed ? "US (no Units name: assumed)" : u],
+      ["Static pressure", formatPressure(e.test.static, u)],
+      ["Residual pressure", formatPressure(e.test.residual, u)],
+      ["Test flow", formatFlow(e.test.testFlow, u)],
+      ["Demand flow", formatFlow(e.demandFlow, u)],
+      ["of which hose", e.hoseFlow === null ? "not given" : formatFlow(e.hoseFlow, u)],
+      ["Demand pressure", formatPressure(e.demandPressure, u)],
+      ["Required margin", e.requiredMarginGiven ? formatPressure(e.requiredMargin, u) : "not given (0)"],
+      ["Pump plotted", e.pump ? `${formatFlow(e.pump.ratedFlow, u)} at ${formatPressure(e.pump.ratedPressure, u)}` : "none"],
+    ];
+    if (e.assessment.supplyPressure !== null) rows.splice(7, 0, ["Supply at demand flow", formatPressure(e.assessment.supplyPressure, u)]);
+    readingsList.replaceChildren(...rows.flatMap(([k, v]) => [h(doc, "dt", {}, k), h(doc, "dd", {}, v)]));
+    readingsBox.hidden = false;
+  }
+
+  function draw(m: PaneModel): void {
+    current = m;
+    if (m.kind === "busy") {
+      calcNote.textContent = `Excel is still calculating ${m.names.join(", ")}…`;
+      calcNote.hidden = false;
+      if (!lastReady) {
+        box.dataset.state = "waiting";
+        verdict.textContent = "Waiting for Excel to finish calculating…";
+        margin.textContent = "";
+        pump.textContent = "";
+        problems.replaceChildren();
+      }
+      return;
+    }
+    calcNote.hidden = true;
+    if (m.kind === "problems") {
+      lastReady = null;
+      box.dataset.state = "problems";
+      verdict.textContent = m.problems.length === 1 ? "One input needs attention" : `${m.problems.length} inputs need attention`;
+      margin.textContent = "";
+      pump.textContent = "";
+      problems.replaceChildren(...m.problems.map((p) => h(doc, "li", { "data-name": p.name }, p.message)));
+      plotBox.hidden = true;
+      readingsBox.hidden = true;
+      return;
+    }
+    const e = m.estimate;
+    lastReady = e;
+    box.dataset.state = e.assessment.pumpNeeded ? "fail" : "pass";
+    verdict.textContent = e.verdict;
+    margin.textContent = marginLine(e);
+    const p = pumpLine(e);
+    pump.textContent = p ?? "";
+    pump.hidden = p === null;
+    problems.replaceChildren();
+    if (!unitsTouched) unitsSelect.value = e.units;
+    drawPlot(e);
+    drawReadings(e);
+  }
+
+  // ── reading, one at a time; a change during a reading asks for one more ──
+  let running: Promise<void> | null = null;
+  let again = false;
+  async function readOnce(): Promise<void> {
+    try {
+      const readings = await port.readInputs();
+      if (!destroyed) draw(buildModel(readings));
+    } catch (err) {
+      setStatus(`Could not read the workbook: ${message(err)}`, "refused");
+    }
+  }
+  function refresh(): Promise<void> {
+    if (running) {
+      again = true;
+      return running;
+    }
+    running = (async () => {
+      do {
+        again = false;
+        await readOnce();
+      } while (again && !destroyed);
+      running = null;
+    })();
+    return running;
+  }
+
+  function setStatus(text: string, tone: "done" | "refused" = "done"): void {
+    status.textContent = text;
+    status.dataset.tone = tone;
+  }
+
+  async function action(button: HTMLButtonElement, run: () => Promise<void>): Promise<void> {
+    newSheet.disabled = true;
+    shareCopy.disabled = true;
+    try {
+      await run();
+    } catch (err) {
+      setStatus(`${button.textContent} failed: ${message(err)}`, "refused");
+    } finally {
+      newSheet.disabled = false;
+      shareCopy.disabled = false;
+    }
+    await refresh();
+  }
+
+  linear.addEventListener("click", () => setAxis("linear"));
+  pow.addEventListener("click", () => setAxis("pow"));
+  function setAxis(a: FlowAxis): void {
+    axis = a;
+    if (lastReady) drawPlot(lastReady);
+  }
+  unitsSelect.addEventListener("change", () => (unitsTouched = true));
+  refreshButton.addEventListener("click", () => void refresh());
+  newSheet.addEventListener("click", () =>
+    action(newSheet, async () => {
+      const r = await port.insertEstimateSheet(unitsSelect.value as UnitsCode);
+      const moved = r.namesMoved.length > 0 ? " The named cells now point to it." : "";
+      setStatus(`Added the sheet ${r.sheetName} with a demo scenario: overwrite the shaded cells.${moved}`);
+    }),
+  );
+  shareCopy.addEventListener("click", () =>
+    action(shareCopy, async () => {
+      const r = await port.makeShareCopy();
+      if (r.ok) setStatus(`Added ${r.sheetName}: the numbers of ${r.sourceSheet} with values frozen, for readers without the add-in. ${r.sourceSheet} is unchanged.`);
+      else setStatus(r.reason, "refused");
+    }),
+  );
+
+  let resize: ResizeObserver | null = null;
+  let lastWidth = width();
+  if (!options.width && typeof ResizeObserver !== "undefined") {
+    resize = new ResizeObserver(() => {
+      const w = width();
+      if (Math.abs(w - lastWidth) >= 4 && lastReady) {
+        lastWidth = w;
+        drawPlot(lastReady);
+      }
+    });
+    resize.observe(root);
+  }
+
+  let unsubscribe: (() => Promise<void>) | null = null;
+  const ready = (async () => {
+    try {
+      unsubscribe = await port.subscribe(() => void refresh());
+    } catch (err) {
+      setStatus(`The pane will not follow changes (${message(err)}); use Read again.`, "refused");
+    }
+    await refresh();
+  })();
+
+  return {
+    ready,
+    refresh,
+    idle: async () => {
+      await ready;
+      while (running) await running;
+    },
+    model: () => current,
+    destroy: async () => {
+      destroyed = true;
+      resize?.disconnect();
+      await unsubscribe?.();
+      root.replaceChildren();
+    },
+  };
+}
+
+function message(err: unknown): string {
+  return err instanceof Error ? err.message : String(err);
+}

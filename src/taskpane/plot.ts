@@ -1,0 +1,217 @@
+/**
+ * The supply-versus-demand picture as SVG: the supply curve through the flow test, the required-margin band under
+ * it, the demand point(s), the supply with the pump added, and the gap at the demand flow.
+ *
+ * Two flow axes: linear, or Q^1.85, on which the supply curve P = Ps − (Ps − Pr)(Q/Qt)^1.85 is a straight line (the
+ * trade's water-supply graph). d3-scale's power scale maps Q to pixels; its ticks are round numbers in flow units,
+ * thinned where the power axis crowds them near 0.
+ *
+ * Stable hooks for tests: the svg has data-role="plot", the supply curve data-role="supply-curve", each demand point
+ * data-role="demand-point" (data-id "sprinklers" or "total") placed by transform="translate(x,y)".
+ */
+import { scaleLinear, scalePow, type ScaleLinear, type ScalePower } from "d3-scale";
+import { HW_FLOW_EXPONENT } from "../engine/friction";
+import { PALETTE } from "../workbook/template";
+import type { PlotData, Pt } from "./model";
+
+export type FlowAxis = "linear" | "pow";
+
+const SVG = "http://www.w3.org/2000/svg";
+
+/** Space around the plotting area, px. */
+const PAD = { left: 46, right: 14, top: 14, bottom: 42 };
+/** Smallest gap between two x tick labels, px, on top of the label's own width. */
+const TICK_GAP = 8;
+/** Approximate width of one digit of the tick labels (11 px system font), px. */
+const DIGIT_WIDTH = 6.4;
+
+/** The plot's size for a pane width: readable from 280 px up, never taller than it needs. */
+export function plotSize(paneWidth: number): { width: number; height: number } {
+  const width = Math.round(Math.min(720, Math.max(280, paneWidth)));
+  const height = Math.round(Math.min(420, Math.max(230, width * 0.78)));
+  return { width, height };
+}
+
+/** Round an axis end up to a round number (0 … 5000 → 0 … 5000, 0 … 1234 → 0 … 1400). */
+export function niceMax(v: number): number {
+  return scaleLinear().domain([0, v]).nice(5).domain()[1];
+}
+
+export function xScale(axis: FlowAxis, qMax: number, width: number): ScaleLinear<number, number> | ScalePower<number, number> {
+  const range: [number, number] = [PAD.left, width - PAD.right];
+  return axis === "pow"
+    ? scalePow().exponent(HW_FLOW_EXPONENT).domain([0, qMax]).range(range)
+    : scaleLinear().domain([0, qMax]).range(range);
+}
+
+export function yScale(pMax: number, height: number): ScaleLinear<number, number> {
+  return scaleLinear().domain([0, pMax]).range([height - PAD.bottom, PAD.top]);
+}
+
+/**
+ * Keep tick values whose labels do not collide: from the largest down, a tick stays when it lies at least its label
+ * width plus a gap left of the last kept one. 0 always stays (its neighbour gives way).
+ */
+export function thinTicks(ticks: number[], x: (v: number) => number, label: (v: number) => string): number[] {
+  const sorted = [...ticks].sort((a, b) => b - a);
+  const kept: number[] = [];
+  const room = (a: number, b: number) => Math.abs(x(a) - x(b)) >= (label(a).length + label(b).length) * (DIGIT_WIDTH / 2) + TICK_GAP;
+  for (const t of sorted) {
+    const last = kept[kept.length - 1];
+    if (last === undefined || room(t, last)) kept.push(t);
+    else if (t === 0) {
+      kept.pop();
+      while (kept.length && !room(0, kept[kept.length - 1])) kept.pop();
+      kept.push(0);
+    }
+  }
+  return kept.reverse();
+}
+
+function el<K extends keyof SVGElementTagNameMap>(doc: Document, tag: K, attrs: Record<string, string | number>, parent?: Element): SVGElementTagNameMap[K] {
+  const e = doc.createElementNS(SVG, tag);
+  for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, String(v));
+  parent?.appendChild(e);
+  return e;
+}
+
+const r2 = (v: number) => Math.round(v * 100) / 100;
+
+function pathOf(points: readonly Pt[], x: (q: number) => number, y: (p: number) => number): string {
+  return points.map(([q, p], i) => `${i ? "L" : "M"}${r2(x(q))},${r2(y(p))}`).join("");
+}
+
+/** The marker shapes, centred on 0,0: shape carries the meaning as well as colour. */
+function marker(doc: Document, shape: "square" | "diamond" | "circle", fill: string, stroke: string, parent: Element): void {
+  if (shape === "square") el(doc, "rect", { x: -4.5, y: -4.5, width: 9, height: 9, fill, stroke, "stroke-width": 2 }, parent);
+  else if (shape === "diamond") el(doc, "path", { d: "M0,-6.5L6.5,0L0,6.5L-6.5,0Z", fill, stroke, "stroke-width": 1.5 }, parent);
+  else el(doc, "circle", { r: 3.5, fill, stroke, "stroke-width": 1.5 }, parent);
+}
+
+function text(doc: Document, s: string, attrs: Record<string, string | number>, parent: Element): SVGTextElement {
+  const t = el(doc, "text", attrs, parent);
+  t.textContent = s;
+  return t;
+}
+
+/** Draw the picture. `width` is the pane's width in px. */
+export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth: number): SVGSVGElement {
+  const { width, height } = plotSize(paneWidth);
+  const x = xScale(axis, d.qMax, width);
+  const y = yScale(d.pMax, height);
+  const X = (q: number) => x(q) as number;
+  const Y = (p: number) => y(p) as number;
+  const svg = el(doc, "svg", {
+    xmlns: SVG,
+    viewBox: `0 0 ${width} ${height}`,
+    width,
+    height,
+    role: "img",
+    "data-role": "plot",
+    "data-axis": axis,
+    "data-exponent": axis === "pow" ? HW_FLOW_EXPONENT : 1,
+    "data-q-max": d.qMax,
+    "data-p-max": d.pMax,
+    "data-x-range": `${PAD.left},${width - PAD.right}`,
+    "data-y-range": `${height - PAD.bottom},${PAD.top}`,
+    class: "hr-plot",
+  });
+  const total = d.demand.find((p) => p.id === "total")!;
+  const summary =
+    `Supply curve from ${r2(d.staticPoint[1])} ${d.pressureUnit} at no flow through ${r2(d.testPoint[1])} ${d.pressureUnit} at ` +
+    `${Math.round(d.testPoint[0])} ${d.flowUnit}; demand ${r2(total.p)} ${d.pressureUnit} at ${Math.round(total.q)} ${d.flowUnit}.`;
+  el(doc, "title", {}, svg).textContent = summary;
+
+  // grid and axes
+  const grid = el(doc, "g", { class: "grid", stroke: PALETTE.grid, "stroke-width": 1 }, svg);
+  const xLabel = x.tickFormat(6);
+  const xTicks = thinTicks(x.ticks(6), X, xLabel);
+  const yTicks = y.ticks(5);
+  const yLabel = y.tickFormat(5);
+  for (const t of xTicks) el(doc, "line", { x1: r2(X(t)), x2: r2(X(t)), y1: Y(0), y2: PAD.top }, grid);
+  for (const t of yTicks) el(doc, "line", { x1: PAD.left, x2: width - PAD.right, y1: r2(Y(t)), y2: r2(Y(t)) }, grid);
+
+  const ax = el(doc, "g", { class: "axis x", "font-size": 11, fill: PALETTE.ink }, svg);
+  el(doc, "line", { x1: PAD.left, x2: width - PAD.right, y1: Y(0), y2: Y(0), stroke: PALETTE.ink }, ax);
+  for (const t of xTicks) {
+    const g = el(doc, "g", { class: "tick", transform: `translate(${r2(X(t))},${Y(0)})` }, ax);
+    el(doc, "line", { y2: 4, stroke: PALETTE.ink }, g);
+    text(doc, xLabel(t), { y: 15, "text-anchor": "middle" }, g);
+  }
+  const xTitle = axis === "pow" ? `Flow (${d.flowUnit}), Q^1.85 scale` : `Flow (${d.flowUnit})`;
+  text(doc, xTitle, { class: "title", x: (PAD.left + width - PAD.right) / 2, y: height - 6, "text-anchor": "middle", "font-size": 11.5 }, ax);
+
+  const ay = el(doc, "g", { class: "axis y", "font-size": 11, fill: PALETTE.ink }, svg);
+  el(doc, "line", { x1: PAD.left, x2: PAD.left, y1: Y(0), y2: PAD.top, stroke: PALETTE.ink }, ay);
+  for (const t of yTicks) {
+    const g = el(doc, "g", { class: "tick", transform: `translate(${PAD.left},${r2(Y(t))})` }, ay);
+    el(doc, "line", { x2: -4, stroke: PALETTE.ink }, g);
+    text(doc, yLabel(t), { x: -7, dy: "0.32em", "text-anchor": "end" }, g);
+  }
+  text(doc, `Pressure (${d.pressureUnit})`, {
+    class: "title",
+    transform: `translate(12,${(PAD.top + height - PAD.bottom) / 2}) rotate(-90)`,
+    "text-anchor": "middle",
+    "font-size": 11.5,
+  }, ay);
+
+  // the required-margin band: between the supply curve and the supply less the margin
+  if (d.band) {
+    const area = pathOf(d.supply, X, Y) + pathOf([...d.band].reverse(), X, Y).replace(/^M/, "L") + "Z";
+    el(doc, "path", { "data-role": "margin-band", d: area, fill: PALETTE.band, "fill-opacity": 0.28, stroke: "none" }, svg);
+    el(doc, "path", { d: pathOf(d.band, X, Y), fill: "none", stroke: PALETTE.supply, "stroke-width": 1, "stroke-dasharray": "2 3" }, svg);
+  }
+
+  // the supply with the pump
+  if (d.pump) {
+    el(doc, "path", { "data-role": "pump-curve", d: pathOf(d.pump, X, Y), fill: "none", stroke: PALETTE.pump, "stroke-width": 2.25, "stroke-dasharray": "7 3 2 3" }, svg);
+  }
+
+  // the supply curve, with its static and test points
+  el(doc, "path", { "data-role": "supply-curve", d: pathOf(d.supply, X, Y), fill: "none", stroke: PALETTE.supply, "stroke-width": 2.5, "stroke-linejoin": "round" }, svg);
+  for (const [role, pt] of [
+    ["static-point", d.staticPoint],
+    ["test-point", d.testPoint],
+  ] as const) {
+    const g = el(doc, "g", { "data-role": role, transform: `translate(${r2(X(pt[0]))},${r2(Y(pt[1]))})` }, svg);
+    marker(doc, "circle", "#FFFFFF", PALETTE.supply, g);
+  }
+  const tp = d.testPoint;
+  text(doc, "flow test", { x: r2(X(tp[0]) + 6), y: r2(Y(tp[1]) - 7), "font-size": 10.5, fill: PALETTE.supply }, svg);
+
+  // the gap between supply and demand at the demand flow
+  if (d.supplyAtDemand !== null) {
+    const gx = r2(X(total.q));
+    const short = d.supplyAtDemand < total.p;
+    el(doc, "line", {
+      "data-role": "margin-gap",
+      x1: gx,
+      x2: gx,
+      y1: r2(Y(total.p)),
+      y2: r2(Y(d.supplyAtDemand)),
+      stroke: short ? PALETTE.demand : PALETTE.ink,
+      "stroke-width": 1.5,
+      "stroke-dasharray": short ? "none" : "3 2",
+    }, svg);
+  }
+
+  // demand points, each with its own shape and a label
+  const right = width - PAD.right;
+  for (const pt of d.demand) {
+    const px = r2(X(pt.q));
+    const py = r2(Y(pt.p));
+    const g = el(doc, "g", { "data-role": "demand-point", "data-id": pt.id, "data-flow": pt.q, "data-pressure": pt.p, transform: `translate(${px},${py})` }, svg);
+    if (pt.id === "sprinklers") marker(doc, "square", "#FFFFFF", PALETTE.sprinklers, g);
+    else marker(doc, "diamond", PALETTE.demand, "#FFFFFF", g);
+    const toLeft = pt.id === "sprinklers" || px + 8 + pt.label.length * DIGIT_WIDTH > right;
+    text(doc, pt.label, {
+      x: toLeft ? -8 : 8,
+      y: pt.id === "sprinklers" ? -8 : 15,
+      "text-anchor": toLeft ? "end" : "start",
+      "font-size": 11,
+      "font-weight": 600,
+      fill: pt.id === "sprinklers" ? "#8A5A00" : PALETTE.demand,
+    }, g);
+  }
+  return svg;
+}

@@ -1,0 +1,53 @@
+/**
+ * The pane's look, as a style sheet string injected with the pane (no stylesheet to fetch, nothing remote). Scoped
+ * under .hr-pane so that a host page (the preview) keeps its own styles. Sized for a 320 px task pane.
+ */
+import { PALETTE } from "../workbook/template";
+
+export const PANE_CSS = `
+.hr-pane { font: 13px/1.4 system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif;
+  color: #1B2A3A; background: #F6F7F9; padding: 10px 12px 14px; box-sizing: border-box; min-width: 280px; }
+.hr-pane * { box-sizing: border-box; }
+.hr-head { display: flex; align-items: baseline; gap: 8px; margin: 0 0 8px; }
+.hr-brand { font-weight: 700; font-size: 15px; letter-spacing: 0.02em; }
+.hr-sub { color: #5A6675; font-size: 12px; }
+.hr-verdict-box { background: #FFFFFF; border-left: 6px solid #9AA5B1; border-radius: 4px; padding: 10px 12px;
+  box-shadow: 0 1px 2px rgba(27, 42, 58, 0.12); }
+.hr-verdict-box[data-state="pass"] { border-left-color: ${PALETTE.pump}; }
+.hr-verdict-box[data-state="fail"] { border-left-color: ${PALETTE.demand}; }
+.hr-verdict-box[data-state="problems"] { border-left-color: #8A5A00; }
+.hr-verdict { font-size: 20px; font-weight: 700; line-height: 1.25; margin: 0; }
+.hr-margin, .hr-pump { margin: 6px 0 0; font-size: 13px; }
+.hr-problems { margin: 6px 0 0; padding-left: 18px; }
+.hr-problems li { margin: 4px 0; }
+.hr-problems code { font-weight: 600; }
+.hr-caution { margin: 8px 0 0; padding: 7px 9px; border-radius: 4px; background: #FDEBD3; color: #6B2C00;
+  font-size: 12px; font-weight: 600; }
+.hr-calc-note { margin: 6px 0 0; color: #5A6675; font-style: italic; font-size: 12px; }
+.hr-plot-box { margin-top: 10px; background: #FFFFFF; border-radius: 4px; padding: 6px 0 6px;
+  box-shadow: 0 1px 2px rgba(27, 42, 58, 0.12); }
+.hr-plot-box[hidden] { display: none; }
+.hr-axis-toggle { display: flex; justify-content: flex-end; gap: 0; padding: 0 8px 4px; }
+.hr-axis-toggle button { font: inherit; font-size: 12px; padding: 3px 8px; border: 1px solid #8593A3; background: #FFFFFF;
+  color: #1B2A3A; cursor: pointer; }
+.hr-axis-toggle button:first-child { border-radius: 3px 0 0 3px; }
+.hr-axis-toggle button:last-child { border-radius: 0 3px 3px 0; border-left: none; }
+.hr-axis-toggle button[aria-pressed="true"] { background: #1B2A3A; color: #FFFFFF; border-color: #1B2A3A; }
+.hr-plot { display: block; width: 100%; height: auto; }
+.hr-legend { list-style: none; display: flex; flex-wrap: wrap; gap: 4px 12px; margin: 2px 10px 0; padding: 0; font-size: 12px; }
+.hr-legend li { display: flex; align-items: center; gap: 5px; }
+.hr-legend svg { flex: none; }
+.hr-readings { margin-top: 10px; font-size: 12px; }
+.hr-readings summary { cursor: pointer; color: #3A4A5A; }
+.hr-readings dl { display: grid; grid-template-columns: auto auto; gap: 2px 10px; margin: 6px 0 0; }
+.hr-readings dt { color: #5A6675; }
+.hr-readings dd { margin: 0; text-align: right; font-variant-numeric: tabular-nums; }
+.hr-actions { margin-top: 12px; display: flex; flex-wrap: wrap; gap: 8px; align-items: center; }
+.hr-actions button, .hr-actions select { font: inherit; font-size: 13px; border-radius: 4px; padding: 6px 10px; cursor: pointer; }
+.hr-actions button { border: 1px solid #1B4F8A; background: #1B4F8A; color: #FFFFFF; }
+.hr-actions button.secondary { background: #FFFFFF; color: #1B4F8A; }
+.hr-actions button:disabled { opacity: 0.55; cursor: default; }
+.hr-actions select { border: 1px solid #8593A3; background: #FFFFFF; padding: 5px 6px; }
+.hr-status { flex-basis: 100%; margin: 2px 0 0; font-size: 12px; min-height: 1em; }
+.hr-status[data-tone="refused"] { color: #8A3200; }
+`;

@@ -1,0 +1,233 @@
+// @vitest-environment happy-dom
+import { afterEach, describe, expect, it } from "vitest";
+import { verdict as verdictCell } from "../../src/functions/functions";
+import { type PaneHandle, mountPane } from "../../src/taskpane/pane";
+import { CAUTION } from "../../src/workbook/template";
+import { BASE, FakePort, type Values } from "./fakePort";
+
+let mounted: PaneHandle[] = [];
+afterEach(async () => {
+  for (const p of mounted) await p.destroy();
+  mounted = [];
+  document.body.replaceChildren();
+});
+
+async function mount(values: Values, options: Parameters<typeof mountPane>[2] = { width: 320 }) {
+  const port = new FakePort(values);
+  const root = document.createElement("div");
+  document.body.appendChild(root);
+  const pane = mountPane(root, port, options);
+  mounted.push(pane);
+  await pane.ready;
+  await pane.idle();
+  const $ = <T extends Element = HTMLElement>(role: string) => root.querySelector<T>(`[data-role="${role}"]`);
+  const $$ = (role: string) => [...root.querySelectorAll(`[data-role="${role}"]`)];
+  return { port, root, pane, $, $$ };
+}
+
+/** The vertices of an SVG path "M x,y L x,y ...". */
+function vertices(d: string): Array<[number, number]> {
+  return [...d.matchAll(/[ML](-?[\d.]+),(-?[\d.]+)/g)].map((m) => [Number(m[1]), Number(m[2])]);
+}
+
+function translate(el: Element): [number, number] {
+  const m = /translate\((-?[\d.]+),(-?[\d.]+)\)/.exec(el.getAttribute("transform") ?? "");
+  if (!m) throw new Error("no translate");
+  return [Number(m[1]), Number(m[2])];
+}
+
+/**
+ * Where a flow and a pressure should land, worked from the plot's stated ranges, independently of d3:
+ * x = x0 + (x1 − x0) (q / qMax)^e with e = 1 on the linear axis and 1.85 on the Q^1.85 axis; y likewise, linear.
+ */
+function expected(svg: Element, q: number, p: number): [number, number] {
+  const [x0, x1] = svg.getAttribute("data-x-range")!.split(",").map(Number);
+  const [y0, y1] = svg.getAttribute("data-y-range")!.split(",").map(Number);
+  const qMax = Number(svg.getAttribute("data-q-max"));
+  const pMax = Number(svg.getAttribute("data-p-max"));
+  const e = svg.getAttribute("data-axis") === "pow" ? 1.85 : 1;
+  return [x0 + (x1 - x0) * Math.pow(q / qMax, e), y0 + (y1 - y0) * (p / pMax)];
+}
+
+function expectNear(actual: [number, number], want: [number, number], tol = 0.02): void {
+  expect(Math.abs(actual[0] - want[0]), `x ${actual[0]} vs ${want[0]}`).toBeLessThanOrEqual(tol);
+  expect(Math.abs(actual[1] - want[1]), `y ${actual[1]} vs ${want[1]}`).toBeLessThanOrEqual(tol);
+}
+
+function hasVertexNear(d: string, want: [number, number]): boolean {
+  return vertices(d).some(([x, y]) => Math.abs(x - want[0]) <= 0.02 && Math.abs(y - want[1]) <= 0.02);
+}
+
+describe("the plot", () => {
+  for (const axis of ["linear", "pow"] as const) {
+    it(`passes the supply curve through the static and test points on the ${axis} axis [NFPA 291]`, async () => {
+      const { $ } = await mount(BASE, { width: 320, axis });
+      const svg = $("plot")!;
+      expect(svg.getAttribute("data-axis")).toBe(axis);
+      const d = $("supply-curve")!.getAttribute("d")!;
+      expect(hasVertexNear(d, expected(svg, 0, 72))).toBe(true); // static 72 psi at no flow
+      expect(hasVertexNear(d, expected(svg, 1100, 58))).toBe(true); // residual 58 psi at 1100 gpm
+    });
+
+    it(`puts the demand points at their flow and pressure on the ${axis} axis`, async () => {
+      const { $, $$ } = await mount({ ...BASE, Demand_HoseFlow: 250 }, { width: 320, axis });
+      const svg = $("plot")!;
+      const points = $$("demand-point");
+      expect(points.map((p) => p.getAttribute("data-id"))).toEqual(["sprinklers", "total"]);
+      expectNear(translate(points[0]), expected(svg, 562 - 250, 48));
+      expectNear(translate(points[1]), expected(svg, 562, 48));
+    });
+  }
+
+  it("draws the supply curve as a straight line on the Q^1.85 axis, and bent on the linear one", async () => {
+    const off = async (axis: "linear" | "pow") => {
+      const { $ } = await mount(BASE, { width: 320, axis });
+      const v = vertices($("supply-curve")!.getAttribute("d")!);
+      const [a, b] = [v[0], v[v.length - 1]];
+      // largest distance of a vertex from the chord through the curve's ends, px
+      return Math.max(...v.map(([x, y]) => Math.abs((b[0] - a[0]) * (a[1] - y) - (a[0] - x) * (b[1] - a[1])) / Math.hypot(b[0] - a[0], b[1] - a[1])));
+    };
+    expect(await off("pow")).toBeLessThan(0.05);
+    expect(await off("linear")).toBeGreaterThan(5);
+  });
+
+  it("switches the axis with the toggle and moves the demand point", async () => {
+    const { $ } = await mount(BASE);
+    const before = translate($("demand-point")!);
+    $<HTMLButtonElement>("axis-pow")!.click();
+    const svg = $("plot")!;
+    expect(svg.getAttribute("data-axis")).toBe("pow");
+    expect($("axis-pow")!.getAttribute("aria-pressed")).toBe("true");
+    const after = translate($("demand-point")!);
+    expectNear(after, expected(svg, 562, 48));
+    expect(after[0]).toBeLessThan(before[0]); // Q^1.85 squeezes the lower flows to the left
+  });
+
+  it("labels round flows, thinned near 0 on the Q^1.85 axis, and titles both axes with units", async () => {
+    for (const axis of ["linear", "pow"] as const) {
+      const { root } = await mount(BASE, { width: 320, axis });
+      const ticks = [...root.querySelectorAll(".axis.x .tick")];
+      const labels = ticks.map((t) => t.textContent);
+      expect(labels[0]).toBe("0");
+      for (const l of labels) expect(Number(l!.replace(/,/g, "")) % 100).toBe(0);
+      const xs = ticks.map((t) => translate(t)[0]);
+      for (let i = 1; i < xs.length; i++) expect(xs[i] - xs[i - 1], `${axis}: ${labels[i - 1]} to ${labels[i]}`).toBeGreaterThanOrEqual(24);
+      const titles = [...root.querySelectorAll(".axis .title")].map((t) => t.textContent);
+      expect(titles).toEqual([axis === "pow" ? "Flow (gpm), Q^1.85 scale" : "Flow (gpm)", "Pressure (psi)"]);
+    }
+  });
+
+  it("speaks SI on an SI sheet", async () => {
+    const { root } = await mount({ Units: "SI", Supply_Static: 5, Supply_Residual: 4, Supply_TestFlow: 4000, Demand_Flow: 2000, Demand_Pressure: 3 });
+    expect([...root.querySelectorAll(".axis .title")].map((t) => t.textContent)).toEqual(["Flow (L/min)", "Pressure (bar)"]);
+  });
+
+  it("draws the margin band and the pump when they are given, with legend entries", async () => {
+    const plain = await mount(BASE);
+    expect(plain.$("margin-band")).toBeNull();
+    expect(plain.$("pump-curve")).toBeNull();
+    const full = await mount({ ...BASE, Required_Margin: 10, Pump_RatedFlow: 750, Pump_RatedPressure: 25 });
+    expect(full.$("margin-band")).not.toBeNull();
+    expect(full.$("pump-curve")).not.toBeNull();
+    const legend = [...full.root.querySelectorAll('[data-role="legend"] li')].map((l) => l.textContent);
+    expect(legend).toEqual(["Water supply (flow test)", "Required margin 10.0 psi", "Demand", "Supply + pump 750 gpm at 25.0 psi"]);
+  });
+
+  it("stays readable at 320 px: full width, no text under 10.5 px", async () => {
+    const { $, root } = await mount(BASE, { width: 320 - 24 });
+    const svg = $("plot")!;
+    expect(Number(svg.getAttribute("width"))).toBe(296);
+    for (const t of root.querySelectorAll("svg[data-role=plot] text")) {
+      let size: string | null = null;
+      for (let e: Element | null = t; e && !size; e = e.parentElement) size = e.getAttribute("font-size");
+      expect(Number(size), t.textContent ?? "").toBeGreaterThanOrEqual(10.5);
+    }
+  });
+});
+
+describe("the verdict and the caution", () => {
+  it("writes VERDICT's sentence, the margin in psi and percent, and the caution beneath", async () => {
+    const { $ } = await mount({ ...BASE, Required_Margin: 10 });
+    expect($("verdict")!.textContent).toBe(verdictCell(562, 48, 72, 58, 1100, 10, "US"));
+    expect($("verdict")!.textContent).toBe("No pump needed: 20.0 psi to spare at 562 gpm (10.0 psi margin required).");
+    // 19.958 / 48 = 41.6 % → 42 %
+    expect($("margin")!.textContent).toBe("Margin 20.0 psi, 42 % of the 48.0 psi demand pressure; required 10.0 psi.");
+    expect($("pump")!.hidden).toBe(true);
+    const caution = $("caution")!;
+    expect(caution.textContent).toBe(CAUTION);
+    expect(caution.hidden).toBe(false);
+    expect($("verdict")!.compareDocumentPosition(caution) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+  });
+
+  it("redraws on a change event: a higher demand turns the verdict and moves the point", async () => {
+    const { port, pane, $ } = await mount({ ...BASE, Required_Margin: 10 });
+    const y0 = translate($("demand-point")!)[1];
+    port.set({ Demand_Pressure: 78 });
+    await pane.idle();
+    expect($("verdict")!.textContent).toBe(verdictCell(562, 78, 72, 58, 1100, 10, "US"));
+    expect($("verdict")!.textContent).toBe("Pump needed: the supply is 10.0 psi short at 562 gpm.");
+    expect(translate($("demand-point")!)[1]).toBeLessThan(y0);
+    // boost 78 + 10 − 67.958 = 20.0 psi → 25 psi; 562 gpm → 750 gpm [NFPA 20] (from memory)
+    expect($("pump")!.textContent).toBe("Pump: 750 gpm rated at 25.0 psi (PUMPSIZE), for a boost of 20.0 psi (PUMPBOOST).");
+    // margin 67.958 − 78 = −10.04 psi; −10.04 / 78 = −12.9 % → −13 %
+    expect($("margin")!.textContent).toBe("Margin −10.0 psi, −13 % of the 78.0 psi demand pressure; required 10.0 psi.");
+  });
+
+  it("says which names are missing and how to fix them, keeping the caution", async () => {
+    const { port, pane, $, root } = await mount({ Units: "US", Supply_Static: 72, Supply_Residual: 58 });
+    expect($("verdict")!.textContent).toBe("3 inputs need attention");
+    const items = [...root.querySelectorAll('[data-role="problems"] li')];
+    expect(items.map((i) => i.getAttribute("data-name"))).toEqual(["Supply_TestFlow", "Demand_Flow", "Demand_Pressure"]);
+    expect(items[0].textContent).toMatch(/^Supply_TestFlow is not defined\. .*Name Box.*New estimate sheet\.$/);
+    expect($("plot")).toBeNull();
+    expect($("caution")!.textContent).toBe(CAUTION);
+    port.set({ Supply_TestFlow: 1100, Demand_Flow: 562, Demand_Pressure: 48 });
+    await pane.idle();
+    expect($("problems")!.children).toHaveLength(0);
+    expect($("plot")).not.toBeNull();
+  });
+
+  it("keeps the last picture while Excel calculates", async () => {
+    const { port, pane, $ } = await mount(BASE);
+    const sentence = $("verdict")!.textContent;
+    port.set({ Demand_Pressure: { kind: "error", code: "#BUSY!", address: "Estimate!B57" } });
+    await pane.idle();
+    expect($("verdict")!.textContent).toBe(sentence);
+    expect($("calc-note")!.hidden).toBe(false);
+    expect($("calc-note")!.textContent).toBe("Excel is still calculating Demand_Pressure…");
+    expect($("caution")!.hidden).toBe(false);
+  });
+});
+
+describe("the actions", () => {
+  it("inserts an estimate sheet in the units chosen", async () => {
+    const { port, pane, $ } = await mount(BASE);
+    const units = $<HTMLSelectElement>("units")!;
+    expect(units.value).toBe("US");
+    units.value = "SI";
+    units.dispatchEvent(new Event("change"));
+    $<HTMLButtonElement>("new-sheet")!.click();
+    await new Promise((r) => setTimeout(r, 0));
+    await pane.idle();
+    expect(port.inserted).toEqual(["SI"]);
+    expect($("status")!.textContent).toBe("Added the sheet Estimate 2 with a demo scenario: overwrite the shaded cells. The named cells now point to it.");
+  });
+
+  it("shows why a share copy was refused", async () => {
+    const { port, pane, $ } = await mount(BASE);
+    port.shareResult = { ok: false, reason: "No share copy made: Estimate!B57 shows #BUSY!; Excel is still calculating: wait until no cell shows #BUSY!, then try again." };
+    $<HTMLButtonElement>("share-copy")!.click();
+    await new Promise((r) => setTimeout(r, 0));
+    await pane.idle();
+    expect($("status")!.textContent).toBe(port.shareResult.reason);
+    expect($("status")!.getAttribute("data-tone")).toBe("refused");
+  });
+
+  it("reports a share copy made", async () => {
+    const { pane, $ } = await mount(BASE);
+    $<HTMLButtonElement>("share-copy")!.click();
+    await new Promise((r) => setTimeout(r, 0));
+    await pane.idle();
+    expect($("status")!.textContent).toMatch(/^Added Estimate values 2026-05-04: the numbers of Estimate with values frozen/);
+  });
+});
