@@ -19,9 +19,9 @@ export type FlowAxis = "linear" | "pow";
 const SVG = "http://www.w3.org/2000/svg";
 
 /** Space around the plotting area, px. */
-const PAD = { left: 46, right: 14, top: 14, bottom: 42 };
+const PAD = { left: 46, right: 18, top: 14, bottom: 42 };
 /** Smallest gap between two x tick labels, px, on top of the label's own width. */
-const TICK_GAP = 8;
+const TICK_GAP = 10;
 /** Approximate width of one digit of the tick labels (11 px system font), px. */
 const DIGIT_WIDTH = 6.4;
 
@@ -49,23 +49,32 @@ export function yScale(pMax: number, height: number): ScaleLinear<number, number
 }
 
 /**
- * Keep tick values whose labels do not collide: from the largest down, a tick stays when it lies at least its label
- * width plus a gap left of the last kept one. 0 always stays (its neighbour gives way).
+ * Thin one set of round ticks so that no two labels collide, keeping the step regular: ticks give way only at the
+ * low end, where a power axis crowds them, and 0 always stays. Returns the ticks kept, ascending.
  */
 export function thinTicks(ticks: number[], x: (v: number) => number, label: (v: number) => string): number[] {
-  const sorted = [...ticks].sort((a, b) => b - a);
-  const kept: number[] = [];
+  const t = [...ticks].sort((a, b) => a - b);
   const room = (a: number, b: number) => Math.abs(x(a) - x(b)) >= (label(a).length + label(b).length) * (DIGIT_WIDTH / 2) + TICK_GAP;
-  for (const t of sorted) {
-    const last = kept[kept.length - 1];
-    if (last === undefined || room(t, last)) kept.push(t);
-    else if (t === 0) {
-      kept.pop();
-      while (kept.length && !room(0, kept[kept.length - 1])) kept.pop();
-      kept.push(0);
-    }
+  const rest = t.filter((v) => v !== 0);
+  // the longest run at the top end whose neighbours all have room
+  let first = rest.length - 1;
+  while (first > 0 && room(rest[first - 1], rest[first])) first--;
+  let kept = rest.slice(Math.max(first, 0));
+  if (t[0] === 0) {
+    while (kept.length && !room(0, kept[0])) kept = kept.slice(1);
+    kept = [0, ...kept];
   }
-  return kept.reverse();
+  return kept;
+}
+
+/** Round flow ticks for an axis: of the tick sets d3 offers for 6 down to 3 ticks, the one that keeps most after thinning. */
+export function flowTicks(scale: { ticks(count: number): number[] }, x: (v: number) => number, label: (v: number) => string): number[] {
+  let best: number[] = [];
+  for (const count of [6, 5, 4, 3]) {
+    const kept = thinTicks(scale.ticks(count), x, label);
+    if (kept.length > best.length) best = kept;
+  }
+  return best;
 }
 
 function el<K extends keyof SVGElementTagNameMap>(doc: Document, tag: K, attrs: Record<string, string | number>, parent?: Element): SVGElementTagNameMap[K] {
@@ -76,6 +85,57 @@ function el<K extends keyof SVGElementTagNameMap>(doc: Document, tag: K, attrs: 
 }
 
 const r2 = (v: number) => Math.round(v * 100) / 100;
+
+/** A flow or pressure tick label: plain digits, as the pane writes numbers elsewhere (1500, not 1,500). */
+function tickLabel(v: number): string {
+  return String(Number(v.toPrecision(6)));
+}
+
+/** Approximate width of a label in the 11 px system font, px. */
+const CHAR_WIDTH = 6.2;
+const LABEL_HEIGHT = 12;
+
+type Box = { x0: number; y0: number; x1: number; y1: number };
+type Offset = { dx: number; dy: number; anchor: "start" | "middle" | "end" };
+
+/** Label offsets around a point: above or below it, to its right, left or centred. */
+const OFFSETS = {
+  ar: { dx: 8, dy: -8, anchor: "start" },
+  al: { dx: -8, dy: -8, anchor: "end" },
+  br: { dx: 8, dy: 17, anchor: "start" },
+  bl: { dx: -8, dy: 17, anchor: "end" },
+  ac: { dx: 0, dy: -11, anchor: "middle" },
+  bc: { dx: 0, dy: 20, anchor: "middle" },
+} as const satisfies Record<string, Offset>;
+type Spot = keyof typeof OFFSETS;
+
+function labelBox(px: number, py: number, o: Offset, label: string): Box {
+  const w = label.length * CHAR_WIDTH;
+  const x0 = o.anchor === "start" ? px + o.dx : o.anchor === "end" ? px + o.dx - w : px + o.dx - w / 2;
+  const base = py + o.dy;
+  return { x0, y0: base - LABEL_HEIGHT + 2, x1: x0 + w, y1: base + 2 };
+}
+
+const overlap = (a: Box, b: Box) => Math.max(0, Math.min(a.x1, b.x1) - Math.max(a.x0, b.x0)) * Math.max(0, Math.min(a.y1, b.y1) - Math.max(a.y0, b.y0));
+const outside = (b: Box, area: Box) =>
+  Math.max(0, area.x0 - b.x0) + Math.max(0, b.x1 - area.x1) + Math.max(0, area.y0 - b.y0) + Math.max(0, b.y1 - area.y1);
+
+/**
+ * Place a label at a point: the spot of `prefer` (in that order) that stays inside `area` and clear of `taken`
+ * (other labels and markers), else the one that pokes out and overlaps least. Adds the box chosen to `taken`.
+ */
+function place(px: number, py: number, label: string, prefer: Spot[], area: Box, taken: Box[]): Offset & { clear: boolean } {
+  let best: { o: Offset; b: Box; cost: number } | null = null;
+  for (const k of prefer) {
+    const o = OFFSETS[k];
+    const b = labelBox(px, py, o, label);
+    const cost = outside(b, area) * LABEL_HEIGHT * 4 + taken.reduce((sum, t) => sum + overlap(b, t), 0);
+    if (!best || cost < best.cost) best = { o, b, cost };
+    if (cost === 0) break;
+  }
+  taken.push(best!.b);
+  return { ...best!.o, clear: best!.cost === 0 };
+}
 
 function pathOf(points: readonly Pt[], x: (q: number) => number, y: (p: number) => number): string {
   return points.map(([q, p], i) => `${i ? "L" : "M"}${r2(x(q))},${r2(y(p))}`).join("");
@@ -124,10 +184,10 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
 
   // grid and axes
   const grid = el(doc, "g", { class: "grid", stroke: PALETTE.grid, "stroke-width": 1 }, svg);
-  const xLabel = x.tickFormat(6);
-  const xTicks = thinTicks(x.ticks(6), X, xLabel);
+  const xLabel = tickLabel;
+  const xTicks = flowTicks(x, X, xLabel);
   const yTicks = y.ticks(5);
-  const yLabel = y.tickFormat(5);
+  const yLabel = tickLabel;
   for (const t of xTicks) el(doc, "line", { x1: r2(X(t)), x2: r2(X(t)), y1: Y(0), y2: PAD.top }, grid);
   for (const t of yTicks) el(doc, "line", { x1: PAD.left, x2: width - PAD.right, y1: r2(Y(t)), y2: r2(Y(t)) }, grid);
 
@@ -176,8 +236,6 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
     const g = el(doc, "g", { "data-role": role, transform: `translate(${r2(X(pt[0]))},${r2(Y(pt[1]))})` }, svg);
     marker(doc, "circle", "#FFFFFF", PALETTE.supply, g);
   }
-  const tp = d.testPoint;
-  text(doc, "flow test", { x: r2(X(tp[0]) + 6), y: r2(Y(tp[1]) - 7), "font-size": 10.5, fill: PALETTE.supply }, svg);
 
   // the gap between supply and demand at the demand flow
   if (d.supplyAtDemand !== null) {
@@ -195,19 +253,35 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
     }, svg);
   }
 
-  // demand points, each with its own shape and a label
-  const right = width - PAD.right;
+  // demand points, each with its own shape and a label placed clear of the others
+  const area: Box = { x0: PAD.left + 2, y0: PAD.top, x1: width - PAD.right, y1: height - PAD.bottom - 2 };
+  const markerBox = (q: number, p: number): Box => ({ x0: X(q) - 7, y0: Y(p) - 7, x1: X(q) + 7, y1: Y(p) + 7 });
+  const taken: Box[] = [...d.demand.map((pt) => markerBox(pt.q, pt.p)), markerBox(...d.testPoint), markerBox(...d.staticPoint)];
+  const ordered = [...d.demand].sort((a, b) => (a.id === "total" ? -1 : b.id === "total" ? 1 : 0));
+  const offsets = new Map<string, Offset>();
+  for (const pt of ordered) {
+    const above = d.supplyAtDemand !== null && pt.p > d.supplyAtDemand;
+    const prefer: Spot[] =
+      pt.id === "total"
+        ? above ? ["ar", "ac", "al", "br", "bc", "bl"] : ["br", "bc", "bl", "ar", "ac", "al"]
+        : above ? ["al", "ac", "bl", "bc", "ar", "br"] : ["bl", "bc", "al", "ac", "br", "ar"];
+    offsets.set(pt.id, place(X(pt.q), Y(pt.p), pt.label, prefer, area, taken));
+  }
+  const tp = d.testPoint;
+  const tpo = place(X(tp[0]), Y(tp[1]), "flow test", ["ar", "ac", "al", "br", "bl", "bc"], area, taken);
+  // a name for the test point where there is room for it (the legend names it too)
+  if (tpo.clear) text(doc, "flow test", { x: r2(X(tp[0]) + tpo.dx), y: r2(Y(tp[1]) + tpo.dy), "text-anchor": tpo.anchor, "font-size": 10.5, fill: PALETTE.supply }, svg);
   for (const pt of d.demand) {
     const px = r2(X(pt.q));
     const py = r2(Y(pt.p));
     const g = el(doc, "g", { "data-role": "demand-point", "data-id": pt.id, "data-flow": pt.q, "data-pressure": pt.p, transform: `translate(${px},${py})` }, svg);
     if (pt.id === "sprinklers") marker(doc, "square", "#FFFFFF", PALETTE.sprinklers, g);
     else marker(doc, "diamond", PALETTE.demand, "#FFFFFF", g);
-    const toLeft = pt.id === "sprinklers" || px + 8 + pt.label.length * DIGIT_WIDTH > right;
+    const o = offsets.get(pt.id)!;
     text(doc, pt.label, {
-      x: toLeft ? -8 : 8,
-      y: pt.id === "sprinklers" ? -8 : 15,
-      "text-anchor": toLeft ? "end" : "start",
+      x: o.dx,
+      y: o.dy,
+      "text-anchor": o.anchor,
       "font-size": 11,
       "font-weight": 600,
       fill: pt.id === "sprinklers" ? "#8A5A00" : PALETTE.demand,

@@ -112,6 +112,11 @@ describe("the plot", () => {
       for (const l of labels) expect(Number(l!.replace(/,/g, "")) % 100).toBe(0);
       const xs = ticks.map((t) => translate(t)[0]);
       for (let i = 1; i < xs.length; i++) expect(xs[i] - xs[i - 1], `${axis}: ${labels[i - 1]} to ${labels[i]}`).toBeGreaterThanOrEqual(24);
+      // thinning keeps one step: only the low end gives way
+      const values = labels.slice(1).map(Number);
+      const steps = new Set(values.slice(1).map((v, i) => v - values[i]));
+      expect(steps.size, labels.join(" ")).toBe(1);
+      expect(values.length).toBeGreaterThanOrEqual(3);
       const titles = [...root.querySelectorAll(".axis .title")].map((t) => t.textContent);
       expect(titles).toEqual([axis === "pow" ? "Flow (gpm), Q^1.85 scale" : "Flow (gpm)", "Pressure (psi)"]);
     }
