@@ -8,14 +8,14 @@
  * the vocabulary; never rename one without keeping the old name working.
  */
 import { cell } from "./bridge";
-import { LIMITS_US, finiteResult, numberArg, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
+import { LIMITS_US, SIGNED, ZERO_ALLOWED, finiteResult, numberArg, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
 import { demandArgs, flowTestArgs, minPressureArg, pipeArgs, showIn } from "./common";
 import { convertUnit } from "./unit";
 import { assess, margin as supplyMargin, pumpBoost, verdictSentence } from "../engine/decision";
 import { elevationPressure, frictionRateIn, velocity as pipeVelocity } from "../engine/friction";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
 import { fail } from "../engine/errors";
-import { PITOT_COEFFICIENT_SMOOTH, exhaustionFlow, flowAt, pitotFlow, supplyAt } from "../engine/supply";
+import { PITOT_COEFFICIENT_SMOOTH, exhaustionFlow, flowAt, pitotFlow, supplyCurve } from "../engine/supply";
 import { fromUS, unitName } from "../engine/units";
 import { isBlank } from "./args";
 import { cFactorArg } from "./common";
@@ -44,12 +44,12 @@ export function supplyat(flow: any, static_pressure: any, residual: any, test_fl
   return cell(() => {
     const u = unitsArg(units);
     const t = flowTestArgs(static_pressure, residual, test_flow, u);
-    const q = quantityArg(flow, "flow", "flow", u, { zero: true });
-    const qMax = exhaustionFlow(t);
-    if (q >= qMax) {
-      fail(`flow: got ${showIn("flow", q, u)}; this supply reaches 0 ${unitName("pressure", u)} at ${showIn("flow", qMax, u)}`);
+    const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
+    const p = supplyCurve(q, t); // flow test and flow checked above
+    if (!(p > 0)) {
+      fail(`flow: got ${showIn("flow", q, u)}; this supply reaches 0 ${unitName("pressure", u)} at ${showIn("flow", exhaustionFlow(t), u)}`);
     }
-    return fromUS("pressure", finiteResult(supplyAt(q, t), "SUPPLYAT"), u);
+    return fromUS("pressure", finiteResult(p, "SUPPLYAT"), u);
   });
 }
 
@@ -68,7 +68,7 @@ export function flowat(pressure: any, static_pressure: any, residual: any, test_
   return cell(() => {
     const u = unitsArg(units);
     const t = flowTestArgs(static_pressure, residual, test_flow, u);
-    const p = quantityArg(pressure, "pressure", "pressure", u, { zero: true });
+    const p = quantityArg(pressure, "pressure", "pressure", u, ZERO_ALLOWED);
     if (p > t.static) {
       fail(`pressure: got ${showIn("pressure", p, u)}; must be from 0 to the static pressure ${showIn("pressure", t.static, u)}`);
     }
@@ -190,7 +190,7 @@ export function friction(flow: any, diameter: any, c_factor: any, length: any, u
   return cell(() => {
     const u = unitsArg(units);
     const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
-    const l = quantityArg(length, "length", "length", u, { zero: true });
+    const l = quantityArg(length, "length", "length", u, ZERO_ALLOWED);
     return finiteResult(frictionRateIn(q, d, c, u) * fromUS("length", l, u), "FRICTION");
   });
 }
@@ -223,7 +223,7 @@ export function frictionrate(flow: any, diameter: any, c_factor: any, units?: an
 export function velocity(flow: any, diameter: any, units?: any): number {
   return cell(() => {
     const u = unitsArg(units);
-    const q = quantityArg(flow, "flow", "flow", u, { zero: true });
+    const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
     const d = quantityArg(diameter, "diameter", "diameter", u);
     return fromUS("velocity", finiteResult(pipeVelocity(q, d), "VELOCITY"), u);
   });
@@ -240,7 +240,7 @@ export function velocity(flow: any, diameter: any, units?: any): number {
 export function elevation(rise: any, units?: any): number {
   return cell(() => {
     const u = unitsArg(units);
-    const h = quantityArg(rise, "rise", "length", u, { signed: true });
+    const h = quantityArg(rise, "rise", "length", u, SIGNED);
     return fromUS("pressure", finiteResult(elevationPressure(h), "ELEVATION", true), u);
   });
 }
@@ -562,7 +562,7 @@ export function verdict(
   return cell(() => {
     const u = unitsArg(units);
     const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, { zero: true });
+    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, ZERO_ALLOWED);
     return verdictSentence(assess(q, p, t, m), u);
   });
 }
@@ -592,7 +592,7 @@ export function pumpboost(
   return cell(() => {
     const u = unitsArg(units);
     const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, { zero: true });
+    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, ZERO_ALLOWED);
     return fromUS("pressure", finiteResult(pumpBoost(q, p, t, m, u), "PUMPBOOST"), u);
   });
 }
