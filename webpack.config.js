@@ -74,6 +74,40 @@ export function addinConfig(mode) {
   };
 }
 
+/**
+ * The local preview host that `npm start` serves (src/preview/): the estimate workbook in a grid over HyperFormula,
+ * with the task pane beside it, into dist/preview/. Built WITHOUT the custom-functions metadata plugin (it reads the
+ * functions.json the add-in build writes to dist/); HyperFormula (GPL-3.0) and ExcelJS belong to this bundle alone,
+ * ExcelJS in a chunk of its own that loads when a file is opened or saved.
+ */
+export function previewConfig(mode) {
+  return {
+    ...commonConfig(mode),
+    name: "preview",
+    // no eval-based source maps: the page's Content-Security-Policy allows scripts from 'self' only
+    devtool: "source-map",
+    entry: { preview: "./src/preview/main.ts" },
+    output: {
+      path: path.join(root, "dist", "preview"),
+      filename: "[name].js",
+      chunkFilename: "[name].[contenthash:8].js",
+      clean: true,
+    },
+    plugins: [
+      new HtmlWebpackPlugin({ filename: "index.html", template: "./src/preview/index.html", chunks: ["preview"] }),
+      new CopyWebpackPlugin({
+        patterns: [
+          { from: "src/preview/preview.css", to: "preview.css" },
+          { from: "samples/*.xlsx", to: "samples/[name][ext]" },
+          { from: "samples/index.json", to: "samples/index.json" },
+        ],
+      }),
+    ],
+    // a local page: the engine and the file library are large by nature
+    performance: { hints: false },
+  };
+}
+
 export default async function config(env = {}, argv = {}) {
   const mode = argv.mode ?? "production";
   const addin = addinConfig(mode);
@@ -88,5 +122,5 @@ export default async function config(env = {}, argv = {}) {
       server: { type: "https", options: await devCerts.getHttpsServerOptions() },
     };
   }
-  return [addin];
+  return env.WEBPACK_SERVE ? [addin] : [addin, previewConfig(mode)];
 }

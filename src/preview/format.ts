@@ -8,19 +8,26 @@ import type { CellContent } from "./model";
 /** A value as the engine gives it. */
 export type ShownValue = number | string | boolean | null | { error: string; message?: string };
 
-/** Up to 10 significant digits, no trailing zeros, plain notation where reasonable (Excel's General, roughly). */
-export function generalNumber(x: number): string {
+/**
+ * A number without a format of its own: six significant digits (whole numbers in full up to 10^11), no trailing
+ * zeros, plain notation where reasonable; what a spreadsheet's General format shows in a column of ordinary width.
+ * The formula bar and saved files keep every digit.
+ */
+export function generalNumber(x: number, digits = 6): string {
   if (x === 0) return "0";
   const ax = Math.abs(x);
-  if (ax >= 1e11 || ax < 1e-9) return x.toExponential(5).replace(/\.?0+e/, "e");
-  const digits = Math.max(0, 10 - Math.max(1, Math.floor(Math.log10(ax)) + 1));
-  return Number(x.toFixed(Math.min(digits, 10))).toString();
+  if (ax >= 1e11 || ax < 1e-6) return x.toExponential(Math.max(1, digits - 2)).replace(/\.?0+e/, "e");
+  if (ax >= 10 ** digits) return String(Math.round(x));
+  return String(Number(x.toPrecision(digits)));
 }
 
+/** Significant digits of a spilled number without a format of its own: a table of results, read at a glance. */
+export const SPILL_DIGITS = 4;
+
 /** A number in an Excel number format; unknown formats fall back to the general one. */
-export function formatNumber(x: number, numFmt?: string): string {
+export function formatNumber(x: number, numFmt?: string, generalDigits = 6): string {
   const fmt = (numFmt ?? "").trim();
-  if (!fmt || fmt.toLowerCase() === "general") return generalNumber(x);
+  if (!fmt || fmt.toLowerCase() === "general") return generalNumber(x, generalDigits);
   const m = /^(#,##)?0(?:\.(0+))?(%)?$/.exec(fmt);
   if (!m) return generalNumber(x);
   const decimals = m[2]?.length ?? 0;
@@ -38,9 +45,9 @@ export function formatNumber(x: number, numFmt?: string): string {
 }
 
 /** A value as the cell shows it. */
-export function formatValue(v: ShownValue, numFmt?: string): string {
+export function formatValue(v: ShownValue, numFmt?: string, generalDigits = 6): string {
   if (v === null) return "";
-  if (typeof v === "number") return formatNumber(v, numFmt);
+  if (typeof v === "number") return formatNumber(v, numFmt, generalDigits);
   if (typeof v === "boolean") return v ? "TRUE" : "FALSE";
   if (typeof v === "string") return v;
   return v.error;

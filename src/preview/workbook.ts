@@ -8,7 +8,7 @@ import { DetailedCellError, HyperFormula } from "hyperformula";
 import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformula";
 import { absoluteRef, cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
 import type { CachedValue, CellContent, CellData, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
-import { formatValue, parseTyped, type ShownValue } from "./format";
+import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
 
 /** The engine's settings: the licence key, Excel's dynamic-array behaviour, and full-precision results. */
 export const ENGINE_CONFIG: Partial<ConfigParams> = {
@@ -46,26 +46,43 @@ function shown(v: unknown): ShownValue {
 }
 
 export class PreviewWorkbook {
-  readonly hf: HyperFormula;
+  private engine!: HyperFormula;
   private readonly styles = new Map<string, Map<string, CellStyle>>();
   private readonly widths = new Map<string, Record<number, number>>();
   private readonly merges = new Map<string, string[]>();
   private readonly heights = new Map<string, Record<number, number>>();
   private readonly listeners = new Set<ChangeListener>();
   private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
-  activeSheet: string;
+  activeSheet = "";
 
   constructor(data: WorkbookData) {
+    this.load(data);
+  }
+
+  /** The formula engine (replaced by `load`). */
+  get hf(): HyperFormula {
+    return this.engine;
+  }
+
+  /** Replace the whole workbook (a file opened), keeping the listeners. */
+  load(data: WorkbookData): void {
     if (!data.sheets.length) throw new Error("a workbook needs at least one sheet");
     const sheets: Record<string, RawCellContent[][]> = {};
+    this.styles.clear();
+    this.widths.clear();
+    this.merges.clear();
+    this.heights.clear();
     for (const s of data.sheets) {
       sheets[s.name] = toRows(s);
       this.keepLayout(s);
     }
-    this.hf = HyperFormula.buildFromSheets(sheets, ENGINE_CONFIG);
+    const previous = this.engine;
+    this.engine = HyperFormula.buildFromSheets(sheets, ENGINE_CONFIG);
     for (const n of data.names) this.setName(n.name, n.ref, { quiet: true });
     this.activeSheet = data.activeSheet && sheets[data.activeSheet] ? data.activeSheet : data.sheets[0].name;
-    this.hf.on("valuesUpdated", () => this.changed());
+    this.engine.on("valuesUpdated", () => this.changed());
+    previous?.destroy();
+    if (previous) this.changed();
   }
 
   // ─── Sheets ────────────────────────────────────────────────────────────────────────────────────────────────────
@@ -135,7 +152,8 @@ export class PreviewWorkbook {
   content(sheet: string, address: string): CellContent {
     const v = this.hf.getCellSerialized(this.addr(sheet, address));
     if (v === undefined || v === null) return null;
-    if (typeof v === "number" || typeof v === "string" || typeof v === "boolean") return v;
+    if (typeof v === "string") return fromEngineText(v);
+    if (typeof v === "number" || typeof v === "boolean") return v;
     return String(v);
   }
 
@@ -152,7 +170,9 @@ export class PreviewWorkbook {
     const value = this.value(sheet, address);
     const style = this.style(sheet, address);
     const spill = this.spills(sheet).get(address);
-    const view: CellView = { address, content, value, display: formatValue(value, style?.numFmt), style };
+    const spilled = spill !== undefined && spill.anchor !== address;
+    const display = formatValue(value, style?.numFmt, spilled ? SPILL_DIGITS : undefined);
+    const view: CellView = { address, content, value, display, style };
     if (spill && spill.anchor !== address) view.spilledFrom = spill.anchor;
     if (spill && spill.anchor === address) view.spillRange = spill.range;
     return view;
@@ -160,7 +180,7 @@ export class PreviewWorkbook {
 
   /** Put content into a cell (null clears it). */
   setContent(sheet: string, address: string, content: CellContent): void {
-    this.hf.setCellContents(this.addr(sheet, address), [[content]]);
+    this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content)]]);
   }
 
   /** Put what a user typed into a cell: formulas, numbers, TRUE/FALSE and text as a spreadsheet reads them. */
@@ -349,6 +369,21 @@ function cachedOf(v: ShownValue): CachedValue {
   return v;
 }
 
+/**
+ * Content as the engine takes it. Text goes in behind an apostrophe, the engine's mark for "text as it is": without
+ * it the engine reads text the way a user's typing is read, so a nominal size "1-1/4" would become a date and a
+ * schedule "40" a number.
+ */
+function toEngine(content: CellContent): RawCellContent {
+  if (typeof content === "string" && !content.startsWith("=")) return `'${content}`;
+  return content;
+}
+
+/** The engine's serialized text → the content (the apostrophe off). */
+function fromEngineText(v: string): CellContent {
+  return v.startsWith("'") ? v.slice(1) : v;
+}
+
 /** A sheet's cells as the engine's rows of raw content. */
 function toRows(s: SheetData): RawCellContent[][] {
   const rows: RawCellContent[][] = [];
@@ -358,7 +393,7 @@ function toRows(s: SheetData): RawCellContent[][] {
     while (rows.length <= a.row) rows.push([]);
     const row = rows[a.row];
     while (row.length < a.col) row.push(null);
-    row[a.col] = cell.content;
+    row[a.col] = toEngine(cell.content);
   }
   return rows;
 }

@@ -199,11 +199,18 @@ function styleOf(cell: Cell): CellStyle | undefined {
   return Object.keys(style).length ? style : undefined;
 }
 
-/** Write an .xlsx file. `known` lists the add-in's functions as written in cells. */
-export async function writeXlsx(data: WorkbookData, known: readonly string[]): Promise<Uint8Array> {
+/**
+ * Write an .xlsx file. `known` lists the add-in's functions as written in cells; `date` sets the file's created and
+ * modified dates (now by default).
+ */
+export async function writeXlsx(data: WorkbookData, known: readonly string[], opts: { date?: Date } = {}): Promise<Uint8Array> {
   const ExcelJS = await excel();
   const wb: ExcelWorkbook = new ExcelJS.Workbook();
   wb.creator = "Headroom";
+  wb.lastModifiedBy = "Headroom";
+  const date = opts.date ?? new Date();
+  wb.created = date;
+  wb.modified = date;
   wb.calcProperties.fullCalcOnLoad = true;
   for (const s of data.sheets) writeSheet(wb.addWorksheet(s.name), s, known);
   for (const n of data.names) wb.definedNames.add(n.ref.replace(/^=/, ""), n.name);

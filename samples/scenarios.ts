@@ -1,0 +1,136 @@
+/**
+ * The sample estimates, described as data: three scenarios of our own invention (invented sites, firms and flow
+ * tests), each filled into the estimate template (src/workbook/template.ts) by `npm run samples`
+ * (samples/build.ts), which computes every value with the preview engine and writes the .xlsx files beside this one.
+ *
+ * The numbers are demo inputs, not check values: they were chosen so that each workbook tells its own story.
+ */
+import type { Scenario } from "../src/workbook/template";
+
+export interface SampleSpec {
+  /** file name in samples/ */
+  file: string;
+  /** the title the preview's sample picker shows */
+  title: string;
+  /** one line for samples/README.md */
+  story: string;
+  scenario: Scenario;
+}
+
+/** A light-hazard office building on a strong street main: the supply suffices with room to spare. */
+const office: Scenario = {
+  units: "US",
+  site: "Quill Street offices, three storeys (sample)",
+  address: "40 Quill Street, Sampleford",
+  preparedBy: "Placeholder Fire Engineering (sample)",
+  flowTest: {
+    when: "2026-04-08 09:15, hydrant H-12 at Quill Street and Fourth Avenue (sample)",
+    static: 82,
+    residual: 71,
+    flow: null,
+    pitot: 18,
+    outletDiameter: 2.5,
+    outletCoefficient: 0.9,
+  },
+  hazard: "LH",
+  designArea: null,
+  sprinkler: { kFactor: 5.6, coverage: 196, spacing: 14, minPressure: 7 },
+  branch: { nominal: "1-1/2", schedule: "40" },
+  crossMain: { nominal: 3, schedule: "40" },
+  material: "steel",
+  system: "wet",
+  run: [
+    { label: "Cross main to the riser, third floor", nominal: 3, schedule: "40", material: "steel", fittings: "2E T", length: 48, rise: 0, fixedLoss: 0 },
+    { label: "Riser down to the ground floor", nominal: 4, schedule: "40", material: "steel", fittings: "E T GV", length: 30, rise: 26, fixedLoss: 0 },
+    { label: "Backflow preventer and alarm valve", nominal: 4, schedule: "40", material: "steel", fittings: "2GV CV", length: 6, rise: 0, fixedLoss: 7 },
+    { label: "Underground to the street main", nominal: 6, schedule: "DR14", material: "plastic", fittings: "E GV", length: 140, rise: 5, fixedLoss: 0 },
+  ],
+  requiredMargin: 10,
+  pump: null,
+};
+
+/** An ordinary hazard group 2 light-manufacturing building at the end of a long, weak main: it needs a pump. */
+const manufacturing: Scenario = {
+  units: "US",
+  site: "Unit 4, Tinker Row light manufacturing (sample)",
+  address: "4 Tinker Row, Exampleton Industrial Estate",
+  preparedBy: "Sample Sprinkler Design Ltd. (sample)",
+  flowTest: {
+    when: "2026-02-19 14:40, hydrant at the end of Tinker Row, dead-end main (sample)",
+    static: 84,
+    residual: 69,
+    flow: 920,
+    pitot: null,
+    outletDiameter: 2.5,
+    outletCoefficient: 0.9,
+  },
+  hazard: "OH2",
+  designArea: null,
+  sprinkler: { kFactor: 5.6, coverage: 130, spacing: 12, minPressure: 7 },
+  branch: { nominal: "1-1/4", schedule: "40" },
+  crossMain: { nominal: "2-1/2", schedule: "40" },
+  material: "steel",
+  system: "wet",
+  run: [
+    { label: "Cross main to the riser", nominal: "2-1/2", schedule: "40", material: "steel", fittings: "2E T", length: 90, rise: 0, fixedLoss: 0 },
+    { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 22, rise: 18, fixedLoss: 0 },
+    { label: "Backflow preventer", nominal: 4, schedule: "40", material: "steel", fittings: "2GV", length: 5, rise: 0, fixedLoss: 8 },
+    { label: "Underground to the street main", nominal: 6, schedule: "DR14", material: "plastic", fittings: "2E GV", length: 260, rise: 3, fixedLoss: 0 },
+  ],
+  requiredMargin: 10,
+  pump: null,
+};
+
+/** A workshop and store worked in SI units (bar, L/min, mm, DN sizes). */
+const workshopSI: Scenario = {
+  units: "SI",
+  site: "Kiln Lane workshop and store (sample)",
+  address: "9 Kiln Lane, Sampleburgh",
+  preparedBy: "Example Fire Consultants (sample)",
+  flowTest: {
+    when: "2026-05-06 11:00, hydrant at the Kiln Lane junction (sample)",
+    static: 6.4,
+    residual: 5.3,
+    flow: null,
+    pitot: 1.1,
+    outletDiameter: 63.5,
+    outletCoefficient: 0.9,
+  },
+  hazard: "OH1",
+  designArea: null,
+  sprinkler: { kFactor: 80, coverage: 12, spacing: 3.5, minPressure: 0.5 },
+  branch: { nominal: 32, schedule: "40" },
+  crossMain: { nominal: 65, schedule: "40" },
+  material: "steel",
+  system: "wet",
+  run: [
+    { label: "Cross main to the riser", nominal: 65, schedule: "40", material: "steel", fittings: "2E T", length: 18, rise: 0, fixedLoss: 0 },
+    { label: "Riser with its valves", nominal: 100, schedule: "40", material: "steel", fittings: "E GV CV", length: 7, rise: 6, fixedLoss: 0 },
+    { label: "Backflow preventer", nominal: 100, schedule: "40", material: "steel", fittings: "2GV", length: 1.5, rise: 0, fixedLoss: 0.5 },
+    { label: "Underground to the street main", nominal: 150, schedule: "DR14", material: "plastic", fittings: "E GV", length: 45, rise: 1, fixedLoss: 0 },
+  ],
+  requiredMargin: 0.7,
+  pump: null,
+};
+
+/** In the order the preview offers them; the first opens by default. */
+export const SAMPLES: SampleSpec[] = [
+  {
+    file: "tinker-row-manufacturing-pump-needed.xlsx",
+    title: "Light manufacturing, ordinary hazard 2: pump needed (US)",
+    story: "An ordinary hazard group 2 light-manufacturing unit at the end of a long dead-end main; the supply falls short and PUMPSIZE gives the pump.",
+    scenario: manufacturing,
+  },
+  {
+    file: "quill-street-office-supply-suffices.xlsx",
+    title: "Office building, light hazard: no pump needed (US)",
+    story: "A light-hazard office building on a strong street main; the supply meets the demand with the required margin to spare.",
+    scenario: office,
+  },
+  {
+    file: "kiln-lane-workshop-si-units.xlsx",
+    title: "Workshop and store, ordinary hazard 1: margin too thin (SI)",
+    story: "An ordinary hazard group 1 workshop worked in SI units (bar, L/min, mm, DN sizes); the supply covers the demand but with less than the required margin, so the verdict asks for a pump.",
+    scenario: workshopSI,
+  },
+];

@@ -1,0 +1,157 @@
+/**
+ * The preview page `npm start` serves: the estimate workbook in a grid, recalculated by HyperFormula running the very
+ * cell functions of the add-in (registered from the functions.json the build generates), and the task pane beside it
+ * through the preview side of the Workbook port. Opens a sample estimate (samples/index.json; `?sample=<file>` picks
+ * one), opens and saves .xlsx files, saves a values-only share copy.
+ */
+import "./installShim";
+import * as functions from "../functions/functions";
+import { mountPane } from "../taskpane/pane";
+import { ROLE_STYLES } from "../workbook/template";
+import { PreviewPort } from "../workbook/preview";
+import { Grid } from "./grid";
+import type { FunctionsMetadata } from "./metadata";
+import type { WorkbookData } from "./model";
+import { registerHeadroomFunctions } from "./plugin";
+import { PreviewWorkbook } from "./workbook";
+
+interface SampleEntry {
+  file: string;
+  title: string;
+}
+
+const $ = <T extends HTMLElement>(role: string): T => {
+  const el = document.querySelector<T>(`[data-role="${role}"]`);
+  if (!el) throw new Error(`the page has no [data-role="${role}"]`);
+  return el;
+};
+
+/** The roles' colours as CSS custom properties: one definition (the template's) for the sheet and the file. */
+function roleColours(): void {
+  const root = document.documentElement.style;
+  for (const [role, look] of Object.entries(ROLE_STYLES)) {
+    if (look.fill) root.setProperty(`--role-${role}-fill`, look.fill);
+    root.setProperty(`--role-${role}-font`, look.font ?? "inherit");
+  }
+}
+
+function status(text: string, error = false): void {
+  const el = $("status");
+  el.textContent = text;
+  el.classList.toggle("is-error", error);
+}
+
+async function fetchOk(url: string): Promise<Response> {
+  const r = await fetch(url, { cache: "no-store" });
+  if (!r.ok) throw new Error(`${url}: ${r.status} ${r.statusText}`);
+  return r;
+}
+
+function download(bytes: Uint8Array, fileName: string): void {
+  const blob = new Blob([bytes as BlobPart], { type: "application/vnd.openxmlformats-officedocument.spreadsheetml.sheet" });
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement("a");
+  a.href = url;
+  a.download = fileName;
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 10_000);
+}
+
+async function main(): Promise<void> {
+  roleColours();
+  const metadata = (await (await fetchOk("../functions.json")).json()) as FunctionsMetadata;
+  const { functions: bound } = registerHeadroomFunctions(metadata, functions as unknown as Record<string, unknown>);
+  const known = bound.map((f) => f.formulaName);
+  const xlsx = () => import(/* webpackChunkName: "xlsx" */ "./xlsx");
+
+  const samples = ((await (await fetchOk("samples/index.json")).json()) as { samples: SampleEntry[] }).samples;
+  const wanted = new URLSearchParams(location.search).get("sample");
+  let current = samples.find((s) => s.file === wanted) ?? samples[0];
+  if (!current) throw new Error("samples/index.json lists no sample");
+
+  const openBytes = async (bytes: ArrayBuffer, name: string): Promise<WorkbookData> => {
+    const { readXlsx } = await xlsx();
+    const { workbook, notes } = await readXlsx(bytes, known);
+    status(notes.length ? `Opened ${name}. ${notes.join("; ")}` : `Opened ${name}.`);
+    return workbook;
+  };
+
+  const first = await openBytes(await (await fetchOk(`samples/${current.file}`)).arrayBuffer(), current.file);
+  const wb = new PreviewWorkbook(first);
+  let fileName = current.file;
+  const showName = () => ($("file-name").textContent = fileName);
+  showName();
+
+  const grid = new Grid(wb, {
+    sheet: $("grid"),
+    tabs: $("sheet-tabs"),
+    nameBox: $("name-box"),
+    formulaBar: $<HTMLInputElement>("formula-bar"),
+    message: $("cell-message"),
+  });
+  const port = new PreviewPort(wb);
+  const pane = mountPane($("pane-host"), port);
+  await pane.ready;
+
+  const picker = $<HTMLSelectElement>("sample-picker");
+  for (const s of samples) picker.append(new Option(s.title, s.file, false, s.file === current.file));
+  picker.addEventListener("change", async () => {
+    const s = samples.find((x) => x.file === picker.value);
+    if (!s) return;
+    try {
+      wb.load(await openBytes(await (await fetchOk(`samples/${s.file}`)).arrayBuffer(), s.file));
+      current = s;
+      fileName = s.file;
+      showName();
+      grid.select("A1");
+    } catch (e) {
+      status(`Could not open ${s.file}: ${(e as Error).message}`, true);
+    }
+  });
+
+  const input = $<HTMLInputElement>("file-input");
+  $("open-file").addEventListener("click", () => input.click());
+  input.addEventListener("change", async () => {
+    const file = input.files?.[0];
+    input.value = "";
+    if (!file) return;
+    try {
+      wb.load(await openBytes(await file.arrayBuffer(), file.name));
+      fileName = file.name;
+      showName();
+      grid.select("A1");
+    } catch (e) {
+      status(`Could not open ${file.name}: ${(e as Error).message}`, true);
+    }
+  });
+
+  $("save-file").addEventListener("click", async () => {
+    const { writeXlsx } = await xlsx();
+    download(await writeXlsx(wb.toData(), known), fileName.endsWith(".xlsx") ? fileName : `${fileName}.xlsx`);
+    status(`Saved ${fileName} with formulas and their values.`);
+  });
+
+  $("save-share-copy").addEventListener("click", async () => {
+    const made = port.shareCopyData();
+    if (!made.ok) {
+      status(made.reason, true);
+      return;
+    }
+    const { writeXlsx } = await xlsx();
+    const name = `${fileName.replace(/\.xlsx$/i, "")} share copy.xlsx`;
+    download(await writeXlsx({ sheets: [made.sheet], names: [], activeSheet: made.sheet.name }, known), name);
+    status(`Saved ${name}: values only, for someone without the Headroom add-in.`);
+  });
+
+  // for the browser tests and for curious developers: the live objects
+  (window as unknown as { headroomPreview: unknown }).headroomPreview = { workbook: wb, grid, port, pane };
+  document.body.dataset.ready = "1";
+}
+
+main().catch((e: unknown) => {
+  console.error(e);
+  status(`The preview could not start: ${(e as Error).message}`, true);
+  document.body.dataset.ready = "error";
+});
