@@ -1,0 +1,119 @@
+/**
+ * The committed sample workbooks (samples/*.xlsx): rebuilt from their description they hold the same formulas and
+ * values; every cached value in them is what the preview engine computes from the file's own formulas; no cell
+ * evaluates to an error; each carries the caution and the named cells, and tells the story its name says.
+ */
+import { readFile } from "node:fs/promises";
+import path from "node:path";
+import { beforeAll, describe, expect, test } from "vitest";
+import { buildSample, registerFunctions } from "../../samples/build";
+import { SAMPLES } from "../../samples/scenarios";
+import type { CachedValue, WorkbookData } from "../../src/preview/model";
+import { PreviewWorkbook } from "../../src/preview/workbook";
+import { readXlsx } from "../../src/preview/xlsx";
+import { REQUIRED_NAMES } from "../../src/workbook/port";
+import { PreviewPort } from "../../src/workbook/preview";
+import { CAUTION } from "../../src/workbook/template";
+
+let known: string[];
+beforeAll(async () => {
+  known = await registerFunctions();
+});
+
+async function committed(file: string): Promise<WorkbookData> {
+  const bytes = await readFile(path.join("samples", file));
+  return (await readXlsx(bytes, known)).workbook;
+}
+
+/** A value as a file keeps it: an error's code without its message, empty text as no value. */
+function asFiled(v: CachedValue | undefined): CachedValue | undefined {
+  if (v !== null && typeof v === "object") return { error: v.error };
+  return v === "" ? null : v;
+}
+
+test("samples/index.json lists every sample in order", async () => {
+  const index = JSON.parse(await readFile("samples/index.json", "utf8"));
+  expect(index.samples).toEqual(SAMPLES.map((s) => ({ file: s.file, title: s.title })));
+});
+
+describe.each(SAMPLES.map((s) => [s.file, s] as const))("%s", (file, spec) => {
+  test("rebuilt from its description, it holds the same formulas, values and names as the committed file", async () => {
+    const fresh = await buildSample(spec, known);
+    const { workbook: rebuilt } = await readXlsx(fresh.bytes, known);
+    const onDisk = await committed(file);
+    expect(onDisk.sheets.map((s) => s.name)).toEqual(rebuilt.sheets.map((s) => s.name));
+    onDisk.sheets.forEach((sheet, i) => {
+      const other = rebuilt.sheets[i].cells;
+      expect(Object.keys(sheet.cells).sort(), sheet.name).toEqual(Object.keys(other).sort());
+      for (const [address, cell] of Object.entries(sheet.cells)) {
+        expect(cell.content, `${sheet.name}!${address}`).toEqual(other[address].content);
+        expect(cell.cached, `${sheet.name}!${address}`).toEqual(other[address].cached);
+      }
+    });
+    expect(onDisk.names).toEqual(rebuilt.names);
+  });
+
+  test("every cached value is what the engine computes from the file's formulas, and no cell is an error", async () => {
+    const data = await committed(file);
+    const engine = new PreviewWorkbook(data);
+    let compared = 0;
+    for (const sheet of data.sheets) {
+      for (const [address, cell] of Object.entries(sheet.cells)) {
+        const value = engine.value(sheet.name, address);
+        expect(value === null || typeof value !== "object", `${sheet.name}!${address} shows ${JSON.stringify(value)}`).toBe(true);
+        if (cell.cached === undefined) continue;
+        expect(cell.cached, `${sheet.name}!${address}`).toEqual(asFiled(value));
+        compared++;
+      }
+    }
+    expect(compared).toBeGreaterThan(80);
+  });
+
+  test("it carries the caution and every named cell the pane reads", async () => {
+    const engine = new PreviewWorkbook(await committed(file));
+    const texts = engine.cells("Estimate").map((c) => c.value);
+    expect(texts).toContain(CAUTION);
+    const readings = await new PreviewPort(engine).readInputs();
+    for (const name of REQUIRED_NAMES) expect(readings[name].kind, name).toBe("number");
+    expect(readings.Units).toMatchObject({ kind: "text", value: spec.scenario.units });
+    expect(readings.Required_Margin).toMatchObject({ kind: "number", value: spec.scenario.requiredMargin });
+  });
+});
+
+describe("each sample tells its story", () => {
+  async function verdictOf(file: string): Promise<{ verdict: string; engine: PreviewWorkbook }> {
+    const engine = new PreviewWorkbook(await committed(file));
+    const cell = engine.cells("Estimate").find((c) => typeof c.content === "string" && c.content.startsWith("=HEADROOM.VERDICT("));
+    expect(cell).toBeDefined();
+    return { verdict: String(cell!.value), engine };
+  }
+
+  test("the light-manufacturing unit needs a pump, and PUMPSIZE rates it", async () => {
+    const { verdict, engine } = await verdictOf(SAMPLES[0].file);
+    expect(verdict).toMatch(/^Pump needed: /);
+    const r = await new PreviewPort(engine).readInputs();
+    expect(r.Pump_RatedFlow.kind).toBe("number");
+    expect(r.Pump_RatedPressure.kind).toBe("number");
+    expect(engine.cells("Estimate").some((c) => typeof c.content === "string" && c.content.includes("HEADROOM.PUMPSIZE("))).toBe(true);
+  });
+
+  test("in the light-manufacturing unit a 4 in cross main to the riser removes the need for a pump", async () => {
+    const { engine } = await verdictOf(SAMPLES[0].file);
+    const seg = engine.cells("Estimate").find((c) => c.value === "Cross main to the riser");
+    expect(seg).toBeDefined();
+    const row = seg!.address.slice(1);
+    const verdictCell = engine.cells("Estimate").find((c) => typeof c.content === "string" && c.content.startsWith("=HEADROOM.VERDICT("))!;
+    engine.setTyped("Estimate", `B${row}`, "4");
+    expect(String(engine.value("Estimate", verdictCell.address))).toMatch(/^No pump needed: /);
+  });
+
+  test("the office building needs no pump", async () => {
+    expect((await verdictOf(SAMPLES[1].file)).verdict).toMatch(/^No pump needed: /);
+  });
+
+  test("the SI workshop speaks bar and L/min", async () => {
+    const { verdict } = await verdictOf(SAMPLES[2].file);
+    expect(verdict).toMatch(/bar/);
+    expect(verdict).toMatch(/L\/min/);
+  });
+});
