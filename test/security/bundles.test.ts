@@ -1,0 +1,86 @@
+/**
+ * The production add-in bundles reach no remote origin but Office.js's own: the test builds them (webpack, production,
+ * into a temporary folder) and reads every URL in the emitted scripts and pages. XML namespace names (the SVG
+ * namespace the plot is drawn in) are identifiers, not addresses anything loads, and are allowed by name.
+ * It also checks that HyperFormula (GPL-3.0, preview only) and mathjs's expression parser stay out of the bundle.
+ */
+import { mkdtempSync, readFileSync, readdirSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import webpack from "webpack";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+// @ts-expect-error: the webpack configuration is plain JavaScript
+import { addinConfig } from "../../webpack.config.js";
+
+const OFFICE_JS = "https://appsforoffice.microsoft.com/lib/1/hosted/office.js";
+const NAMESPACES = new Set(["http://www.w3.org/2000/svg", "http://www.w3.org/1999/xhtml", "http://www.w3.org/1999/xlink"]);
+const URL_PATTERN = /\b(?:https?:)?\/\/[a-z0-9.-]+\.[a-z]{2,}[^\s"'`)<>\\]*/gi;
+
+let out = "";
+const files: Record<string, string> = {};
+
+beforeAll(async () => {
+  out = mkdtempSync(path.join(tmpdir(), "headroom-bundle-"));
+  const config = addinConfig("production");
+  config.output = { ...config.output, path: out, clean: true };
+  config.devtool = false;
+  const stats = await new Promise<webpack.Stats>((resolve, reject) =>
+    webpack(config, (err, s) => (err ? reject(err) : s ? resolve(s) : reject(new Error("no stats")))),
+  );
+  if (stats.hasErrors()) throw new Error(stats.toString({ all: false, errors: true }));
+  for (const name of readdirSync(out)) {
+    if (/\.(js|html)$/.test(name)) files[name] = readFileSync(path.join(out, name), "utf8");
+  }
+}, 240_000);
+
+afterAll(() => {
+  if (out) rmSync(out, { recursive: true, force: true });
+});
+
+describe("production add-in bundles", () => {
+  it("emit the functions bundle, the pane bundle and the shared-runtime page", () => {
+    expect(Object.keys(files).sort()).toEqual(expect.arrayContaining(["functions.js", "taskpane.html", "taskpane.js"]));
+  });
+
+  it("name no remote URL but Office.js (XML namespace names aside)", () => {
+    const found = Object.entries(files).flatMap(([name, text]) => [...text.matchAll(URL_PATTERN)].map((m) => `${name}: ${m[0]}`));
+    const remote = found.filter((f) => {
+      const url = f.slice(f.indexOf(": ") + 2);
+      return url !== OFFICE_JS && !NAMESPACES.has(url.replace(/^\/\//, "http://"));
+    });
+    expect(remote).toEqual([]);
+    expect(files["taskpane.html"]).toContain(OFFICE_JS);
+  });
+
+  it("carry neither HyperFormula nor mathjs's expression parser", () => {
+    const js = files["functions.js"] + files["taskpane.js"];
+    // (booleans, not the bundle text, so that a failure does not print the whole bundle)
+    expect(/HyperFormula|handsontable/.test(js), "HyperFormula in the add-in bundle").toBe(false);
+    // messages only mathjs's expression parser (expression/parse.js) carries; the unit-only build has none
+    expect(/Unexpected end of expression|False part of conditional expression expected/.test(js), "mathjs parser in the bundle").toBe(false);
+    // and the bundle does hold mathjs's unit code, which UNIT uses
+    expect(js.includes("gallon")).toBe(true);
+  });
+});
+
+describe("no evaluation of user text", () => {
+  it("no source file of the project calls eval or new Function", () => {
+    const offenders: string[] = [];
+    const walk = (dir: string) => {
+      for (const entry of readdirSync(dir, { withFileTypes: true })) {
+        const p = path.join(dir, entry.name);
+        if (entry.isDirectory()) walk(p);
+        else if (/\.(ts|js|mjs)$/.test(entry.name) && /\beval\s*\(|new\s+Function\s*\(/.test(readFileSync(p, "utf8"))) offenders.push(p);
+      }
+    };
+    walk("src");
+    expect(offenders).toEqual([]);
+  });
+
+  it("UNIT looks unit names up in its own list and never hands text to mathjs's parser", async () => {
+    const { convertUnit } = await import("../../src/functions/unit");
+    // an expression mathjs's parser would evaluate is just an unknown unit here
+    expect(() => convertUnit(1, "2+2", "m")).toThrow(/from: got "2\+2"; must be one of/);
+    expect(() => convertUnit(1, "ft", "import('x')")).toThrow(/to: got/);
+  });
+});
