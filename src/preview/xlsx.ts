@@ -110,6 +110,12 @@ export async function readXlsx(data: ArrayBuffer | Uint8Array, known: readonly s
 function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
   const cells: Record<string, CellData> = {};
   const covered = new Set<string>(); // cells of a spilled block other than its anchor
+  const merged = new Set<string>(); // cells of a merged range other than its first: ExcelJS repeats its value there
+  for (const m of (ws.model as { merges?: string[] }).merges ?? []) {
+    const r = parseRange(m);
+    for (let i = 0; i < r.rows; i++)
+      for (let k = 0; k < r.cols; k++) if (i || k) merged.add(addressOf(r.start.row + i, r.start.col + k));
+  }
   ws.eachRow({ includeEmpty: false }, (row) =>
     row.eachCell({ includeEmpty: false }, (cell) => {
       const v = cell.value as { shareType?: string; ref?: string } | null;
@@ -122,8 +128,9 @@ function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
   );
   ws.eachRow({ includeEmpty: true }, (row) =>
     row.eachCell({ includeEmpty: true }, (cell) => {
-      const style = styleOf(cell);
       const address = cell.address;
+      if (merged.has(address)) return;
+      const style = styleOf(cell);
       const formula = cell.formula as string | undefined;
       let data: CellData | undefined;
       if (formula) {
