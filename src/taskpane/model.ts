@@ -242,7 +242,8 @@ function trim(x: number): string {
 /**
  * PUMPSIZE's rating for a demand flow and a boost, US units in and out: the smallest standard rated capacity not
  * below the demand flow, and the boost rounded up to the next 5 psi (0.5 bar in SI work, rounded in bar).
- * Source: [NFPA 20] standard rated capacities (from memory), via the engine (src/engine/pump.ts).
+ * Source: [NFPA 20] standard rated capacities (from memory), via the engine (src/engine/pump.ts). The same steps as
+ * PUMPSIZE (src/functions/solvers.ts); test/taskpane/model.test.ts holds the two together.
  */
 export function pumpSizeFor(demandFlowGpm: number, boostPsi: number, units: UnitSystem): PumpRating {
   const ratedFlow = ratedCapacity(demandFlowGpm);

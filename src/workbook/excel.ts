@@ -209,7 +209,10 @@ function writeCells(sheet: Excel.Worksheet, t: SheetTemplate): void {
     const r = sheet.getRange(c.address);
     if (c.formula !== undefined) r.formulas = [[c.formula]];
     else if (c.value !== undefined && c.value !== "") r.values = [[cellConstant(c.value)]];
-    if (c.format) r.numberFormat = [[c.format]];
+    if (c.spill?.formats) {
+      const block = sheet.getRange(c.address).getResizedRange(c.spill.rows - 1, c.spill.cols - 1);
+      block.numberFormat = Array.from({ length: c.spill.rows }, () => c.spill!.formats!.slice(0, c.spill!.cols));
+    } else if (c.format) r.numberFormat = [[c.format]];
     const style = ROLE_STYLES[c.role];
     if (style.fill) r.format.fill.color = style.fill;
     if (style.font) r.format.font.color = style.font;

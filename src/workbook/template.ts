@@ -31,8 +31,11 @@ export interface TemplateCell {
   formula?: string;
   /** Excel number format, e.g. "0.0" */
   format?: string;
-  /** for a formula whose result spills: the size of the spilled block, anchor included */
-  spill?: { rows: number; cols: number };
+  /**
+   * for a formula whose result spills: the size of the spilled block, anchor included, and the number format of each
+   * of its columns (hosts format the block; they write nothing into it)
+   */
+  spill?: { rows: number; cols: number; formats?: string[] };
 }
 
 export interface TemplateName {
@@ -301,7 +304,7 @@ class Sheet {
   row = 1;
 
   /** Put a cell in the current row; returns its address. */
-  put(col: string, role: CellRole, content: string | number | null, extra: { format?: string; spill?: { rows: number; cols: number } } = {}): string {
+  put(col: string, role: CellRole, content: string | number | null, extra: { format?: string; spill?: TemplateCell["spill"] } = {}): string {
     const address = `${col}${this.row}`;
     if (content === null) {
       // an input left blank on purpose: still a shaded input cell
@@ -429,7 +432,7 @@ export function estimateTemplate(s: Scenario): SheetTemplate {
   sh.put("A", "label", "AREADEMAND");
   const areaDemand = sh.put("B", "computed", `=${hr("AREADEMAND", density, area, coverage, k, spacing, branchId, mainId, cAddr, minP, U)}`, {
     format: f.flow,
-    spill: { rows: 1, cols: 5 },
+    spill: { rows: 1, cols: 5, formats: [f.flow, f.pressure, "0", "0", f.pressure] },
   });
   sh.row++;
   const areaRow = parseCell(areaDemand).row + 1;
@@ -480,7 +483,7 @@ export function estimateTemplate(s: Scenario): SheetTemplate {
     sh.put("K", "input", seg.rise, { format: s.units === "SI" ? "0.0" : "0" });
     sh.put("L", "input", seg.fixedLoss, { format: f.pressure });
     if (i === 0) {
-      sh.put("M", "computed", `=${hr("RUN", `F${r}:L${r + n - 1}`, areaPressure, U)}`, { format: f.pressure, spill: { rows: n, cols: 4 } });
+      sh.put("M", "computed", `=${hr("RUN", `F${r}:L${r + n - 1}`, areaPressure, U)}`, { format: f.pressure, spill: { rows: n, cols: 4, formats: [f.pressure, f.pressure, f.pressure, f.pressure] } });
     }
     sh.row++;
   });
@@ -519,7 +522,7 @@ export function estimateTemplate(s: Scenario): SheetTemplate {
   sh.put("C", "header", `Rated pressure (${u.pressure})`);
   sh.row++;
   sh.put("A", "label", "Pump size, smallest standard rating");
-  const size = sh.put("B", "computed", `=IF(${boost}>0,${hr("PUMPSIZE", demandFlow, boost, U)},"none needed")`, { format: f.flow, spill: { rows: 1, cols: 2 } });
+  const size = sh.put("B", "computed", `=IF(${boost}>0,${hr("PUMPSIZE", demandFlow, boost, U)},"none needed")`, { format: f.flow, spill: { rows: 1, cols: 2, formats: [f.flow, f.pressure] } });
   sh.put("D", "note", "PUMPSIZE");
   sh.row++;
   const sizeRow = parseCell(size).row + 1;
@@ -552,7 +555,7 @@ export function estimateTemplate(s: Scenario): SheetTemplate {
   sh.put("A", "label", "SUPPLYCURVE");
   const curve = sh.put("B", "computed", `=${hr("SUPPLYCURVE", stat, resid, testFlow, chartMax, String(CHART_POINTS), U)}`, {
     format: f.flow,
-    spill: { rows: CHART_POINTS, cols: 2 },
+    spill: { rows: CHART_POINTS, cols: 2, formats: [f.flow, f.pressure] },
   });
   const c0 = parseCell(curve).row + 1;
   const c1 = c0 + CHART_POINTS - 1;

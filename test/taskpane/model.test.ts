@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { margin as marginCell, verdict as verdictCell } from "../../src/functions/functions";
+import { margin as marginCell, pumpboost as pumpBoostCell, pumpsize as pumpSizeCell, verdict as verdictCell } from "../../src/functions/functions";
 import { type PaneModel, buildModel, plotData, pumpSizeFor } from "../../src/taskpane/model";
 import { BASE, FakePort, type Values } from "./fakePort";
 
@@ -57,6 +57,24 @@ describe("pane model: the verdict is VERDICT's, the margin MARGIN's", () => {
     expect(e.boost).toBeCloseTo(20.042, 2);
     expect(e.pumpSize).toEqual({ ratedFlow: 750, ratedPressure: 25 });
     expect(ready(BASE).pumpSize).toBeNull();
+  });
+
+  it("gives the rating PUMPSIZE gives for PUMPBOOST's boost, in US and SI", () => {
+    const cases: Values[] = [
+      { ...BASE, Demand_Pressure: 78, Required_Margin: 10 },
+      // supply at 1300 gpm [NFPA 291]: 72 − 14 × (1300/1100)^1.85 = 72 − 14 × 1.3619 = 52.9 psi, short of 60
+      { ...BASE, Demand_Flow: 1300, Demand_Pressure: 60 },
+      { Units: "SI", Supply_Static: 4.96, Supply_Residual: 4.0, Supply_TestFlow: 4164, Demand_Flow: 2127, Demand_Pressure: 4.9, Required_Margin: 0.7 },
+    ];
+    for (const v of cases) {
+      const e = ready(v);
+      const args = [v.Demand_Flow, v.Demand_Pressure, v.Supply_Static, v.Supply_Residual, v.Supply_TestFlow, v.Required_Margin ?? null, v.Units] as const;
+      const boost = pumpBoostCell(...args) as number;
+      const [[flow, pressure]] = pumpSizeCell(v.Demand_Flow, boost, v.Units) as number[][];
+      const si = v.Units === "SI";
+      expect(e.pumpSize!.ratedFlow * (si ? 3.785411784 : 1)).toBeCloseTo(flow, 6);
+      expect(e.pumpSize!.ratedPressure * (si ? 0.06894757293168361 : 1)).toBeCloseTo(pressure, 9);
+    }
   });
 
   it("rounds an SI pump pressure in bar", () => {

@@ -133,8 +133,11 @@ describe("Excel port: the estimate sheet", () => {
     }
     expect(formulas).toBeGreaterThan(30);
     expect(sheet.cells.get("A2")?.value).toBe(CAUTION);
-    // spilled blocks are left free for their formulas
+    // spilled blocks are left free for their formulas, formatted column by column
     for (const a of spillCells(t)) expect(sheet.cells.get(a)?.value ?? "", a).toBe("");
+    const curve = t.cells.find((c) => c.formula?.startsWith("=HEADROOM.SUPPLYCURVE("))!;
+    const last = parseCell(curve.address);
+    expect(sheet.cells.get(cellAddress({ row: last.row + 15, col: last.col + 1 }))?.numberFormat).toBe("0.0");
     expect(sheet.columnWidths.get("A")).toBe(t.columnWidths.A);
     expect(fake.sheetById(fake.activeId).name).toBe(sheetName);
   });

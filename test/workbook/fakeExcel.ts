@@ -349,6 +349,11 @@ class Session {
             else sheet.cells.set(to, { ...structuredClone(c), formula: undefined });
           }
       },
+      getResizedRange: (rows: number, cols: number) => {
+        if (!range) throw new Error("the fake resizes blocks only");
+        const end = cellAddress({ row: range.start.row + range.rows - 1 + rows, col: range.start.col + range.cols - 1 + cols });
+        return this.rangeProxy(sheet, `${cellAddress(range.start)}:${end}`);
+      },
       insert: (shift: string) => {
         const m = /^(\d+):(\d+)$/.exec(address);
         if (!m || shift !== "Down") throw new Error("the fake inserts whole rows only");

@@ -1,0 +1,180 @@
+/**
+ * The estimate sheet template: its shape (names, roles, spills, chart), its formulas against the vocabulary, and its
+ * results when the preview's formula engine calculates it with the real cell functions: no cell in error, and the
+ * task pane, reading the named cells, says what the sheet's own VERDICT and PUMPSIZE cells say.
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import * as functions from "../../src/functions/functions";
+import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
+import { registerHeadroomFunctions } from "../../src/preview/plugin";
+import { PreviewWorkbook } from "../../src/preview/workbook";
+import { buildModel } from "../../src/taskpane/model";
+import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
+import { INPUT_NAMES } from "../../src/workbook/port";
+import { PreviewPort } from "../../src/workbook/preview";
+import { CAUTION, type Scenario, type SheetTemplate, demoScenario, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { generatedMetadata } from "../preview/metadataFixture";
+
+beforeAll(async () => {
+  registerHeadroomFunctions(await generatedMetadata(), functions);
+});
+
+function cellAt(t: SheetTemplate, address: string) {
+  return t.cells.find((c) => c.address === address);
+}
+
+function calculated(s: Scenario) {
+  const t = estimateTemplate(s);
+  const wb = new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
+  return { t, wb, port: new PreviewPort(wb) };
+}
+
+/** Split the arguments of the first call to `fn` in a formula at its top-level commas. */
+function callArgs(formula: string, fn: string): string[] {
+  const start = formula.indexOf(`HEADROOM.${fn}(`) + `HEADROOM.${fn}(`.length;
+  const args: string[] = [];
+  let depth = 0;
+  let quoted = false;
+  let cur = "";
+  for (const ch of formula.slice(start)) {
+    if (ch === '"') quoted = !quoted;
+    if (!quoted && ch === "(") depth++;
+    if (!quoted && ch === ")") {
+      if (depth === 0) break;
+      depth--;
+    }
+    if (!quoted && depth === 0 && ch === ",") {
+      args.push(cur);
+      cur = "";
+    } else cur += ch;
+  }
+  args.push(cur);
+  return args;
+}
+
+describe.each(["US", "SI"] as const)("estimate template, %s", (units) => {
+  const s = demoScenario(units);
+  const t = estimateTemplate(s);
+
+  it("puts the caution at the top", () => {
+    expect(t.cells[0]).toMatchObject({ address: "A1", role: "title" });
+    expect(cellAt(t, "A2")).toMatchObject({ role: "caution", value: CAUTION });
+  });
+
+  it("defines every name the pane reads, once, on a cell of the right role", () => {
+    expect(t.names.map((n) => n.name).sort()).toEqual([...INPUT_NAMES].sort());
+    const inputs = { Units: s.units, Supply_Static: s.flowTest.static, Supply_Residual: s.flowTest.residual, Required_Margin: s.requiredMargin };
+    for (const n of t.names) {
+      const c = cellAt(t, n.address);
+      expect(c, n.name).toBeDefined();
+      if (n.name in inputs) expect(c).toMatchObject({ role: "input", value: inputs[n.name as keyof typeof inputs] });
+      else expect(c!.role, n.name).toBe("computed");
+    }
+  });
+
+  it("has one cell an address, and none inside a spilled block or under the chart", () => {
+    const addresses = t.cells.map((c) => c.address);
+    expect(new Set(addresses).size).toBe(addresses.length);
+    const spilled = new Set(spillCells(t));
+    for (const a of addresses) expect(spilled.has(a), a).toBe(false);
+    const from = parseCell(t.chart.from);
+    const to = parseCell(t.chart.to);
+    for (const c of t.cells) {
+      const p = parseCell(c.address);
+      const under = p.row >= from.row && p.row <= to.row && p.col >= from.col && p.col <= to.col;
+      expect(under, c.address).toBe(false);
+    }
+  });
+
+  it("calls only functions of the vocabulary, with no more arguments than they take", () => {
+    const known = functions as unknown as Record<string, (...a: unknown[]) => unknown>;
+    const used = new Set<string>();
+    for (const c of t.cells) {
+      for (const m of (c.formula ?? "").matchAll(/HEADROOM\.([A-Z]+)\(/g)) {
+        const fn = known[m[1].toLowerCase()];
+        expect(fn, m[1]).toBeTypeOf("function");
+        expect(callArgs(c.formula!, m[1]).length, `${c.address} ${m[1]}`).toBeLessThanOrEqual(fn.length);
+        used.add(m[1]);
+      }
+    }
+    // the functions the estimate is built from
+    for (const f of ["PITOTFLOW", "DESIGNAREA", "DESIGNDENSITY", "HOSEALLOWANCE", "HEADFLOW", "AREADEMAND", "PIPEID", "CFACTOR", "FITTINGS", "RUN", "SUPPLYAT", "MARGIN", "VERDICT", "PUMPBOOST", "PUMPSIZE", "SUPPLYCURVE"]) {
+      expect(used.has(f), f).toBe(true);
+    }
+  });
+
+  it("charts the SUPPLYCURVE spill and the demand cells", () => {
+    const curve = t.cells.find((c) => c.formula?.startsWith("=HEADROOM.SUPPLYCURVE("))!;
+    const a = parseCell(curve.address);
+    const [supply, sprinklers, total] = t.chart.series;
+    expect(parseRange(supply.x)).toEqual({ start: a, rows: curve.spill!.rows, cols: 1 });
+    expect(parseRange(supply.y)).toEqual({ start: { row: a.row, col: a.col + 1 }, rows: curve.spill!.rows, cols: 1 });
+    const name = (n: string) => t.names.find((x) => x.name === n)!.address;
+    expect(total).toMatchObject({ x: name("Demand_Flow"), y: name("Demand_Pressure"), style: "marker" });
+    expect(sprinklers.y).toBe(name("Demand_Pressure"));
+    expect(t.chart.xTitle).toBe(units === "US" ? "Flow (gpm)" : "Flow (L/min)");
+  });
+
+  it("calculates without a single error cell", () => {
+    const { wb } = calculated(s);
+    const errors = wb.cells("Estimate").filter((c) => c.value !== null && typeof c.value === "object");
+    expect(errors.map((c) => `${c.address} ${c.content}`)).toEqual([]);
+  });
+
+  it("gives the pane the verdict, margin and pump size the sheet shows", async () => {
+    const { t, wb, port } = calculated(s);
+    const m = buildModel(await port.readInputs());
+    expect(m.kind).toBe("ready");
+    if (m.kind !== "ready") return;
+    const at = (prefix: string) => t.cells.find((c) => c.formula?.startsWith(prefix))!.address;
+    expect(m.estimate.verdict).toBe(wb.value("Estimate", at("=HEADROOM.VERDICT(")));
+    const margin = wb.value("Estimate", at("=HEADROOM.MARGIN(")) as number;
+    const toSheet = units === "SI" ? 0.06894757293168361 : 1;
+    expect(m.estimate.assessment.margin! * toSheet).toBeCloseTo(margin, 9);
+    const size = parseCell(t.cells.find((c) => c.formula?.includes("HEADROOM.PUMPSIZE("))!.address);
+    if (m.estimate.pumpSize) {
+      const flowToSheet = units === "SI" ? 3.785411784 : 1;
+      expect(m.estimate.pumpSize.ratedFlow * flowToSheet).toBeCloseTo(wb.value("Estimate", cellAddress(size)) as number, 6);
+      expect(m.estimate.pumpSize.ratedPressure * toSheet).toBeCloseTo(wb.value("Estimate", cellAddress({ ...size, col: size.col + 1 })) as number, 9);
+    } else {
+      expect(wb.value("Estimate", cellAddress(size))).toBe("none needed");
+    }
+  });
+});
+
+describe("estimate template, the US demo worked through", () => {
+  it("converts the pitot reading with PITOTFLOW and uses it as the test flow [NFPA 291]", async () => {
+    const { port } = calculated(demoScenario("US"));
+    const r = await port.readInputs();
+    // 29.83 × 0.90 × 2.5² × √14 = 29.83 × 0.90 × 6.25 × 3.74166 = 627.8 gpm
+    expect(r.Supply_TestFlow).toMatchObject({ kind: "number" });
+    if (r.Supply_TestFlow.kind === "number") expect(r.Supply_TestFlow.value).toBeCloseTo(29.83 * 0.9 * 6.25 * Math.sqrt(14), 6);
+  });
+
+  it("adds the hose allowance to the sprinkler flow, and takes the pressure after the last segment", async () => {
+    const { t, wb, port } = calculated(demoScenario("US"));
+    const r = await port.readInputs();
+    const area = t.cells.find((c) => c.formula?.includes("HEADROOM.AREADEMAND("))!;
+    const sprinklers = wb.value("Estimate", area.address) as number;
+    // OH2 hose stream allowance, inside + outside: 250 gpm [NFPA 13] (from memory)
+    expect(r.Demand_HoseFlow).toMatchObject({ kind: "number", value: 250 });
+    if (r.Demand_Flow.kind === "number") expect(r.Demand_Flow.value).toBeCloseTo(sprinklers + 250, 9);
+    // density × area: 0.20 gpm/ft² × 1500 ft² = 300 gpm, the least the sprinklers may flow [NFPA 13] (from memory)
+    expect(sprinklers).toBeGreaterThanOrEqual(300);
+    const run = t.cells.find((c) => c.formula?.includes("HEADROOM.RUN("))!;
+    const a = parseCell(run.address);
+    const last = wb.value("Estimate", cellAddress({ row: a.row + run.spill!.rows - 1, col: a.col + 3 }));
+    expect(r.Demand_Pressure).toMatchObject({ kind: "number", value: last });
+  });
+
+  it("plots the pump the user chooses instead of the PUMPSIZE rating", async () => {
+    const { t, wb, port } = calculated(demoScenario("US"));
+    const pumpFlow = t.names.find((n) => n.name === "Pump_RatedFlow")!.address;
+    const chosen = parseCell(pumpFlow);
+    wb.setContent("Estimate", cellAddress({ row: chosen.row - 1, col: chosen.col }), 1000);
+    wb.setContent("Estimate", cellAddress({ row: chosen.row - 1, col: chosen.col + 1 }), 20);
+    const r = await port.readInputs();
+    expect(r.Pump_RatedFlow).toMatchObject({ kind: "number", value: 1000 });
+    expect(r.Pump_RatedPressure).toMatchObject({ kind: "number", value: 20 });
+  });
+});
