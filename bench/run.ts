@@ -1,0 +1,109 @@
+/**
+ * `npm run bench`: Headroom's speed and size figures, printed as a table and written to bench/results.json.
+ * A benchmark, not a test: it prints ratios against goals; only the bundle budgets make it exit non-zero, so CI can
+ * run it as a size check. Timings are medians of several rounds on this machine; compare ratios, not seconds.
+ *
+ *   per call (Node)      FRICTION, SUPPLYAT, AREADEMAND through the cell-function layer vs the same math inline
+ *   sheet (preview)      10,000-row sheet in HyperFormula: HEADROOM functions vs native formulas, one edit
+ *   solve                AREADEMAND for a 4,000 ft² extra-hazard area
+ *   bundles              gzipped production bundles against their budgets (needs `npm run build` first)
+ */
+import { existsSync, readFileSync, writeFileSync } from "node:fs";
+import { gzipSync } from "node:zlib";
+import { installCustomFunctionsShim } from "../src/preview/customFunctionsShim";
+
+installCustomFunctionsShim();
+const f = await import("../src/functions/functions");
+const { solveAreaDemand } = await import("../src/engine/tree");
+const { frictionRate } = await import("../src/engine/friction");
+const { sheetBench } = await import("./sheet");
+
+interface Figure { name: string; value: number; unit: string; goal?: string; ok?: boolean }
+const figures: Figure[] = [];
+const record = (fig: Figure) => figures.push(fig);
+
+/** Median nanoseconds per call of `fn` over `rounds` rounds of `n` calls. */
+function nsPerCall(fn: (i: number) => unknown, n = 200_000, rounds = 7): number {
+  let sink = 0;
+  const times: number[] = [];
+  for (let r = 0; r < rounds + 1; r++) {
+    const t = process.hrtime.bigint();
+    for (let i = 0; i < n; i++) sink += fn(i) as number;
+    const ns = Number(process.hrtime.bigint() - t) / n;
+    if (r > 0) times.push(ns); // the first round warms up
+  }
+  if (sink === -1) console.log(sink);
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)];
+}
+
+// Inputs vary per call, every one of them, so that neither side gets constants folded or hoisted out of the loop.
+const flows = Float64Array.from({ length: 1024 }, (_, i) => 50 + (i % 400));
+const diameters = Float64Array.from({ length: 1024 }, (_, i) => 1.049 + (i % 7) * 0.5);
+const cs = Float64Array.from({ length: 1024 }, (_, i) => 100 + (i % 6) * 10);
+const statics = Float64Array.from({ length: 1024 }, (_, i) => 60 + (i % 20));
+
+// ── per call ─────────────────────────────────────────────────────────────────────────────────────────────────────
+{
+  const cell = nsPerCall((i) => f.friction(flows[i & 1023], diameters[i & 1023], cs[i & 1023], 100));
+  const inline = nsPerCall((i) => {
+    const k = i & 1023;
+    return ((4.52 * Math.pow(flows[k], 1.85)) / (Math.pow(cs[k], 1.85) * Math.pow(diameters[k], 4.87))) * 100;
+  });
+  record({ name: "FRICTION ns/call (cell layer)", value: cell, unit: "ns" });
+  record({ name: "FRICTION ns/call (inline math)", value: inline, unit: "ns" });
+  record({ name: "FRICTION ratio cell/inline", value: cell / inline, unit: "×", goal: "≤ 1.5", ok: cell / inline <= 1.5 });
+}
+{
+  const cell = nsPerCall((i) => f.supplyat(flows[i & 1023], statics[i & 1023], 50, 1100));
+  const inline = nsPerCall((i) => statics[i & 1023] - (statics[i & 1023] - 50) * Math.pow(flows[i & 1023] / 1100, 1.85));
+  record({ name: "SUPPLYAT ns/call (cell layer)", value: cell, unit: "ns" });
+  record({ name: "SUPPLYAT ns/call (inline math)", value: inline, unit: "ns" });
+  record({ name: "SUPPLYAT ratio cell/inline", value: cell / inline, unit: "×", goal: "≤ 1.5", ok: cell / inline <= 1.5 });
+}
+{
+  const input = { density: 0.15, area: 1500, coverage: 130, kFactor: 5.6, headSpacing: 13, branchDiameter: 1.38, mainDiameter: 2.469, cFactor: 120, minPressure: 7 };
+  const cell = nsPerCall((i) => f.areademand(0.15, 1500 + (i & 7), 130, 5.6, 13, 1.38, 2.469)[0][0], 20_000);
+  const engine = nsPerCall((i) => solveAreaDemand({ ...input, area: 1500 + (i & 7) }, frictionRate).flow, 20_000);
+  record({ name: "AREADEMAND µs/call (cell layer)", value: cell / 1000, unit: "µs" });
+  record({ name: "AREADEMAND µs/call (engine)", value: engine / 1000, unit: "µs" });
+  record({ name: "AREADEMAND ratio cell/engine", value: cell / engine, unit: "×" });
+}
+
+// ── one large solve ──────────────────────────────────────────────────────────────────────────────────────────────
+{
+  // EH2 0.40 gpm/ft² over 4,000 ft², 100 ft² per sprinkler, K 11.2, 10 ft spacing, 1¼ in lines, 4 in main
+  const ns = nsPerCall((i) => f.areademand(0.4, 4000 + (i & 3), 100, 11.2, 10, 1.38, 4.026)[0][0], 5_000);
+  record({ name: "AREADEMAND 4,000 ft² extra hazard, ms/solve", value: ns / 1e6, unit: "ms", goal: "< 1", ok: ns / 1e6 < 1 });
+}
+
+// ── the preview engine: a 10,000-row sheet ───────────────────────────────────────────────────────────────────────
+for (const fig of await sheetBench(10_000)) record(fig);
+
+// ── bundle sizes ─────────────────────────────────────────────────────────────────────────────────────────────────
+let budgetExceeded = false;
+for (const [file, budgetKB] of [["dist/functions.js", 120], ["dist/taskpane.js", 200]] as const) {
+  if (!existsSync(file)) {
+    console.error(`${file} is missing: run \`npm run build\` first`);
+    budgetExceeded = true;
+    continue;
+  }
+  const kb = gzipSync(readFileSync(file), { level: 9 }).length / 1024;
+  const ok = kb <= budgetKB;
+  if (!ok) budgetExceeded = true;
+  record({ name: `${file} gzipped`, value: kb, unit: "KB", goal: `≤ ${budgetKB}`, ok });
+}
+
+// ── report ───────────────────────────────────────────────────────────────────────────────────────────────────────
+const rows = figures.map((x) => [x.name, x.value < 10 ? x.value.toFixed(3) : x.value.toFixed(1), x.unit, x.goal ?? "", x.ok === undefined ? "" : x.ok ? "met" : "MISSED"]);
+const widths = [0, 1, 2, 3, 4].map((c) => Math.max(...rows.map((r) => r[c].length), ["figure", "value", "unit", "goal", ""][c].length));
+const line = (r: string[]) => r.map((x, c) => (c === 1 ? x.padStart(widths[c]) : x.padEnd(widths[c]))).join("  ");
+console.log(line(["figure", "value", "unit", "goal", ""]));
+console.log(widths.map((w) => "─".repeat(w)).join("  "));
+for (const r of rows) console.log(line(r));
+writeFileSync("bench/results.json", JSON.stringify({ date: new Date().toISOString(), node: process.version, figures }, null, 2) + "\n");
+console.log("\nwritten: bench/results.json");
+if (budgetExceeded) {
+  console.error("a bundle budget is exceeded (or the build is missing)");
+  process.exit(1);
+}

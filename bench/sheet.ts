@@ -1,0 +1,57 @@
+/**
+ * The preview engine's share of the benchmark: a sheet of N friction rows recalculated in HyperFormula, once with
+ * HEADROOM.FRICTION and once with the same Hazen-Williams written as a native formula.
+ */
+import { HyperFormula } from "hyperformula";
+import { generateCustomFunctionsMetadata } from "custom-functions-metadata";
+import * as functions from "../src/functions/functions";
+import { registerHeadroomFunctions } from "../src/preview/plugin";
+import type { FunctionsMetadata } from "../src/preview/metadata";
+import { ENGINE_CONFIG } from "../src/preview/workbook";
+
+const ms = (f: () => void) => {
+  const t = performance.now();
+  f();
+  return performance.now() - t;
+};
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
+
+function rows(n: number, formula: (r: number) => string): unknown[][] {
+  // A flow, C, internal diameter, the formula, and in F1 the length every row uses
+  return Array.from({ length: n }, (_, i) => [50 + (i % 400), 120, 1.049 + (i % 7) * 0.5, formula(i + 1), null, i === 0 ? 100 : null]);
+}
+
+export async function sheetBench(n: number) {
+  const generated = await generateCustomFunctionsMetadata("src/functions/functions.ts");
+  registerHeadroomFunctions(JSON.parse(generated.metadataJson) as FunctionsMetadata, functions);
+  const variants = {
+    headroom: (r: number) => `=HEADROOM.FRICTION(A${r},C${r},B${r},$F$1)`,
+    native: (r: number) => `=4.52*A${r}^1.85/(B${r}^1.85*C${r}^4.87)*$F$1`,
+  };
+  const out: Record<string, { build: number; full: number; edit: number; check: number }> = {};
+  for (const [name, formula] of Object.entries(variants)) {
+    const build: number[] = [], full: number[] = [], edit: number[] = [];
+    let check = 0;
+    for (let round = 0; round < 5; round++) {
+      let hf!: HyperFormula;
+      build.push(ms(() => (hf = HyperFormula.buildFromArray(rows(n, formula) as never, ENGINE_CONFIG))));
+      for (let k = 0; k < 3; k++) full.push(ms(() => hf.setCellContents({ sheet: 0, row: 0, col: 5 }, 100 + round + k)));
+      for (let k = 0; k < 3; k++) edit.push(ms(() => hf.setCellContents({ sheet: 0, row: 10, col: 0 }, 200 + k)));
+      check = hf.getCellValue({ sheet: 0, row: n - 1, col: 3 }) as number;
+      hf.destroy();
+    }
+    out[name] = { build: median(build), full: median(full), edit: median(edit), check };
+  }
+  if (Math.abs(out.headroom.check / out.native.check - 1) > 1e-9) {
+    throw new Error(`the two sheets disagree: ${out.headroom.check} vs ${out.native.check}`);
+  }
+  const ratio = out.headroom.full / out.native.full;
+  return [
+    { name: `sheet ${n} rows: build, HEADROOM (ms)`, value: out.headroom.build, unit: "ms" },
+    { name: `sheet ${n} rows: build, native (ms)`, value: out.native.build, unit: "ms" },
+    { name: `sheet ${n} rows: full recalc, HEADROOM (ms)`, value: out.headroom.full, unit: "ms" },
+    { name: `sheet ${n} rows: full recalc, native (ms)`, value: out.native.full, unit: "ms" },
+    { name: `sheet ${n} rows: full recalc ratio HEADROOM/native`, value: ratio, unit: "×", goal: "≤ 1.2", ok: ratio <= 1.2 },
+    { name: `sheet ${n} rows: one edit's recalc, HEADROOM (ms)`, value: out.headroom.edit, unit: "ms" },
+  ];
+}
