@@ -212,9 +212,18 @@ export class Grid {
     if (v.style?.italic) td.classList.add("italic");
     if (v.style?.wrap) td.classList.add("wrap");
     const value = v.value;
+    let shownText = v.display;
     if (value !== null && typeof value === "object") {
       td.classList.add("error");
       td.title = value.message ? `${value.error} ${value.message}` : value.error;
+      // a whole spill that failed repeats its anchor's error in every cell: show it once, at the anchor
+      if (v.spilledFrom) {
+        const anchor = this.wb.value(this.wb.activeSheet, v.spilledFrom);
+        if (anchor !== null && typeof anchor === "object" && anchor.error === value.error && anchor.message === value.message) {
+          td.classList.add("error-echo");
+          shownText = "";
+        }
+      }
     } else if (typeof value === "number") {
       td.classList.add("number");
     } else if (typeof value === "boolean") {
@@ -227,7 +236,7 @@ export class Grid {
     if (v.spillRange) td.classList.add("spill-anchor");
     const span = document.createElement("span");
     span.className = "v";
-    span.textContent = v.display;
+    span.textContent = shownText;
     // text runs on over the empty cells to its right, as in a spreadsheet, and stops at the next one in use
     if (overflowPx > 0 && typeof value === "string" && value && !v.style?.wrap && td.colSpan === 1) {
       td.classList.add("overflow");

@@ -1,0 +1,313 @@
+/**
+ * The preview in a real browser: headless Chromium (/usr/bin/chromium, Debian's package) driven by playwright-core,
+ * against the built dist/ served on loopback, as `npm start` serves it.
+ *
+ * What a user does: read the verdict of the sample that needs a pump; enlarge a pipe until the verdict flips and see
+ * the demand point move; type nonsense into an input and get a clear error without losing any other value; open and
+ * save .xlsx files, and a share copy. Screenshots go to test-results/ (the preview at 1280×800, the pane at 320 px).
+ *
+ * Run with `npm run test:browser` (it builds first).
+ */
+import { existsSync } from "node:fs";
+import { mkdir, readFile } from "node:fs/promises";
+import path from "node:path";
+import type { Server } from "node:http";
+import ExcelJS from "exceljs";
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { startServer } from "../../scripts/start-server.mjs";
+
+const CHROMIUM = "/usr/bin/chromium";
+const RESULTS = "test-results";
+const PUMP_SAMPLE = "tinker-row-manufacturing-pump-needed.xlsx";
+const OFFICE_SAMPLE = "quill-street-office-supply-suffices.xlsx";
+
+let server: Server;
+let base: string;
+let browser: Browser;
+let context: BrowserContext;
+let page: Page;
+const requests: string[] = [];
+const problems: string[] = [];
+
+beforeAll(async () => {
+  if (!existsSync(CHROMIUM)) {
+    throw new Error(`${CHROMIUM} is missing: apt-get install -y --no-install-recommends chromium (see .ci/run)`);
+  }
+  if (!existsSync("dist/preview/index.html")) throw new Error("dist/preview/index.html is missing: run npm run build");
+  await mkdir(RESULTS, { recursive: true });
+  const started = await startServer({ dir: "dist", port: 0 });
+  server = started.server;
+  base = started.url;
+  browser = await chromium.launch({
+    executablePath: CHROMIUM,
+    headless: true,
+    // Playwright adds --no-sandbox, --disable-dev-shm-usage, --disable-background-networking and the like itself
+    args: ["--disable-gpu", "--disable-quic"],
+  });
+  context = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
+  page = await context.newPage();
+  page.on("request", (r) => requests.push(r.url()));
+  page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
+  page.on("console", (m) => {
+    if (m.type() === "error") problems.push(`console: ${m.text()}`);
+  });
+  await open(PUMP_SAMPLE);
+});
+
+afterAll(async () => {
+  await browser?.close();
+  await new Promise((r) => (server ? server.close(r) : r(undefined)));
+});
+
+async function open(sample?: string): Promise<void> {
+  await page.goto(`${base}preview/${sample ? `?sample=${encodeURIComponent(sample)}` : ""}`);
+  await page.waitForSelector("body[data-ready]", { timeout: 60_000 });
+  expect(await page.getAttribute("body", "data-ready")).toBe("1");
+  await settle();
+}
+
+/** Wait until the pane has read the workbook again and drawn. */
+async function settle(): Promise<void> {
+  await page.evaluate(async () => {
+    const w = window as unknown as { headroomPreview: { pane: { idle(): Promise<void> } } };
+    await new Promise((r) => setTimeout(r, 0));
+    await w.headroomPreview.pane.idle();
+  });
+}
+
+const cell = (address: string) => page.locator(`[data-role="grid"] td[data-address="${address}"]`);
+const verdict = async () => ((await page.locator('[data-role="verdict"]').textContent()) ?? "").trim();
+
+/** Select a cell, type as a user would, press Enter. */
+async function typeInto(address: string, text: string): Promise<void> {
+  await cell(address).click();
+  await page.keyboard.type(text);
+  await page.keyboard.press("Enter");
+  await settle();
+}
+
+/** The address of the label cell in column A reading exactly `label`. */
+async function labelAddress(label: string): Promise<string> {
+  const td = page.locator('[data-role="grid"] td[data-address^="A"]').filter({ hasText: new RegExp(`^${label}$`) });
+  await expect(td.count()).resolves.toBe(1);
+  return (await td.getAttribute("data-address"))!;
+}
+
+/** The B cell beside a label. */
+async function valueCellOf(label: string): Promise<string> {
+  return `B${(await labelAddress(label)).slice(1)}`;
+}
+
+/** The address of the cell whose formula starts with `start` (e.g. "=HEADROOM.VERDICT("). */
+async function formulaCell(start: string): Promise<string> {
+  return page.evaluate((start) => {
+    type View = { address: string; content: unknown };
+    const w = window as unknown as { headroomPreview: { workbook: { activeSheet: string; cells(s: string): View[] } } };
+    const wb = w.headroomPreview.workbook;
+    const found = wb.cells(wb.activeSheet).filter((c) => typeof c.content === "string" && c.content.startsWith(start));
+    if (found.length !== 1) throw new Error(`${found.length} cells start with ${start}`);
+    return found[0].address;
+  }, start);
+}
+
+/** The demand point (sprinklers plus hose) in the plot: where it is drawn, and the flow and pressure it stands for. */
+async function demandPoint(): Promise<{ transform: string; flow: number; pressure: number }> {
+  const g = page.locator('[data-role="plot"] [data-role="demand-point"][data-id="total"]');
+  return {
+    transform: (await g.getAttribute("transform")) ?? "",
+    flow: Number(await g.getAttribute("data-flow")),
+    pressure: Number(await g.getAttribute("data-pressure")),
+  };
+}
+
+/** Every input cell's shown text on the active sheet. */
+async function inputs(): Promise<Record<string, string>> {
+  return page.evaluate(() => {
+    const out: Record<string, string> = {};
+    for (const td of document.querySelectorAll<HTMLElement>('[data-role="grid"] td.role-input')) out[td.dataset.address!] = td.textContent ?? "";
+    return out;
+  });
+}
+
+describe("the preview of the sample that needs a pump", () => {
+  test("opens with the verdict of the sample, the caution, every cell addressed, and a screenshot", async () => {
+    expect(await verdict()).toMatch(/^Pump needed: the supply is \d+(\.\d)? psi short at \d+ gpm\.$/);
+    expect(await page.locator('[data-role="caution"]').textContent()).toMatch(/Preliminary estimate/);
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    // the grid's own VERDICT cell says what the pane says
+    const verdictCell = await formulaCell("=HEADROOM.VERDICT(");
+    expect((await cell(verdictCell).textContent())?.trim()).toBe(await verdict());
+    expect(await cell("B12").getAttribute("class")).toMatch(/role-input/);
+    expect(await page.locator('[data-role="grid"] td.spilled').count()).toBeGreaterThan(10);
+    await page.screenshot({ path: `${RESULTS}/preview.png` });
+  });
+
+  test("a larger pipe in the run flips the verdict, and the demand point moves in the plot", async () => {
+    const before = await verdict();
+    const pointBefore = await demandPoint();
+    const nominal = await valueCellOf("Cross main to the riser");
+    expect((await cell(nominal).textContent())?.trim()).toBe("2-1/2");
+    let flipped = "";
+    for (const size of ["3", "4", "5", "6"]) {
+      await typeInto(nominal, size);
+      expect((await cell(nominal).textContent())?.trim()).toBe(size);
+      const now = await verdict();
+      expect(now).not.toBe(before);
+      if (/^No pump needed/.test(now)) {
+        flipped = size;
+        break;
+      }
+    }
+    expect(flipped, "no pipe size up to 6 in flipped the verdict").not.toBe("");
+    expect(await verdict()).toMatch(/^No pump needed: \d+(\.\d)? psi to spare at \d+ gpm/);
+    const pointAfter = await demandPoint();
+    // the same flow needs less pressure: the point is drawn elsewhere, lower on the pressure scale
+    expect(pointAfter.transform).not.toBe(pointBefore.transform);
+    expect(pointAfter.flow).toBeCloseTo(pointBefore.flow, 6);
+    expect(pointAfter.pressure).toBeLessThan(pointBefore.pressure - 5);
+    await page.screenshot({ path: `${RESULTS}/preview-no-pump.png` });
+    // and back to the sample's size: the pump comes back
+    await typeInto(nominal, "2-1/2");
+    expect(await verdict()).toBe(before);
+  });
+
+  test("nonsense in an input gives a clear error where it is used, and no other value is lost", async () => {
+    const staticCell = await valueCellOf("Static pressure");
+    const before = await inputs();
+    expect(Object.keys(before).length).toBeGreaterThan(20);
+    await typeInto(staticCell, "abc");
+    expect((await cell(staticCell).textContent())?.trim()).toBe("abc");
+    // the verdict cell now shows an error whose message names the value and what is allowed
+    const verdictCell = await formulaCell("=HEADROOM.VERDICT(");
+    const shown = cell(verdictCell);
+    expect((await shown.textContent())?.trim()).toBe("#VALUE!");
+    const title = (await shown.getAttribute("title")) ?? "";
+    expect(title).toMatch(/^#VALUE! .*"abc".*number/);
+    await shown.click();
+    expect(await page.locator('[data-role="cell-message"]').textContent()).toContain('"abc"');
+    // the pane says which input is wrong instead of a verdict
+    expect(await page.locator('[data-role="problems"] li').count()).toBeGreaterThan(0);
+    expect(await page.locator('[data-role="problems"]').textContent()).toMatch(/Supply_Static/);
+    // every other input still holds what it held
+    const after = await inputs();
+    for (const [address, text] of Object.entries(before)) {
+      if (address !== staticCell) expect(after[address], address).toBe(text);
+    }
+    await page.screenshot({ path: `${RESULTS}/preview-error.png` });
+    // Ctrl+Z brings the value back
+    await cell(staticCell).click();
+    await page.keyboard.press("Control+z");
+    await settle();
+    expect((await cell(staticCell).textContent())?.trim()).toBe(before[staticCell]);
+    expect(await verdict()).toMatch(/^Pump needed/);
+  });
+
+  test("the pane at 320 px shows the verdict, the caution and the plot legibly", async () => {
+    await page.evaluate(async () => {
+      document.documentElement.style.setProperty("--pane-width", "320px");
+      const w = window as unknown as { headroomPreview: { pane: { refresh(): Promise<void> } } };
+      await w.headroomPreview.pane.refresh();
+    });
+    const host = page.locator('[data-role="pane-host"]');
+    expect((await host.boundingBox())!.width).toBeCloseTo(320, 0);
+    const svg = page.locator('[data-role="plot"]');
+    expect((await svg.boundingBox())!.width).toBeLessThanOrEqual(320);
+    // the whole pane: a window tall enough that nothing of it scrolls away
+    await page.setViewportSize({ width: 1280, height: 1400 });
+    await host.locator(".hr-pane").screenshot({ path: `${RESULTS}/pane-320.png` });
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await page.evaluate(() => document.documentElement.style.removeProperty("--pane-width"));
+  });
+});
+
+describe(".xlsx in and out", () => {
+  test("Save .xlsx writes formulas (the add-in's spelling) with their values, and the edit", async () => {
+    await open(PUMP_SAMPLE);
+    const margin = await valueCellOf("Required margin");
+    await typeInto(margin, "12");
+    const verdictBefore = await verdict();
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-file"]')]);
+    expect(download.suggestedFilename()).toBe(PUMP_SAMPLE);
+    const saved = path.join(RESULTS, `saved-${PUMP_SAMPLE}`);
+    await download.saveAs(saved);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load((await readFile(saved)) as unknown as ArrayBuffer);
+    const ws = wb.getWorksheet("Estimate")!;
+    expect(ws.getCell(margin).value).toBe(12);
+    const formulas: string[] = [];
+    ws.eachRow((row) => row.eachCell((c) => c.formula && formulas.push(c.formula)));
+    expect(formulas.some((f) => f.startsWith("_xldudf_HEADROOM_VERDICT("))).toBe(true);
+    const verdictCell = await formulaCell("=HEADROOM.VERDICT(");
+    expect(ws.getCell(verdictCell).result).toBe(verdictBefore);
+
+    // and open it again: the same verdict
+    await open(OFFICE_SAMPLE);
+    expect(await verdict()).toMatch(/^No pump needed/);
+    await page.setInputFiles('[data-role="file-input"]', saved);
+    await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, path.basename(saved));
+    await settle();
+    expect(await verdict()).toBe(verdictBefore);
+    expect((await cell(margin).textContent())?.trim()).toBe("12.0");
+  });
+
+  test("Save share copy writes values only, stamped, and leaves the workbook as it was", async () => {
+    await open(OFFICE_SAMPLE);
+    const sheetsBefore = await page.locator('[data-role="sheet-tabs"] [data-sheet]').count();
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-share-copy"]')]);
+    const saved = path.join(RESULTS, download.suggestedFilename());
+    await download.saveAs(saved);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load((await readFile(saved)) as unknown as ArrayBuffer);
+    expect(wb.worksheets).toHaveLength(1);
+    const ws = wb.worksheets[0];
+    let formulas = 0;
+    let numbers = 0;
+    ws.eachRow((row) =>
+      row.eachCell((c) => {
+        if (c.formula) formulas++;
+        if (typeof c.value === "number") numbers++;
+      }),
+    );
+    expect(formulas).toBe(0);
+    expect(numbers).toBeGreaterThan(50);
+    expect(String(ws.getCell("A1").value)).toMatch(/^Share copy of Estimate, \d{4}-\d\d-\d\d: values frozen; recalculation needs the Headroom add-in\.$/);
+    expect(await page.locator('[data-role="sheet-tabs"] [data-sheet]').count()).toBe(sheetsBefore);
+  });
+
+  test("the sample menu opens the other samples; the SI one speaks bar and L/min", async () => {
+    await open();
+    await page.selectOption('[data-role="sample-picker"]', "kiln-lane-workshop-si-units.xlsx");
+    await page.waitForFunction(() => document.querySelector('[data-role="file-name"]')?.textContent === "kiln-lane-workshop-si-units.xlsx");
+    await settle();
+    expect(await verdict()).toMatch(/bar.*L\/min/);
+    await page.click('[data-role="sheet-tabs"] [data-sheet="About"]');
+    expect((await cell("A1").textContent())?.trim()).toMatch(/^Sample estimate: /);
+    await page.click('[data-role="sheet-tabs"] [data-sheet="Estimate"]');
+  });
+});
+
+describe("what the page loads", () => {
+  test("nothing but this server: no remote request, no page error, no console error", () => {
+    expect(requests.length).toBeGreaterThan(5);
+    expect(requests.filter((u) => !u.startsWith(base) && !u.startsWith("blob:") && !u.startsWith("data:"))).toEqual([]);
+    expect(problems).toEqual([]);
+  });
+
+  test("HyperFormula and ExcelJS are in the preview bundle only, never in the add-in's", async () => {
+    // strings only these libraries carry (positive controls below show they survive minification)
+    const HF = ["buildFromSheets", "LicenseCapabilityMissingError"];
+    const XL = ["xl/workbook.xml", "sharedStrings"];
+    for (const file of ["dist/functions.js", "dist/taskpane.js"]) {
+      const js = await readFile(file, "utf8");
+      for (const marker of [...HF, ...XL]) expect(js.includes(marker), `${file} holds ${marker}`).toBe(false);
+    }
+    const preview = await readFile("dist/preview/preview.js", "utf8");
+    for (const marker of HF) expect(preview.includes(marker), `preview.js lacks ${marker}`).toBe(true);
+    expect(XL.some((m) => preview.includes(m)), "ExcelJS must load on use, not with the page").toBe(false);
+    const { readdir } = await import("node:fs/promises");
+    const chunks = (await readdir("dist/preview")).filter((f) => f.endsWith(".js") && f !== "preview.js");
+    const chunkText = await Promise.all(chunks.map((f) => readFile(path.join("dist/preview", f), "utf8")));
+    expect(chunkText.some((t) => XL.every((m) => t.includes(m)))).toBe(true);
+  });
+});
