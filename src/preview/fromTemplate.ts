@@ -2,7 +2,7 @@
  * The estimate template (../workbook/template.ts) as preview workbook data: its cells with their roles and number
  * formats, its column widths, and its names pointing at the sheet.
  */
-import { absoluteRef, columnIndex } from "../workbook/a1";
+import { absoluteRef, cellAddress, columnIndex, parseCell } from "../workbook/a1";
 import { ROLE_STYLES, type SheetTemplate } from "../workbook/template";
 import type { CellData, DefinedName, SheetData } from "./model";
 
@@ -21,6 +21,19 @@ export function templateSheet(t: SheetTemplate, sheetName = t.sheetName): SheetD
         ...(look?.italic ? { italic: true } : {}),
       },
     };
+  }
+  // the cells a spill fills hold nothing but the number format of their column
+  for (const c of t.cells) {
+    if (!c.spill?.formats) continue;
+    const a = parseCell(c.address);
+    for (let r = 0; r < c.spill.rows; r++) {
+      for (let k = 0; k < c.spill.cols; k++) {
+        const format = c.spill.formats[k];
+        const address = cellAddress({ row: a.row + r, col: a.col + k });
+        if ((r === 0 && k === 0) || !format || cells[address]) continue;
+        cells[address] = { content: null, style: { role: "computed", numFmt: format } };
+      }
+    }
   }
   const columnWidths: Record<number, number> = {};
   for (const [letters, points] of Object.entries(t.columnWidths)) columnWidths[columnIndex(letters)] = points;
