@@ -107,6 +107,35 @@ describe("with the real functions module and its generated metadata", () => {
     expect(at(hf, "E1")).toBe(functions.supplyat(700, 100, 80, 1000));
   });
 
+  test("each spilling function fills exactly what a direct call returns, sized from the formula text", () => {
+    // invented demo inputs; the expectation is the direct call of the same function
+    const segments = [
+      [500, 3.068, 120, 60, 20, 0, 0],
+      [500, 4.026, 120, 25, 12, 15, 0],
+      [500, 6.065, 140, 200, 0, 3, 5],
+    ];
+    const hf = sheet([
+      ...segments.map((r) => [...r]),
+      ["=HEADROOM.RUN(A1:G3,40)", null, null, null, "=HEADROOM.AREADEMAND(0.2,1500,130,5.6,12,1.38,2.469)"],
+      [],
+      [],
+      ["=HEADROOM.SUPPLYCURVE(84,69,920)", null, "=HEADROOM.SUPPLYCURVE(84,69,920,1400,5)", null, "=HEADROOM.PUMPSIZE(587,37.7)"],
+    ]);
+    const block = (a1: string, rows: number, cols: number) => {
+      const s = hf.simpleCellAddressFromString(a1, 0)!;
+      return hf.getRangeValues({ start: s, end: { sheet: 0, row: s.row + rows - 1, col: s.col + cols - 1 } });
+    };
+    expect(block("A4", 3, 4)).toEqual(functions.run(segments, 40));
+    expect(block("E4", 1, 5)).toEqual(functions.areademand(0.2, 1500, 130, 5.6, 12, 1.38, 2.469));
+    expect(block("A7", 16, 2)).toEqual(functions.supplycurve(84, 69, 920));
+    expect(block("C7", 5, 2)).toEqual(functions.supplycurve(84, 69, 920, 1400, 5));
+    expect(block("E7", 1, 2)).toEqual(functions.pumpsize(587, 37.7));
+    // nothing beyond the reserved blocks
+    expect(at(hf, "A7")).toBe(0);
+    expect(hf.getCellValue({ sheet: 0, row: 22, col: 0 })).toBeNull();
+    expect(hf.getCellValue({ sheet: 0, row: 6, col: 7 })).toBeNull();
+  });
+
   test("an unknown HEADROOM name is #NAME?", () => {
     const hf = sheet([["=HEADROOM.NOSUCHTHING(1)"]]);
     expect((at(hf, "A1") as DetailedCellError).value).toBe("#NAME?");
