@@ -1,0 +1,167 @@
+/**
+ * Properties of the range functions and solvers. Formulas: [NFPA 13] density/area method and Hazen-Williams,
+ * [NFPA 291] supply curve, [NFPA 20] standard rated capacities (from memory) and the pump envelope.
+ */
+import { describe, expect } from "vitest";
+import { fc, test } from "@fast-check/vitest";
+import * as f from "../../src/functions/functions";
+import { scheduleSizes } from "../../src/engine/pipes";
+import { STANDARD_RATED_CAPACITIES_GPM } from "../../src/engine/pump";
+import { BAR_PER_PSI, KSI_PER_KUS, L_PER_GAL, M2_PER_FT2, MMMIN_PER_GPMFT2, MM_PER_IN, M_PER_FT } from "../../src/engine/units";
+import { BLANKS, NOT_NUMBERS, NOT_POSITIVE, arb, givesError } from "./arbitraries";
+
+const RUNS = { numRuns: 150 };
+const d = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+const isError = (v: unknown) => v instanceof Error && typeof (v as { code?: unknown }).code === "string";
+
+/** A design area whose pipes are big enough for its flow (velocities of a real system). */
+const area = fc.record({
+  density: d(0.05, 0.4),
+  area: d(800, 4000),
+  coverage: d(80, 200),
+  k: d(5.6, 16.8),
+  spacing: d(8, 15),
+  branch: d(1.38, 2.5),
+  main: d(2.5, 6),
+  c: d(100, 150),
+});
+type Area = { density: number; area: number; coverage: number; k: number; spacing: number; branch: number; main: number; c: number };
+const solve = (a: Area, branch = a.branch, main = a.main) => f.areademand(a.density, a.area, a.coverage, a.k, a.spacing, branch, main, a.c)[0] as number[];
+
+describe("AREADEMAND", () => {
+  test.prop([area], RUNS)("flow is finite and never below density × area [NFPA 13]", (a) => {
+    const [flow, pressure, heads, lines, end] = solve(a);
+    expect([flow, pressure, heads, lines, end].every(Number.isFinite)).toBe(true);
+    expect(flow).toBeGreaterThanOrEqual(a.density * a.area * (1 - 1e-12));
+    expect(pressure).toBeGreaterThanOrEqual(end);
+  });
+  test.prop([area, d(0.6, 0.95)], RUNS)("pressure rises as the branch lines shrink", (a, k) => {
+    expect(solve(a, a.branch * k)[1]).toBeGreaterThanOrEqual(solve(a)[1]);
+  });
+  test.prop([area, d(0.6, 0.95)], RUNS)("pressure rises as the cross main shrinks", (a, k) => {
+    expect(solve(a, a.branch, a.main * k)[1]).toBeGreaterThanOrEqual(solve(a)[1]);
+  });
+  test.prop([area], RUNS)("in SI it equals the converted US solve within 0.5 % (EN 12845 friction form) [EN 12845]", (a) => {
+    const us = f.areademand(a.density, a.area, a.coverage, a.k, a.spacing, a.branch, a.main, a.c, 7)[0] as number[];
+    const si = f.areademand(
+      a.density * MMMIN_PER_GPMFT2, a.area * M2_PER_FT2, a.coverage * M2_PER_FT2, a.k * KSI_PER_KUS, a.spacing * M_PER_FT,
+      a.branch * MM_PER_IN, a.main * MM_PER_IN, a.c, 7 * BAR_PER_PSI, "SI",
+    )[0] as number[];
+    expect(Math.abs(si[0] / (us[0] * L_PER_GAL) - 1)).toBeLessThan(0.005);
+    expect(Math.abs(si[1] / (us[1] * BAR_PER_PSI) - 1)).toBeLessThan(0.005);
+    expect(si[2]).toBe(us[2]);
+    expect(si[3]).toBe(us[3]);
+  });
+  const valid = [0.15, 1500, 130, 5.6, 13, 1.38, 2.469, null, null, null];
+  const bad: unknown[][] = [
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // density
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // area
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 5000], // coverage (larger than the area)
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // K
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // spacing
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // branch
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // main
+    [...NOT_NUMBERS, ...NOT_POSITIVE, 500], // C
+    [...NOT_NUMBERS, ...NOT_POSITIVE], // min pressure
+    ["metric-ish", 3, true], // units
+  ];
+  test.prop([fc.nat(bad.length - 1), fc.nat(1000)], { numRuns: 200 })("invalid arguments give an error with a message", (i, k) => {
+    const args = [...valid];
+    args[i] = bad[i][k % bad[i].length];
+    expect(givesError(() => f.areademand(...(args as Parameters<typeof f.areademand>))), `arg ${i + 1} = ${String(args[i])}`).toBe(true);
+  });
+});
+
+describe("RUN", () => {
+  const segment = fc.tuple(arb.smallFlow, d(1, 6), d(100, 150), d(1, 300), d(0, 50), d(-20, 40), d(0, 10));
+  test.prop([fc.array(segment, { minLength: 1, maxLength: 8 }), d(0, 60)], RUNS)(
+    "each row equals FRICTION over pipe + fittings, ELEVATION and the fixed loss, accumulated",
+    (segs, start) => {
+      const out = f.run(segs, start) as number[][];
+      let p = start;
+      let negative = false; // once the pressure would go below 0, that row and every later pressure is an error
+      segs.forEach(([q, dia, c, l, fl, rise, fixed], i) => {
+        const fr = f.friction(q, dia, c, l + fl);
+        expect(out[i][0]).toBeCloseTo(fr, 9);
+        expect(out[i][1]).toBeCloseTo(f.elevation(rise), 9);
+        expect(out[i][2]).toBeCloseTo(fixed, 12);
+        p += fr + f.elevation(rise) + fixed;
+        negative ||= p < 0;
+        if (negative) expect(isError(out[i][3])).toBe(true);
+        else expect(out[i][3]).toBeCloseTo(p, 9);
+      });
+    },
+  );
+  test.prop([fc.array(segment, { minLength: 2, maxLength: 6 }), fc.nat(5), fc.nat(3), fc.constantFrom("abc", -1, 0, true, "", null)], RUNS)(
+    "a bad required cell errors that row only",
+    (segs, rowPick, colPick, bad) => {
+      const rows: unknown[][] = segs.map((s) => [...s.slice(0, 5), 0, 0]);
+      const row = rowPick % rows.length;
+      rows[row][colPick] = bad;
+      if ((colPick === 0 || colPick === 3) && bad === 0) return; // a flow or a length of 0 is real
+      const out = f.run(rows as never, 200);
+      expect(out[row].slice(0, 3).every(isError) || isError(out[row][3])).toBe(true);
+      out.forEach((r, i) => {
+        if (i < row) expect(r.every((v) => typeof v === "number" && Number.isFinite(v))).toBe(true);
+      });
+    },
+  );
+});
+
+describe("SUPPLYCURVE, PUMPSIZE, PUMPCURVE, SIZEFOR", () => {
+  test.prop([arb.flowTest, fc.integer({ min: 2, max: 60 })], RUNS)("the curve starts at static, falls, and has `points` rows [NFPA 291]", (t, n) => {
+    const rows = f.supplycurve(t.static, t.residual, t.testFlow, null, n) as (number | string)[][];
+    expect(rows).toHaveLength(n);
+    expect(rows[0]).toEqual([0, t.static]);
+    const numeric = rows.filter((r) => typeof r[1] === "number") as number[][];
+    for (let i = 1; i < numeric.length; i++) {
+      expect(numeric[i][0]).toBeGreaterThan(numeric[i - 1][0]);
+      expect(numeric[i][1]).toBeLessThanOrEqual(numeric[i - 1][1]);
+      expect(numeric[i][1]).toBeGreaterThanOrEqual(0);
+    }
+  });
+  test.prop([d(10, 5000), d(0.5, 200)], RUNS)("PUMPSIZE: a standard rating at or above the flow, boost up to a 5 psi step [NFPA 20] (from memory)", (q, boost) => {
+    const [[rated, pressure]] = f.pumpsize(q, boost) as number[][];
+    expect(STANDARD_RATED_CAPACITIES_GPM).toContain(rated);
+    expect(rated).toBeGreaterThanOrEqual(q);
+    const smaller = STANDARD_RATED_CAPACITIES_GPM.filter((c) => c < rated);
+    if (smaller.length) expect(smaller[smaller.length - 1]).toBeLessThan(q);
+    expect(pressure % 5).toBe(0);
+    expect(pressure).toBeGreaterThanOrEqual(boost);
+    expect(pressure - boost).toBeLessThan(5);
+  });
+  test.prop([d(100, 3000), d(40, 150), d(1.05, 1.4), d(0.65, 0.95)], RUNS)(
+    "PUMPCURVE passes through shutoff, rated and 150 % points and falls with flow [NFPA 20]",
+    (qr, pr, s, o) => {
+      expect(f.pumpcurve(0, qr, pr, s, o)).toBeCloseTo(s * pr, 6);
+      expect(f.pumpcurve(qr, qr, pr, s, o)).toBeCloseTo(pr, 6);
+      expect(f.pumpcurve(1.5 * qr, qr, pr, s, o)).toBeCloseTo(o * pr, 6);
+      expect(f.pumpcurve(1.2 * qr, qr, pr, s, o)).toBeLessThanOrEqual(f.pumpcurve(0.6 * qr, qr, pr, s, o));
+    },
+  );
+  test.prop([d(100, 3000), d(40, 150), fc.constantFrom(1.45, 1, 0.9, "x", -1), fc.constantFrom(0.6, 1, 1.2, "x")], RUNS)(
+    "PUMPCURVE outside the NFPA 20 envelope is an error [NFPA 20]",
+    (qr, pr, s, o) => {
+      expect(givesError(() => f.pumpcurve(qr, qr, pr, s, o))).toBe(true);
+      expect(givesError(() => f.pumpcurve(1.51 * qr, qr, pr))).toBe(true);
+    },
+  );
+  test.prop([d(20, 2500), d(10, 500), d(100, 150), d(0.5, 20), fc.constantFrom("10", "40")], RUNS)(
+    "SIZEFOR gives the smallest size whose loss stays within the allowance",
+    (q, l, c, allowed, sch) => {
+      let size: number;
+      try {
+        size = f.sizefor(q, l, c, allowed, sch);
+      } catch (e) {
+        expect((e as { code: string }).code).toBe("#N/A"); // even the largest size loses more
+        const largest = scheduleSizes(sch).at(-1)!;
+        expect(f.friction(q, largest.id, c, l)).toBeGreaterThan(allowed);
+        return;
+      }
+      const sizes = scheduleSizes(sch);
+      const i = sizes.findIndex((s) => s.nominal === size);
+      expect(f.friction(q, sizes[i].id, c, l)).toBeLessThanOrEqual(allowed);
+      if (i > 0) expect(f.friction(q, sizes[i - 1].id, c, l)).toBeGreaterThan(allowed);
+    },
+  );
+});
