@@ -165,3 +165,50 @@ describe("SUPPLYCURVE, PUMPSIZE, PUMPCURVE, SIZEFOR", () => {
     },
   );
 });
+
+describe("invalid inputs of SUPPLYCURVE, SIZEFOR, PUMPSIZE, PUMPCURVE and RUN give an error with a message", () => {
+  const positive = [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE];
+  const specs: { name: string; fn: (...a: unknown[]) => unknown; valid: unknown[]; bad: unknown[][] }[] = [
+    {
+      name: "SUPPLYCURVE",
+      fn: f.supplycurve as never,
+      valid: [70, 50, 1000, null, null, null],
+      bad: [positive, [...NOT_NUMBERS, ...BLANKS, -1, 70, 80], positive, [...NOT_NUMBERS, ...NOT_POSITIVE], [...NOT_NUMBERS, 1, 0, 2.5, 1001], ["x", 1]],
+    },
+    {
+      name: "SIZEFOR",
+      fn: f.sizefor as never,
+      valid: [300, 100, 120, 5, null, null],
+      bad: [positive, positive, [...positive, 500], positive, ["80", "XL", 7, true], ["x", 2]],
+    },
+    { name: "PUMPSIZE", fn: f.pumpsize as never, valid: [500, 20, null], bad: [[...positive, 6000], positive, ["x", 2]] },
+    {
+      name: "PUMPCURVE",
+      fn: f.pumpcurve as never,
+      valid: [400, 500, 60, null, null, null],
+      bad: [[...NOT_NUMBERS, ...BLANKS, -1, 751], positive, positive, [...NOT_NUMBERS, 1, 1.5, 0.5], [...NOT_NUMBERS, 0.5, 1, 1.1], ["x", 2]],
+    },
+  ];
+  for (const spec of specs) {
+    test.prop([fc.nat(spec.bad.length - 1), fc.nat(1000)], { numRuns: 120 })(spec.name, (i, k) => {
+      expect(givesError(() => spec.fn(...spec.valid)), `${spec.name} valid call`).toBe(false);
+      const args = [...spec.valid];
+      args[i] = spec.bad[i][k % spec.bad[i].length];
+      expect(givesError(() => spec.fn(...args)), `${spec.name} arg ${i + 1} = ${String(args[i])}`).toBe(true);
+    });
+  }
+  test.prop([fc.constantFrom<unknown>([[500, 2, 120]], [[500]], "A1:G3", 5, null, [[]], []), fc.constantFrom(null, -1, "x")], { numRuns: 60 })(
+    "RUN with a range of the wrong shape, or a bad start pressure",
+    (segments, start) => {
+      const call = () => f.run(segments as never, start);
+      let out: unknown;
+      try {
+        out = call();
+      } catch {
+        return; // thrown: an error cell
+      }
+      // not thrown: then every row must be an error row (a range narrower than 4 columns has no segment to compute)
+      expect((out as unknown[][]).every((r) => r.every(isError))).toBe(true);
+    },
+  );
+});
