@@ -63,6 +63,19 @@ export function fileNameOf(formulaName: string): string {
 }
 
 /**
+ * A formula as a user types it → formula text the engine parses: uppercase exponents (`=1E3`, which the engine would
+ * read as a reference to cell E3) written lowercase. Text in quotes is left alone.
+ */
+export function normaliseTypedFormula(formula: string): string {
+  if (!formula.startsWith("=")) return formula;
+  return `=${outsideQuotes(formula.slice(1), lowerExponents)}`;
+}
+
+function lowerExponents(code: string): string {
+  return code.replace(/(^|[^A-Za-z0-9_.$])(\d+\.?\d*|\.\d+)E([+-]?\d+)/g, (_m, pre, mant, exp) => `${pre}${mant}e${exp}`);
+}
+
+/**
  * An `_xldudf_HEADROOM_…` name the known list does not hold (a function of a newer or older Headroom): read as
  * HEADROOM.<rest>, so that the engine says which function it does not know.
  */
@@ -83,11 +96,12 @@ export function fromFileFormula(formula: string, known: Iterable<string>): strin
   for (const name of known) byFileName.set(fileNameOf(name).toUpperCase(), name);
   const body = formula.startsWith("=") ? formula.slice(1) : formula;
   const mapped = outsideQuotes(body, (code) =>
-    code
-      .replace(/_xldudf_[A-Za-z0-9_.]+(?=\s*\()/g, (m) => byFileName.get(m.toUpperCase()) ?? ownNamespace(m) ?? m)
-      .replace(/_xlfn\.(?:_xlws\.)?/gi, "")
-      .replace(/_xlws\./gi, "")
-      .replace(/(^|[^A-Za-z0-9_.$])(\d+\.?\d*|\.\d+)E([+-]?\d+)/g, (_m, pre, mant, exp) => `${pre}${mant}e${exp}`),
+    lowerExponents(
+      code
+        .replace(/_xldudf_[A-Za-z0-9_.]+(?=\s*\()/g, (m) => byFileName.get(m.toUpperCase()) ?? ownNamespace(m) ?? m)
+        .replace(/_xlfn\.(?:_xlws\.)?/gi, "")
+        .replace(/_xlws\./gi, ""),
+    ),
   );
   return `=${mapped}`;
 }

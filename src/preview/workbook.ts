@@ -9,6 +9,7 @@ import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformu
 import { absoluteRef, cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
 import type { CachedValue, CellContent, CellData, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
 import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
+import { normaliseTypedFormula } from "./formulaText";
 
 /** The engine's settings: the licence key, Excel's dynamic-array behaviour, and full-precision results. */
 export const ENGINE_CONFIG: Partial<ConfigParams> = {
@@ -185,7 +186,8 @@ export class PreviewWorkbook {
 
   /** Put what a user typed into a cell: formulas, numbers, TRUE/FALSE and text as a spreadsheet reads them. */
   setTyped(sheet: string, address: string, typed: string): void {
-    this.setContent(sheet, address, parseTyped(typed));
+    const content = parseTyped(typed);
+    this.setContent(sheet, address, typeof content === "string" ? normaliseTypedFormula(content) : content);
   }
 
   setStyle(sheet: string, address: string, style: CellStyle | undefined): void {

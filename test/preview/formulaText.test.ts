@@ -3,7 +3,7 @@
  * (`_xldudf_NS_NAME`, ../shared/notes/formula-engine-chart-browser.md §2), `_xlfn.` prefixes, exponent case.
  */
 import { describe, expect, test } from "vitest";
-import { fileNameOf, fromFileFormula, toFileFormula } from "../../src/preview/formulaText";
+import { fileNameOf, fromFileFormula, normaliseTypedFormula, toFileFormula } from "../../src/preview/formulaText";
 
 const KNOWN = ["HEADROOM.PIPEID", "HEADROOM.RUN", "HEADROOM.SUPPLYCURVE"];
 
@@ -55,5 +55,13 @@ describe("from the engine to a file", () => {
       "=IFNA(A1,\"HEADROOM.RUN(\")",
     ];
     for (const f of formulas) expect(fromFileFormula(toFileFormula(f, KNOWN), KNOWN)).toBe(f);
+  });
+});
+
+describe("typed into the grid", () => {
+  test("an uppercase exponent is read as a number, not as cell E3", () => {
+    expect(normaliseTypedFormula("=1E3*2+E3")).toBe("=1e3*2+E3");
+    expect(normaliseTypedFormula('="1E3"&2.5E-1')).toBe('="1E3"&2.5e-1');
+    expect(normaliseTypedFormula("1E3")).toBe("1E3"); // not a formula: left to the number parser
   });
 });

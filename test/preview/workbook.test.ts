@@ -1,0 +1,117 @@
+/**
+ * The preview workbook: what typing does, text kept as text, spills found, names, reloading, undo; and how values are
+ * shown. Expectations are spreadsheet conventions (common practice) or a direct call of the same cell function.
+ */
+import { beforeAll, describe, expect, test } from "vitest";
+import * as functions from "../../src/functions/functions";
+import { formatNumber, formatValue, generalNumber, parseTyped } from "../../src/preview/format";
+import { registerHeadroomFunctions } from "../../src/preview/plugin";
+import { PreviewWorkbook } from "../../src/preview/workbook";
+import { generatedMetadata } from "./metadataFixture";
+
+beforeAll(async () => {
+  registerHeadroomFunctions(await generatedMetadata(), functions);
+});
+
+const blank = () => new PreviewWorkbook({ sheets: [{ name: "S", cells: {} }], names: [] });
+
+describe("typing into a cell", () => {
+  test("numbers, grouped numbers, percents, booleans, formulas and text, as a spreadsheet reads them", () => {
+    expect(parseTyped("12.5")).toBe(12.5);
+    expect(parseTyped(" 1,250 ")).toBe(1250);
+    expect(parseTyped("15%")).toBeCloseTo(0.15, 12);
+    expect(parseTyped("1e3")).toBe(1000);
+    expect(parseTyped("true")).toBe(true);
+    expect(parseTyped("=A1*2")).toBe("=A1*2");
+    expect(parseTyped("'40")).toBe("40");
+    expect(parseTyped("")).toBeNull();
+    expect(parseTyped("2-1/2")).toBe("2-1/2");
+  });
+
+  test("text stays text in the engine: a nominal size is not a date, a schedule code is not a number", () => {
+    const wb = blank();
+    wb.setContent("S", "A1", "1-1/4");
+    wb.setContent("S", "A2", "40");
+    wb.setContent("S", "A3", "=HEADROOM.PIPEID(A1,A2)");
+    expect(wb.value("S", "A1")).toBe("1-1/4");
+    expect(wb.content("S", "A1")).toBe("1-1/4");
+    expect(wb.value("S", "A2")).toBe("40");
+    expect(wb.value("S", "A3")).toBe(functions.pipeid("1-1/4", "40"));
+  });
+
+  test("a typed formula with an uppercase exponent computes", () => {
+    const wb = blank();
+    wb.setTyped("S", "A1", "=1E3*2");
+    expect(wb.value("S", "A1")).toBe(2000);
+  });
+
+  test("clearing a cell, and undo and redo", () => {
+    const wb = blank();
+    wb.setTyped("S", "A1", "5");
+    wb.setTyped("S", "A1", "");
+    expect(wb.value("S", "A1")).toBeNull();
+    expect(wb.undo()).toBe(true);
+    expect(wb.value("S", "A1")).toBe(5);
+    expect(wb.redo()).toBe(true);
+    expect(wb.value("S", "A1")).toBeNull();
+  });
+});
+
+describe("spills, names and reloading", () => {
+  test("a spilled block is found with its anchor, and its cells say where they come from", () => {
+    const wb = blank();
+    wb.setContent("S", "B2", "=HEADROOM.PUMPSIZE(587,37.7)");
+    expect(wb.cell("S", "B2").spillRange).toBe("B2:C2");
+    expect(wb.cell("S", "C2").spilledFrom).toBe("B2");
+    expect(wb.cell("S", "D2").spilledFrom).toBeUndefined();
+    expect(wb.toData().sheets[0].cells.B2.spill).toBe("B2:C2");
+  });
+
+  test("names point at cells, can move, and are read case-insensitively", () => {
+    const wb = blank();
+    wb.setContent("S", "B3", 72);
+    wb.setNameToCell("Supply_Static", "S", "B3");
+    expect(wb.nameTarget("supply_static")).toEqual({ kind: "cell", sheet: "S", address: "B3" });
+    wb.setNameToCell("Supply_Static", "S", "B4");
+    expect(wb.nameTarget("Supply_Static")).toEqual({ kind: "cell", sheet: "S", address: "B4" });
+    wb.removeName("Supply_Static");
+    expect(wb.nameTarget("Supply_Static")).toBeNull();
+  });
+
+  test("loading another workbook keeps the listeners and replaces the sheets", () => {
+    const wb = blank();
+    let calls = 0;
+    wb.onChange(() => calls++);
+    wb.load({ sheets: [{ name: "Other", cells: { A1: { content: 3 } } }], names: [] });
+    expect(calls).toBeGreaterThan(0);
+    expect(wb.sheetNames()).toEqual(["Other"]);
+    const before = calls;
+    wb.setContent("Other", "A2", "=A1*2");
+    expect(calls).toBeGreaterThan(before);
+    expect(wb.value("Other", "A2")).toBe(6);
+  });
+
+  test("a sheet added under a taken name gets the next free one", () => {
+    const wb = blank();
+    expect(wb.addSheet({ name: "S", cells: {} })).toBe("S 2");
+  });
+});
+
+describe("showing values", () => {
+  test("the template's number formats", () => {
+    expect(formatNumber(72, "0.0")).toBe("72.0");
+    expect(formatNumber(1234.5, "#,##0")).toBe("1,235");
+    expect(formatNumber(-0.04, "0.0")).toBe("0.0"); // our choice: no "-0.0"
+    expect(formatNumber(-0.26, "0%")).toBe("-26%");
+    expect(formatNumber(2.469, "0.000")).toBe("2.469");
+  });
+
+  test("numbers without a format: six significant digits, whole numbers in full", () => {
+    expect(generalNumber(42.19290155142652)).toBe("42.1929");
+    expect(generalNumber(42.19290155142652, 4)).toBe("42.19");
+    expect(generalNumber(1234567)).toBe("1234567");
+    expect(generalNumber(0)).toBe("0");
+    expect(formatValue({ error: "#VALUE!", message: "x" })).toBe("#VALUE!");
+    expect(formatValue(true)).toBe("TRUE");
+  });
+});
