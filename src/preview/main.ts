@@ -36,7 +36,7 @@ function roleColours(): void {
 }
 
 function status(text: string, error = false): void {
-  const el = $("status");
+  const el = $("preview-status");
   el.textContent = text;
   el.classList.toggle("is-error", error);
 }

@@ -287,6 +287,39 @@ describe(".xlsx in and out", () => {
   });
 });
 
+describe("the pane's actions on the preview's workbook", () => {
+  test("New estimate sheet (SI) adds a sheet that becomes active and takes the named cells over", async () => {
+    await open(OFFICE_SAMPLE);
+    await page.selectOption('[data-role="units"]', "SI");
+    await page.click('[data-role="new-sheet"]');
+    await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet="Estimate 2"][aria-selected="true"]');
+    await settle();
+    expect(await verdict()).toMatch(/bar/);
+    expect((await cell("B9").textContent())?.trim()).toBe("SI");
+  });
+
+  test("Share copy adds a values-only sheet, stamped, and refuses while a cell shows an error", async () => {
+    await open(OFFICE_SAMPLE);
+    await page.click('[data-role="share-copy"]');
+    await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet^="Estimate values "][aria-selected="true"]');
+    expect((await cell("A1").textContent())?.trim()).toMatch(/^Share copy of Estimate, \d{4}-\d\d-\d\d: values frozen/);
+    const formulas = await page.evaluate(() => {
+      type View = { content: unknown };
+      const w = window as unknown as { headroomPreview: { workbook: { activeSheet: string; cells(s: string): View[] } } };
+      const wb = w.headroomPreview.workbook;
+      return wb.cells(wb.activeSheet).filter((c) => typeof c.content === "string" && c.content.startsWith("=")).length;
+    });
+    expect(formulas).toBe(0);
+
+    await open(OFFICE_SAMPLE);
+    await typeInto(await valueCellOf("Static pressure"), "abc");
+    const tabs = await page.locator('[data-role="sheet-tabs"] [data-sheet]').count();
+    await page.click('[data-role="share-copy"]');
+    await expect.poll(async () => page.locator('[data-role="pane-host"] [data-role="status"]').textContent()).toMatch(/No share copy made: B\d+ shows #VALUE!/);
+    expect(await page.locator('[data-role="sheet-tabs"] [data-sheet]').count()).toBe(tabs);
+  });
+});
+
 describe("what the page loads", () => {
   test("nothing but this server: no remote request, no page error, no console error", () => {
     expect(requests.length).toBeGreaterThan(5);
