@@ -47,9 +47,9 @@ function describeRole(v: CellView): string {
     case "input":
       return "Input: type a new value.";
     case "computed":
-      return "Calculated by a formula.";
+      return "Calculated by a formula: the formula bar shows it.";
     default:
-      return "";
+      return "Click a cell and type to replace it; F2 or a double click edits it; Enter commits, Escape cancels; Ctrl+Z undoes.";
   }
 }
 
