@@ -16,6 +16,9 @@ import type { PlotData, Pt } from "./model";
 
 export type FlowAxis = "linear" | "pow";
 
+/** A white outline drawn behind label text, so that a curve crossing the label does not cut through it. */
+const HALO = { stroke: "#FFFFFF", "stroke-width": 3, "stroke-linejoin": "round", "paint-order": "stroke" } as const;
+
 const SVG = "http://www.w3.org/2000/svg";
 
 /** Space around the plotting area, px. */
@@ -253,7 +256,8 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
     }, svg);
   }
 
-  // demand points, each with its own shape and a label placed clear of the others
+  // demand points, each with its own shape and a label placed clear of the others (a white halo keeps a label
+  // readable where a curve runs behind it)
   const area: Box = { x0: PAD.left + 2, y0: PAD.top, x1: width - PAD.right, y1: height - PAD.bottom - 2 };
   const markerBox = (q: number, p: number): Box => ({ x0: X(q) - 7, y0: Y(p) - 7, x1: X(q) + 7, y1: Y(p) + 7 });
   const taken: Box[] = [...d.demand.map((pt) => markerBox(pt.q, pt.p)), markerBox(...d.testPoint), markerBox(...d.staticPoint)];
@@ -270,7 +274,7 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
   const tp = d.testPoint;
   const tpo = place(X(tp[0]), Y(tp[1]), "flow test", ["ar", "ac", "al", "br", "bl", "bc"], area, taken);
   // a name for the test point where there is room for it (the legend names it too)
-  if (tpo.clear) text(doc, "flow test", { x: r2(X(tp[0]) + tpo.dx), y: r2(Y(tp[1]) + tpo.dy), "text-anchor": tpo.anchor, "font-size": 10.5, fill: PALETTE.supply }, svg);
+  if (tpo.clear) text(doc, "flow test", { x: r2(X(tp[0]) + tpo.dx), y: r2(Y(tp[1]) + tpo.dy), "text-anchor": tpo.anchor, "font-size": 10.5, fill: PALETTE.supply, ...HALO }, svg);
   for (const pt of d.demand) {
     const px = r2(X(pt.q));
     const py = r2(Y(pt.p));
@@ -285,6 +289,7 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
       "font-size": 11,
       "font-weight": 600,
       fill: pt.id === "sprinklers" ? "#8A5A00" : PALETTE.demand,
+      ...HALO,
     }, g);
   }
   return svg;
