@@ -174,9 +174,13 @@ async function freeName(ctx: Ctx, base: string): Promise<string> {
 }
 
 /** A constant for range.values: text that Excel would read as a formula or a number keeps its text with a '. */
+/**
+ * A template constant as Office.js must receive it. Excel reads assigned values as if typed, so text such as
+ * "1-1/4", "40" or "2026-02-19 14:40" would turn into a date or a number; a leading apostrophe keeps every text
+ * constant text (Excel stores the apostrophe as the cell's prefix, not in its value).
+ */
 function cellConstant(v: string | number): string | number {
-  if (typeof v === "number") return v;
-  return /^[=+\-@]/.test(v) ? `'${v}` : v;
+  return typeof v === "number" ? v : `'${v}`;
 }
 
 async function insertEstimateSheet(ctx: Ctx, units: UnitsCode, scenario?: Scenario): Promise<InsertResult> {
