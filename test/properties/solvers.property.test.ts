@@ -52,7 +52,7 @@ describe("AREADEMAND", () => {
     expect(si[2]).toBe(us[2]);
     expect(si[3]).toBe(us[3]);
   });
-  const valid = [0.15, 1500, 130, 5.6, 13, 1.38, 2.469, null, null, null];
+  const valid: unknown[] = [0.15, 1500, 130, 5.6, 13, 1.38, 2.469, null, null, null];
   const bad: unknown[][] = [
     [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // density
     [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // area
