@@ -13,8 +13,10 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { addinConfig } from "../../webpack.config.js";
 
 const OFFICE_JS = "https://appsforoffice.microsoft.com/lib/1/hosted/office.js";
+/** the same origin, as the pane page's Content-Security-Policy names it */
+const OFFICE_JS_ORIGIN = "https://appsforoffice.microsoft.com";
 const NAMESPACES = new Set(["http://www.w3.org/2000/svg", "http://www.w3.org/1999/xhtml", "http://www.w3.org/1999/xlink"]);
-const URL_PATTERN = /\b(?:https?:)?\/\/[a-z0-9.-]+\.[a-z]{2,}[^\s"'`)<>\\]*/gi;
+const URL_PATTERN = /\b(?:https?:)?\/\/[a-z0-9.-]+\.[a-z]{2,}[^\s"'`)<>\\;]*/gi;
 
 let out = "";
 const files: Record<string, string> = {};
@@ -46,10 +48,18 @@ describe("production add-in bundles", () => {
     const found = Object.entries(files).flatMap(([name, text]) => [...text.matchAll(URL_PATTERN)].map((m) => `${name}: ${m[0]}`));
     const remote = found.filter((f) => {
       const url = f.slice(f.indexOf(": ") + 2);
-      return url !== OFFICE_JS && !NAMESPACES.has(url.replace(/^\/\//, "http://"));
+      return url !== OFFICE_JS && url !== OFFICE_JS_ORIGIN && !NAMESPACES.has(url.replace(/^\/\//, "http://"));
     });
     expect(remote).toEqual([]);
     expect(files["taskpane.html"]).toContain(OFFICE_JS);
+  });
+
+  it("the pane page carries a Content-Security-Policy allowing no remote origin but Office.js's", () => {
+    const csp = /http-equiv="?Content-Security-Policy"?\s+content="([^"]+)"/.exec(files["taskpane.html"])?.[1] ?? "";
+    expect(csp).toMatch(/default-src 'self'/);
+    const origins = [...csp.matchAll(/https?:\/\/[^\s;]+/g)].map((m) => m[0]);
+    expect(origins.length).toBeGreaterThan(0);
+    expect(new Set(origins)).toEqual(new Set(["https://appsforoffice.microsoft.com"]));
   });
 
   it("carry neither HyperFormula nor mathjs's expression parser", () => {
