@@ -65,6 +65,8 @@ export interface NumberRule {
   unit?: string;
 }
 
+const NO_NUMBER_RULE: NumberRule = Object.freeze({});
+
 function describeRule(rule: NumberRule): string {
   const u = rule.unit ? ` ${rule.unit}` : "";
   const parts: string[] = [];
@@ -78,7 +80,7 @@ function describeRule(rule: NumberRule): string {
 }
 
 /** A plain number (no unit conversion) checked against `rule`. */
-export function numberArg(value: unknown, name: string, rule: NumberRule = {}): number {
+export function numberArg(value: unknown, name: string, rule: NumberRule = NO_NUMBER_RULE): number {
   const x = toNumber(value, name);
   const bad =
     (rule.gt !== undefined && !(x > rule.gt)) ||
@@ -90,7 +92,7 @@ export function numberArg(value: unknown, name: string, rule: NumberRule = {}): 
 }
 
 /** Like numberArg, but an omitted or empty argument gives `fallback`. */
-export function optionalNumberArg(value: unknown, name: string, fallback: number, rule: NumberRule = {}): number {
+export function optionalNumberArg(value: unknown, name: string, fallback: number, rule: NumberRule = NO_NUMBER_RULE): number {
   return isBlank(value) ? fallback : numberArg(value, name, rule);
 }
 
@@ -101,7 +103,8 @@ export interface QuantityRule {
   signed?: boolean;
 }
 
-/** Rules shared by many calls (one object, not one per call). */
+/** Rules shared by many calls (one object, not one per call: these checks run on every recalculation). */
+const NO_RULE: QuantityRule = Object.freeze({});
 export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true });
 export const SIGNED: QuantityRule = Object.freeze({ signed: true });
 
@@ -109,7 +112,7 @@ export const SIGNED: QuantityRule = Object.freeze({ signed: true });
  * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with
  * `zero`, or either sign with `signed`) up to the plausibility bound of LIMITS_US, stated in the user's units.
  */
-export function quantityArg(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule = {}): number {
+export function quantityArg(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule = NO_RULE): number {
   const given = typeof value === "number" && Number.isFinite(value) ? value : toNumber(value, name);
   const us = units === "SI" ? toUS(quantity, given, units) : given;
   const limitUS = LIMITS_US[quantity];
@@ -170,6 +173,7 @@ export function optionalCodeArg<C extends string>(value: unknown, name: string, 
 
 /** The `[units]` argument: "US" (default) or "SI", case-insensitive and trimmed. */
 export function unitsArg(value: unknown): UnitSystem {
+  if (value === null || value === undefined) return "US"; // the common case, without a code look-up
   return optionalCodeArg<UnitSystem>(value, "units", { US: ["us", "imperial", "customary"], SI: ["si", "metric"] }, "US");
 }
 

@@ -27,9 +27,11 @@ export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unkn
   return { static: s, residual: r, testFlow: q };
 }
 
+const C_FACTOR_RULE = Object.freeze({ gt: 0, max: MAX_C_FACTOR });
+
 /** The C factor of a pipe: greater than 0, at most MAX_C_FACTOR. */
 export function cFactorArg(value: unknown, name = "c_factor"): number {
-  return numberArg(value, name, { gt: 0, max: MAX_C_FACTOR });
+  return numberArg(value, name, C_FACTOR_RULE);
 }
 
 /** flow (0 allowed), internal diameter, C factor of a pipe. */
