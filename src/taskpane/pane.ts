@@ -86,8 +86,10 @@ export function marginLine(e: Estimate): string {
 export function pumpLine(e: Estimate): string | null {
   if (!e.assessment.pumpNeeded) return null;
   if (e.pumpSize && e.boost !== null) {
+    // the standard ratings are whole gpm (NFPA 20); in SI work, say which one the L/min figure is
+    const rating = e.units === "SI" ? ` (the ${formatFlow(e.pumpSize.ratedFlow, "US")} standard rating)` : "";
     return (
-      `Pump: ${formatFlow(e.pumpSize.ratedFlow, e.units)} rated at ${formatPressure(e.pumpSize.ratedPressure, e.units)} ` +
+      `Pump: ${formatFlow(e.pumpSize.ratedFlow, e.units)}${rating} rated at ${formatPressure(e.pumpSize.ratedPressure, e.units)} ` +
       `(PUMPSIZE), for a boost of ${formatPressure(e.boost, e.units)} (PUMPBOOST).`
     );
   }
