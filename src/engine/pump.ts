@@ -4,6 +4,7 @@
  */
 import { HeadroomError, fail, notInTable, show } from "./errors";
 import { ceilCount } from "./sprinkler";
+import { type UnitSystem, fromUS } from "./units";
 
 /**
  * Standard rated capacities of centrifugal fire pumps, gpm, ascending.
@@ -59,6 +60,20 @@ export function roundUpToStep(value: number, step: number): number {
   if (!(step > 0)) fail(`step: got ${show(step)}; must be greater than 0`);
   if (!(value >= 0) || !Number.isFinite(value)) fail(`value: got ${show(value)}; must be 0 or more`);
   return step * ceilCount(value / step);
+}
+
+/**
+ * PUMPSIZE's rating: the smallest standard rated capacity not below the demand flow, and the boost rounded up to the
+ * next 5 psi in US work or the next 0.5 bar in SI work (rounded in bar, so that SI ratings are whole steps of bar).
+ *
+ * @param demandFlowGpm gpm (> 0); @param boostPsi psi (> 0); @param units the unit system of the rated pressure
+ * @returns ratedFlowGpm in gpm; ratedPressure in `units` (psi or bar)
+ * Source: [NFPA 20] standard rated capacities (from memory); the steps are common practice.
+ * Worked value: 475 gpm, 21.3 psi, US → 500 gpm at 25 psi.
+ */
+export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitSystem): { ratedFlowGpm: number; ratedPressure: number } {
+  const step = units === "SI" ? RATED_PRESSURE_STEP_BAR : RATED_PRESSURE_STEP_PSI;
+  return { ratedFlowGpm: ratedCapacity(demandFlowGpm), ratedPressure: roundUpToStep(fromUS("pressure", boostPsi, units), step) };
 }
 
 /**

@@ -18,11 +18,8 @@ import {
   DEFAULT_OVERLOAD_RATIO,
   DEFAULT_SHUTOFF_RATIO,
   PumpEnvelopeError,
-  RATED_PRESSURE_STEP_BAR,
-  RATED_PRESSURE_STEP_PSI,
   pumpPressure,
-  ratedCapacity,
-  roundUpToStep,
+  pumpRating,
 } from "../engine/pump";
 import { type FrictionRateFn, type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
 import { solveAreaDemand } from "../engine/tree";
@@ -253,10 +250,8 @@ export function pumpSizeRow(demandFlow: unknown, boost: unknown, units: unknown)
   const q = quantityArg(demandFlow, "demand_flow", "flow", u);
   const b = quantityArg(boost, "boost", "pressure", u, { zero: true });
   if (b === 0) fail(`boost: got 0 ${unitName("pressure", u)}; no pump is needed (PUMPBOOST gives 0 where the supply suffices)`);
-  const step = u === "SI" ? RATED_PRESSURE_STEP_BAR : RATED_PRESSURE_STEP_PSI;
-  const ratedFlow = fromUS("flow", ratedCapacity(q), u);
-  const ratedPressure = roundUpToStep(fromUS("pressure", b, u), step);
-  return [[ratedFlow, ratedPressure]];
+  const rating = pumpRating(q, b, u);
+  return [[fromUS("flow", rating.ratedFlowGpm, u), rating.ratedPressure]];
 }
 
 /**

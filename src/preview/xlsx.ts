@@ -13,7 +13,7 @@
  * plot.
  */
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
-import { parseRange } from "../workbook/a1";
+import { cellAddress, parseRange } from "../workbook/a1";
 import { ROLE_STYLES } from "../workbook/template";
 import { fromFileFormula, toFileFormula } from "./formulaText";
 import type { CachedValue, CellData, CellRole, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
@@ -114,7 +114,7 @@ function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
   for (const m of (ws.model as { merges?: string[] }).merges ?? []) {
     const r = parseRange(m);
     for (let i = 0; i < r.rows; i++)
-      for (let k = 0; k < r.cols; k++) if (i || k) merged.add(addressOf(r.start.row + i, r.start.col + k));
+      for (let k = 0; k < r.cols; k++) if (i || k) merged.add(cellAddress({ row: r.start.row + i, col: r.start.col + k }));
   }
   ws.eachRow({ includeEmpty: false }, (row) =>
     row.eachCell({ includeEmpty: false }, (cell) => {
@@ -122,7 +122,7 @@ function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
       if (v && typeof v === "object" && v.shareType === "array" && v.ref && v.ref.includes(":")) {
         const r = parseRange(v.ref);
         for (let i = 0; i < r.rows; i++)
-          for (let k = 0; k < r.cols; k++) if (i || k) covered.add(addressOf(r.start.row + i, r.start.col + k));
+          for (let k = 0; k < r.cols; k++) if (i || k) covered.add(cellAddress({ row: r.start.row + i, col: r.start.col + k }));
       }
     }),
   );
@@ -177,16 +177,6 @@ function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
   return sheet;
 }
 
-function addressOf(row: number, col: number): string {
-  let n = col + 1;
-  let s = "";
-  while (n > 0) {
-    const r = (n - 1) % 26;
-    s = String.fromCharCode(65 + r) + s;
-    n = Math.floor((n - 1) / 26);
-  }
-  return `${s}${row + 1}`;
-}
 
 function styleOf(cell: Cell): CellStyle | undefined {
   const style: CellStyle = {};

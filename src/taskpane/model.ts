@@ -11,11 +11,8 @@ import {
   DEFAULT_OVERLOAD_RATIO,
   DEFAULT_SHUTOFF_RATIO,
   OVERLOAD_FLOW_RATIO,
-  RATED_PRESSURE_STEP_BAR,
-  RATED_PRESSURE_STEP_PSI,
   pumpPressure,
-  ratedCapacity,
-  roundUpToStep,
+  pumpRating,
 } from "../engine/pump";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
@@ -240,18 +237,12 @@ function trim(x: number): string {
 }
 
 /**
- * PUMPSIZE's rating for a demand flow and a boost, US units in and out: the smallest standard rated capacity not
- * below the demand flow, and the boost rounded up to the next 5 psi (0.5 bar in SI work, rounded in bar).
- * Source: [NFPA 20] standard rated capacities (from memory), via the engine (src/engine/pump.ts). The same steps as
- * PUMPSIZE (src/functions/solvers.ts); test/taskpane/model.test.ts holds the two together.
+ * PUMPSIZE's rating for a demand flow and a boost, US units in and out: the engine's pumpRating, which PUMPSIZE
+ * uses too (src/engine/pump.ts).
  */
 export function pumpSizeFor(demandFlowGpm: number, boostPsi: number, units: UnitSystem): PumpRating {
-  const ratedFlow = ratedCapacity(demandFlowGpm);
-  const ratedPressure =
-    units === "SI"
-      ? toUS("pressure", roundUpToStep(fromUS("pressure", boostPsi, "SI"), RATED_PRESSURE_STEP_BAR), "SI")
-      : roundUpToStep(boostPsi, RATED_PRESSURE_STEP_PSI);
-  return { ratedFlow, ratedPressure };
+  const r = pumpRating(demandFlowGpm, boostPsi, units);
+  return { ratedFlow: r.ratedFlowGpm, ratedPressure: toUS("pressure", r.ratedPressure, units) };
 }
 
 // ─── The picture ─────────────────────────────────────────────────────────────────────────────────────────────────
