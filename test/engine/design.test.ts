@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { HeadroomError } from "../../src/engine/errors";
+import { errorOf } from "./engineError";
 import {
   AREA_SPAN_SLACK,
   HAZARDS,
@@ -13,15 +13,6 @@ import {
   supplyDuration,
 } from "../../src/engine/design";
 
-function errorOf(f: () => unknown): HeadroomError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof HeadroomError) return e;
-    throw e;
-  }
-  throw new Error("expected a HeadroomError");
-}
 
 describe("hazard metadata", () => {
   it("has five hazards with names", () => {

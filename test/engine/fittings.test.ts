@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { HeadroomError } from "../../src/engine/errors";
+import { errorOf } from "./engineError";
 import {
   FITTING_CODES,
   FITTING_TABLE_SIZES,
@@ -10,15 +10,6 @@ import {
   tableLength,
 } from "../../src/engine/fittings";
 
-function errorOf(f: () => unknown): HeadroomError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof HeadroomError) return e;
-    throw e;
-  }
-  throw new Error("expected a HeadroomError");
-}
 
 describe("equivalent length table", () => {
   it("has seven fittings over fourteen sizes", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { HeadroomError } from "../../src/engine/errors";
+import { errorOf } from "./engineError";
 import {
   SCHEDULE_CODES,
   c900InternalDiameter,
@@ -13,15 +13,6 @@ import {
   scheduleSizes,
 } from "../../src/engine/pipes";
 
-function errorOf(f: () => unknown): HeadroomError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof HeadroomError) return e;
-    throw e;
-  }
-  throw new Error("expected a HeadroomError");
-}
 
 describe("pipe schedules", () => {
   it("lists the eight schedule codes of the vocabulary", () => {
