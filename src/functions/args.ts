@@ -104,9 +104,10 @@ export interface QuantityRule {
 }
 
 /** Rules shared by many calls (one object, not one per call: these checks run on every recalculation). */
-const NO_RULE: QuantityRule = Object.freeze({});
-export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true });
-export const SIGNED: QuantityRule = Object.freeze({ signed: true });
+// All three have both fields, so that the checks below see one object shape.
+const NO_RULE: QuantityRule = Object.freeze({ zero: false, signed: false });
+export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true, signed: false });
+export const SIGNED: QuantityRule = Object.freeze({ zero: false, signed: true });
 
 /**
  * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with

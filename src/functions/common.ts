@@ -6,7 +6,7 @@ import { fail, show } from "../engine/errors";
 import { MIN_SPRINKLER_PRESSURE_BAR, MIN_SPRINKLER_PRESSURE_PSI } from "../engine/sprinkler";
 import type { FlowTest } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { ZERO_ALLOWED, numberArg, optionalQuantityArg, quantityArg } from "./args";
+import { LIMITS_US, ZERO_ALLOWED, numberArg, optionalQuantityArg, quantityArg } from "./args";
 
 /** A US value shown in the user's units for a message: "1968 gpm", "4.83 bar". */
 export function showIn(quantity: Quantity, valueUS: number, u: UnitSystem): string {
@@ -18,6 +18,16 @@ export const MAX_C_FACTOR = 200;
 
 /** static, residual, test_flow of a hydrant flow test; residual must be below static. */
 export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unknown, u: UnitSystem): FlowTest {
+  // Fast path for the everyday call (plain numbers in US units, all in range): the same checks as below, written as
+  // comparisons (NaN and ±Infinity fail them and take the full path, which words the error).
+  if (
+    u === "US" &&
+    typeof staticP === "number" && typeof residual === "number" && typeof testFlow === "number" &&
+    staticP > 0 && staticP <= LIMITS_US.pressure && residual >= 0 && residual < staticP &&
+    testFlow > 0 && testFlow <= LIMITS_US.flow
+  ) {
+    return { static: staticP, residual, testFlow };
+  }
   const s = quantityArg(staticP, "static_pressure", "pressure", u);
   const r = quantityArg(residual, "residual", "pressure", u, ZERO_ALLOWED);
   const q = quantityArg(testFlow, "test_flow", "flow", u);

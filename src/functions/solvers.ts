@@ -24,7 +24,7 @@ import {
 import { type FrictionRateFn, type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
 import { solveAreaDemand } from "../engine/tree";
 import { type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { finiteResult, isBlank, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
+import { SIGNED, ZERO_ALLOWED, finiteResult, isBlank, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
 import { cellRow } from "./bridge";
 import { cFactorArg, flowTestArgs, minPressureArg, showIn } from "./common";
 import { scheduleArg } from "./tableCodes";
@@ -72,13 +72,13 @@ function readSegment(row: readonly unknown[], r: number, u: UnitSystem): Segment
   const cellAt = (i: number) => (i < row.length ? row[i] : null);
   const optional = (i: number, read: (v: unknown, n: string) => number) => (isBlank(cellAt(i)) ? 0 : read(cellAt(i), name(i)));
   return {
-    flow: quantityArg(cellAt(0), name(0), "flow", u, { zero: true }),
+    flow: quantityArg(cellAt(0), name(0), "flow", u, ZERO_ALLOWED),
     diameter: quantityArg(cellAt(1), name(1), "diameter", u),
     cFactor: cFactorArg(cellAt(2), name(2)),
-    length: quantityArg(cellAt(3), name(3), "length", u, { zero: true }),
-    fittingLength: optional(4, (v, n) => quantityArg(v, n, "length", u, { zero: true })),
-    rise: optional(5, (v, n) => quantityArg(v, n, "length", u, { signed: true })),
-    fixedLoss: optional(6, (v, n) => quantityArg(v, n, "pressure", u, { zero: true })),
+    length: quantityArg(cellAt(3), name(3), "length", u, ZERO_ALLOWED),
+    fittingLength: optional(4, (v, n) => quantityArg(v, n, "length", u, ZERO_ALLOWED)),
+    rise: optional(5, (v, n) => quantityArg(v, n, "length", u, SIGNED)),
+    fixedLoss: optional(6, (v, n) => quantityArg(v, n, "pressure", u, ZERO_ALLOWED)),
   };
 }
 
@@ -97,7 +97,7 @@ export function runRows(segments: unknown, startPressure: unknown, units: unknow
         `flow, diameter, c_factor, length, [fitting_length], [rise], [fixed_loss]`,
     );
   }
-  const start = optionalQuantityArg(startPressure, "start_pressure", "pressure", u, 0, { zero: true });
+  const start = optionalQuantityArg(startPressure, "start_pressure", "pressure", u, 0, ZERO_ALLOWED);
   const rate = frictionRateFor(u);
 
   const inputs: RunInput[] = [];
@@ -248,7 +248,7 @@ export function sizeFor(flow: unknown, length: unknown, cFactor: unknown, allowe
 export function pumpSizeRow(demandFlow: unknown, boost: unknown, units: unknown): unknown[][] {
   const u = unitsArg(units);
   const q = quantityArg(demandFlow, "demand_flow", "flow", u);
-  const b = quantityArg(boost, "boost", "pressure", u, { zero: true });
+  const b = quantityArg(boost, "boost", "pressure", u, ZERO_ALLOWED);
   if (b === 0) fail(`boost: got 0 ${unitName("pressure", u)}; no pump is needed (PUMPBOOST gives 0 where the supply suffices)`);
   const rating = pumpRating(q, b, u);
   return [[fromUS("flow", rating.ratedFlowGpm, u), rating.ratedPressure]];
@@ -269,7 +269,7 @@ export function pumpCurvePressure(
   units: unknown,
 ): number {
   const u = unitsArg(units);
-  const q = quantityArg(flow, "flow", "flow", u, { zero: true });
+  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
   const qr = quantityArg(ratedFlow, "rated_flow", "flow", u);
   const pr = quantityArg(ratedPressure, "rated_pressure", "pressure", u);
   const s = optionalNumberArg(shutoffRatio, "shutoff_ratio", DEFAULT_SHUTOFF_RATIO);
