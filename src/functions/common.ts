@@ -59,6 +59,11 @@ export function minPressureArg(value: unknown, u: UnitSystem): number {
   return optionalQuantityArg(value, "min_pressure", "pressure", u, fallback);
 }
 
+/** VERDICT's and PUMPBOOST's required_margin: a pressure, 0 or more, 0 when omitted (a visible input, never hidden). */
+export function requiredMarginArg(value: unknown, u: UnitSystem): number {
+  return optionalQuantityArg(value, "required_margin", "pressure", u, 0, ZERO_ALLOWED);
+}
+
 /** demand_flow, demand_pressure and the flow test. */
 export function demandArgs(
   demandFlow: unknown,

@@ -8,8 +8,8 @@
  * the vocabulary; never rename one without keeping the old name working.
  */
 import { cell } from "./bridge";
-import { LIMITS_US, SIGNED, ZERO_ALLOWED, finiteResult, numberArg, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
-import { demandArgs, flowTestArgs, minPressureArg, pipeArgs, showIn } from "./common";
+import { LIMITS_US, SIGNED, ZERO_ALLOWED, finiteResult, numberArg, optionalNumberArg, quantityArg, unitsArg } from "./args";
+import { demandArgs, flowTestArgs, minPressureArg, pipeArgs, requiredMarginArg, showIn } from "./common";
 import { convertUnit } from "./unit";
 import { assess, margin as supplyMargin, pumpBoost, verdictSentence } from "../engine/decision";
 import { elevationPressure, frictionRateIn, velocity as pipeVelocity } from "../engine/friction";
@@ -562,7 +562,7 @@ export function verdict(
   return cell(() => {
     const u = unitsArg(units);
     const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, ZERO_ALLOWED);
+    const m = requiredMarginArg(required_margin, u);
     return verdictSentence(assess(q, p, t, m), u);
   });
 }
@@ -592,7 +592,7 @@ export function pumpboost(
   return cell(() => {
     const u = unitsArg(units);
     const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    const m = optionalQuantityArg(required_margin, "required_margin", "pressure", u, 0, ZERO_ALLOWED);
+    const m = requiredMarginArg(required_margin, u);
     return fromUS("pressure", finiteResult(pumpBoost(q, p, t, m, u), "PUMPBOOST"), u);
   });
 }
