@@ -81,7 +81,7 @@ const ROW_OF_MATERIAL: Readonly<Record<Material, CFactorRow>> = {
 /** The table row a material reads (its description and both C values). */
 export function cFactorRow(material: Material): CFactorRow {
   const row = ROW_OF_MATERIAL[material];
-  if (!row) fail(`material: got ${JSON.stringify(material)}; must be one of ${MATERIAL_CODES.map((m) => `"${m}"`).join(", ")}`);
+  if (!row) fail("material", { cell: material }, `must be one of ${MATERIAL_CODES.map((m) => `"${m}"`).join(", ")}`);
   return row;
 }
 
@@ -94,6 +94,6 @@ export function cFactorRow(material: Material): CFactorRow {
  */
 export function hazenWilliamsC(material: Material, system: SystemType = "wet"): number {
   const row = cFactorRow(material);
-  if (system !== "wet" && system !== "dry") fail(`system: got ${JSON.stringify(system)}; must be "wet" or "dry"`);
+  if (system !== "wet" && system !== "dry") fail("system", { cell: system }, `must be "wet" or "dry"`);
   return row[system];
 }

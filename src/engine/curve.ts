@@ -1,7 +1,7 @@
 /**
  * Points of the water supply curve, ready for a chart. US units: gpm, psi.
  */
-import { fail, show } from "./errors";
+import { fail, n, q } from "./errors";
 import { HW_FLOW_EXPONENT } from "./friction";
 import { type FlowTest, checkFlowTest, exhaustionFlow } from "./supply";
 
@@ -34,9 +34,9 @@ export type CurvePoint = readonly [flow: number, pressure: number];
  */
 export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number): (CurvePoint | null)[] {
   checkFlowTest(t);
-  if (!(maxFlow > 0) || !Number.isFinite(maxFlow)) fail(`max_flow: got ${show(maxFlow)}; must be greater than 0`);
+  if (!(maxFlow > 0) || !Number.isFinite(maxFlow)) fail("max_flow", q("flow", maxFlow), "must be greater than 0");
   if (!(Number.isInteger(points) && points >= 2 && points <= SUPPLY_CURVE_MAX_POINTS)) {
-    fail(`points: got ${show(points)}; must be a whole number from 2 to ${SUPPLY_CURVE_MAX_POINTS}`);
+    fail("points", n(points), "must be a whole number from 2 to {0}", n(SUPPLY_CURVE_MAX_POINTS));
   }
   const qe = exhaustionFlow(t);
   const rows: (CurvePoint | null)[] = [];

@@ -2,7 +2,7 @@
  * The decision: does the water supply meet the sprinkler demand, by how much, and what must a pump add?
  * US units inside (gpm, psi); the sentence is written in the user's units.
  */
-import { fail, show } from "./errors";
+import { fail, q } from "./errors";
 import { type FlowTest, checkFlowTest, exhaustionFlow, supplyAt } from "./supply";
 import { type UnitSystem, fromUS, unitName } from "./units";
 
@@ -29,9 +29,9 @@ export interface Assessment {
  */
 export function assess(demandFlow: number, demandPressure: number, t: FlowTest, requiredMargin: number): Assessment {
   checkFlowTest(t);
-  if (!(demandFlow > 0)) fail(`demand_flow: got ${show(demandFlow)}; must be greater than 0`);
-  if (!(demandPressure >= 0)) fail(`demand_pressure: got ${show(demandPressure)}; must be 0 or more`);
-  if (!(requiredMargin >= 0)) fail(`required_margin: got ${show(requiredMargin)}; must be 0 or more`);
+  if (!(demandFlow > 0)) fail("demand_flow", q("flow", demandFlow), "must be greater than 0");
+  if (!(demandPressure >= 0)) fail("demand_pressure", q("pressure", demandPressure), "must be 0 or more");
+  if (!(requiredMargin >= 0)) fail("required_margin", q("pressure", requiredMargin), "must be 0 or more");
   const exhaustedAt = exhaustionFlow(t);
   if (demandFlow >= exhaustedAt) {
     return { demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure: null, margin: null, pumpNeeded: true };
@@ -41,9 +41,14 @@ export function assess(demandFlow: number, demandPressure: number, t: FlowTest, 
   return { demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure, margin, pumpNeeded: margin < requiredMargin };
 }
 
+/** The sentence of an exhausted supply, for VERDICT (flows rounded to whole units). */
 function exhaustedMessage(a: Assessment, units: UnitSystem): string {
-  const f = (q: number) => `${Math.round(fromUS("flow", q, units))} ${unitName("flow", units)}`;
-  return `the supply reaches 0 at ${f(a.exhaustedAt)}, below the demand flow of ${f(a.demandFlow)}`;
+  return `the supply reaches 0 at ${formatFlow(a.exhaustedAt, units)}, below the demand flow of ${formatFlow(a.demandFlow, units)}`;
+}
+
+/** The problem of a demand flow beyond the flow where the supply reaches 0, with what it prevents. */
+function exhausted(a: Assessment, consequence: string): never {
+  fail("demand_flow", q("flow", a.demandFlow), `this supply reaches {0} at {1}; ${consequence}`, q("pressure", 0), q("flow", a.exhaustedAt));
 }
 
 /**
@@ -51,9 +56,9 @@ function exhaustedMessage(a: Assessment, units: UnitSystem): string {
  * An error where the supply is exhausted before the demand flow: no pressure remains to compare.
  * Source: [NFPA 291]. Worked value: see assess → 20.0 psi.
  */
-export function margin(demandFlow: number, demandPressure: number, t: FlowTest, units: UnitSystem = "US"): number {
+export function margin(demandFlow: number, demandPressure: number, t: FlowTest): number {
   const a = assess(demandFlow, demandPressure, t, 0);
-  if (a.margin === null) fail(`demand_flow: ${exhaustedMessage(a, units)}; no margin exists`);
+  if (a.margin === null) exhausted(a, "no margin exists");
   return a.margin;
 }
 
@@ -63,11 +68,9 @@ export function margin(demandFlow: number, demandPressure: number, t: FlowTest, 
  * An error where the supply is exhausted before the demand flow: a pump cannot draw flow the main cannot deliver.
  * Worked value: 562 gpm at 80 psi, required margin 10, against supply 68.0 psi → 22.0 psi.
  */
-export function pumpBoost(demandFlow: number, demandPressure: number, t: FlowTest, requiredMargin: number, units: UnitSystem = "US"): number {
+export function pumpBoost(demandFlow: number, demandPressure: number, t: FlowTest, requiredMargin: number): number {
   const a = assess(demandFlow, demandPressure, t, requiredMargin);
-  if (a.supplyPressure === null) {
-    fail(`demand_flow: ${exhaustedMessage(a, units)}; a pump cannot draw more than the main delivers`);
-  }
+  if (a.supplyPressure === null) exhausted(a, "a pump cannot draw more than the main delivers");
   return Math.max(0, demandPressure + requiredMargin - a.supplyPressure);
 }
 

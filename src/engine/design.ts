@@ -6,7 +6,7 @@
  * vocabulary's (LH, OH1, OH2, EH1, EH2); plain-word aliases are matched in the cell layer
  * (src/functions/tableCodes.ts). HAZARDS is the metadata the task pane and the preview read.
  */
-import { fail } from "./errors";
+import { fail, q } from "./errors";
 
 /** Occupancy hazard codes: light, ordinary group 1 and 2, extra group 1 and 2. */
 export type Hazard = "LH" | "OH1" | "OH2" | "EH1" | "EH2";
@@ -101,7 +101,7 @@ export const AREA_SPAN_SLACK = 0.005;
 /** Design criteria of a hazard. Example: hazardInfo("OH2").name = "ordinary hazard group 2". */
 export function hazardInfo(hazard: Hazard): HazardInfo {
   const info = HAZARDS[hazard];
-  if (!info) fail(`hazard: got ${JSON.stringify(hazard)}; must be one of ${HAZARD_CODES.join(", ")}`);
+  if (!info) fail("hazard", { cell: hazard }, `must be one of ${HAZARD_CODES.join(", ")}`);
   return info;
 }
 
@@ -138,7 +138,7 @@ export function designDensity(hazard: Hazard, area?: number): number {
   if (area === undefined) return h.upper.density;
   const a = areaOnCurve(hazard, area);
   if (a === undefined) {
-    fail(`area: got ${area} ft²; the ${hazard} (${h.name}) curve spans ${h.upper.area} to ${h.lower.area} ft²`);
+    fail("area", q("area", area), `the ${hazard} (${h.name}) curve spans {0} to {1}`, q("area", h.upper.area), q("area", h.lower.area));
   }
   return h.upper.density + ((h.lower.density - h.upper.density) * (a - h.upper.area)) / (h.lower.area - h.upper.area);
 }
@@ -174,7 +174,7 @@ export function hoseAllowance(hazard: Hazard, part: HosePart = "total"): number 
     case "outside":
       return h.hoseTotal - inside;
     default:
-      fail(`part: got ${JSON.stringify(part)}; must be "total", "inside" or "outside"`);
+      fail("part", { cell: part }, `must be "total", "inside" or "outside"`);
   }
 }
 
@@ -188,6 +188,6 @@ export type DurationBound = "min" | "max";
  */
 export function supplyDuration(hazard: Hazard, bound: DurationBound = "min"): number {
   const h = hazardInfo(hazard);
-  if (bound !== "min" && bound !== "max") fail(`bound: got ${JSON.stringify(bound)}; must be "min" or "max"`);
+  if (bound !== "min" && bound !== "max") fail("bound", { cell: bound }, `must be "min" or "max"`);
   return h.duration[bound];
 }

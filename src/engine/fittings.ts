@@ -6,7 +6,8 @@
  * abbreviations of the standard's hydraulic calculation form; plain-word aliases ("elbow", "gate", ...) and lists
  * ("2E T GV") are read in the cell layer (src/functions/fittingList.ts).
  */
-import { fail, notInTable } from "./errors";
+import { fail, n, notInTable } from "./errors";
+import { HW_DIAMETER_EXPONENT, HW_FLOW_EXPONENT } from "./friction";
 import { type Schedule, findPipeSize, internalDiameter, listSizes, nominalLabel, scheduleInfo } from "./pipes";
 
 /** Fitting codes: 45° elbow, 90° standard elbow, 90° long-turn elbow, tee or cross (flow turned 90°), butterfly, gate and swing check valves. */
@@ -64,13 +65,15 @@ export function fittingSizes(fitting: Fitting): number[] {
  */
 export function tableLength(fitting: Fitting, nominal: number): number {
   const row = EQUIVALENT_LENGTH_FT[fitting];
-  if (!row) fail(`fitting: got ${JSON.stringify(fitting)}; must be one of ${FITTING_CODES.join(", ")}`);
+  if (!row) fail("fitting", { cell: fitting }, `must be one of ${FITTING_CODES.join(", ")}`);
   const i = FITTING_TABLE_SIZES.findIndex((s) => Math.abs(s - nominal) < 1e-9);
-  if (i < 0) fail(`nominal: got ${nominal}; the equivalent length table covers ${FITTING_TABLE_SIZES.map(nominalLabel).join(", ")} (in)`);
+  if (i < 0) fail("nominal", n(nominal, "in"), `the equivalent length table covers ${FITTING_TABLE_SIZES.map(nominalLabel).join(", ")} (in)`);
   const length = row[i];
   if (length === null) {
     notInTable(
-      `no equivalent length for a ${FITTING_NAMES[fitting]} (${fitting}) at ${nominalLabel(nominal)} in: the table has it at ${fittingSizes(fitting).map(nominalLabel).join(", ")} in`,
+      "nominal",
+      n(nominal, "in"),
+      `the equivalent length table has no ${FITTING_NAMES[fitting]} (${fitting}) at this size, only at ${fittingSizes(fitting).map(nominalLabel).join(", ")} in`,
     );
   }
   return length;
@@ -85,8 +88,8 @@ export function tableLength(fitting: Fitting, nominal: number): number {
  * Example: cFactorMultiplier(150) = (150/120)^1.85 = 1.25^1.85 = 1.5111.
  */
 export function cFactorMultiplier(cFactor: number): number {
-  if (!(cFactor > 0) || !Number.isFinite(cFactor)) fail(`c_factor: got ${cFactor}; must be greater than 0`);
-  return Math.pow(cFactor / TABLE_C_FACTOR, 1.85);
+  if (!(cFactor > 0) || !Number.isFinite(cFactor)) fail("c_factor", n(cFactor), "must be greater than 0");
+  return Math.pow(cFactor / TABLE_C_FACTOR, HW_FLOW_EXPONENT);
 }
 
 /**
@@ -100,8 +103,8 @@ export function cFactorMultiplier(cFactor: number): number {
 export function diameterMultiplier(nominal: number, schedule: Schedule): number {
   const actual = internalDiameter(nominal, schedule);
   const sch40 = findPipeSize(nominal, "40");
-  if (!sch40) fail(`nominal: got ${nominal}; Schedule 40 steel, the table's reference pipe, comes in ${listSizes("40")} (in)`);
-  return Math.pow(actual / sch40.id, 4.87);
+  if (!sch40) fail("nominal", n(nominal, "in"), `Schedule 40 steel, the table's reference pipe, comes in ${listSizes("40")} (in)`);
+  return Math.pow(actual / sch40.id, HW_DIAMETER_EXPONENT);
 }
 
 /**
@@ -117,7 +120,7 @@ export function diameterMultiplier(nominal: number, schedule: Schedule): number 
 export function equivalentLength(fitting: Fitting, nominal: number, cFactor: number = TABLE_C_FACTOR, schedule: Schedule = "40"): number {
   scheduleInfo(schedule);
   if (!findPipeSize(nominal, schedule)) {
-    fail(`nominal: got ${nominal}; ${scheduleInfo(schedule).name} comes in ${listSizes(schedule)} (in)`);
+    fail("nominal", n(nominal, "in"), `${scheduleInfo(schedule).name} comes in ${listSizes(schedule)} (in)`);
   }
   return tableLength(fitting, nominal) * cFactorMultiplier(cFactor) * diameterMultiplier(nominal, schedule);
 }

@@ -7,7 +7,7 @@
  *
  * Every value carries its source mark beside it, as ../shared/spec/reference.md marks it.
  */
-import { fail } from "./errors";
+import { fail, n, q } from "./errors";
 
 /** Schedule codes: steel Schedule 10 and 40, CPVC SDR 13.5, copper tube Types K/L/M, PVC C900 DR14 and DR18. */
 export type Schedule = "10" | "40" | "CPVC" | "K" | "L" | "M" | "DR14" | "DR18";
@@ -154,8 +154,8 @@ const C900_OUTSIDE_DIAMETER: ReadonlyArray<readonly [nps: number, od: number]> =
  * Example: 6 in DR14: 6.90 × (1 − 2/14) = 6.90 × 12/14 = 5.9143 in.
  */
 export function c900InternalDiameter(outsideDiameter: number, dimensionRatio: number): number {
-  if (!(outsideDiameter > 0)) fail(`outside diameter: got ${outsideDiameter} in; must be greater than 0`);
-  if (!(dimensionRatio > 2)) fail(`dimension ratio: got ${dimensionRatio}; must be greater than 2`);
+  if (!(outsideDiameter > 0)) fail("outside_diameter", q("diameter", outsideDiameter), "must be greater than 0");
+  if (!(dimensionRatio > 2)) fail("dimension_ratio", n(dimensionRatio), "must be greater than 2");
   return outsideDiameter * (1 - 2 / dimensionRatio);
 }
 
@@ -227,7 +227,7 @@ const SCHEDULE_TABLE: Readonly<Record<Schedule, ScheduleInfo>> = {
 /** Name, source and sizes of a schedule. Example: scheduleInfo("40").name = "Schedule 40 steel". */
 export function scheduleInfo(schedule: Schedule): ScheduleInfo {
   const info = SCHEDULE_TABLE[schedule];
-  if (!info) fail(`schedule: got ${JSON.stringify(schedule)}; must be one of ${SCHEDULE_CODES.map((c) => `"${c}"`).join(", ")}`);
+  if (!info) fail("schedule", { cell: schedule }, `must be one of ${SCHEDULE_CODES.map((c) => `"${c}"`).join(", ")}`);
   return info;
 }
 
@@ -264,7 +264,7 @@ export function listSizes(schedule: Schedule, dn = false): string {
 export function internalDiameter(nominal: number, schedule: Schedule): number {
   const row = findPipeSize(nominal, schedule);
   if (!row) {
-    fail(`nominal: got ${nominal}; ${scheduleInfo(schedule).name} comes in ${listSizes(schedule)} (in)`);
+    fail("nominal", n(nominal, "in"), `${scheduleInfo(schedule).name} comes in ${listSizes(schedule)} (in)`);
   }
   return row.id;
 }

@@ -2,7 +2,7 @@
  * Fire pumps: picking a standard rating for a demand, and the pressure a pump gives along its curve.
  * US units: gpm, psi.
  */
-import { HeadroomError, fail, notInTable, show } from "./errors";
+import { fail, n, notInTable, outsideEnvelope, q } from "./errors";
 import { ceilCount } from "./sprinkler";
 import { type UnitSystem, fromUS } from "./units";
 
@@ -38,12 +38,12 @@ export const DEFAULT_OVERLOAD_RATIO = 0.7;
  * Source: [NFPA 20] standard rated capacities (from memory). Worked value: 562 gpm → 750 gpm; 500 gpm → 500 gpm.
  */
 export function ratedCapacity(demandFlow: number): number {
-  if (!(demandFlow > 0) || !Number.isFinite(demandFlow)) fail(`demand_flow: got ${show(demandFlow)}; must be greater than 0`);
+  if (!(demandFlow > 0) || !Number.isFinite(demandFlow)) fail("demand_flow", q("flow", demandFlow), "must be greater than 0");
   const tolerance = 1e-9 * demandFlow; // a flow converted from L/min may land a hair above a rating
   const found = STANDARD_RATED_CAPACITIES_GPM.find((c) => c >= demandFlow - tolerance);
   if (found === undefined) {
     const largest = STANDARD_RATED_CAPACITIES_GPM[STANDARD_RATED_CAPACITIES_GPM.length - 1];
-    notInTable(`demand_flow: got ${show(demandFlow)} gpm; the standard rated capacities go up to ${largest} gpm: split the demand between pumps`);
+    notInTable("demand_flow", q("flow", demandFlow), "the standard rated capacities go up to {0}: split the demand between pumps", q("flow", largest));
   }
   return found;
 }
@@ -57,8 +57,8 @@ export function ratedCapacity(demandFlow: number): number {
  * Worked value: 22.0 psi in 5 psi steps → 25 psi; 25 psi → 25 psi; 1.52 bar in 0.5 bar steps → 2.0 bar.
  */
 export function roundUpToStep(value: number, step: number): number {
-  if (!(step > 0)) fail(`step: got ${show(step)}; must be greater than 0`);
-  if (!(value >= 0) || !Number.isFinite(value)) fail(`value: got ${show(value)}; must be 0 or more`);
+  if (!(step > 0)) fail("step", n(step), "must be greater than 0");
+  if (!(value >= 0) || !Number.isFinite(value)) fail("value", n(value), "must be 0 or more");
   return step * ceilCount(value / step);
 }
 
@@ -86,7 +86,7 @@ export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitS
  * the curve rises a little (to 1.2042 Pr at x = 0.125) before it falls; that is the parabola through those points.
  *
  * Inputs are held to the centrifugal fire pump envelope: 1 < s ≤ 1.4 and 0.65 ≤ o < 1; flow from 0 to 1.5 Qr.
- * Outside that a PumpEnvelopeError is thrown (the cell layer shows it as `#NUM!`).
+ * Outside that the error is of kind "number" (`#NUM!` in a cell).
  *
  * @param flow Q, gpm (≥ 0, at most 1.5 Qr)
  * @param ratedFlow Qr, gpm (> 0); @param ratedPressure Pr, psi (> 0)
@@ -97,15 +97,13 @@ export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitS
  * 750 gpm → 70 psi.
  */
 export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: number, shutoffRatio: number, overloadRatio: number): number {
-  if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail(`rated_flow: got ${show(ratedFlow)}; must be greater than 0`);
-  if (!(ratedPressure > 0) || !Number.isFinite(ratedPressure)) fail(`rated_pressure: got ${show(ratedPressure)}; must be greater than 0`);
-  if (!(flow >= 0) || !Number.isFinite(flow)) fail(`flow: got ${show(flow)}; must be 0 or more`);
+  if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail("rated_flow", q("flow", ratedFlow), "must be greater than 0");
+  if (!(ratedPressure > 0) || !Number.isFinite(ratedPressure)) fail("rated_pressure", q("pressure", ratedPressure), "must be greater than 0");
+  if (!(flow >= 0) || !Number.isFinite(flow)) fail("flow", q("flow", flow), "must be 0 or more");
   const [a, b, c] = pumpCurveShape(shutoffRatio, overloadRatio);
   const x = flow / ratedFlow;
   if (x > OVERLOAD_FLOW_RATIO * (1 + 1e-9)) {
-    throw new PumpEnvelopeError(
-      `flow: got ${show(Math.round(x * 1000) / 10)} % of rated flow; a fire pump curve runs from 0 to 150 % of rated flow`,
-    );
+    outsideEnvelope("flow", n(Math.round(x * 1000) / 10, "% of rated flow"), "a fire pump curve runs from 0 to 150 % of rated flow");
   }
   return ratedPressure * (a + b * x + c * x * x);
 }
@@ -117,13 +115,19 @@ export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: num
  */
 export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [number, number, number] {
   if (!(shutoffRatio > 1 && shutoffRatio <= MAX_SHUTOFF_RATIO)) {
-    throw new PumpEnvelopeError(
-      `shutoff_ratio: got ${show(shutoffRatio)}; a fire pump's shutoff pressure must be above rated pressure and at most ${MAX_SHUTOFF_RATIO} × rated`,
+    outsideEnvelope(
+      "shutoff_ratio",
+      n(shutoffRatio),
+      "a fire pump's shutoff pressure must be above rated pressure and at most {0} × rated",
+      n(MAX_SHUTOFF_RATIO),
     );
   }
   if (!(overloadRatio >= MIN_OVERLOAD_RATIO && overloadRatio < 1)) {
-    throw new PumpEnvelopeError(
-      `overload_ratio: got ${show(overloadRatio)}; at 150 % of rated flow a fire pump gives at least ${MIN_OVERLOAD_RATIO} × rated pressure and less than rated`,
+    outsideEnvelope(
+      "overload_ratio",
+      n(overloadRatio),
+      "at 150 % of rated flow a fire pump gives at least {0} × rated pressure and less than rated",
+      n(MIN_OVERLOAD_RATIO),
     );
   }
   const x2 = OVERLOAD_FLOW_RATIO;
@@ -131,16 +135,4 @@ export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [nu
   const c = (overloadRatio - shutoffRatio - (1 - shutoffRatio) * x2) / (x2 * x2 - x2);
   const b = 1 - shutoffRatio - c;
   return [shutoffRatio, b, c];
-}
-
-/**
- * An input outside the centrifugal fire pump envelope [NFPA 20]: a flow beyond 150 % of rated, or a shutoff or
- * overload ratio the envelope does not allow. Its kind is "value" so that, if nothing maps it, it still reaches a
- * cell as `#VALUE!` with its message; PUMPCURVE maps it to `#NUM!` as the vocabulary says.
- */
-export class PumpEnvelopeError extends HeadroomError {
-  constructor(message: string) {
-    super("value", message);
-    this.name = "PumpEnvelopeError";
-  }
 }

@@ -11,7 +11,7 @@
  * A segment's rise is the height the water climbs through it on its way to the design area (negative for a drop,
  * which gives a gain).
  */
-import { fail, show } from "./errors";
+import { fail, n, q } from "./errors";
 import { elevationPressure, frictionRate } from "./friction";
 
 /** A Hazen-Williams loss rate: psi per ft for a flow (gpm) in a pipe of internal diameter (in) and C. */
@@ -58,13 +58,13 @@ export interface SegmentLosses {
  * friction 0.07178 × 100 = 7.18 psi, elevation 4.33 psi, fixed 5 psi.
  */
 export function segmentLosses(s: Segment, rate: FrictionRateFn = frictionRate): SegmentLosses {
-  if (!(s.flow >= 0)) fail(`flow: got ${show(s.flow)}; must be 0 or more`);
-  if (!(s.diameter > 0)) fail(`diameter: got ${show(s.diameter)}; must be greater than 0`);
-  if (!(s.cFactor > 0)) fail(`c_factor: got ${show(s.cFactor)}; must be greater than 0`);
-  if (!(s.length >= 0)) fail(`length: got ${show(s.length)}; must be 0 or more`);
-  if (!(s.fittingLength >= 0)) fail(`fitting_length: got ${show(s.fittingLength)}; must be 0 or more`);
-  if (!Number.isFinite(s.rise)) fail(`rise: got ${show(s.rise)}; must be a finite number`);
-  if (!(s.fixedLoss >= 0)) fail(`fixed_loss: got ${show(s.fixedLoss)}; must be 0 or more`);
+  if (!(s.flow >= 0)) fail("flow", q("flow", s.flow), "must be 0 or more");
+  if (!(s.diameter > 0)) fail("diameter", q("diameter", s.diameter), "must be greater than 0");
+  if (!(s.cFactor > 0)) fail("c_factor", n(s.cFactor), "must be greater than 0");
+  if (!(s.length >= 0)) fail("length", q("length", s.length), "must be 0 or more");
+  if (!(s.fittingLength >= 0)) fail("fitting_length", q("length", s.fittingLength), "must be 0 or more");
+  if (!Number.isFinite(s.rise)) fail("rise", q("length", s.rise), "must be a finite number");
+  if (!(s.fixedLoss >= 0)) fail("fixed_loss", q("pressure", s.fixedLoss), "must be 0 or more");
   return {
     friction: rate(s.flow, s.diameter, s.cFactor) * (s.length + s.fittingLength),
     elevation: elevationPressure(s.rise),
@@ -104,7 +104,7 @@ export type RunStep =
  * Worked value: start 40 psi; segments of 7.18 + 4.33 + 5 and 2 + (−4.33) + 0 psi → 56.51 psi, then 54.18 psi.
  */
 export function walkRun(start: number, rows: readonly RunInput[]): RunStep[] {
-  if (!(start >= 0)) fail(`start_pressure: got ${show(start)}; must be 0 or more`);
+  if (!(start >= 0)) fail("start_pressure", q("pressure", start), "must be 0 or more");
   let pressure = start;
   let brokenBy: number | null = null;
   return rows.map((row, i): RunStep => {

@@ -2,7 +2,7 @@
  * The water supply: the supply curve through a hydrant flow test, and hydrant outlet flow from a pitot reading.
  * US units: gpm, psi, in. All pressures are gauge.
  */
-import { fail, show } from "./errors";
+import { fail, q } from "./errors";
 import { HW_FLOW_EXPONENT } from "./friction";
 
 /** A hydrant flow test: static pressure, residual pressure at the test flow. */
@@ -17,12 +17,12 @@ export interface FlowTest {
 
 /** Check a flow test: static > residual ≥ 0, test flow > 0. */
 export function checkFlowTest(t: FlowTest): void {
-  if (!(t.static > 0)) fail(`static_pressure: got ${show(t.static)}; must be greater than 0`);
-  if (!(t.residual >= 0)) fail(`residual: got ${show(t.residual)}; must be 0 or more`);
+  if (!(t.static > 0)) fail("static_pressure", q("pressure", t.static), "must be greater than 0");
+  if (!(t.residual >= 0)) fail("residual", q("pressure", t.residual), "must be 0 or more");
   if (!(t.residual < t.static)) {
-    fail(`residual: got ${show(t.residual)}, static_pressure ${show(t.static)}; the residual must be below the static pressure`);
+    fail("residual", q("pressure", t.residual), "must be below the static pressure {0}", q("pressure", t.static));
   }
-  if (!(t.testFlow > 0)) fail(`test_flow: got ${show(t.testFlow)}; must be greater than 0`);
+  if (!(t.testFlow > 0)) fail("test_flow", q("flow", t.testFlow), "must be greater than 0");
 }
 
 /**
@@ -53,10 +53,10 @@ export function supplyCurve(flow: number, t: FlowTest): number {
  */
 export function supplyAt(flow: number, t: FlowTest): number {
   checkFlowTest(t);
-  if (!(flow >= 0)) fail(`flow: got ${show(flow)}; must be 0 or more`);
+  if (!(flow >= 0)) fail("flow", q("flow", flow), "must be 0 or more");
   const p = supplyCurve(flow, t);
   if (!(p > 0)) {
-    fail(`flow: got ${show(flow)}; the supply reaches 0 at ${show(Math.round(exhaustionFlow(t)))} and cannot deliver more`);
+    fail("flow", q("flow", flow), "this supply reaches {0} at {1}", q("pressure", 0), q("flow", exhaustionFlow(t)));
   }
   return p;
 }
@@ -75,7 +75,7 @@ export function supplyAt(flow: number, t: FlowTest): number {
 export function flowAt(pressure: number, t: FlowTest): number {
   checkFlowTest(t);
   if (!(pressure >= 0 && pressure <= t.static)) {
-    fail(`pressure: got ${show(pressure)}; must be from 0 to the static pressure ${show(t.static)}`);
+    fail("pressure", q("pressure", pressure), "must be from 0 to the static pressure {0}", q("pressure", t.static));
   }
   return t.testFlow * Math.pow((t.static - pressure) / (t.static - t.residual), 1 / HW_FLOW_EXPONENT);
 }

@@ -20,9 +20,10 @@
  * A line fed at P instead of P_line flows as the solved line scaled by √(P / P_line): every sprinkler's pressure is
  * multiplied by P / P_line and its flow by √(P / P_line), so each still flows K √p and the line totals K_line √P.
  */
-import { fail, show } from "./errors";
+import { fail, n, q } from "./errors";
 import { frictionRate } from "./friction";
 import type { FrictionRateFn } from "./run";
+import type { Quantity } from "./units";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headDischarge, headFlow, headPressure, headsPerLine } from "./sprinkler";
 
 /** The inputs of a design-area solve, US units. */
@@ -114,21 +115,22 @@ function solveLine(count: number, q1: number, p1: number, inp: AreaDemandInput, 
 }
 
 function checkInput(inp: AreaDemandInput): void {
-  const positive: Array<[keyof AreaDemandInput, string]> = [
-    ["density", "density"],
-    ["area", "area"],
-    ["coverage", "coverage"],
-    ["kFactor", "k_factor"],
-    ["headSpacing", "head_spacing"],
-    ["branchDiameter", "branch_diameter"],
-    ["mainDiameter", "main_diameter"],
-    ["cFactor", "c_factor"],
-    ["minPressure", "min_pressure"],
+  const positive: Array<[keyof AreaDemandInput, string, Quantity | null]> = [
+    ["density", "density", "density"],
+    ["area", "area", "area"],
+    ["coverage", "coverage", "area"],
+    ["kFactor", "k_factor", "kfactor"],
+    ["headSpacing", "head_spacing", "length"],
+    ["branchDiameter", "branch_diameter", "diameter"],
+    ["mainDiameter", "main_diameter", "diameter"],
+    ["cFactor", "c_factor", null],
+    ["minPressure", "min_pressure", "pressure"],
   ];
-  for (const [key, name] of positive) {
+  for (const [key, name, quantity] of positive) {
     const v = inp[key];
-    if (!(v > 0) || !Number.isFinite(v)) fail(`${name}: got ${show(v)}; must be greater than 0`);
+    if (!(v > 0) || !Number.isFinite(v)) fail(name, quantity ? q(quantity, v) : n(v), "must be greater than 0");
   }
+  if (inp.coverage > inp.area) fail("coverage", q("area", inp.coverage), "must not exceed the design area {0}", q("area", inp.area));
 }
 
 /**
@@ -179,7 +181,8 @@ export function solveAreaDemand(inp: AreaDemandInput, rate: FrictionRateFn = fri
     flow += lineFlow;
   }
   if (!Number.isFinite(flow) || !Number.isFinite(pressure)) {
-    fail(`AREADEMAND: the inputs give no finite result (a pipe far too small for the flow?); check the diameters`);
+    const [name, d] = Number.isFinite(full.inletPressure) ? ["main_diameter", inp.mainDiameter] : ["branch_diameter", inp.branchDiameter];
+    fail(name, q("diameter", d), "is far too small for the flow: the friction loss has no finite value");
   }
   const result: AreaDemand = { flow, pressure, heads: n, lines, endPressure: p1, headsPerLine: m, lineSpacing, lineFlows, linePressures };
   if (detail) result.sprinklers = sprinklers;

@@ -6,8 +6,8 @@
  * numbers as numbers and text as text; every cell-function parameter is typed `any` so that this module, not the
  * host, decides what a value means. An empty required argument is an error that says so, never a zero.
  */
-import { HeadroomError, fail, show } from "../engine/errors";
-import { type Quantity, type UnitSystem, QUANTITIES, fromUS, toUS, unitName } from "../engine/units";
+import { HeadroomError, fail, n, q, show } from "../engine/errors";
+import { type Quantity, type UnitSystem, QUANTITIES, toUS } from "../engine/units";
 
 /**
  * The largest value each quantity may take, in US units. These are plausibility bounds of the trade, not design
@@ -25,6 +25,15 @@ export const LIMITS_US: Record<Quantity, number> = {
   velocity: 1_000, // ft/s (output only)
 };
 
+/**
+ * The smallest value a quantity that must be greater than 0 may take, in US units, where a smaller one could only be
+ * a slip and would make a result overflow (d^4.87 or K² in a divisor). (common practice)
+ */
+export const FLOORS_US: Partial<Record<Quantity, number>> = {
+  diameter: 0.1, // in: below every pipe and outlet bore of the trade
+  kfactor: 0.1, // gpm/psi^0.5: below every sprinkler K-factor
+};
+
 /** True when a cell value stands for "nothing here": an omitted argument, an empty cell or empty text. */
 export function isBlank(value: unknown): boolean {
   return value === null || value === undefined || (typeof value === "string" && value.trim() === "");
@@ -34,10 +43,10 @@ const NUMERIC_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)(e[+-]?\d+)?$/i;
 
 /** Any cell value as a finite number, or an error naming `name`. Numeric text ("12.5") is accepted. */
 export function toNumber(value: unknown, name: string): number {
-  if (isBlank(value)) fail(`${name} is empty: type a number`);
+  if (isBlank(value)) fail(name, undefined, "is empty: type a number");
   if (typeof value === "number") {
     if (Number.isFinite(value)) return value;
-    fail(`${name}: got ${show(value)}; must be a finite number`);
+    fail(name, { cell: value }, "must be a finite number");
   }
   if (typeof value === "string") {
     const t = value.trim();
@@ -45,11 +54,11 @@ export function toNumber(value: unknown, name: string): number {
       const n = Number(t);
       if (Number.isFinite(n)) return n;
     }
-    fail(`${name}: got ${show(value)}; must be a number`);
+    fail(name, { cell: value }, "must be a number");
   }
-  if (typeof value === "boolean") fail(`${name}: got ${show(value)}; must be a number, not TRUE/FALSE`);
-  if (Array.isArray(value)) fail(`${name}: got a range; must be a single value`);
-  fail(`${name}: got ${show(value)}; must be a number`);
+  if (typeof value === "boolean") fail(name, { cell: value }, "must be a number, not TRUE/FALSE");
+  if (Array.isArray(value)) fail(name, { cell: value }, "must be a single value");
+  fail(name, { cell: value }, "must be a number");
 }
 
 export interface NumberRule {
@@ -87,8 +96,8 @@ export function numberArg(value: unknown, name: string, rule: NumberRule = NO_NU
     (rule.min !== undefined && !(x >= rule.min)) ||
     (rule.max !== undefined && !(x <= rule.max)) ||
     (rule.integer === true && !Number.isInteger(x));
-  if (bad) fail(`${name}: got ${show(x)}${rule.unit ? " " + rule.unit : ""}; must be ${describeRule(rule)}`);
-  return x;
+  if (bad) fail(name, n(x, rule.unit), `must be ${describeRule(rule)}`);
+  return x === 0 ? 0 : x; // never −0
 }
 
 /** Like numberArg, but an omitted or empty argument gives `fallback`. */
@@ -101,13 +110,15 @@ export interface QuantityRule {
   zero?: boolean;
   /** negative values are allowed (a rise may be a drop) */
   signed?: boolean;
+  /** the smallest value allowed, US units, where it is not 0 (overrides FLOORS_US) */
+  min?: number;
 }
 
 /** Rules shared by many calls (one object, not one per call: these checks run on every recalculation). */
-// All three have both fields, so that the checks below see one object shape.
-const NO_RULE: QuantityRule = Object.freeze({ zero: false, signed: false });
-export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true, signed: false });
-export const SIGNED: QuantityRule = Object.freeze({ zero: false, signed: true });
+// All three have every field, so that the checks below see one object shape.
+const NO_RULE: QuantityRule = Object.freeze({ zero: false, signed: false, min: undefined });
+export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true, signed: false, min: undefined });
+export const SIGNED: QuantityRule = Object.freeze({ zero: false, signed: true, min: undefined });
 
 /**
  * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with
@@ -117,21 +128,21 @@ export function quantityArg(value: unknown, name: string, quantity: Quantity, un
   const given = typeof value === "number" && Number.isFinite(value) ? value : toNumber(value, name);
   const us = units === "SI" ? toUS(quantity, given, units) : given;
   const limitUS = LIMITS_US[quantity];
-  const inRange = rule.signed ? us >= -limitUS && us <= limitUS : (rule.zero ? us >= 0 : us > 0) && us <= limitUS;
-  if (!inRange) quantityOutOfRange(given, name, quantity, units, rule);
-  return us;
+  const inRange = rule.signed
+    ? us >= -limitUS && us <= limitUS
+    : (rule.zero ? us >= 0 : us > 0 && us >= (rule.min ?? FLOORS_US[quantity] ?? 0)) && us <= limitUS;
+  if (!inRange) quantityOutOfRange(us, name, quantity, rule);
+  return us === 0 ? 0 : us; // never −0
 }
 
-/** The message for a quantity outside its allowed span, in the user's units (kept off the fast path). */
-function quantityOutOfRange(given: number, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule): never {
-  const limit = Number(fromUS(quantity, LIMITS_US[quantity], units).toPrecision(6));
-  const u = unitName(quantity, units);
-  const allowed = rule.signed
-    ? `from ${show(-limit)} to ${show(limit)} ${u}`
-    : rule.zero
-      ? `from 0 to ${show(limit)} ${u}`
-      : `greater than 0 and at most ${show(limit)} ${u}`;
-  fail(`${name}: got ${show(given)} ${u}; must be ${allowed}`);
+/** The problem of a quantity outside its allowed span (kept off the fast path); limits are stated in US units. */
+function quantityOutOfRange(us: number, name: string, quantity: Quantity, rule: QuantityRule): never {
+  const limit = q(quantity, LIMITS_US[quantity]);
+  if (rule.signed) fail(name, q(quantity, us), "must be from {0} to {1}", q(quantity, -LIMITS_US[quantity]), limit);
+  if (rule.zero) fail(name, q(quantity, us), "must be from 0 to {0}", limit);
+  const floor = rule.min ?? FLOORS_US[quantity];
+  if (floor !== undefined) fail(name, q(quantity, us), "must be from {0} to {1}", q(quantity, floor), limit);
+  fail(name, q(quantity, us), "must be greater than 0 and at most {0}", limit);
 }
 
 /** Like quantityArg, but an omitted or empty argument gives `fallbackUS` (already in US units). */
@@ -141,7 +152,7 @@ export function optionalQuantityArg(
   quantity: Quantity,
   units: UnitSystem,
   fallbackUS: number,
-  rule: QuantityRule = {},
+  rule: QuantityRule = NO_RULE,
 ): number {
   return isBlank(value) ? fallbackUS : quantityArg(value, name, quantity, units, rule);
 }
@@ -158,13 +169,13 @@ export function normaliseText(value: string): string {
 export function codeArg<C extends string>(value: unknown, name: string, codes: Record<C, readonly string[]>): C {
   const list = Object.keys(codes) as C[];
   const allowed = list.map((c) => `"${c}"`).join(", ");
-  if (isBlank(value)) fail(`${name} is empty: type one of ${allowed}`);
-  if (typeof value !== "string" && typeof value !== "number") fail(`${name}: got ${show(value)}; must be one of ${allowed}`);
+  if (isBlank(value)) fail(name, undefined, `is empty: type one of ${allowed}`);
+  if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${allowed}`);
   const t = normaliseText(String(value));
   for (const c of list) {
     if (normaliseText(c) === t || codes[c].some((a) => normaliseText(a) === t)) return c;
   }
-  fail(`${name}: got ${show(value)}; must be one of ${allowed}`);
+  fail(name, { cell: value }, `must be one of ${allowed}`);
 }
 
 /** Like codeArg, but an omitted or empty argument gives `fallback`. */
@@ -176,13 +187,6 @@ export function optionalCodeArg<C extends string>(value: unknown, name: string, 
 export function unitsArg(value: unknown): UnitSystem {
   if (value === null || value === undefined) return "US"; // the common case, without a code look-up
   return optionalCodeArg<UnitSystem>(value, "units", { US: ["us", "imperial", "customary"], SI: ["si", "metric"] }, "US");
-}
-
-/** Check an engine result before it leaves for a cell: a finite number, and not negative unless `signed`. */
-export function finiteResult(x: number, what: string, signed = false): number {
-  if (!Number.isFinite(x)) fail(`${what}: the inputs give no finite result; check their magnitudes`);
-  if (!signed && x < 0) fail(`${what}: the inputs give a negative result (${show(x)}); check them`);
-  return x;
 }
 
 export { HeadroomError, QUANTITIES };

@@ -1,40 +1,69 @@
 /**
- * The one place that turns an engine or argument error into the host's error type.
+ * The one place that turns an engine or argument problem into the host's error: the message in the user's units
+ * (`HeadroomError.messageIn`, one formatter for the whole add-in) and the error type its kind asks for.
  *
  * In Excel, `CustomFunctions` is the runtime's global. In the unit tests and in the preview host a small stand-in of
  * the same shape is installed (test/setup.ts, src/preview/customFunctionsShim.ts), so this file is the same everywhere.
  */
-import { HeadroomError } from "../engine/errors";
+import { HeadroomError, type HeadroomErrorKind } from "../engine/errors";
+import type { UnitSystem } from "../engine/units";
+import { unitsArg } from "./args";
 
-/** Map a thrown value to a CustomFunctions.Error: HeadroomError keeps its kind and message; anything else is #VALUE!. */
-export function toCellError(e: unknown): CustomFunctions.Error {
-  if (e instanceof CustomFunctions.Error) return e;
-  if (e instanceof HeadroomError) {
-    const code = e.kind === "na" ? CustomFunctions.ErrorCode.notAvailable : CustomFunctions.ErrorCode.invalidValue;
-    return new CustomFunctions.Error(code, e.message);
+/** The host error code of each kind of problem. */
+function errorCode(kind: HeadroomErrorKind): CustomFunctions.ErrorCode {
+  switch (kind) {
+    case "na":
+      return CustomFunctions.ErrorCode.notAvailable;
+    case "number":
+    case "converge":
+      return CustomFunctions.ErrorCode.invalidNumber;
+    default:
+      return CustomFunctions.ErrorCode.invalidValue;
   }
-  const message = e instanceof Error ? e.message : String(e);
-  return new CustomFunctions.Error(CustomFunctions.ErrorCode.invalidValue, `unexpected error: ${message}`);
 }
 
-/** Run a cell function's body; any error leaves as a CustomFunctions.Error with its message. */
-export function cell<T>(body: () => T): T {
+/** The one-line message of any thrown value, in `units`: a problem's own words, anything else said as unexpected. */
+export function messageOf(e: unknown, units: UnitSystem): string {
+  if (e instanceof HeadroomError) return e.messageIn(units);
+  if (e instanceof CustomFunctions.Error) return e.message ?? "";
+  return `unexpected error: ${e instanceof Error ? e.message : String(e)}`;
+}
+
+/** Map a thrown value to a CustomFunctions.Error with its message in `units`; anything unforeseen is #VALUE!. */
+export function toCellError(e: unknown, units: UnitSystem = "US"): CustomFunctions.Error {
+  if (e instanceof CustomFunctions.Error) return e;
+  const code = e instanceof HeadroomError ? errorCode(e.kind) : CustomFunctions.ErrorCode.invalidValue;
+  return new CustomFunctions.Error(code, messageOf(e, units));
+}
+
+/**
+ * Run a cell function's body with its `[units]` argument read first; any problem leaves as a CustomFunctions.Error
+ * whose message speaks those units (a problem with `units` itself is said in US terms).
+ */
+export function cell<T>(units: unknown, body: (u: UnitSystem) => T): T {
+  let u: UnitSystem = "US";
   try {
-    return body();
+    u = unitsArg(units);
+    const result = body(u);
+    return (result === 0 ? 0 : result) as T; // never −0
   } catch (e) {
-    throw toCellError(e);
+    throw toCellError(e, u);
   }
 }
 
 /**
- * For spilling functions: run one row's body; an error becomes an error value in each of that row's `width` cells,
+ * For spilling functions: run one row's body; a problem becomes an error value in each of that row's `width` cells,
  * so the other rows still compute.
  */
-export function cellRow(width: number, body: () => (number | string)[]): (number | string | CustomFunctions.Error)[] {
+export function cellRow(
+  width: number,
+  units: UnitSystem,
+  body: () => (number | string)[],
+): (number | string | CustomFunctions.Error)[] {
   try {
     return body();
   } catch (e) {
-    const err = toCellError(e);
+    const err = toCellError(e, units);
     return Array.from({ length: width }, () => err);
   }
 }

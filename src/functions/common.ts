@@ -2,19 +2,15 @@
  * Argument groups that several cell functions share: a flow test, a pipe, a demand point, a minimum pressure.
  * Each returns US values and throws a HeadroomError naming the argument at fault.
  */
-import { fail, show } from "../engine/errors";
 import { MIN_SPRINKLER_PRESSURE_BAR, MIN_SPRINKLER_PRESSURE_PSI } from "../engine/sprinkler";
-import type { FlowTest } from "../engine/supply";
-import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
+import { type FlowTest, checkFlowTest } from "../engine/supply";
+import { type UnitSystem, toUS } from "../engine/units";
 import { LIMITS_US, ZERO_ALLOWED, numberArg, optionalQuantityArg, quantityArg } from "./args";
-
-/** A US value shown in the user's units for a message: "1968 gpm", "4.83 bar". */
-export function showIn(quantity: Quantity, valueUS: number, u: UnitSystem): string {
-  return `${show(fromUS(quantity, valueUS, u))} ${unitName(quantity, u)}`;
-}
 
 /** Largest Hazen-Williams C accepted: above every value of the C table. (common practice) */
 export const MAX_C_FACTOR = 200;
+/** Smallest Hazen-Williams C accepted: below every value of the C table, even for old tuberculated pipe. (common practice) */
+export const MIN_C_FACTOR = 10;
 
 /** static, residual, test_flow of a hydrant flow test; residual must be below static. */
 export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unknown, u: UnitSystem): FlowTest {
@@ -28,18 +24,18 @@ export function flowTestArgs(staticP: unknown, residual: unknown, testFlow: unkn
   ) {
     return { static: staticP, residual, testFlow };
   }
-  const s = quantityArg(staticP, "static_pressure", "pressure", u);
-  const r = quantityArg(residual, "residual", "pressure", u, ZERO_ALLOWED);
-  const q = quantityArg(testFlow, "test_flow", "flow", u);
-  if (!(r < s)) {
-    fail(`residual: got ${showIn("pressure", r, u)}; must be below the static pressure ${showIn("pressure", s, u)}`);
-  }
-  return { static: s, residual: r, testFlow: q };
+  const t: FlowTest = {
+    static: quantityArg(staticP, "static_pressure", "pressure", u),
+    residual: quantityArg(residual, "residual", "pressure", u, ZERO_ALLOWED),
+    testFlow: quantityArg(testFlow, "test_flow", "flow", u),
+  };
+  checkFlowTest(t); // the residual below the static pressure: the engine's own rule
+  return t;
 }
 
-const C_FACTOR_RULE = Object.freeze({ gt: 0, max: MAX_C_FACTOR });
+const C_FACTOR_RULE = Object.freeze({ min: MIN_C_FACTOR, max: MAX_C_FACTOR });
 
-/** The C factor of a pipe: greater than 0, at most MAX_C_FACTOR. */
+/** The C factor of a pipe: from MIN_C_FACTOR to MAX_C_FACTOR. */
 export function cFactorArg(value: unknown, name = "c_factor"): number {
   return numberArg(value, name, C_FACTOR_RULE);
 }
@@ -76,4 +72,37 @@ export function demandArgs(
   const q = quantityArg(demandFlow, "demand_flow", "flow", u);
   const p = quantityArg(demandPressure, "demand_pressure", "pressure", u, ZERO_ALLOWED);
   return [q, p, flowTestArgs(staticP, residual, testFlow, u)];
+}
+
+/** The inputs of the decision, US units: the demand point, the flow test and the required margin. */
+export interface DecisionInput {
+  demandFlow: number;
+  demandPressure: number;
+  test: FlowTest;
+  requiredMargin: number;
+}
+
+/**
+ * The arguments of VERDICT and PUMPBOOST (and MARGIN, whose required margin is 0): the task pane reads the workbook's
+ * named cells through this very function, so that both say the same about the same inputs.
+ */
+export function decisionArgs(
+  demandFlow: unknown,
+  demandPressure: unknown,
+  staticP: unknown,
+  residual: unknown,
+  testFlow: unknown,
+  requiredMargin: unknown,
+  u: UnitSystem,
+): DecisionInput {
+  const [q, p, test] = demandArgs(demandFlow, demandPressure, staticP, residual, testFlow, u);
+  return { demandFlow: q, demandPressure: p, test, requiredMargin: requiredMarginArg(requiredMargin, u) };
+}
+
+/** rated_flow and rated_pressure of a pump, as PUMPCURVE reads them (US units). */
+export function pumpRatingArgs(ratedFlow: unknown, ratedPressure: unknown, u: UnitSystem): { ratedFlow: number; ratedPressure: number } {
+  return {
+    ratedFlow: quantityArg(ratedFlow, "rated_flow", "flow", u),
+    ratedPressure: quantityArg(ratedPressure, "rated_pressure", "pressure", u),
+  };
 }

@@ -63,7 +63,7 @@ function phraseAt(words: readonly string[], i: number, first?: string): [Fitting
 function countOf(text: string, list: unknown, name: string): number {
   const n = Number(text);
   if (!Number.isInteger(n) || n < 1 || n > MAX_COUNT) {
-    fail(`${name}: ${show(list)} has the count ${text}; a count must be a whole number from 1 to ${MAX_COUNT}`);
+    fail(name, { cell: list }, `the count ${text} must be a whole number from 1 to ${MAX_COUNT}`);
   }
   return n;
 }
@@ -73,13 +73,11 @@ function countOf(text: string, list: unknown, name: string): number {
  * glued ("2E", "2x E") or apart ("2 E", "2 x E"). The result keeps the order typed; an empty list is an error.
  */
 export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
-  if (isBlank(value)) fail(`${name} is empty: type fittings such as "2E T GV" or "elbow, tee, check"; codes: ${FITTING_HELP}`);
-  if (typeof value !== "string" && typeof value !== "number") {
-    fail(`${name}: got ${Array.isArray(value) ? "a range" : show(value)}; must be text such as "2E T GV"`);
-  }
+  if (isBlank(value)) fail(name, undefined, `is empty: type fittings such as "2E T GV" or "elbow, tee, check"; codes: ${FITTING_HELP}`);
+  if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be text such as "2E T GV"`);
   const text = String(value);
   // a hyphen joins words ("long-turn"); before a count it would be a minus sign, and a count is 1 or more
-  if (/(^|[\s,;+&])[-−]\s*\d/.test(text)) fail(`${name}: ${show(text)} has a negative count; a count is a whole number of 1 or more`);
+  if (/(^|[\s,;+&])[-−]\s*\d/.test(text)) fail(name, { cell: text }, "a count must be a whole number of 1 or more, never negative");
   const original = text
     .replace(/[,;+&]/g, " , ")
     .replace(/[-_°º]/g, " ")
@@ -88,7 +86,7 @@ export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
   const words = original.map((w) => (w.toLowerCase() === "and" ? "," : w.toLowerCase()));
   const out: FittingCount[] = [];
   function bad(at: number): never {
-    fail(`${name}: ${show(text)} has ${show(original[at])}, which is not a fitting; use ${FITTING_HELP}, with an optional count ("2E")`);
+    fail(name, { cell: text }, `${show(original[at])} is not a fitting; use ${FITTING_HELP}, with an optional count ("2E")`);
   }
   let i = 0;
   while (i < words.length) {
@@ -108,7 +106,7 @@ export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
       let j = i + 1;
       if (j < words.length && /^[x×*]$/.test(words[j])) j++;
       if (j >= words.length || words[j] === ",") {
-        fail(`${name}: ${show(text)} has the count ${show(original[i])} with no fitting after it; use ${FITTING_HELP}`);
+        fail(name, { cell: text }, `the count ${show(original[i])} has no fitting after it; use ${FITTING_HELP}`);
       }
       const after = phraseAt(words, j);
       if (!after) bad(j);
@@ -126,24 +124,22 @@ export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
     }
     bad(i);
   }
-  if (out.length === 0) fail(`${name}: ${show(text)} lists no fittings; type fittings such as "2E T GV"; codes: ${FITTING_HELP}`);
+  if (out.length === 0) fail(name, { cell: text }, `names no fitting; type fittings such as "2E T GV"; codes: ${FITTING_HELP}`);
   return out;
 }
 
 /** One fitting (FITTINGLENGTH): a code or plain word, no count; a list is an error that points to FITTINGS. */
 export function fittingArg(value: unknown, name = "fitting"): Fitting {
-  if (isBlank(value)) fail(`${name} is empty: type one of ${FITTING_HELP}`);
-  if (typeof value !== "string" && typeof value !== "number") {
-    fail(`${name}: got ${Array.isArray(value) ? "a range" : show(value)}; must be one of ${FITTING_HELP}`);
-  }
+  if (isBlank(value)) fail(name, undefined, `is empty: type one of ${FITTING_HELP}`);
+  if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${FITTING_HELP}`);
   let items: FittingCount[];
   try {
     items = fittingListArg(value, name);
   } catch {
-    fail(`${name}: got ${show(value)}; must be one of ${FITTING_HELP}`);
+    fail(name, { cell: value }, `must be one of ${FITTING_HELP}`);
   }
   if (items.length !== 1 || items[0].count !== 1) {
-    fail(`${name}: got ${show(value)}; FITTINGLENGTH takes one fitting: use FITTINGS for a list or a count`);
+    fail(name, { cell: value }, "FITTINGLENGTH takes one fitting: use FITTINGS for a list or a count");
   }
   return items[0].fitting;
 }

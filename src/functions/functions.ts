@@ -8,15 +8,15 @@
  * the vocabulary; never rename one without keeping the old name working.
  */
 import { cell } from "./bridge";
-import { LIMITS_US, SIGNED, ZERO_ALLOWED, finiteResult, numberArg, optionalNumberArg, quantityArg, unitsArg } from "./args";
-import { demandArgs, flowTestArgs, minPressureArg, pipeArgs, requiredMarginArg, showIn } from "./common";
+import { LIMITS_US, SIGNED, ZERO_ALLOWED, numberArg, optionalNumberArg, quantityArg } from "./args";
+import { decisionArgs, demandArgs, flowTestArgs, minPressureArg, pipeArgs } from "./common";
 import { convertUnit } from "./unit";
 import { assess, margin as supplyMargin, pumpBoost, verdictSentence } from "../engine/decision";
 import { elevationPressure, frictionRateIn, velocity as pipeVelocity } from "../engine/friction";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
-import { fail } from "../engine/errors";
-import { PITOT_COEFFICIENT_SMOOTH, exhaustionFlow, flowAt, pitotFlow, supplyCurve } from "../engine/supply";
-import { fromUS, unitName } from "../engine/units";
+import { finiteOr, n as plain, q as qty } from "../engine/errors";
+import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, supplyAt } from "../engine/supply";
+import { fromUS } from "../engine/units";
 import { isBlank } from "./args";
 import { cFactorArg } from "./common";
 import { fittingArg, fittingListArg } from "./fittingList";
@@ -41,15 +41,10 @@ import { areaDemandRow, pumpCurvePressure, pumpSizeRow, runRows, sizeFor, supply
  * @returns Supply pressure at the flow (psi; SI: bar).
  */
 export function supplyat(flow: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const t = flowTestArgs(static_pressure, residual, test_flow, u);
     const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
-    const p = supplyCurve(q, t); // flow test and flow checked above
-    if (!(p > 0)) {
-      fail(`flow: got ${showIn("flow", q, u)}; this supply reaches 0 ${unitName("pressure", u)} at ${showIn("flow", exhaustionFlow(t), u)}`);
-    }
-    return fromUS("pressure", p, u); // finite: every input is bounded and p > 0 was checked
+    return fromUS("pressure", supplyAt(q, t), u); // finite: every input is bounded and the engine checks p > 0
   });
 }
 
@@ -65,14 +60,10 @@ export function supplyat(flow: any, static_pressure: any, residual: any, test_fl
  * @returns Flow at that pressure (gpm; SI: L/min).
  */
 export function flowat(pressure: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const t = flowTestArgs(static_pressure, residual, test_flow, u);
     const p = quantityArg(pressure, "pressure", "pressure", u, ZERO_ALLOWED);
-    if (p > t.static) {
-      fail(`pressure: got ${showIn("pressure", p, u)}; must be from 0 to the static pressure ${showIn("pressure", t.static, u)}`);
-    }
-    return fromUS("flow", finiteResult(flowAt(p, t), "FLOWAT"), u);
+    return fromUS("flow", flowAt(p, t), u); // the engine checks p against the static pressure
   });
 }
 
@@ -86,12 +77,11 @@ export function flowat(pressure: any, static_pressure: any, residual: any, test_
  * @returns Flow from the outlet (gpm; SI: L/min).
  */
 export function pitotflow(pitot: any, outlet_diameter: any, coefficient?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const p = quantityArg(pitot, "pitot", "pressure", u);
     const d = quantityArg(outlet_diameter, "outlet_diameter", "diameter", u);
     const c = optionalNumberArg(coefficient, "coefficient", PITOT_COEFFICIENT_SMOOTH, { gt: 0, max: 1 });
-    return fromUS("flow", finiteResult(pitotFlow(p, d, c), "PITOTFLOW"), u);
+    return fromUS("flow", pitotFlow(p, d, c), u);
   });
 }
 
@@ -109,13 +99,12 @@ export function pitotflow(pitot: any, outlet_diameter: any, coefficient?: any, u
  * @returns Flow of that sprinkler (gpm; SI: L/min).
  */
 export function headflow(density: any, coverage: any, k_factor: any, min_pressure?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const dens = quantityArg(density, "density", "density", u);
     const cov = quantityArg(coverage, "coverage", "area", u);
     const k = quantityArg(k_factor, "k_factor", "kfactor", u);
     const pmin = minPressureArg(min_pressure, u);
-    return fromUS("flow", finiteResult(headFlow(dens, cov, k, pmin), "HEADFLOW"), u);
+    return fromUS("flow", headFlow(dens, cov, k, pmin), u);
   });
 }
 
@@ -129,12 +118,11 @@ export function headflow(density: any, coverage: any, k_factor: any, min_pressur
  * @returns Pressure at the sprinkler (psi; SI: bar).
  */
 export function headpressure(flow: any, k_factor: any, min_pressure?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const q = quantityArg(flow, "flow", "flow", u);
     const k = quantityArg(k_factor, "k_factor", "kfactor", u);
     const pmin = minPressureArg(min_pressure, u);
-    return fromUS("pressure", finiteResult(headPressure(q, k, pmin), "HEADPRESSURE"), u);
+    return fromUS("pressure", finiteOr(headPressure(q, k, pmin), "k_factor", qty("kfactor", k)), u);
   });
 }
 
@@ -146,7 +134,7 @@ export function headpressure(flow: any, k_factor: any, min_pressure?: any, units
  * @returns Number of sprinklers.
  */
 export function headcount(area: any, coverage: any): number {
-  return cell(() => {
+  return cell(null, () => {
     const a = numberArg(area, "area", { gt: 0, max: LIMITS_US.area });
     const c = numberArg(coverage, "coverage", { gt: 0, max: LIMITS_US.area });
     return headCount(a, c);
@@ -164,8 +152,7 @@ export function headcount(area: any, coverage: any): number {
  * @returns Number of sprinklers on the line.
  */
 export function headsperline(area: any, head_spacing: any, factor?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const a = quantityArg(area, "area", "area", u);
     const s = quantityArg(head_spacing, "head_spacing", "length", u);
     const f = optionalNumberArg(factor, "factor", DESIGN_AREA_LENGTH_FACTOR, { gt: 0, max: 10 });
@@ -187,11 +174,10 @@ export function headsperline(area: any, head_spacing: any, factor?: any, units?:
  * @returns Friction loss (psi; SI: bar).
  */
 export function friction(flow: any, diameter: any, c_factor: any, length: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
     const l = quantityArg(length, "length", "length", u, ZERO_ALLOWED);
-    return finiteResult(frictionRateIn(q, d, c, u) * fromUS("length", l, u), "FRICTION");
+    return finiteOr(frictionRateIn(q, d, c, u) * fromUS("length", l, u), "diameter", qty("diameter", d));
   });
 }
 
@@ -205,10 +191,9 @@ export function friction(flow: any, diameter: any, c_factor: any, length: any, u
  * @returns Loss per length (psi/ft; SI: bar/m).
  */
 export function frictionrate(flow: any, diameter: any, c_factor: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
-    return finiteResult(frictionRateIn(q, d, c, u), "FRICTIONRATE");
+    return finiteOr(frictionRateIn(q, d, c, u), "diameter", qty("diameter", d));
   });
 }
 
@@ -221,11 +206,10 @@ export function frictionrate(flow: any, diameter: any, c_factor: any, units?: an
  * @returns Velocity (ft/s; SI: m/s).
  */
 export function velocity(flow: any, diameter: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
     const d = quantityArg(diameter, "diameter", "diameter", u);
-    return fromUS("velocity", finiteResult(pipeVelocity(q, d), "VELOCITY"), u);
+    return fromUS("velocity", finiteOr(pipeVelocity(q, d), "diameter", qty("diameter", d)), u);
   });
 }
 
@@ -238,10 +222,9 @@ export function velocity(flow: any, diameter: any, units?: any): number {
  * @returns Elevation pressure (psi; SI: bar).
  */
 export function elevation(rise: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const h = quantityArg(rise, "rise", "length", u, SIGNED);
-    return fromUS("pressure", finiteResult(elevationPressure(h), "ELEVATION", true), u);
+    return fromUS("pressure", elevationPressure(h), u);
   });
 }
 
@@ -257,8 +240,7 @@ export function elevation(rise: any, units?: any): number {
  * @returns Internal diameter (in; SI: mm).
  */
 export function pipeid(nominal: any, schedule?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const s = scheduleArg(schedule);
     const n = nominalArg(nominal, "nominal", s, u);
     return fromUS("diameter", internalDiameter(n, s), u);
@@ -273,7 +255,7 @@ export function pipeid(nominal: any, schedule?: any, units?: any): number {
  * @returns C factor.
  */
 export function cfactor(material: any, system?: any): number {
-  return cell(() => hazenWilliamsC(materialArg(material), systemArg(system)));
+  return cell(null, () => hazenWilliamsC(materialArg(material), systemArg(system)));
 }
 
 /**
@@ -288,13 +270,12 @@ export function cfactor(material: any, system?: any): number {
  * @returns Equivalent length (ft; SI: m).
  */
 export function fittinglength(fitting: any, nominal: any, c_factor?: any, schedule?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const f = fittingArg(fitting);
     const s = scheduleArg(schedule);
     const n = nominalArg(nominal, "nominal", s, u);
     const c = isBlank(c_factor) ? TABLE_C_FACTOR : cFactorArg(c_factor);
-    return fromUS("length", finiteResult(equivalentLength(f, n, c, s), "FITTINGLENGTH"), u);
+    return fromUS("length", equivalentLength(f, n, c, s), u);
   });
 }
 
@@ -310,14 +291,13 @@ export function fittinglength(fitting: any, nominal: any, c_factor?: any, schedu
  * @returns Total equivalent length (ft; SI: m).
  */
 export function fittings(list: any, nominal: any, c_factor?: any, schedule?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const items = fittingListArg(list);
     const s = scheduleArg(schedule);
     const n = nominalArg(nominal, "nominal", s, u);
     const c = isBlank(c_factor) ? TABLE_C_FACTOR : cFactorArg(c_factor);
     const total = items.reduce((sum, { fitting, count }) => sum + count * equivalentLength(fitting, n, c, s), 0);
-    return fromUS("length", finiteResult(total, "FITTINGS"), u);
+    return fromUS("length", total, u);
   });
 }
 
@@ -331,18 +311,11 @@ export function fittings(list: any, nominal: any, c_factor?: any, schedule?: any
  * @returns Density (gpm/ft²; SI: mm/min).
  */
 export function designdensity(hazard: any, area?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const h = hazardArg(hazard);
     if (isBlank(area)) return fromUS("density", designDensity(h), u);
     const a = quantityArg(area, "area", "area", u);
-    const onCurve = areaOnCurve(h, a);
-    if (onCurve === undefined) {
-      const { min, max } = areaSpan(h);
-      const shown = (x: number) => Number(fromUS("area", x, u).toPrecision(4));
-      fail(`area: got ${showIn("area", a, u)}; the ${h} curve spans ${shown(min)} to ${shown(max)} ${unitName("area", u)}`);
-    }
-    return fromUS("density", designDensity(h, onCurve), u);
+    return fromUS("density", designDensity(h, a), u); // the engine states the curve's span
   });
 }
 
@@ -354,8 +327,7 @@ export function designdensity(hazard: any, area?: any, units?: any): number {
  * @returns Design area (ft²; SI: m²).
  */
 export function designarea(hazard: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     return fromUS("area", designArea(hazardArg(hazard)), u);
   });
 }
@@ -370,8 +342,7 @@ export function designarea(hazard: any, units?: any): number {
  * @returns Hose allowance (gpm; SI: L/min).
  */
 export function hoseallowance(hazard: any, part?: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     return fromUS("flow", hoseAllowance(hazardArg(hazard), hosePartArg(part)), u);
   });
 }
@@ -384,7 +355,7 @@ export function hoseallowance(hazard: any, part?: any, units?: any): number {
  * @returns Duration (min).
  */
 export function duration(hazard: any, bound?: any): number {
-  return cell(() => supplyDuration(hazardArg(hazard), boundArg(bound)));
+  return cell(null, () => supplyDuration(hazardArg(hazard), boundArg(bound)));
 }
 
 
@@ -400,7 +371,7 @@ export function duration(hazard: any, bound?: any): number {
  * @returns Rows of [friction, elevation, fixed, pressure_after] (psi; SI: bar).
  */
 export function run(segments: any[][], start_pressure?: any, units?: any): any[][] {
-  return cell(() => runRows(segments, start_pressure, units));
+  return cell(units, (u) => runRows(segments, start_pressure, u));
 }
 
 /**
@@ -424,7 +395,7 @@ export function supplycurve(
   points?: any,
   units?: any,
 ): any[][] {
-  return cell(() => supplyCurveRows(static_pressure, residual, test_flow, max_flow, points, units));
+  return cell(units, (u) => supplyCurveRows(static_pressure, residual, test_flow, max_flow, points, u));
 }
 
 /**
@@ -456,8 +427,8 @@ export function areademand(
   min_pressure?: any,
   units?: any,
 ): any[][] {
-  return cell(() =>
-    areaDemandRow(density, area, coverage, k_factor, head_spacing, branch_diameter, main_diameter, c_factor, min_pressure, units),
+  return cell(units, (u) =>
+    areaDemandRow(density, area, coverage, k_factor, head_spacing, branch_diameter, main_diameter, c_factor, min_pressure, u),
   );
 }
 
@@ -474,7 +445,7 @@ export function areademand(
  * @returns Nominal size (NPS in inches, e.g. 2.5; SI: DN, e.g. 65).
  */
 export function sizefor(flow: any, length: any, c_factor: any, allowed_loss: any, schedule?: any, units?: any): number {
-  return cell(() => sizeFor(flow, length, c_factor, allowed_loss, schedule, units));
+  return cell(units, (u) => sizeFor(flow, length, c_factor, allowed_loss, schedule, u));
 }
 
 /**
@@ -487,7 +458,7 @@ export function sizefor(flow: any, length: any, c_factor: any, allowed_loss: any
  * @returns One row: [rated_flow (gpm; SI: L/min), rated_pressure (psi; SI: bar)].
  */
 export function pumpsize(demand_flow: any, boost: any, units?: any): any[][] {
-  return cell(() => pumpSizeRow(demand_flow, boost, units));
+  return cell(units, (u) => pumpSizeRow(demand_flow, boost, u));
 }
 
 /**
@@ -511,7 +482,7 @@ export function pumpcurve(
   overload_ratio?: any,
   units?: any,
 ): number {
-  return cell(() => pumpCurvePressure(flow, rated_flow, rated_pressure, shutoff_ratio, overload_ratio, units));
+  return cell(units, (u) => pumpCurvePressure(flow, rated_flow, rated_pressure, shutoff_ratio, overload_ratio, u));
 }
 
 
@@ -529,10 +500,9 @@ export function pumpcurve(
  * @returns Margin (psi; SI: bar).
  */
 export function margin(demand_flow: any, demand_pressure: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
-  return cell(() => {
-    const u = unitsArg(units);
+  return cell(units, (u) => {
     const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    return fromUS("pressure", finiteResult(supplyMargin(q, p, t, u), "MARGIN", true), u);
+    return fromUS("pressure", supplyMargin(q, p, t), u);
   });
 }
 
@@ -559,11 +529,9 @@ export function verdict(
   required_margin?: any,
   units?: any,
 ): string {
-  return cell(() => {
-    const u = unitsArg(units);
-    const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    const m = requiredMarginArg(required_margin, u);
-    return verdictSentence(assess(q, p, t, m), u);
+  return cell(units, (u) => {
+    const d = decisionArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, required_margin, u);
+    return verdictSentence(assess(d.demandFlow, d.demandPressure, d.test, d.requiredMargin), u);
   });
 }
 
@@ -589,11 +557,9 @@ export function pumpboost(
   required_margin?: any,
   units?: any,
 ): number {
-  return cell(() => {
-    const u = unitsArg(units);
-    const [q, p, t] = demandArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, u);
-    const m = requiredMarginArg(required_margin, u);
-    return fromUS("pressure", finiteResult(pumpBoost(q, p, t, m, u), "PUMPBOOST"), u);
+  return cell(units, (u) => {
+    const d = decisionArgs(demand_flow, demand_pressure, static_pressure, residual, test_flow, required_margin, u);
+    return fromUS("pressure", pumpBoost(d.demandFlow, d.demandPressure, d.test, d.requiredMargin), u);
   });
 }
 
@@ -609,9 +575,9 @@ export function pumpboost(
  * @returns The converted value.
  */
 export function unit(value: any, from: any, to: any): number {
-  return cell(() => {
+  return cell(null, () => {
     const v = numberArg(value, "value", { min: 0 });
-    return finiteResult(convertUnit(v, from, to), "UNIT");
+    return finiteOr(convertUnit(v, from, to), "value", plain(v));
   });
 }
 

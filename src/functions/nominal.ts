@@ -55,24 +55,24 @@ export function nominalArg(value: unknown, name: string, schedule: Schedule, uni
   const sizesUS = `${info.name} comes in ${listSizes(schedule)} in`;
   const sizesSI = `${info.name} comes in DN ${listSizes(schedule, true)}`;
   const sizes = units === "SI" ? sizesSI : sizesUS;
-  if (isBlank(value)) fail(`${name} is empty: type a nominal size; ${sizes}`);
-  if (typeof value === "boolean") fail(`${name}: got ${show(value)}; must be a nominal size; ${sizes}`);
-  if (Array.isArray(value)) fail(`${name}: got a range; must be a single nominal size`);
+  if (isBlank(value)) fail(name, undefined, `is empty: type a nominal size; ${sizes}`);
+  if (typeof value === "boolean") fail(name, { cell: value }, `must be a nominal size; ${sizes}`);
+  if (Array.isArray(value)) fail(name, { cell: value }, "must be a single nominal size");
   const read = readNominal(value);
   if (!read) {
     const forms = units === "SI" ? "a DN such as 50 or 65" : `a nominal size such as 2, 2.5, "2-1/2" or "2½"`;
-    fail(`${name}: got ${show(value)}; must be ${forms}; ${sizes}`);
+    fail(name, { cell: value }, `must be ${forms}; ${sizes}`);
   }
   let nps: number | undefined;
   if (read.kind === "dn") {
     nps = nominalOfDn(read.dn);
-    if (nps === undefined || !findPipeSize(nps, schedule)) fail(`${name}: got ${show(value)}; ${sizesSI}`);
+    if (nps === undefined || !findPipeSize(nps, schedule)) fail(name, { cell: value }, sizesSI);
   } else if (read.kind === "nps") {
-    if (units === "SI") fail(`${name}: got ${show(value)}; in SI a nominal size is a DN (or type it as "DN65"): ${sizesSI}`);
+    if (units === "SI") fail(name, { cell: value }, `in SI a nominal size is a DN (or type it as "DN65"): ${sizesSI}`);
     nps = read.nps;
   } else if (units === "SI") {
     nps = nominalOfDn(read.value);
-    if (nps === undefined || !findPipeSize(nps, schedule)) fail(`${name}: got ${show(value)}; in SI a nominal size is a DN: ${sizesSI}`);
+    if (nps === undefined || !findPipeSize(nps, schedule)) fail(name, { cell: value }, `in SI a nominal size is a DN: ${sizesSI}`);
   } else {
     nps = read.value;
   }
@@ -84,7 +84,7 @@ export function nominalArg(value: unknown, name: string, schedule: Schedule, uni
       read.kind === "number" && dnNps !== undefined && findPipeSize(dnNps, schedule)
         ? `; for DN ${read.value} type "DN${read.value}" or set units to "SI"`
         : "";
-    fail(`${name}: got ${show(value)}; ${sizesUS}${dnHint}`);
+    fail(name, { cell: value }, `${sizesUS}${dnHint}`);
   }
   return row.nominal;
 }

@@ -10,23 +10,17 @@
  * Friction in SI work uses the EN 12845 form, as FRICTION does, so that a RUN or an AREADEMAND in SI agrees with a
  * column of FRICTION calls in SI.
  */
-import { fail, notInTable } from "../engine/errors";
+import { fail, n, notInTable, q } from "../engine/errors";
 import { frictionRate, frictionRateIn } from "../engine/friction";
 import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_MAX_POINTS, SUPPLY_CURVE_POINTS, supplyCurvePoints } from "../engine/curve";
 import { scheduleInfo, scheduleSizes } from "../engine/pipes";
-import {
-  DEFAULT_OVERLOAD_RATIO,
-  DEFAULT_SHUTOFF_RATIO,
-  PumpEnvelopeError,
-  pumpPressure,
-  pumpRating,
-} from "../engine/pump";
+import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, pumpPressure, pumpRating } from "../engine/pump";
 import { type FrictionRateFn, type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
 import { solveAreaDemand } from "../engine/tree";
 import { type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { SIGNED, ZERO_ALLOWED, finiteResult, isBlank, optionalNumberArg, optionalQuantityArg, quantityArg, unitsArg } from "./args";
+import { SIGNED, ZERO_ALLOWED, isBlank, optionalNumberArg, optionalQuantityArg, quantityArg } from "./args";
 import { cellRow } from "./bridge";
-import { cFactorArg, flowTestArgs, minPressureArg, showIn } from "./common";
+import { cFactorArg, flowTestArgs, minPressureArg, pumpRatingArgs } from "./common";
 import { scheduleArg } from "./tableCodes";
 
 /** Default Hazen-Williams C of AREADEMAND: black or galvanized steel, wet [NFPA 13]. */
@@ -45,9 +39,9 @@ export function frictionRateFor(u: UnitSystem): FrictionRateFn {
 
 /** A range argument as rows of cells: a 2-D array as Excel hands it over; a lone value counts as a 1 × 1 range. */
 export function rangeArg(value: unknown, name: string): unknown[][] {
-  if (value === null || value === undefined) fail(`${name} is empty: give a range of cells`);
+  if (value === null || value === undefined) fail(name, undefined, "is empty: give a range of cells");
   if (!Array.isArray(value)) return [[value]];
-  if (value.length === 0) fail(`${name}: got an empty range; give a range of cells`);
+  if (value.length === 0) fail(name, { text: "an empty range" }, "give a range of cells");
   return value.map((row) => (Array.isArray(row) ? row : [row]));
 }
 
@@ -87,14 +81,14 @@ function readSegment(row: readonly unknown[], r: number, u: UnitSystem): Segment
  * A blank row gives a row of "" cells; a row that cannot be read gives its error in its 4 cells; a pressure that
  * cannot be known (it would go below 0, or an earlier row has an error) is an error in that row's pressure cell.
  */
-export function runRows(segments: unknown, startPressure: unknown, units: unknown): unknown[][] {
-  const u = unitsArg(units);
+export function runRows(segments: unknown, startPressure: unknown, u: UnitSystem): unknown[][] {
   const rows = rangeArg(segments, "segments");
   const width = rows[0].length;
   if (width < RUN_REQUIRED || width > RUN_COLUMNS.length) {
     fail(
-      `segments: got a range ${width} column${width === 1 ? "" : "s"} wide; must be 4 to 7 columns: ` +
-        `flow, diameter, c_factor, length, [fitting_length], [rise], [fixed_loss]`,
+      "segments",
+      { text: `a range ${width} column${width === 1 ? "" : "s"} wide` },
+      "must be 4 to 7 columns: flow, diameter, c_factor, length, [fitting_length], [rise], [fixed_loss]",
     );
   }
   const start = optionalQuantityArg(startPressure, "start_pressure", "pressure", u, 0, ZERO_ALLOWED);
@@ -120,33 +114,32 @@ export function runRows(segments: unknown, startPressure: unknown, units: unknow
     const r = i + 1;
     if (step.kind === "blank") return ["", "", "", ""];
     if (step.kind === "unreadable") {
-      return cellRow(RUN_WIDTH, () => {
+      return cellRow(RUN_WIDTH, u, () => {
         throw problems.get(i);
       });
     }
     const { friction, elevation, fixed } = step.losses;
-    const losses = cellRow(RUN_WIDTH - 1, () => [
-      finiteResult(p(friction), `segments row ${r} friction`),
-      finiteResult(p(elevation), `segments row ${r} elevation`, true),
-      p(fixed),
-    ]);
+    // finite: every input is bounded (diameter ≥ 0.1 in, C ≥ 10, flow and length at most 100,000)
+    const losses = [p(friction), p(elevation), p(fixed)];
     return [...losses, pressureCell(step, r, u)];
   });
 }
 
 /** The pressure_after cell of a segment row: the pressure, or an error value saying why it is not known. */
 function pressureCell(step: Extract<RunStep, { kind: "segment" }>, r: number, u: UnitSystem): number | string | CustomFunctions.Error {
-  return cellRow(1, () => {
+  return cellRow(1, u, () => {
     if (step.brokenBy !== null) {
-      fail(`segments row ${r} pressure_after: not known, because row ${step.brokenBy} has an error`);
+      fail(`segments row ${r} pressure_after`, undefined, `is not known, because row ${step.brokenBy} has an error`);
     }
     if (step.pressureAfter < 0) {
       fail(
-        `segments row ${r} pressure_after: would be ${showIn("pressure", step.pressureAfter, u)}; the drops gain more than ` +
-          `start_pressure and the losses before them; check rise (negative for a drop) or raise start_pressure`,
+        `segments row ${r} pressure_after`,
+        q("pressure", step.pressureAfter),
+        "must not fall below 0: the drops gain more than start_pressure and the losses before them; " +
+          "check rise (negative for a drop) or raise start_pressure",
       );
     }
-    return [finiteResult(fromUS("pressure", step.pressureAfter, u), `segments row ${r} pressure_after`)];
+    return [fromUS("pressure", step.pressureAfter, u)];
   })[0];
 }
 
@@ -159,9 +152,8 @@ export function supplyCurveRows(
   testFlow: unknown,
   maxFlow: unknown,
   points: unknown,
-  units: unknown,
+  u: UnitSystem,
 ): unknown[][] {
-  const u = unitsArg(units);
   const t = flowTestArgs(staticP, residual, testFlow, u);
   const qMax = optionalQuantityArg(maxFlow, "max_flow", "flow", u, SUPPLY_CURVE_FLOW_FACTOR * t.testFlow);
   const n = optionalNumberArg(points, "points", SUPPLY_CURVE_POINTS, { integer: true, min: 2, max: SUPPLY_CURVE_MAX_POINTS });
@@ -183,9 +175,8 @@ export function areaDemandRow(
   mainDiameter: unknown,
   cFactor: unknown,
   minPressure: unknown,
-  units: unknown,
+  u: UnitSystem,
 ): unknown[][] {
-  const u = unitsArg(units);
   const inp = {
     density: quantityArg(density, "density", "density", u),
     area: quantityArg(area, "area", "area", u),
@@ -197,14 +188,11 @@ export function areaDemandRow(
     cFactor: isBlank(cFactor) ? DEFAULT_C_FACTOR : cFactorArg(cFactor),
     minPressure: minPressureArg(minPressure, u),
   };
-  if (inp.coverage > inp.area) {
-    fail(`coverage: got ${showIn("area", inp.coverage, u)}; must not exceed the design area ${showIn("area", inp.area, u)}`);
-  }
   const r = solveAreaDemand(inp, frictionRateFor(u));
   return [
     [
-      fromUS("flow", finiteResult(r.flow, "AREADEMAND flow"), u),
-      fromUS("pressure", finiteResult(r.pressure, "AREADEMAND pressure"), u),
+      fromUS("flow", r.flow, u),
+      fromUS("pressure", r.pressure, u),
       r.heads,
       r.lines,
       fromUS("pressure", r.endPressure, u),
@@ -219,24 +207,27 @@ export function areaDemandRow(
  * as a number a nominal-size argument takes (NPS in US work, e.g. 2.5; DN in SI work, e.g. 65). `#N/A` when even
  * the largest size loses more.
  */
-export function sizeFor(flow: unknown, length: unknown, cFactor: unknown, allowedLoss: unknown, schedule: unknown, units: unknown): number {
-  const u = unitsArg(units);
-  const q = quantityArg(flow, "flow", "flow", u);
+export function sizeFor(flow: unknown, length: unknown, cFactor: unknown, allowedLoss: unknown, schedule: unknown, u: UnitSystem): number {
+  const qf = quantityArg(flow, "flow", "flow", u);
   const l = quantityArg(length, "length", "length", u);
   const c = cFactorArg(cFactor);
   const allowed = quantityArg(allowedLoss, "allowed_loss", "pressure", u);
   const s = scheduleArg(schedule);
   const rate = frictionRateFor(u);
   const sizes = scheduleSizes(s);
-  const lossOf = (id: number) => rate(q, id, c) * l;
+  const lossOf = (id: number) => rate(qf, id, c) * l;
   const found = sizes.find((size) => lossOf(size.id) <= allowed * (1 + 1e-12));
   if (!found) {
     const largest = sizes[sizes.length - 1];
     const label = u === "SI" ? `DN ${largest.dn}` : `${largest.label} in`;
     notInTable(
-      `allowed_loss: got ${showIn("pressure", allowed, u)}; even the largest ${scheduleInfo(s).name}, ${label} ` +
-        `(${showIn("diameter", largest.id, u)} bore), loses ${showIn("pressure", lossOf(largest.id), u)} over ` +
-        `${showIn("length", l, u)} at ${showIn("flow", q, u)}`,
+      "allowed_loss",
+      q("pressure", allowed),
+      `even the largest ${scheduleInfo(s).name}, ${label} ({0} bore), loses {1} over {2} at {3}`,
+      q("diameter", largest.id),
+      q("pressure", lossOf(largest.id)),
+      q("length", l),
+      q("flow", qf),
     );
   }
   return u === "SI" ? found.dn : found.nominal;
@@ -245,12 +236,11 @@ export function sizeFor(flow: unknown, length: unknown, cFactor: unknown, allowe
 // ─── PUMPSIZE and PUMPCURVE ──────────────────────────────────────────────────────────────────────────────────────
 
 /** PUMPSIZE: one row [rated_flow, rated_pressure] in the user's units. */
-export function pumpSizeRow(demandFlow: unknown, boost: unknown, units: unknown): unknown[][] {
-  const u = unitsArg(units);
-  const q = quantityArg(demandFlow, "demand_flow", "flow", u);
+export function pumpSizeRow(demandFlow: unknown, boost: unknown, u: UnitSystem): unknown[][] {
+  const flow = quantityArg(demandFlow, "demand_flow", "flow", u);
   const b = quantityArg(boost, "boost", "pressure", u, ZERO_ALLOWED);
-  if (b === 0) fail(`boost: got 0 ${unitName("pressure", u)}; no pump is needed (PUMPBOOST gives 0 where the supply suffices)`);
-  const rating = pumpRating(q, b, u);
+  if (b === 0) fail("boost", q("pressure", 0), "no pump is needed (PUMPBOOST gives 0 where the supply suffices)");
+  const rating = pumpRating(flow, b, u);
   return [[fromUS("flow", rating.ratedFlowGpm, u), rating.ratedPressure]];
 }
 
@@ -266,18 +256,11 @@ export function pumpCurvePressure(
   ratedPressure: unknown,
   shutoffRatio: unknown,
   overloadRatio: unknown,
-  units: unknown,
+  u: UnitSystem,
 ): number {
-  const u = unitsArg(units);
   const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
-  const qr = quantityArg(ratedFlow, "rated_flow", "flow", u);
-  const pr = quantityArg(ratedPressure, "rated_pressure", "pressure", u);
+  const { ratedFlow: qr, ratedPressure: pr } = pumpRatingArgs(ratedFlow, ratedPressure, u);
   const s = optionalNumberArg(shutoffRatio, "shutoff_ratio", DEFAULT_SHUTOFF_RATIO);
   const o = optionalNumberArg(overloadRatio, "overload_ratio", DEFAULT_OVERLOAD_RATIO);
-  try {
-    return fromUS("pressure", finiteResult(pumpPressure(q, qr, pr, s, o), "PUMPCURVE"), u);
-  } catch (e) {
-    if (e instanceof PumpEnvelopeError) throw new CustomFunctions.Error(CustomFunctions.ErrorCode.invalidNumber, e.message);
-    throw e;
-  }
+  return fromUS("pressure", pumpPressure(q, qr, pr, s, o), u); // outside the envelope: a "number" problem, #NUM!
 }

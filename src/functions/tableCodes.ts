@@ -7,7 +7,7 @@
 import type { Material, SystemType } from "../engine/cfactor";
 import type { DurationBound, Hazard, HosePart } from "../engine/design";
 import type { Schedule } from "../engine/pipes";
-import { fail, show } from "../engine/errors";
+import { fail } from "../engine/errors";
 import { isBlank, normaliseText } from "./args";
 
 /** Spellings of each pipe schedule code. */
@@ -90,14 +90,14 @@ function foldCode(value: unknown): unknown {
 function tableCode<C extends string>(value: unknown, name: string, codes: Readonly<Record<C, readonly string[]>>, hint = ""): C {
   const list = Object.keys(codes) as C[];
   const allowed = list.map((c) => `"${c}"`).join(", ") + hint;
-  if (isBlank(value)) fail(`${name} is empty: type one of ${allowed}`);
-  if (typeof value !== "string" && typeof value !== "number") fail(`${name}: got ${show(value)}; must be one of ${allowed}`);
+  if (isBlank(value)) fail(name, undefined, `is empty: type one of ${allowed}`);
+  if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${allowed}`);
   const forms = [normaliseText(String(value)), normaliseText(String(foldCode(String(value))))];
   for (const c of list) {
     const spellings = [c, ...codes[c]].flatMap((a) => [normaliseText(a), normaliseText(String(foldCode(a)))]);
     if (forms.some((f) => spellings.includes(f))) return c;
   }
-  fail(`${name}: got ${show(value)}; must be one of ${allowed}`);
+  fail(name, { cell: value }, `must be one of ${allowed}`);
 }
 
 /** The `schedule` argument, default "40". */

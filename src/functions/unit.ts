@@ -41,13 +41,13 @@ const ALLOWED = Object.keys(UNITS).map((u) => `"${u}"`).join(", ");
 
 function lookup(value: unknown, name: string): [string, UnitEntry] {
   if (typeof value !== "string" || value.trim() === "") {
-    fail(`${name}: got ${show(value)}; must be one of ${ALLOWED}`);
+    fail(name, { cell: value }, `must be one of ${ALLOWED}`);
   }
   const t = normaliseText(value);
   for (const [key, entry] of Object.entries(UNITS)) {
     if (normaliseText(key) === t || entry.aliases.some((a) => normaliseText(a) === t)) return [key, entry];
   }
-  fail(`${name}: got ${show(value)}; must be one of ${ALLOWED}`);
+  fail(name, { cell: value }, `must be one of ${ALLOWED}`);
 }
 
 /** Size of one `entry` unit expressed in SI base units (a K-factor as m³/s per Pa^0.5). */
@@ -62,6 +62,6 @@ function baseValue(entry: UnitEntry): number {
 export function convertUnit(value: number, from: unknown, to: unknown): number {
   const [fromKey, a] = lookup(from, "from");
   const [toKey, b] = lookup(to, "to");
-  if (a.kind !== b.kind) fail(`to: cannot convert ${fromKey} (a ${a.kind}) to ${toKey} (a ${b.kind})`);
+  if (a.kind !== b.kind) fail("to", { cell: to }, `must be a unit of ${a.kind} like ${fromKey}; ${toKey} is a unit of ${b.kind}`);
   return (value * baseValue(a)) / baseValue(b);
 }

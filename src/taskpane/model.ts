@@ -16,6 +16,8 @@ import {
 } from "../engine/pump";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
+import { ZERO_ALLOWED, quantityArg } from "../functions/args";
+import { decisionArgs, pumpRatingArgs } from "../functions/common";
 import { type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
 
 /** What each name should hold, for messages: a description and its quantity. */
@@ -79,9 +81,17 @@ export type PaneModel =
   /** some inputs are still being calculated (#BUSY!) */
   | { kind: "busy"; names: InputName[] };
 
-const SHOWN_UNITS: Record<UnitSystem, Record<"pressure" | "flow", string>> = {
-  US: { pressure: "psi", flow: "gpm" },
-  SI: { pressure: "bar", flow: "L/min" },
+/** The named cell each argument of the shared checks reads, for attributing a problem to its cell. */
+const ARGUMENT_NAMES: Record<string, Exclude<InputName, "Units">> = {
+  demand_flow: "Demand_Flow",
+  demand_pressure: "Demand_Pressure",
+  static_pressure: "Supply_Static",
+  residual: "Supply_Residual",
+  test_flow: "Supply_TestFlow",
+  required_margin: "Required_Margin",
+  rated_flow: "Pump_RatedFlow",
+  rated_pressure: "Pump_RatedPressure",
+  Demand_HoseFlow: "Demand_HoseFlow",
 };
 
 function where(r: Reading): string {
@@ -91,7 +101,7 @@ function where(r: Reading): string {
 /** Why a reading is not a usable number, or null when it is one. `optional` names may be missing or empty. */
 function numberProblem(name: Exclude<InputName, "Units">, r: Reading, units: UnitSystem): string | null {
   const m = NAME_MEANINGS[name];
-  const unit = SHOWN_UNITS[units][m.quantity as "pressure" | "flow"];
+  const unit = unitName(m.quantity, units);
   const type = `type ${m.what} in ${unit}`;
   switch (r.kind) {
     case "number":
@@ -153,47 +163,50 @@ export function buildModel(readings: Readings): PaneModel {
   }
   if (problems.length > 0) return { kind: "problems", problems };
 
-  // Magnitudes, in the sheet's units, named by the cell they come from.
-  const q = (n: Exclude<InputName, "Units">) => `${trim(value(n))} ${SHOWN_UNITS[units][NAME_MEANINGS[n].quantity as "pressure" | "flow"]}`;
-  const rule = (n: Exclude<InputName, "Units">, ok: boolean, must: string) => {
-    if (!ok) problems.push({ name: n, message: `${n}${where(readings[n])} is ${q(n)}; it must be ${must}.` });
+  // Magnitudes: read by the very argument checks the cell functions use (VERDICT, PUMPBOOST, PUMPCURVE), so that
+  // where a cell on the sheet shows an error the pane shows the same message, never a verdict.
+  const v = (n: Exclude<InputName, "Units">) => (given.has(n) || REQUIRED_NAMES.includes(n) ? value(n) : null);
+  const check = <T>(read: () => T): T | undefined => {
+    try {
+      return read();
+    } catch (e) {
+      if (!(e instanceof HeadroomError)) throw e;
+      const name = ARGUMENT_NAMES[e.argument] ?? "Demand_Flow";
+      problems.push({ name, message: `${name}${where(readings[name])}: ${e.messageIn(units)}` });
+      return undefined;
+    }
   };
-  rule("Supply_Static", value("Supply_Static") > 0, "greater than 0");
-  rule("Supply_Residual", value("Supply_Residual") >= 0, "0 or more");
-  if (value("Supply_Static") > 0 && value("Supply_Residual") >= 0) {
-    rule("Supply_Residual", value("Supply_Residual") < value("Supply_Static"), `below Supply_Static (${q("Supply_Static")})`);
+  const decision = check(() =>
+    decisionArgs(v("Demand_Flow"), v("Demand_Pressure"), v("Supply_Static"), v("Supply_Residual"), v("Supply_TestFlow"), v("Required_Margin"), units),
+  );
+  const hoseFlow = given.has("Demand_HoseFlow") ? check(() => quantityArg(value("Demand_HoseFlow"), "Demand_HoseFlow", "flow", units, ZERO_ALLOWED)) : null;
+  if (decision && hoseFlow !== undefined && hoseFlow !== null && !(hoseFlow < decision.demandFlow)) {
+    problems.push({
+      name: "Demand_HoseFlow",
+      message: `Demand_HoseFlow${where(readings.Demand_HoseFlow)} is ${trim(value("Demand_HoseFlow"))} ${unitName("flow", units)}; it must be below Demand_Flow (${trim(value("Demand_Flow"))} ${unitName("flow", units)}).`,
+    });
   }
-  rule("Supply_TestFlow", value("Supply_TestFlow") > 0, "greater than 0");
-  rule("Demand_Flow", value("Demand_Flow") > 0, "greater than 0");
-  rule("Demand_Pressure", value("Demand_Pressure") >= 0, "0 or more");
-  if (given.has("Demand_HoseFlow")) {
-    rule("Demand_HoseFlow", value("Demand_HoseFlow") >= 0 && value("Demand_HoseFlow") < value("Demand_Flow"), `0 or more and below Demand_Flow (${q("Demand_Flow")})`);
-  }
-  if (given.has("Required_Margin")) rule("Required_Margin", value("Required_Margin") >= 0, "0 or more");
   const pumpGiven = given.has("Pump_RatedFlow") || given.has("Pump_RatedPressure");
+  let pump: PumpRating | null = null;
   if (pumpGiven) {
     for (const [n, other] of [
       ["Pump_RatedFlow", "Pump_RatedPressure"],
       ["Pump_RatedPressure", "Pump_RatedFlow"],
     ] as const) {
-      if (!given.has(n)) problems.push({ name: n, message: `${n} is empty while ${other} holds ${q(other)}: give both or neither.` });
-      else rule(n, value(n) > 0, "greater than 0");
+      if (!given.has(n)) {
+        const unit = unitName(NAME_MEANINGS[other].quantity, units);
+        problems.push({ name: n, message: `${n} is empty while ${other} holds ${trim(value(other))} ${unit}: give both or neither.` });
+      }
+    }
+    if (given.has("Pump_RatedFlow") && given.has("Pump_RatedPressure")) {
+      const rating = check(() => pumpRatingArgs(value("Pump_RatedFlow"), value("Pump_RatedPressure"), units));
+      if (rating) pump = { ratedFlow: rating.ratedFlow, ratedPressure: rating.ratedPressure };
     }
   }
-  if (problems.length > 0) return { kind: "problems", problems };
+  if (problems.length > 0 || !decision) return { kind: "problems", problems };
 
-  const us = (n: Exclude<InputName, "Units">) => toUS(NAME_MEANINGS[n].quantity, value(n), units);
-  const test: FlowTest = { static: us("Supply_Static"), residual: us("Supply_Residual"), testFlow: us("Supply_TestFlow") };
-  const demandFlow = us("Demand_Flow");
-  const demandPressure = us("Demand_Pressure");
-  const requiredMargin = given.has("Required_Margin") ? us("Required_Margin") : 0;
-  let assessment: Assessment;
-  try {
-    assessment = assess(demandFlow, demandPressure, test, requiredMargin);
-  } catch (e) {
-    // the checks above mirror the engine's; this is a last line, worded by the engine
-    return { kind: "problems", problems: [{ name: "Demand_Flow", message: e instanceof Error ? e.message : String(e) }] };
-  }
+  const { demandFlow, demandPressure, test, requiredMargin } = decision;
+  const assessment = assess(demandFlow, demandPressure, test, requiredMargin); // every input checked above
   const verdict = verdictSentence(assessment, units);
   const marginPercent = assessment.margin !== null && demandPressure > 0 ? (assessment.margin / demandPressure) * 100 : null;
 
@@ -202,11 +215,11 @@ export function buildModel(readings: Readings): PaneModel {
   let pumpSizeNote: string | null = null;
   if (assessment.pumpNeeded) {
     try {
-      boost = pumpBoost(demandFlow, demandPressure, test, requiredMargin, units);
+      boost = pumpBoost(demandFlow, demandPressure, test, requiredMargin);
       pumpSize = pumpSizeFor(demandFlow, boost, units);
     } catch (e) {
       if (!(e instanceof HeadroomError)) throw e;
-      pumpSizeNote = e.message;
+      pumpSizeNote = e.messageIn(units);
     }
   }
 
@@ -218,10 +231,10 @@ export function buildModel(readings: Readings): PaneModel {
       test,
       demandFlow,
       demandPressure,
-      hoseFlow: given.has("Demand_HoseFlow") ? us("Demand_HoseFlow") : null,
+      hoseFlow: hoseFlow ?? null,
       requiredMargin,
       requiredMarginGiven: given.has("Required_Margin"),
-      pump: pumpGiven ? { ratedFlow: us("Pump_RatedFlow"), ratedPressure: us("Pump_RatedPressure") } : null,
+      pump,
       assessment,
       verdict,
       marginPercent,

@@ -29,7 +29,7 @@ describe("margin and verdict", () => {
     expect(verdictSentence(assess(3000, 40, t, 0), "US")).toBe(
       "Pump needed: the supply reaches 0 at 2666 gpm, below the demand flow of 3000 gpm.",
     );
-    expect(() => margin(3000, 40, t)).toThrow(/reaches 0 at 2666 gpm/);
+    expect(() => margin(3000, 40, t)).toThrow(/demand_flow: got 3000 gpm; this supply reaches 0 psi at 2665\.8 gpm; no margin exists/);
     expect(() => pumpBoost(3000, 40, t, 0)).toThrow(/cannot draw more/);
   });
 

@@ -50,8 +50,8 @@ describe("density/area curves", () => {
   it("an area off the curve is an error stating the span", () => {
     const e = errorOf(() => designDensity("OH1", 1000));
     expect(e.kind).toBe("value");
-    expect(e.message).toBe("area: got 1000 ft²; the OH1 (ordinary hazard group 1) curve spans 1500 to 4000 ft²");
-    expect(() => designDensity("LH", 3100)).toThrow(/spans 1500 to 3000 ft²/);
+    expect(e.message).toBe("area: got 1000 ft²; the OH1 (ordinary hazard group 1) curve spans 1500 ft² to 4000 ft²");
+    expect(() => designDensity("LH", 3100)).toThrow(/spans 1500 ft² to 3000 ft²/);
     expect(() => designDensity("LH", Number.NaN)).toThrow(/spans/);
   });
 

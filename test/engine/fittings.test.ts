@@ -27,7 +27,7 @@ describe("equivalent length table", () => {
     const e = errorOf(() => tableLength("BV", 1));
     expect(e.kind).toBe("na");
     expect(e.message).toBe(
-      "no equivalent length for a butterfly valve (BV) at 1 in: the table has it at 2, 2-1/2, 3, 4, 5, 6, 8, 10, 12 in",
+      "nominal: got 1 in; the equivalent length table has no butterfly valve (BV) at this size, only at 2, 2-1/2, 3, 4, 5, 6, 8, 10, 12 in",
     );
     expect(errorOf(() => tableLength("BV", 3.5)).kind).toBe("na"); // "–" at 3½ [NFPA 13] (from memory)
     expect(errorOf(() => tableLength("GV", 1.5)).kind).toBe("na"); // "–" below 2 [NFPA 13] (from memory)
@@ -38,7 +38,7 @@ describe("equivalent length table", () => {
   it("a size outside the columns is #VALUE! listing the columns", () => {
     const e = errorOf(() => tableLength("E", 14));
     expect(e.kind).toBe("value");
-    expect(e.message).toBe("nominal: got 14; the equivalent length table covers 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3, 3-1/2, 4, 5, 6, 8, 10, 12 (in)");
+    expect(e.message).toBe("nominal: got 14 in; the equivalent length table covers 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3, 3-1/2, 4, 5, 6, 8, 10, 12 (in)");
   });
 });
 
@@ -79,7 +79,7 @@ describe("adjustments", () => {
   it("a size the schedule lacks is #VALUE! listing its sizes; a gap stays #N/A after adjustment", () => {
     const e = errorOf(() => equivalentLength("E", 4, 120, "CPVC"));
     expect(e.kind).toBe("value");
-    expect(e.message).toBe("nominal: got 4; CPVC SDR 13.5 comes in 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3 (in)");
+    expect(e.message).toBe("nominal: got 4 in; CPVC SDR 13.5 comes in 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3 (in)");
     expect(errorOf(() => equivalentLength("BV", 1.5, 150, "L")).kind).toBe("na");
   });
 });

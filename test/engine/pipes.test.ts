@@ -57,14 +57,14 @@ describe("pipe schedules", () => {
     expect(c900InternalDiameter(6.9, 14)).toBeCloseTo(5.914286, 6);
     // 12 in OD 13.20 [AWWA C900] (from memory): DR18 13.20 × 16/18 = 11.73333
     expect(internalDiameter(12, "DR18")).toBeCloseTo(11.733333, 6);
-    expect(() => c900InternalDiameter(6.9, 2)).toThrow(/dimension ratio/);
-    expect(() => c900InternalDiameter(0, 14)).toThrow(/outside diameter/);
+    expect(() => c900InternalDiameter(6.9, 2)).toThrow(/dimension_ratio: got 2; must be greater than 2/);
+    expect(() => c900InternalDiameter(0, 14)).toThrow(/outside_diameter: got 0 in/);
   });
 
   it("an unknown size lists the sizes of the schedule", () => {
     const e = errorOf(() => internalDiameter(5, "CPVC"));
     expect(e.kind).toBe("value");
-    expect(e.message).toBe("nominal: got 5; CPVC SDR 13.5 comes in 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3 (in)");
+    expect(e.message).toBe("nominal: got 5 in; CPVC SDR 13.5 comes in 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3 (in)");
     expect(findPipeSize(2.25, "40")).toBeUndefined();
   });
 

@@ -30,7 +30,7 @@ describe("segment losses [NFPA 13]", () => {
     expect(segmentLosses(seg({}), double).friction).toBeCloseTo(2 * 7.178, 2);
   });
   it("rejects impossible segments, naming the column", () => {
-    expect(() => segmentLosses(seg({ diameter: 0 }))).toThrow(/diameter: got 0; must be greater than 0/);
+    expect(() => segmentLosses(seg({ diameter: 0 }))).toThrow(/diameter: got 0 in; must be greater than 0/);
     expect(() => segmentLosses(seg({ fixedLoss: -1 }))).toThrow(/fixed_loss/);
     expect(() => segmentLosses(seg({ length: -1 }))).toThrow(/length/);
   });

@@ -147,7 +147,7 @@ describe("AREADEMAND solve: invariants [NFPA 13]", () => {
   });
 
   it("rejects inputs that are not positive, naming them", () => {
-    expect(() => solveAreaDemand({ ...base, headSpacing: 0 })).toThrow(/head_spacing: got 0; must be greater than 0/);
+    expect(() => solveAreaDemand({ ...base, headSpacing: 0 })).toThrow(/head_spacing: got 0 ft; must be greater than 0/);
     expect(() => solveAreaDemand({ ...base, mainDiameter: -1 })).toThrow(/main_diameter/);
     expect(() => solveAreaDemand({ ...base, density: Number.NaN })).toThrow(/density/);
   });

@@ -114,9 +114,36 @@ describe("pane model: what is wrong with the names", () => {
     ]);
   });
 
+  // Each of these is a #VALUE! in the sheet's VERDICT cell; the pane must show that very message, never a verdict.
+  // The bounds are the plausibility limits of the argument checks (common practice): flow ≤ 100,000 gpm,
+  // pressure ≤ 1,000 psi.
+  const sheetErrors: Array<[string, Values]> = [
+    ["a test flow of 150,000 gpm", { ...BASE, Supply_TestFlow: 150000 }],
+    ["a static pressure of 5,000 psi", { ...BASE, Supply_Static: 5000 }],
+    ["a required margin of 2,000 psi", { ...BASE, Required_Margin: 2000 }],
+    ["a static pressure of 1e300 psi", { ...BASE, Supply_Static: 1e300 }],
+    ["an SI static pressure of 500 bar", { Units: "SI", Supply_Static: 500, Supply_Residual: 4.0, Supply_TestFlow: 4164, Demand_Flow: 2127, Demand_Pressure: 3.3 }],
+  ];
+  for (const [label, v] of sheetErrors) {
+    it(`shows the sheet's own message for ${label}`, () => {
+      const args = [v.Demand_Flow, v.Demand_Pressure, v.Supply_Static, v.Supply_Residual, v.Supply_TestFlow, v.Required_Margin ?? null, v.Units] as const;
+      let sheet = "";
+      try {
+        verdictCell(...args);
+      } catch (e) {
+        sheet = (e as Error).message;
+      }
+      expect(sheet).toMatch(/^\w+: got /);
+      const m = model(v);
+      expect(m.kind).toBe("problems");
+      expect(problems(v).some((p) => p.endsWith(`: ${sheet}`))).toBe(true);
+    });
+  }
+
   it("checks the flow test makes a supply curve", () => {
     expect(problems({ ...BASE, Supply_Residual: 80 })).toEqual([
-      "Supply_Residual (Estimate!B4) is 80 psi; it must be below Supply_Static (72 psi).",
+      // the sheet's own message (VERDICT reads the same checks), attributed to the named cell
+      "Supply_Residual (Estimate!B4): residual: got 80 psi; must be below the static pressure 72 psi",
     ]);
     expect(problems({ ...BASE, Supply_TestFlow: 0 })[0]).toMatch(/^Supply_TestFlow .* must be greater than 0/);
   });
