@@ -36,10 +36,11 @@ describe("AREADEMAND", () => {
     expect(pressure).toBeGreaterThanOrEqual(end);
   });
   test.prop([area, d(0.6, 0.95)], RUNS)("pressure rises as the branch lines shrink", (a, k) => {
-    expect(solve(a, a.branch * k)[1]).toBeGreaterThanOrEqual(solve(a)[1]);
+    // not below, to rounding: where every line's inlet pressure is set by the cross main alone, the two are equal
+    expect(solve(a, a.branch * k)[1]).toBeGreaterThanOrEqual(solve(a)[1] * (1 - 1e-12));
   });
   test.prop([area, d(0.6, 0.95)], RUNS)("pressure rises as the cross main shrinks", (a, k) => {
-    expect(solve(a, a.branch, a.main * k)[1]).toBeGreaterThanOrEqual(solve(a)[1]);
+    expect(solve(a, a.branch, a.main * k)[1]).toBeGreaterThanOrEqual(solve(a)[1] * (1 - 1e-12));
   });
   test.prop([area], RUNS)("in SI it equals the converted US solve within 0.5 % (EN 12845 friction form) [EN 12845]", (a) => {
     const us = f.areademand(a.density, a.area, a.coverage, a.k, a.spacing, a.branch, a.main, a.c, 7)[0] as number[];
