@@ -6,6 +6,7 @@ import { describe, expect } from "vitest";
 import { fc, test } from "@fast-check/vitest";
 import * as f from "../../src/functions/functions";
 import { scheduleSizes } from "../../src/engine/pipes";
+import { solveAreaDemand } from "../../src/engine/tree";
 import { STANDARD_RATED_CAPACITIES_GPM } from "../../src/engine/pump";
 import { BAR_PER_PSI, KSI_PER_KUS, L_PER_GAL, M2_PER_FT2, MMMIN_PER_GPMFT2, MM_PER_IN, M_PER_FT } from "../../src/engine/units";
 import { BLANKS, NOT_NUMBERS, NOT_POSITIVE, arb, givesError } from "./arbitraries";
@@ -35,9 +36,16 @@ describe("AREADEMAND", () => {
     expect(flow).toBeGreaterThanOrEqual(a.density * a.area * (1 - 1e-12));
     expect(pressure).toBeGreaterThanOrEqual(end);
   });
-  test.prop([area, d(0.6, 0.95)], RUNS)("pressure rises as the branch lines shrink", (a, k) => {
-    // not below, to rounding: where every line's inlet pressure is set by the cross main alone, the two are equal
-    expect(solve(a, a.branch * k)[1]).toBeGreaterThanOrEqual(solve(a)[1] * (1 - 1e-12));
+  test.prop([area, d(0.6, 0.95)], RUNS)("the most remote line needs more pressure as the branch lines shrink", (a, k) => {
+    // Only the first line is monotone: further lines then draw less flow (a smaller line K), so the cross main loses
+    // less and the area's own pressure can come out lower (found by this property: 97.1692 psi both ways at
+    // 2800 ft², K 9.06, 2.5 in lines shrunk by 7 %).
+    const line1 = (branch: number) =>
+      solveAreaDemand({
+        density: a.density, area: a.area, coverage: a.coverage, kFactor: a.k, headSpacing: a.spacing,
+        branchDiameter: branch, mainDiameter: a.main, cFactor: a.c, minPressure: 7,
+      }).linePressures[0];
+    expect(line1(a.branch * k)).toBeGreaterThan(line1(a.branch));
   });
   test.prop([area, d(0.6, 0.95)], RUNS)("pressure rises as the cross main shrinks", (a, k) => {
     expect(solve(a, a.branch, a.main * k)[1]).toBeGreaterThanOrEqual(solve(a)[1] * (1 - 1e-12));
