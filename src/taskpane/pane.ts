@@ -7,7 +7,8 @@
  * "demand-point", "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
  */
 import { formatFlow, formatPressure } from "../engine/decision";
-import type { UnitsCode, WorkbookPort } from "../workbook/port";
+import type { UnitSystem } from "../engine/units";
+import type { WorkbookPort } from "../workbook/port";
 import { CAUTION, PALETTE } from "../workbook/template";
 import { type Estimate, type PaneModel, buildModel, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
@@ -67,7 +68,7 @@ function legendIcon(doc: Document, kind: "supply" | "band" | "sprinklers" | "tot
   return svg;
 }
 
-function signed(psi: number, units: UnitsCode): string {
+function signed(psi: number, units: UnitSystem): string {
   return `${psi < 0 ? "−" : ""}${formatPressure(psi, units)}`;
 }
 
@@ -267,7 +268,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   refreshButton.addEventListener("click", () => void refresh());
   newSheet.addEventListener("click", () =>
     action(newSheet, async () => {
-      const r = await port.insertEstimateSheet(unitsSelect.value as UnitsCode);
+      const r = await port.insertEstimateSheet(unitsSelect.value as UnitSystem);
       const moved = r.namesMoved.length > 0 ? " The named cells now point to it." : "";
       setStatus(`Added the sheet ${r.sheetName} with a demo scenario: overwrite the shaded cells.${moved}`);
     }),

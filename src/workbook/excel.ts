@@ -6,6 +6,7 @@
  * series, worksheet.copy), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom).
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
+import type { UnitSystem } from "../engine/units";
 import { cellAddress, freeSheetName, parseRange, splitSheet } from "./a1";
 import {
   INPUT_NAMES,
@@ -14,7 +15,6 @@ import {
   type Reading,
   type Readings,
   type ShareCopyResult,
-  type UnitsCode,
   type WorkbookPort,
   isoDate,
   shareRefusal,
@@ -183,7 +183,7 @@ function cellConstant(v: string | number): string | number {
   return typeof v === "number" ? v : `'${v}`;
 }
 
-async function insertEstimateSheet(ctx: Ctx, units: UnitsCode, scenario?: Scenario): Promise<InsertResult> {
+async function insertEstimateSheet(ctx: Ctx, units: UnitSystem, scenario?: Scenario): Promise<InsertResult> {
   const template = estimateTemplate(scenario ?? demoScenario(units));
   const wb = ctx.workbook;
   const sheetName = await freeName(ctx, template.sheetName);

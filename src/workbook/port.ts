@@ -8,6 +8,7 @@
  * The port reports what a cell holds; it does not judge it. Whether text in Supply_Static is wrong, or an empty
  * Pump_RatedFlow means "no pump", is the pane's decision (src/taskpane/model.ts).
  */
+import type { UnitSystem } from "../engine/units";
 import type { Scenario } from "./template";
 
 /** The named cells the pane reads. Units holds "US" or "SI"; every other name holds a number in those units. */
@@ -57,8 +58,6 @@ export type Reading =
 
 export type Readings = Record<InputName, Reading>;
 
-export type UnitsCode = "US" | "SI";
-
 /** What "New estimate sheet" did. */
 export interface InsertResult {
   /** name of the new worksheet */
@@ -84,7 +83,7 @@ export interface WorkbookPort {
    * Insert a complete estimate worksheet built from ./template.ts for the scenario (the demo scenario of those
    * units if none is given), define its named cells, activate it.
    */
-  insertEstimateSheet(units: UnitsCode, scenario?: Scenario): Promise<InsertResult>;
+  insertEstimateSheet(units: UnitSystem, scenario?: Scenario): Promise<InsertResult>;
   /**
    * Copy the estimate sheet (the sheet Supply_Static refers to, else the active sheet) to a new sheet whose cells
    * hold values only, stamped with the date and "values frozen; recalculation needs the Headroom add-in". The

@@ -4,6 +4,7 @@
  *
  * It passes the same contract tests as the Excel side (test/workbook/contract.ts, run by test/preview/port.test.ts).
  */
+import type { UnitSystem } from "../engine/units";
 import type { PreviewWorkbook } from "../preview/workbook";
 import { templateNames, templateSheet } from "../preview/fromTemplate";
 import type { CellData, SheetData } from "../preview/model";
@@ -15,7 +16,6 @@ import {
   type Reading,
   type Readings,
   type ShareCopyResult,
-  type UnitsCode,
   type WorkbookPort,
   isoDate,
   shareRefusal,
@@ -84,7 +84,7 @@ export class PreviewPort implements WorkbookPort {
     };
   }
 
-  async insertEstimateSheet(units: UnitsCode, scenario?: Scenario): Promise<InsertResult> {
+  async insertEstimateSheet(units: UnitSystem, scenario?: Scenario): Promise<InsertResult> {
     const wb = this.workbook;
     const t = estimateTemplate(scenario ?? demoScenario(units));
     const sheetName = wb.addSheet(templateSheet(t, freeSheetName(t.sheetName, wb.sheetNames())));

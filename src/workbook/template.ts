@@ -14,7 +14,8 @@
  * formula only; the cells they spill into are left empty.
  */
 import { cellAddress, columnLetters, parseCell } from "./a1";
-import type { InputName, UnitsCode } from "./port";
+import type { UnitSystem } from "../engine/units";
+import type { InputName } from "./port";
 
 // ─── Types ───────────────────────────────────────────────────────────────────────────────────────────────────────
 
@@ -71,7 +72,7 @@ export interface TemplateChart {
 export interface SheetTemplate {
   /** the base of the worksheet name ("Estimate"; a host adds " 2", " 3"... when taken) */
   sheetName: string;
-  units: UnitsCode;
+  units: UnitSystem;
   cells: TemplateCell[];
   names: TemplateName[];
   chart: TemplateChart;
@@ -119,7 +120,7 @@ export interface RunSegmentInput {
 
 /** Everything an estimate sheet is filled with. All numbers are in `units`. */
 export interface Scenario {
-  units: UnitsCode;
+  units: UnitSystem;
   site: string;
   address: string;
   preparedBy: string;
@@ -170,7 +171,7 @@ export interface Scenario {
  * The demo scenario every new estimate sheet starts from: an invented warehouse, an invented firm and an invented
  * flow test, for the user to overwrite. The SI demo is its own metric scenario, not a conversion.
  */
-export function demoScenario(units: UnitsCode): Scenario {
+export function demoScenario(units: UnitSystem): Scenario {
   if (units === "SI") {
     return {
       units: "SI",
@@ -249,7 +250,7 @@ interface SheetUnits {
   fmt: { flow: string; pressure: string; diameter: string; length: string; area: string; density: string; kfactor: string };
 }
 
-const SHEET_UNITS: Record<UnitsCode, SheetUnits> = {
+const SHEET_UNITS: Record<UnitSystem, SheetUnits> = {
   US: {
     flow: "gpm",
     pressure: "psi",

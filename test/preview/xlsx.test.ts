@@ -11,6 +11,7 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
 import type { WorkbookData } from "../../src/preview/model";
+import type { UnitSystem } from "../../src/engine/units";
 import { PreviewPort } from "../../src/workbook/preview";
 import { demoScenario, estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "./metadataFixture";
@@ -22,7 +23,7 @@ beforeAll(async () => {
   known = reg.functions.map((f) => f.formulaName);
 });
 
-function demoWorkbook(units: "US" | "SI" = "US"): PreviewWorkbook {
+function demoWorkbook(units: UnitSystem = "US"): PreviewWorkbook {
   const t = estimateTemplate(demoScenario(units));
   return new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
 }

@@ -2,7 +2,8 @@
  * A Workbook port over a plain map of readings, for the pane's tests: `set` changes a reading and notifies the
  * subscribers as a workbook change would.
  */
-import { INPUT_NAMES, type InputName, type InsertResult, type Reading, type Readings, type ShareCopyResult, type UnitsCode, type WorkbookPort } from "../../src/workbook/port";
+import { INPUT_NAMES, type InputName, type InsertResult, type Reading, type Readings, type ShareCopyResult, type WorkbookPort } from "../../src/workbook/port";
+import type { UnitSystem } from "../../src/engine/units";
 
 export type Values = Partial<Record<InputName, number | string | Reading | null>>;
 
@@ -19,7 +20,7 @@ export class FakePort implements WorkbookPort {
   readings: Readings;
   listeners = new Set<() => void>();
   reads = 0;
-  inserted: UnitsCode[] = [];
+  inserted: UnitSystem[] = [];
   shareResult: ShareCopyResult = { ok: true, sheetName: "Estimate values 2026-05-04", sourceSheet: "Estimate" };
 
   constructor(values: Values) {
@@ -50,7 +51,7 @@ export class FakePort implements WorkbookPort {
     };
   }
 
-  async insertEstimateSheet(units: UnitsCode): Promise<InsertResult> {
+  async insertEstimateSheet(units: UnitSystem): Promise<InsertResult> {
     this.inserted.push(units);
     return { sheetName: `Estimate ${this.inserted.length + 1}`, namesMoved: ["Supply_Static"] };
   }
