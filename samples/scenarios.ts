@@ -5,7 +5,7 @@
  *
  * The numbers are demo inputs, not check values: they were chosen so that each workbook tells its own story.
  */
-import type { Scenario } from "../src/workbook/template";
+import type { Scenario } from "../src/workbook/scenario";
 
 export interface SampleSpec {
   /** file name in samples/ */

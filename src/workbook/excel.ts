@@ -20,7 +20,8 @@ import {
   shareRefusal,
   shareStamp,
 } from "./port";
-import { ROLE_STYLES, type Scenario, type SheetTemplate, type TemplateChart, demoScenario, estimateTemplate } from "./template";
+import { type Scenario, demoScenario } from "./scenario";
+import { ROLE_STYLES, type SheetTemplate, type TemplateChart, estimateTemplate } from "./template";
 
 type Ctx = Excel.RequestContext;
 

@@ -9,7 +9,7 @@
  * Pump_RatedFlow means "no pump", is the pane's decision (src/taskpane/model.ts).
  */
 import type { UnitSystem } from "../engine/units";
-import type { Scenario } from "./template";
+import type { Scenario } from "./scenario";
 
 /** The named cells the pane reads. Units holds "US" or "SI"; every other name holds a number in those units. */
 export const INPUT_NAMES = [

@@ -21,7 +21,8 @@ import {
   shareRefusal,
   shareStamp,
 } from "./port";
-import { demoScenario, estimateTemplate, type Scenario } from "./template";
+import { demoScenario, type Scenario } from "./scenario";
+import { estimateTemplate } from "./template";
 
 /** How many error cells a refused share copy names before "and N more". */
 const REFUSAL_LIST = 5;

@@ -13,7 +13,8 @@ import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
 import type { WorkbookData } from "../../src/preview/model";
 import type { UnitSystem } from "../../src/engine/units";
 import { PreviewPort } from "../../src/workbook/preview";
-import { demoScenario, estimateTemplate } from "../../src/workbook/template";
+import { demoScenario } from "../../src/workbook/scenario";
+import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "./metadataFixture";
 import { zipEntry } from "./zipEntry";
 

@@ -7,7 +7,8 @@
  */
 import { describe, expect, it } from "vitest";
 import { INPUT_NAMES, type InputName, REQUIRED_NAMES, SHARE_STAMP, type WorkbookPort, isoDate } from "../../src/workbook/port";
-import { demoScenario, estimateTemplate } from "../../src/workbook/template";
+import { demoScenario } from "../../src/workbook/scenario";
+import { estimateTemplate } from "../../src/workbook/template";
 
 export interface PortHarness {
   port: WorkbookPort;

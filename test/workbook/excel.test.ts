@@ -2,7 +2,8 @@ import { describe, expect, it } from "vitest";
 import { cellAddress, parseCell } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
 import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
-import { CAUTION, ROLE_STYLES, demoScenario, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { demoScenario } from "../../src/workbook/scenario";
+import { CAUTION, ROLE_STYLES, estimateTemplate, spillCells } from "../../src/workbook/template";
 import { portContract, type PortHarness } from "./contract";
 import { FakeExcel } from "./fakeExcel";
 

@@ -12,7 +12,8 @@ import { buildModel } from "../../src/taskpane/model";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { INPUT_NAMES } from "../../src/workbook/port";
 import { PreviewPort } from "../../src/workbook/preview";
-import { CAUTION, type Scenario, type SheetTemplate, demoScenario, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { type Scenario, demoScenario } from "../../src/workbook/scenario";
+import { CAUTION, type SheetTemplate, estimateTemplate, spillCells } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
 
 beforeAll(async () => {

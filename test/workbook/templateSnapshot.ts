@@ -12,7 +12,8 @@ import { writeFile } from "node:fs/promises";
 import { fileURLToPath } from "node:url";
 import { SAMPLES } from "../../samples/scenarios";
 import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
-import { type Scenario, type SheetTemplate, demoScenario, estimateTemplate, spillCells, templateExtent } from "../../src/workbook/template";
+import { type Scenario, demoScenario } from "../../src/workbook/scenario";
+import { type SheetTemplate, estimateTemplate, spillCells, templateExtent } from "../../src/workbook/template";
 
 export const SNAPSHOT_FILE = fileURLToPath(new URL("./snapshots/estimate-template.json", import.meta.url));
 

@@ -1,0 +1,143 @@
+/**
+ * What an estimate sheet is filled with: the scenario (site, flow test, hazard, sprinklers, the pipe run, the margin
+ * and an optional pump) and the demo scenarios every new estimate sheet starts from. The template (./template.ts)
+ * lays a scenario out as cells; the samples (samples/scenarios.ts) are scenarios too.
+ */
+import type { UnitSystem } from "../engine/units";
+
+/** One segment of the run from the design area back to the supply, in the scenario's units. */
+export interface RunSegmentInput {
+  label: string;
+  /** nominal size: inches (2, "2-1/2") in US work, DN in SI work */
+  nominal: number | string;
+  /** "40", "10", "CPVC", "K", "L", "M", "DR14", "DR18" */
+  schedule: string;
+  /** CFACTOR material code, e.g. "steel", "plastic" */
+  material: string;
+  /** fittings and valves, e.g. "2E T GV"; "" for none */
+  fittings: string;
+  /** ft or m */
+  length: number;
+  /** height the water climbs through the segment on its way to the sprinklers, ft or m (negative for a drop) */
+  rise: number;
+  /** a fixed loss in the segment (backflow preventer, meter), psi or bar */
+  fixedLoss: number;
+}
+
+/** Everything an estimate sheet is filled with. All numbers are in `units`. */
+export interface Scenario {
+  units: UnitSystem;
+  site: string;
+  address: string;
+  preparedBy: string;
+  flowTest: {
+    /** when and where the test was made (text) */
+    when: string;
+    /** psi or bar */
+    static: number;
+    /** psi or bar */
+    residual: number;
+    /** flow measured directly, gpm or L/min; null to use the pitot reading */
+    flow: number | null;
+    /** pitot pressure, psi or bar; null when the flow was measured directly */
+    pitot: number | null;
+    /** hydrant outlet internal diameter, in or mm */
+    outletDiameter: number;
+    /** outlet coefficient: 0.90 smooth rounded, 0.80 square and sharp, 0.70 projecting [NFPA 291] */
+    outletCoefficient: number;
+  };
+  /** LH, OH1, OH2, EH1, EH2 */
+  hazard: string;
+  /** a chosen design area (ft² or m²), or null for the smallest on the hazard's curve */
+  designArea: number | null;
+  sprinkler: {
+    /** gpm/psi^0.5 or L/min/bar^0.5 */
+    kFactor: number;
+    /** ft² or m² per sprinkler */
+    coverage: number;
+    /** along a branch line, ft or m */
+    spacing: number;
+    /** psi or bar */
+    minPressure: number;
+  };
+  branch: { nominal: number | string; schedule: string };
+  crossMain: { nominal: number | string; schedule: string };
+  /** CFACTOR material of the design area's pipes */
+  material: string;
+  /** "wet" or "dry" */
+  system: string;
+  run: RunSegmentInput[];
+  /** psi or bar: a visible input, common practice about 10 psi */
+  requiredMargin: number;
+  /** a pump the user has chosen (rated flow and pressure), or null to plot the PUMPSIZE result */
+  pump: { ratedFlow: number; ratedPressure: number } | null;
+}
+
+/**
+ * The demo scenario every new estimate sheet starts from: an invented warehouse, an invented firm and an invented
+ * flow test, for the user to overwrite. The SI demo is its own metric scenario, not a conversion.
+ */
+export function demoScenario(units: UnitSystem): Scenario {
+  if (units === "SI") {
+    return {
+      units: "SI",
+      site: "Demo distribution shed, Bay 3",
+      address: "3 Example Quay, Sampleport",
+      preparedBy: "Sample Fire Design Studio (demo)",
+      flowTest: {
+        when: "2026-03-14 10:30, hydrant at the Example Quay gate (demo)",
+        static: 5.0,
+        residual: 3.9,
+        flow: null,
+        pitot: 1.0,
+        outletDiameter: 63.5,
+        outletCoefficient: 0.9,
+      },
+      hazard: "OH2",
+      designArea: null,
+      sprinkler: { kFactor: 115, coverage: 11, spacing: 3.3, minPressure: 0.5 },
+      branch: { nominal: 40, schedule: "40" },
+      crossMain: { nominal: 80, schedule: "40" },
+      material: "steel",
+      system: "wet",
+      run: [
+        { label: "Cross main to the riser", nominal: 80, schedule: "40", material: "steel", fittings: "2E T", length: 20, rise: 0, fixedLoss: 0 },
+        { label: "Riser with its valves", nominal: 100, schedule: "40", material: "steel", fittings: "E GV CV", length: 6, rise: 5, fixedLoss: 0 },
+        { label: "Backflow preventer", nominal: 100, schedule: "40", material: "steel", fittings: "2GV", length: 1.5, rise: 0, fixedLoss: 0.55 },
+        { label: "Underground to the street main", nominal: 150, schedule: "DR14", material: "plastic", fittings: "E GV", length: 55, rise: 1.2, fixedLoss: 0 },
+      ],
+      requiredMargin: 0.7,
+      pump: null,
+    };
+  }
+  return {
+    units: "US",
+    site: "Demo warehouse, Unit 7",
+    address: "7 Example Lane, Sampletown",
+    preparedBy: "Sample Engineering Co. (demo)",
+    flowTest: {
+      when: "2026-03-14 10:30, hydrant at Example Lane and Second Street (demo)",
+      static: 72,
+      residual: 56,
+      flow: null,
+      pitot: 14,
+      outletDiameter: 2.5,
+      outletCoefficient: 0.9,
+    },
+    hazard: "OH2",
+    designArea: null,
+    sprinkler: { kFactor: 8, coverage: 120, spacing: 11, minPressure: 7 },
+    branch: { nominal: 1.5, schedule: "40" },
+    crossMain: { nominal: 3, schedule: "40" },
+    material: "steel",
+    system: "wet",
+    run: [
+      { label: "Cross main to the riser", nominal: 3, schedule: "40", material: "steel", fittings: "2E T", length: 65, rise: 0, fixedLoss: 0 },
+      { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 20, rise: 16, fixedLoss: 0 },
+      { label: "Backflow preventer", nominal: 4, schedule: "40", material: "steel", fittings: "2GV", length: 5, rise: 0, fixedLoss: 8 },
+      { label: "Underground to the street main", nominal: 6, schedule: "DR14", material: "plastic", fittings: "E GV", length: 180, rise: 4, fixedLoss: 0 },
+    ],
+    requiredMargin: 10,
+    pump: null,
+  };
+}
