@@ -15,7 +15,8 @@ import { templateNames, templateSheet } from "../src/preview/fromTemplate";
 import { registerHeadroomFunctions } from "../src/preview/plugin";
 import { PreviewWorkbook } from "../src/preview/workbook";
 import { writeXlsx } from "../src/preview/xlsx";
-import { CAUTION, estimateTemplate } from "../src/workbook/template";
+import { CAUTION, wrappedHeight } from "../src/workbook/look";
+import { estimateTemplate } from "../src/workbook/template";
 import { SAMPLES, type SampleSpec } from "./scenarios";
 
 /** The date written into the samples' file properties, so that rebuilding them changes nothing. */
@@ -38,6 +39,9 @@ export async function registerFunctions(root = process.cwd()): Promise<string[]>
   return registerHeadroomFunctions(metadata, functions as unknown as Record<string, unknown>).functions.map((f) => f.formulaName);
 }
 
+/** Width of the About sheet's one column, points. */
+const ABOUT_WIDTH_PT = 620;
+
 /** The second sheet of every sample: what it shows and how to use it. */
 function aboutSheet(spec: SampleSpec): SheetData {
   const lines: Array<[string, "title" | "label" | "caution" | "note"]> = [
@@ -55,7 +59,8 @@ function aboutSheet(spec: SampleSpec): SheetData {
   lines.forEach(([text, role], i) => {
     if (text) cells[`A${i + 1}`] = { content: text, style: { role, ...(role === "caution" ? { wrap: true } : {}) } };
   });
-  return { name: "About", cells, columnWidths: { 0: 620 }, rowHeights: { 1: 33 } };
+  // one wide column; the caution wraps in it by the rule of the estimate sheet
+  return { name: "About", cells, columnWidths: { 0: ABOUT_WIDTH_PT }, rowHeights: { 1: wrappedHeight(CAUTION, ABOUT_WIDTH_PT).height } };
 }
 
 /** Build one sample in memory (functions must be registered). */

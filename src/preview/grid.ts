@@ -8,13 +8,12 @@
  * have their class; an error cell's message is its title and shows on the message line when selected.
  */
 import { cellAddress, columnLetters, parseCell, parseRange } from "../workbook/a1";
+import { DEFAULT_COLUMN_WIDTH_PT } from "../workbook/look";
 import { contentText } from "./format";
 import type { CellView, PreviewWorkbook } from "./workbook";
 
 /** Points to CSS pixels. */
 const PX_PER_PT = 96 / 72;
-/** Width of a column without a width of its own, in points (Excel's default, 8.43 characters). */
-const DEFAULT_WIDTH_PT = 48;
 /** Rows and columns shown beyond the used area, so there is room to type. */
 const SPARE_ROWS = 12;
 const SPARE_COLS = 3;
@@ -137,7 +136,7 @@ export class Grid {
     const colPx: number[] = [];
     for (let c = 0; c < nCols; c++) {
       const col = document.createElement("col");
-      const px = Math.round((widths[c] ?? DEFAULT_WIDTH_PT) * PX_PER_PT);
+      const px = Math.round((widths[c] ?? DEFAULT_COLUMN_WIDTH_PT) * PX_PER_PT);
       col.style.width = `${px}px`;
       colPx.push(px);
       total += px;

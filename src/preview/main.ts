@@ -7,7 +7,7 @@
 import "./installShim";
 import * as functions from "../functions/functions";
 import { mountPane } from "../taskpane/pane";
-import { ROLE_STYLES } from "../workbook/template";
+import { ROLE_STYLES } from "../workbook/look";
 import { PreviewPort } from "../workbook/preview";
 import { Grid } from "./grid";
 import type { FunctionsMetadata } from "./metadata";
@@ -26,7 +26,7 @@ const $ = <T extends HTMLElement>(role: string): T => {
   return el;
 };
 
-/** The roles' colours as CSS custom properties: one definition (the template's) for the sheet and the file. */
+/** The roles' colours as CSS custom properties: one definition (../workbook/look.ts) for the sheet and the file. */
 function roleColours(): void {
   const root = document.documentElement.style;
   for (const [role, look] of Object.entries(ROLE_STYLES)) {

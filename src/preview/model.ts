@@ -5,7 +5,7 @@
  * Formulas are written as the engine reads them: "=HEADROOM.FRICTION(B2,B3,B4,B5)" (./formulaText maps to and from
  * the file's spelling).
  */
-import type { CellRole as TemplateRole } from "../workbook/template";
+import type { CellRole as TemplateRole } from "../workbook/look";
 
 /** What a cell holds as typed: a number, text, a boolean, a formula ("=…"), or nothing. */
 export type CellContent = number | string | boolean | null;

@@ -9,12 +9,12 @@
  *
  * Writing: formulas in the file's spelling with their current values cached (so a colleague with the add-in sees
  * numbers at once, and Excel recalculates on open: fullCalcOnLoad), spills as array formulas over their block,
- * roles as fills and fonts (ROLE_STYLES of the template), names. ExcelJS cannot write charts; the pane draws the
+ * roles as fills and fonts (ROLE_STYLES of ../workbook/look.ts), names. ExcelJS cannot write charts; the pane draws the
  * plot.
  */
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
 import { cellAddress, parseRange } from "../workbook/a1";
-import { ROLE_STYLES } from "../workbook/template";
+import { ROLE_STYLES } from "../workbook/look";
 import { fromFileFormula, toFileFormula } from "./formulaText";
 import type { CachedValue, CellData, CellRole, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
 

@@ -9,7 +9,7 @@
 import { formatFlow, formatPressure } from "../engine/decision";
 import type { UnitSystem } from "../engine/units";
 import type { WorkbookPort } from "../workbook/port";
-import { CAUTION, PALETTE } from "../workbook/template";
+import { CAUTION, PALETTE } from "../workbook/look";
 import { type Estimate, type PaneModel, buildModel, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
 import { PANE_CSS } from "./styles";

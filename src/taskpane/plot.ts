@@ -11,7 +11,7 @@
  */
 import { scaleLinear, scalePow, type ScaleLinear, type ScalePower } from "d3-scale";
 import { HW_FLOW_EXPONENT } from "../engine/friction";
-import { PALETTE } from "../workbook/template";
+import { PALETTE } from "../workbook/look";
 import type { PlotData, Pt } from "./model";
 
 export type FlowAxis = "linear" | "pow";

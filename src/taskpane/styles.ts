@@ -2,7 +2,7 @@
  * The pane's look, as a style sheet string injected with the pane (no stylesheet to fetch, nothing remote). Scoped
  * under .hr-pane so that a host page (the preview) keeps its own styles. Sized for a 320 px task pane.
  */
-import { PALETTE } from "../workbook/template";
+import { PALETTE } from "../workbook/look";
 
 export const PANE_CSS = `
 .hr-pane { font: 13px/1.4 system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif;

@@ -21,7 +21,8 @@ import {
   shareStamp,
 } from "./port";
 import { type Scenario, demoScenario } from "./scenario";
-import { ROLE_STYLES, type SheetTemplate, type TemplateChart, estimateTemplate } from "./template";
+import { ROLE_STYLES } from "./look";
+import { type SheetTemplate, type TemplateChart, estimateTemplate } from "./template";
 
 type Ctx = Excel.RequestContext;
 

@@ -15,13 +15,11 @@
  */
 import { cellAddress, columnLetters, parseCell } from "./a1";
 import type { UnitSystem } from "../engine/units";
+import { CAUTION, type CellRole, PALETTE } from "./look";
 import type { InputName } from "./port";
 import type { Scenario } from "./scenario";
 
 // ─── Types ───────────────────────────────────────────────────────────────────────────────────────────────────────
-
-/** What a cell is for: it decides its look. Inputs are the cells a user overwrites. */
-export type CellRole = "title" | "caution" | "heading" | "label" | "header" | "input" | "computed" | "note";
 
 export interface TemplateCell {
   /** A1 address on the estimate sheet, e.g. "B12" */
@@ -80,23 +78,6 @@ export interface SheetTemplate {
   /** column widths in points, by column letter */
   columnWidths: Record<string, number>;
 }
-
-/** How each role looks: fill and font colours (#RRGGBB), weight, style. Both hosts use these. */
-export const ROLE_STYLES: Record<CellRole, { fill?: string; font?: string; bold?: boolean; italic?: boolean; size?: number }> = {
-  title: { bold: true, size: 14, font: "#1B2A3A" },
-  caution: { bold: true, fill: "#FDEBD3", font: "#6B2C00" },
-  heading: { bold: true, fill: "#DCE6F0", font: "#1B2A3A" },
-  label: {},
-  header: { bold: true, font: "#3A4A5A" },
-  input: { fill: "#FFF2B3", font: "#102F5C" },
-  computed: { font: "#1F1F1F" },
-  note: { italic: true, font: "#5A5A5A" },
-};
-
-/** The caution at the top of every estimate sheet and beneath the pane's verdict. */
-export const CAUTION =
-  "Preliminary estimate only. The adopted codes and standards, the authority having jurisdiction and a licensed " +
-  "fire-protection professional decide. Flow tests vary with season, time of day and future development.";
 
 // ─── Units of the sheet ──────────────────────────────────────────────────────────────────────────────────────────
 
@@ -446,20 +427,6 @@ export function estimateTemplate(s: Scenario): SheetTemplate {
     columnWidths: { A: 230, B: 95, C: 80, D: 95, E: 70, F: 60, G: 70, H: 40, I: 55, J: 70, K: 50, L: 60, M: 60, N: 60, O: 50, P: 70 },
   };
 }
-
-/**
- * The colours of the supply/demand picture, shared by the sheet's chart and the pane's plot: the Okabe-Ito palette,
- * which stays distinguishable for the common colour-vision deficiencies; shapes and labels carry the meaning too.
- */
-export const PALETTE = {
-  supply: "#0072B2",
-  band: "#56B4E9",
-  sprinklers: "#E69F00",
-  demand: "#D55E00",
-  pump: "#009E73",
-  ink: "#1F1F1F",
-  grid: "#D9DDE3",
-} as const;
 
 /** Every cell a spilled formula of the template will fill, anchors excluded: for checks and for hosts. */
 export function spillCells(t: SheetTemplate): string[] {

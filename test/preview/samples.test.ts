@@ -13,7 +13,7 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { readXlsx } from "../../src/preview/xlsx";
 import { REQUIRED_NAMES } from "../../src/workbook/port";
 import { PreviewPort } from "../../src/workbook/preview";
-import { CAUTION } from "../../src/workbook/template";
+import { CAUTION } from "../../src/workbook/look";
 
 let known: string[];
 beforeAll(async () => {

@@ -2,7 +2,7 @@
 import { afterEach, describe, expect, it } from "vitest";
 import { verdict as verdictCell } from "../../src/functions/functions";
 import { type PaneHandle, mountPane } from "../../src/taskpane/pane";
-import { CAUTION } from "../../src/workbook/template";
+import { CAUTION } from "../../src/workbook/look";
 import { BASE, FakePort, type Values } from "./fakePort";
 
 let mounted: PaneHandle[] = [];

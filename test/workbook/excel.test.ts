@@ -3,7 +3,8 @@ import { cellAddress, parseCell } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
 import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
-import { CAUTION, ROLE_STYLES, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { CAUTION, ROLE_STYLES } from "../../src/workbook/look";
+import { estimateTemplate, spillCells } from "../../src/workbook/template";
 import { portContract, type PortHarness } from "./contract";
 import { FakeExcel } from "./fakeExcel";
 

@@ -13,7 +13,8 @@ import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { INPUT_NAMES } from "../../src/workbook/port";
 import { PreviewPort } from "../../src/workbook/preview";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
-import { CAUTION, type SheetTemplate, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { CAUTION } from "../../src/workbook/look";
+import { type SheetTemplate, estimateTemplate, spillCells } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
 
 beforeAll(async () => {
