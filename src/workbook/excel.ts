@@ -2,8 +2,8 @@
  * The Workbook port over Office.js (Excel JavaScript API): named cells, change and calculation events, the estimate
  * sheet, the values-only share copy.
  *
- * Requirement sets used: ExcelApi 1.4 (names.getItemOrNullObject, NamedItem.getRangeOrNullObject), 1.7 (chart
- * series, worksheet.copy), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom).
+ * Requirement sets used: ExcelApi 1.2 (range.merge), 1.4 (names.getItemOrNullObject, NamedItem.getRangeOrNullObject),
+ * 1.7 (chart series, worksheet.copy), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom).
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
@@ -21,7 +21,7 @@ import {
   shareStamp,
 } from "./port";
 import { type Scenario, demoScenario } from "./scenario";
-import { ROLE_STYLES } from "./look";
+import { ROLE_STYLES, wrappedLines } from "./look";
 import { type SheetTemplate, type TemplateChart, estimateTemplate } from "./template";
 
 type Ctx = Excel.RequestContext;
@@ -225,6 +225,14 @@ function writeCells(sheet: Excel.Worksheet, t: SheetTemplate): void {
     if (style.bold) r.format.font.bold = true;
     if (style.italic) r.format.font.italic = true;
     if (style.size) r.format.font.size = style.size;
+  }
+  // the caution and the longer notes: merged, wrapped and as tall as their lines, by the rule the preview follows
+  for (const line of wrappedLines(t.cells, t.columnWidths)) {
+    const block = sheet.getRange(line.merge);
+    block.merge(false);
+    block.format.wrapText = true;
+    block.format.verticalAlignment = "Top";
+    block.format.rowHeight = line.height;
   }
 }
 

@@ -3,8 +3,8 @@
  *
  * office-addin-mock gives the load/sync semantics of Office.js objects (a property read before load and sync is an
  * error string) but no Excel behaviour and no collections. This fake supplies the behaviour the port relies on:
- * sheets of cells (value, formula, number format, look), workbook names, used ranges, sheet copy, copyFrom values,
- * row insertion, charts and events. Every Office.js object the port asks for is a fresh OfficeMockObject hung under
+ * sheets of cells (value, formula, number format, look), merged blocks, row heights, workbook names, used ranges, sheet
+ * copy, copyFrom values, row insertion, charts and events. Every Office.js object the port asks for is a fresh OfficeMockObject hung under
  * the context (so that context.sync() reaches it); property writes the port queues are applied to the model at the
  * next sync, method calls at once. The fake does not calculate: a formula shows whatever value it was given, and a
  * formula written by the port shows #BUSY! (as a custom function does before Excel has its result).
@@ -26,6 +26,10 @@ export interface FakeSheet {
   name: string;
   cells: Map<string, FakeCell>;
   columnWidths: Map<string, number>;
+  /** row heights in points, by row number (1-based, as in "2:2") */
+  rowHeights: Map<number, number>;
+  /** merged blocks, "A2:D2" */
+  merges: string[];
   charts: FakeChart[];
   tabColor?: string;
 }
@@ -88,7 +92,7 @@ export class FakeExcel {
   // ── model ──
   addSheet(name: string, after?: FakeSheet): FakeSheet {
     if (this.sheetByName(name)) throw new Error(`A resource with the same name or identifier already exists: ${name}`);
-    const s: FakeSheet = { id: this.nextId++, name, cells: new Map(), columnWidths: new Map(), charts: [] };
+    const s: FakeSheet = { id: this.nextId++, name, cells: new Map(), columnWidths: new Map(), rowHeights: new Map(), merges: [], charts: [] };
     if (after) this.sheets.splice(this.sheets.indexOf(after) + 1, 0, s);
     else this.sheets.push(s);
     return s;
@@ -303,6 +307,8 @@ class Session {
         const copy = this.x.addSheet(this.copyName(sheet.name), after);
         for (const [a, c] of sheet.cells) copy.cells.set(a, structuredClone(c));
         copy.columnWidths = new Map(sheet.columnWidths);
+        copy.rowHeights = new Map(sheet.rowHeights);
+        copy.merges = [...sheet.merges];
         copy.charts = structuredClone(sheet.charts);
         return this.sheetProxy(copy);
       },
@@ -336,7 +342,18 @@ class Session {
       address: fullAddress,
       ...block,
       numberFormat: [] as unknown[],
-      format: { columnWidth: 0, fill: { color: "" }, font: { color: "", bold: false, italic: false, size: 11 } },
+      format: {
+        columnWidth: 0,
+        rowHeight: 0,
+        wrapText: false,
+        verticalAlignment: "",
+        fill: { color: "" },
+        font: { color: "", bold: false, italic: false, size: 11 },
+      },
+      merge: () => {
+        if (!range) throw new Error("the fake merges blocks only");
+        sheet.merges.push(address.replace(/\$/g, ""));
+      },
       copyFrom: (src: { _ref?: NameTarget }, type: string) => {
         if (type !== "Values" || !src._ref || !range) throw new Error("the fake copies values between blocks only");
         const from = this.x.sheetById(src._ref.sheetId);
@@ -365,6 +382,13 @@ class Session {
           moved.set(cellAddress(p.row >= first ? { row: p.row + n, col: p.col } : p), c);
         }
         sheet.cells = moved;
+        const down = (row: number) => (row - 1 >= first ? row + n : row);
+        sheet.rowHeights = new Map([...sheet.rowHeights].map(([row, h]) => [down(row), h]));
+        sheet.merges = sheet.merges.map((m) => {
+          const b = parseRange(m);
+          const top = { row: down(b.start.row + 1) - 1, col: b.start.col };
+          return `${cellAddress(top)}:${cellAddress({ row: top.row + b.rows - 1, col: b.start.col + b.cols - 1 })}`;
+        });
         return this.rangeProxy(sheet, address);
       },
     };
@@ -383,6 +407,12 @@ class Session {
     if (path === "format/columnWidth") {
       const m = /^([A-Z]+):([A-Z]+)$/.exec(address);
       if (m) sheet.columnWidths.set(m[1], Number(v));
+      return;
+    }
+    if (path === "format/rowHeight") {
+      // the height of every row the range touches
+      const r = parseRange(address);
+      for (let i = 0; i < r.rows; i++) sheet.rowHeights.set(r.start.row + 1 + i, Number(v));
       return;
     }
     const r = parseRange(address);
