@@ -4,7 +4,7 @@
  */
 import { absoluteRef, cellAddress, columnIndex, parseCell } from "../workbook/a1";
 import { ROLE_STYLES, wrappedLines } from "../workbook/look";
-import type { SheetTemplate } from "../workbook/template";
+import type { SheetTemplate } from "../workbook/sheet";
 import type { CellData, DefinedName, SheetData } from "./model";
 
 /** The template's sheet, named `sheetName` (the host may have had to rename it). */

@@ -22,7 +22,8 @@ import {
 } from "./port";
 import { type Scenario, demoScenario } from "./scenario";
 import { ROLE_STYLES, wrappedLines } from "./look";
-import { type SheetTemplate, type TemplateChart, estimateTemplate } from "./template";
+import type { SheetTemplate, TemplateChart } from "./sheet";
+import { estimateTemplate } from "./template";
 
 type Ctx = Excel.RequestContext;
 

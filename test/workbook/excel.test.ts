@@ -4,7 +4,8 @@ import { createExcelPort } from "../../src/workbook/excel";
 import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
 import { CAUTION, ROLE_STYLES } from "../../src/workbook/look";
-import { estimateTemplate, spillCells } from "../../src/workbook/template";
+import { spillCells } from "../../src/workbook/sheet";
+import { estimateTemplate } from "../../src/workbook/template";
 import { portContract, type PortHarness } from "./contract";
 import { FakeExcel } from "./fakeExcel";
 

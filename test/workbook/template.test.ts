@@ -14,7 +14,8 @@ import { INPUT_NAMES } from "../../src/workbook/port";
 import { PreviewPort } from "../../src/workbook/preview";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
 import { CAUTION } from "../../src/workbook/look";
-import { type SheetTemplate, estimateTemplate, spillCells } from "../../src/workbook/template";
+import { type SheetTemplate, spillCells } from "../../src/workbook/sheet";
+import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
 
 beforeAll(async () => {

@@ -13,7 +13,8 @@ import { fileURLToPath } from "node:url";
 import { SAMPLES } from "../../samples/scenarios";
 import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
-import { type SheetTemplate, estimateTemplate, spillCells, templateExtent } from "../../src/workbook/template";
+import { type SheetTemplate, spillCells, templateExtent } from "../../src/workbook/sheet";
+import { estimateTemplate } from "../../src/workbook/template";
 
 export const SNAPSHOT_FILE = fileURLToPath(new URL("./snapshots/estimate-template.json", import.meta.url));
 

@@ -1,0 +1,132 @@
+/**
+ * The estimate sheet's sections (src/workbook/sections.ts): each takes exactly the rows it reports, from wherever it
+ * is started, and refers to other sections only through the addresses it is given; and the design area's demand
+ * section can be replaced by another that gives the same refs, the other sections untouched.
+ */
+import { beforeAll, describe, expect, it } from "vitest";
+import * as functions from "../../src/functions/functions";
+import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
+import { registerHeadroomFunctions } from "../../src/preview/plugin";
+import { PreviewWorkbook } from "../../src/preview/workbook";
+import { parseCell } from "../../src/workbook/a1";
+import { demoScenario } from "../../src/workbook/scenario";
+import {
+  type AreaDemandSection,
+  hazardSection,
+  pipeRunSection,
+  projectSection,
+  supplyCurveSection,
+  supplyDemandSection,
+  treeDemandSection,
+  verdictSection,
+  waterSupplySection,
+} from "../../src/workbook/sections";
+import type { Section } from "../../src/workbook/sheet";
+import { estimateTemplate } from "../../src/workbook/template";
+import { generatedMetadata } from "../preview/metadataFixture";
+
+beforeAll(async () => {
+  registerHeadroomFunctions(await generatedMetadata(), functions);
+});
+
+/** Addresses of other sections, far below any section's own rows. */
+const units = "$Z$999";
+const supply = { static: "B901", residual: "B902", testFlow: "B903" };
+const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907" };
+const area = { flow: "B908", pressure: "C908", system: "B909", source: "AREADEMAND" };
+const run = { pressureAfter: "P910" };
+const demand = { sprinklerFlow: "B911", hoseFlow: "B912", flow: "B913", pressure: "B914" };
+
+const SHIFT = 100;
+
+/** A section's own addresses (rows first..first+rows−1, relative or absolute) moved down by `by` rows; others left alone. */
+function shifted(text: string, first: number, rows: number, by: number): string {
+  return text.replace(/(?<![A-Za-z$])(\$?[A-Z]{1,2}\$?)(\d+)\b/g, (m, col: string, r: string) => {
+    const n = Number(r);
+    return n >= first && n < first + rows ? `${col}${n + by}` : m;
+  });
+}
+
+describe.each(["US", "SI"] as const)("the sections, %s", (u) => {
+  const s = demoScenario(u);
+  const builders: Array<[string, (row: number) => Section<unknown>]> = [
+    ["project", (row) => projectSection(s, row)],
+    ["water supply", (row) => waterSupplySection(s, row, { units })],
+    ["hazard", (row) => hazardSection(s, row, { units })],
+    ["tree demand", (row) => treeDemandSection(s, row, { units, hazard })],
+    ["pipe run", (row) => pipeRunSection(s, row, { units, area })],
+    ["demand at the supply", (row) => supplyDemandSection(s, row, { area, hazard, run })],
+    ["verdict", (row) => verdictSection(s, row, { units, supply, demand })],
+    ["supply curve", (row) => supplyCurveSection(s, row, { units, supply, demand })],
+  ];
+
+  it.each(builders)("%s: its cells lie in the rows it reports, and move with its first row", (_, build) => {
+    const first = 3;
+    const a = build(first);
+    const b = build(first + SHIFT);
+    expect(a.rows).toBeGreaterThan(0);
+    expect(b.rows).toBe(a.rows);
+    for (const c of a.cells) {
+      const row = parseCell(c.address).row + 1;
+      expect(row, c.address).toBeGreaterThanOrEqual(first);
+      expect(row, c.address).toBeLessThan(first + a.rows);
+    }
+    // the same cells, names and refs, moved down; addresses of other sections unchanged
+    const move = (x: unknown) => JSON.parse(shifted(JSON.stringify(x), first, a.rows, SHIFT));
+    expect(b.cells).toEqual(move(a.cells));
+    expect(b.names).toEqual(move(a.names));
+    expect(b.refs).toEqual(move(a.refs));
+  });
+});
+
+describe("another design-area demand section in place of the tree", () => {
+  /** A stand-in: the design area's flow and pressure typed in, as a demand from elsewhere would be. */
+  const typed =
+    (flow: number, pressure: number): AreaDemandSection =>
+    (s, row) => {
+      const r = (k: number) => row + k;
+      return {
+        cells: [
+          { address: `A${r(0)}`, role: "heading", value: "Design area demand, typed in" },
+          { address: `A${r(1)}`, role: "label", value: "Sprinkler flow" },
+          { address: `B${r(1)}`, role: "input", value: flow },
+          { address: `A${r(2)}`, role: "label", value: "Pressure where the run starts" },
+          { address: `B${r(2)}`, role: "input", value: pressure },
+          { address: `A${r(3)}`, role: "label", value: "System" },
+          { address: `B${r(3)}`, role: "input", value: s.system },
+        ],
+        names: [],
+        rows: 4,
+        refs: { flow: `B${r(1)}`, pressure: `B${r(2)}`, system: `B${r(3)}`, source: "the typed demand" },
+      };
+    };
+
+  function calculated(t: ReturnType<typeof estimateTemplate>) {
+    return new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
+  }
+  const formulaCell = (t: ReturnType<typeof estimateTemplate>, prefix: string) => t.cells.find((c) => c.formula?.startsWith(prefix))!.address;
+
+  it("gives the same verdict as the tree when it gives the same demand, and the other sections follow it", () => {
+    const s = demoScenario("US");
+    const tree = estimateTemplate(s);
+    const treeBook = calculated(tree);
+    const areaDemand = tree.cells.find((c) => c.formula?.includes("HEADROOM.AREADEMAND("))!.address;
+    const a = parseCell(areaDemand);
+    const flow = treeBook.value("Estimate", areaDemand) as number;
+    const pressure = treeBook.value("Estimate", `C${a.row + 1}`) as number;
+
+    const other = estimateTemplate(s, { areaDemand: typed(flow, pressure) });
+    const otherBook = calculated(other);
+    const errors = otherBook.cells("Estimate").filter((c) => c.value !== null && typeof c.value === "object");
+    expect(errors.map((c) => `${c.address} ${c.content}`)).toEqual([]);
+    // every name the pane reads is still defined, and the sections after the demand read the typed cells
+    expect(other.names.map((n) => n.name)).toEqual(tree.names.map((n) => n.name));
+    expect(other.cells.find((c) => c.value === "from the typed demand")).toBeDefined();
+    expect(otherBook.value("Estimate", formulaCell(other, "=HEADROOM.VERDICT("))).toBe(treeBook.value("Estimate", formulaCell(tree, "=HEADROOM.VERDICT(")));
+    expect(otherBook.value("Estimate", formulaCell(other, "=HEADROOM.MARGIN("))).toBeCloseTo(treeBook.value("Estimate", formulaCell(tree, "=HEADROOM.MARGIN(")) as number, 9);
+    // the tree section takes 14 rows (heading, four sprinkler inputs, HEADFLOW, the pipe table's header and two rows,
+    // material, system, C, AREADEMAND's header and row), the stand-in 4: everything after it moves up 10 rows
+    const verdictRow = (t: ReturnType<typeof estimateTemplate>) => parseCell(formulaCell(t, "=HEADROOM.VERDICT(")).row;
+    expect(verdictRow(tree) - verdictRow(other)).toBe(14 - 4);
+  });
+});
