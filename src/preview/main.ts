@@ -8,11 +8,11 @@ import "./installShim";
 import * as functions from "../functions/functions";
 import { mountPane } from "../taskpane/pane";
 import { ROLE_STYLES } from "../workbook/look";
-import { PreviewPort } from "../workbook/preview";
 import { Grid } from "./grid";
 import type { FunctionsMetadata } from "./metadata";
 import type { WorkbookData } from "./model";
 import { registerHeadroomFunctions } from "./plugin";
+import { PreviewPort } from "./port";
 import { PreviewWorkbook } from "./workbook";
 
 interface SampleEntry {

@@ -6,7 +6,7 @@ import { beforeAll } from "vitest";
 import * as functions from "../../src/functions/functions";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
-import { PreviewPort } from "../../src/workbook/preview";
+import { PreviewPort } from "../../src/preview/port";
 import { portContract, type PortHarness } from "../workbook/contract";
 import { generatedMetadata } from "./metadataFixture";
 

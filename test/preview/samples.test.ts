@@ -12,7 +12,7 @@ import type { CachedValue, WorkbookData } from "../../src/preview/model";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { readXlsx } from "../../src/preview/xlsx";
 import { REQUIRED_NAMES } from "../../src/workbook/port";
-import { PreviewPort } from "../../src/workbook/preview";
+import { PreviewPort } from "../../src/preview/port";
 import { CAUTION } from "../../src/workbook/look";
 
 let known: string[];

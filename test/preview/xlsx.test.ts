@@ -12,7 +12,7 @@ import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
 import type { WorkbookData } from "../../src/preview/model";
 import type { UnitSystem } from "../../src/engine/units";
-import { PreviewPort } from "../../src/workbook/preview";
+import { PreviewPort } from "../../src/preview/port";
 import { demoScenario } from "../../src/workbook/scenario";
 import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "./metadataFixture";

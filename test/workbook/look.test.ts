@@ -12,7 +12,7 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
 import { CAUTION, type WrappedLine, wrappedHeight, wrappedLines } from "../../src/workbook/look";
-import { PreviewPort } from "../../src/workbook/preview";
+import { PreviewPort } from "../../src/preview/port";
 import { demoScenario } from "../../src/workbook/scenario";
 import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";

@@ -11,7 +11,7 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { buildModel } from "../../src/taskpane/model";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { INPUT_NAMES } from "../../src/workbook/port";
-import { PreviewPort } from "../../src/workbook/preview";
+import { PreviewPort } from "../../src/preview/port";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
 import { CAUTION } from "../../src/workbook/look";
 import { type SheetTemplate, spillCells } from "../../src/workbook/sheet";

@@ -1,14 +1,11 @@
 /**
- * The Workbook port over the preview's own workbook (src/preview/workbook.ts): the same task pane runs beside the
- * preview grid as in Excel, reading the same named cells, and its two actions work on the preview's sheets.
+ * The Workbook port (../workbook/port.ts) over the preview's own workbook (./workbook.ts): the same task pane runs
+ * beside the preview grid as in Excel, reading the same named cells, and its two actions work on the preview's sheets.
  *
  * It passes the same contract tests as the Excel side (test/workbook/contract.ts, run by test/preview/port.test.ts).
  */
 import type { UnitSystem } from "../engine/units";
-import type { PreviewWorkbook } from "../preview/workbook";
-import { templateNames, templateSheet } from "../preview/fromTemplate";
-import type { CellData, SheetData } from "../preview/model";
-import { cellAddress, freeSheetName, parseCell } from "./a1";
+import { cellAddress, freeSheetName, parseCell } from "../workbook/a1";
 import {
   INPUT_NAMES,
   type InsertResult,
@@ -20,9 +17,12 @@ import {
   isoDate,
   shareRefusal,
   shareStamp,
-} from "./port";
-import { demoScenario, type Scenario } from "./scenario";
-import { estimateTemplate } from "./template";
+} from "../workbook/port";
+import { demoScenario, type Scenario } from "../workbook/scenario";
+import { estimateTemplate } from "../workbook/template";
+import { templateNames, templateSheet } from "./fromTemplate";
+import type { CellData, SheetData } from "./model";
+import type { PreviewWorkbook } from "./workbook";
 
 /** How many error cells a refused share copy names before "and N more". */
 const REFUSAL_LIST = 5;
