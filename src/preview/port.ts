@@ -10,6 +10,8 @@ import {
   INPUT_NAMES,
   type InsertResult,
   type InputName,
+  SHARE_REFUSAL_LIST,
+  SHARE_STAMP_ROWS,
   type Reading,
   type Readings,
   type ShareCopyResult,
@@ -23,12 +25,6 @@ import { estimateTemplate } from "../workbook/template";
 import { templateNames, templateSheet } from "./fromTemplate";
 import type { CellData, SheetData } from "./model";
 import type { PreviewWorkbook } from "./workbook";
-
-/** How many error cells a refused share copy names before "and N more". */
-const REFUSAL_LIST = 5;
-
-/** Rows a share copy puts above the copied cells: the stamp, then a blank row. */
-const STAMP_ROWS = 2;
 
 export class PreviewPort implements WorkbookPort {
   /** `now` gives the date a share copy is stamped with (a parameter for tests). */
@@ -112,7 +108,7 @@ export class PreviewPort implements WorkbookPort {
     const views = wb.cells(source);
     const bad = views.filter((v) => v.value !== null && typeof v.value === "object");
     if (bad.length) {
-      const shown = bad.slice(0, REFUSAL_LIST).map((v) => [v.address, (v.value as { error: string }).error] as [string, string]);
+      const shown = bad.slice(0, SHARE_REFUSAL_LIST).map((v) => [v.address, (v.value as { error: string }).error] as [string, string]);
       return { ok: false, reason: shareRefusal(shown, bad.length) };
     }
     const cells: Record<string, CellData> = {};
@@ -120,7 +116,7 @@ export class PreviewPort implements WorkbookPort {
     cells[stampAt] = { content: shareStamp(source, this.now()), style: { role: "caution", bold: true } };
     for (const v of views) {
       const a = parseCell(v.address);
-      const to = cellAddress({ row: a.row + STAMP_ROWS, col: a.col });
+      const to = cellAddress({ row: a.row + SHARE_STAMP_ROWS, col: a.col });
       const value = v.value as number | string | boolean | null;
       cells[to] = { content: value, ...(v.style ? { style: v.style } : {}) };
     }
@@ -129,11 +125,11 @@ export class PreviewPort implements WorkbookPort {
         .split(":")
         .map((x) => {
           const a = parseCell(x);
-          return cellAddress({ row: a.row + STAMP_ROWS, col: a.col });
+          return cellAddress({ row: a.row + SHARE_STAMP_ROWS, col: a.col });
         })
         .join(":"),
     );
-    const heights = Object.fromEntries(Object.entries(wb.rowHeights(source)).map(([r, h]) => [Number(r) + STAMP_ROWS, h]));
+    const heights = Object.fromEntries(Object.entries(wb.rowHeights(source)).map(([r, h]) => [Number(r) + SHARE_STAMP_ROWS, h]));
     const sheet: SheetData = {
       name: freeSheetName(`${source} values ${isoDate(this.now())}`, wb.sheetNames()),
       cells,

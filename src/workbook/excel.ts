@@ -12,6 +12,8 @@ import {
   INPUT_NAMES,
   type InputName,
   type InsertResult,
+  SHARE_REFUSAL_LIST,
+  SHARE_STAMP_ROWS,
   type Reading,
   type Readings,
   type ShareCopyResult,
@@ -48,8 +50,6 @@ export function officeExcelHost(): ExcelHost {
   };
 }
 
-/** How many cells a share-copy refusal lists by address. */
-const REFUSAL_LIST = 5;
 /** How many "Estimate", "Estimate 2"... names are probed for a free sheet name in one round trip. */
 const NAME_PROBES = 40;
 
@@ -292,7 +292,7 @@ async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
   if (used.isNullObject) return { ok: false, reason: `No share copy made: the sheet ${source.name} is empty.` };
 
   const errors = errorCells(used);
-  if (errors.length > 0) return { ok: false, reason: shareRefusal(errors.slice(0, REFUSAL_LIST), errors.length) };
+  if (errors.length > 0) return { ok: false, reason: shareRefusal(errors.slice(0, SHARE_REFUSAL_LIST), errors.length) };
 
   const sourceName = source.name;
   const copyName = await freeName(ctx, `${sourceName} values ${isoDate(now)}`);
@@ -300,7 +300,7 @@ async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
   copy.name = copyName;
   const area = splitSheet(used.address).range;
   copy.getRange(area).copyFrom(used, "Values");
-  copy.getRange("1:2").insert("Down");
+  copy.getRange(`1:${SHARE_STAMP_ROWS}`).insert("Down");
   const stamp = copy.getRange("A1");
   stamp.values = [[shareStamp(sourceName, now)]];
   stamp.format.font.bold = true;
@@ -319,8 +319,8 @@ async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
     copy.delete();
     source.activate();
     await ctx.sync();
-    if (copyErrors.length > 0) return { ok: false, reason: shareRefusal(copyErrors.slice(0, REFUSAL_LIST), copyErrors.length) };
-    return { ok: false, reason: `No share copy made: ${stillFormulas.slice(0, REFUSAL_LIST).join(", ")} kept a formula; try again.` };
+    if (copyErrors.length > 0) return { ok: false, reason: shareRefusal(copyErrors.slice(0, SHARE_REFUSAL_LIST), copyErrors.length) };
+    return { ok: false, reason: `No share copy made: ${stillFormulas.slice(0, SHARE_REFUSAL_LIST).join(", ")} kept a formula; try again.` };
   }
   return { ok: true, sheetName: copyName, sourceSheet: sourceName };
 }

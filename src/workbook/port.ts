@@ -92,6 +92,12 @@ export interface WorkbookPort {
   makeShareCopy(): Promise<ShareCopyResult>;
 }
 
+/** Rows a share copy puts above the copied cells: the stamp, then a blank row. */
+export const SHARE_STAMP_ROWS = 2;
+
+/** How many cells a refused share copy names by address before "and N more". */
+export const SHARE_REFUSAL_LIST = 5;
+
 /** The stamp a share copy carries, after its date. */
 export const SHARE_STAMP = "values frozen; recalculation needs the Headroom add-in";
 
@@ -106,7 +112,10 @@ export function isoDate(date: Date): string {
   return `${date.getFullYear()}-${p(date.getMonth() + 1)}-${p(date.getDate())}`;
 }
 
-/** The refusal of a share copy while cells show errors; `cells` are [address, shown] pairs, first ones only. */
+/**
+ * The refusal of a share copy while cells show errors; `cells` are [address, shown] pairs, the first
+ * SHARE_REFUSAL_LIST only, of `total`.
+ */
 export function shareRefusal(cells: Array<[string, string]>, total: number): string {
   const busy = cells.some(([, shown]) => shown === "#BUSY!");
   const list = cells.map(([a, shown]) => `${a} shows ${shown}`).join(", ");
