@@ -12,7 +12,8 @@
  * and a cross main) gives the flow and pressure at the start of the run, and the sections after it read only those
  * refs (`AreaDemandRefs`), so that another way of finding the demand can take its place.
  */
-import type { UnitSystem } from "../engine/units";
+import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_POINTS } from "../engine/curve";
+import { type UnitSystem, unitName } from "../engine/units";
 import { columnLetters, parseCell } from "./a1";
 import { CAUTION, type CellRole, PALETTE } from "./look";
 import type { InputName } from "./port";
@@ -33,37 +34,39 @@ interface SheetUnits {
   fmt: { flow: string; pressure: string; diameter: string; length: string; area: string; density: string; kfactor: string };
 }
 
-const SHEET_UNITS: Record<UnitSystem, SheetUnits> = {
-  US: {
-    flow: "gpm",
-    pressure: "psi",
-    diameter: "in",
-    length: "ft",
-    area: "ft²",
-    density: "gpm/ft²",
-    kfactor: "gpm/psi½",
-    nominal: "in",
-    fmt: { flow: "0", pressure: "0.0", diameter: "0.000", length: "0", area: "0", density: "0.00", kfactor: "0.0" },
-  },
-  SI: {
-    flow: "L/min",
-    pressure: "bar",
-    diameter: "mm",
-    length: "m",
-    area: "m²",
-    density: "mm/min",
-    kfactor: "L/min/bar½",
-    nominal: "DN",
-    fmt: { flow: "0", pressure: "0.00", diameter: "0.0", length: "0.0", area: "0.0", density: "0.0", kfactor: "0" },
-  },
+/** Number formats of each quantity on the sheet. */
+const SHEET_FORMATS: Record<UnitSystem, SheetUnits["fmt"]> = {
+  US: { flow: "0", pressure: "0.0", diameter: "0.000", length: "0", area: "0", density: "0.00", kfactor: "0.0" },
+  SI: { flow: "0", pressure: "0.00", diameter: "0.0", length: "0.0", area: "0.0", density: "0.0", kfactor: "0" },
 };
 
-/** Rows SUPPLYCURVE spills for the chart. */
-export const CHART_POINTS = 16;
+/**
+ * The sheet's unit labels are the engine's unit names (src/engine/units.ts), the K-factor's square root written ½;
+ * nominal sizes are inches in US work and DN in SI work.
+ */
+function sheetUnits(units: UnitSystem): SheetUnits {
+  return {
+    flow: unitName("flow", units),
+    pressure: unitName("pressure", units),
+    diameter: unitName("diameter", units),
+    length: unitName("length", units),
+    area: unitName("area", units),
+    density: unitName("density", units),
+    kfactor: unitName("kfactor", units).replace("^0.5", "½"),
+    nominal: units === "SI" ? "DN" : unitName("diameter", units),
+    fmt: SHEET_FORMATS[units],
+  };
+}
 
-/** The chart runs to the larger of these multiples of the test flow and of the demand flow. (common practice) */
-export const CHART_TEST_FLOW_FACTOR = 1.5;
-export const CHART_DEMAND_FLOW_FACTOR = 1.2;
+const SHEET_UNITS: Record<UnitSystem, SheetUnits> = { US: sheetUnits("US"), SI: sheetUnits("SI") };
+
+/**
+ * The chart's supply curve: SUPPLYCURVE's own default number of rows, and a flow up to the larger of its default
+ * multiple of the test flow and this multiple of the demand flow. (common practice)
+ */
+const CHART_POINTS = SUPPLY_CURVE_POINTS;
+const CHART_TEST_FLOW_FACTOR = SUPPLY_CURVE_FLOW_FACTOR;
+const CHART_DEMAND_FLOW_FACTOR = 1.2;
 
 // ─── Writing cells ───────────────────────────────────────────────────────────────────────────────────────────────
 
@@ -443,7 +446,7 @@ export function supplyCurveSection(
     "computed",
     `=MAX(${CHART_TEST_FLOW_FACTOR}*${supply.testFlow},${CHART_DEMAND_FLOW_FACTOR}*${demand.flow})`,
     u.flow,
-    "1.5 × test flow or 1.2 × demand flow, the larger",
+    `${CHART_TEST_FLOW_FACTOR} × test flow or ${CHART_DEMAND_FLOW_FACTOR} × demand flow, the larger`,
     f.flow,
   );
   sh.put("B", "header", `Flow (${u.flow})`);
