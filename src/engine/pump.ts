@@ -77,13 +77,14 @@ export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitS
 }
 
 /**
- * A pump's net pressure along a curve shaped as the parabola through three points: shutoff (0, s·Pr), rated
- * (Qr, Pr) and overload (1.5 Qr, o·Pr). With x = Q / Qr:
+ * A pump's net pressure along a monotone curve through three points: shutoff (0, s·Pr), rated (Qr, Pr) and
+ * overload (1.5 Qr, o·Pr):
  *
- *   P / Pr = s + b x + c x²,   c = (o − 1.5 + 0.5 s) / 0.75,   b = 1 − s − c
+ *   P = s·Pr − k Q^n,   n = ln((s − o) / (s − 1)) / ln 1.5,   k = (s − 1) Pr / Qr^n
  *
- * (from P/Pr = 1 at x = 1 and P/Pr = o at x = 1.5). For the defaults s = 1.2, o = 0.7: c = −0.26667, b = 0.06667, so
- * the curve rises a little (to 1.2042 Pr at x = 0.125) before it falls; that is the parabola through those points.
+ * (P = Pr at Q = Qr gives k; P = o·Pr at Q = 1.5 Qr gives (s − 1) 1.5^n = s − o, hence n). It is computed as
+ * P = Pr (s − (s − 1) x^n) with x = Q / Qr, which is the same curve and keeps Qr^n from overflowing. Since o < 1 < s,
+ * (s − o) / (s − 1) > 1 and n > 0: the pressure falls monotonically from shutoff and is never above it.
  *
  * Inputs are held to the centrifugal fire pump envelope: 1 < s ≤ 1.4 and 0.65 ≤ o < 1; flow from 0 to 1.5 Qr.
  * Outside that the error is of kind "number" (`#NUM!` in a cell).
@@ -92,28 +93,35 @@ export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitS
  * @param ratedFlow Qr, gpm (> 0); @param ratedPressure Pr, psi (> 0)
  * @param shutoffRatio s; @param overloadRatio o
  * @returns psi
- * Source: envelope [NFPA 20]; the three-point shape with s = 1.2 and o = 0.7 (common practice).
- * Worked value: rated 500 gpm at 100 psi, defaults: 0 gpm → 120 psi, 250 gpm → 116.67 psi, 500 gpm → 100 psi,
- * 750 gpm → 70 psi.
+ * Source: envelope [NFPA 20]; the three-point shape with s = 1.2 and o = 0.7 (common practice); the form
+ * P = shutoff − k Q^n through the three points is the one reference.md gives ("Pumps").
+ * Worked value: rated 500 gpm at 100 psi, defaults s = 1.2, o = 0.7:
+ *   n = ln(0.5 / 0.2) / ln 1.5 = 0.916291 / 0.405465 = 2.259851;
+ *   k = 0.2 × 100 / 500^2.259851 = 20 / 1 256 811 = 1.5913e−5 psi/gpm^n;
+ *   0 gpm → 120 psi; 62.5 gpm → 120 − 20 × 0.125^2.259851 = 120 − 20 × 0.009102 = 119.82 psi;
+ *   250 gpm → 120 − 20 × 0.5^2.259851 = 120 − 20 × 0.208794 = 115.82 psi; 500 gpm → 120 − 20 × 1 = 100 psi;
+ *   750 gpm → 120 − 20 × 1.5^2.259851 = 120 − 20 × 2.5 = 70 psi.
  */
 export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: number, shutoffRatio: number, overloadRatio: number): number {
   if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail("rated_flow", q("flow", ratedFlow), "must be greater than 0");
   if (!(ratedPressure > 0) || !Number.isFinite(ratedPressure)) fail("rated_pressure", q("pressure", ratedPressure), "must be greater than 0");
   if (!(flow >= 0) || !Number.isFinite(flow)) fail("flow", q("flow", flow), "must be 0 or more");
-  const [a, b, c] = pumpCurveShape(shutoffRatio, overloadRatio);
+  const [s, exponent] = pumpCurveShape(shutoffRatio, overloadRatio);
   const x = flow / ratedFlow;
   if (x > OVERLOAD_FLOW_RATIO * (1 + 1e-9)) {
     outsideEnvelope("flow", n(Math.round(x * 1000) / 10, "% of rated flow"), "a fire pump curve runs from 0 to 150 % of rated flow");
   }
-  return ratedPressure * (a + b * x + c * x * x);
+  // s − (s − 1) x^n is at most s (the subtracted term is ≥ 0) and never rounds above it, so P ≤ Pr·s = shutoff.
+  return ratedPressure * (s - (s - 1) * x ** exponent);
 }
 
 /**
- * The coefficients [s, b, c] of P / Pr = s + b x + c x² (x = Q / Qr) through shutoff, rated and overload points,
- * after checking the ratios against the [NFPA 20] envelope. See pumpPressure.
- * Worked value: s 1.2, o 0.7 → [1.2, 0.066667, −0.266667].
+ * The shape [s, n] of P / Pr = s − (s − 1) (Q / Qr)^n through shutoff, rated and overload points, after checking the
+ * ratios against the [NFPA 20] envelope: n = ln((s − o) / (s − 1)) / ln 1.5. See pumpPressure.
+ * Worked value: s 1.2, o 0.7 → n = ln 2.5 / ln 1.5 = 0.916291 / 0.405465 = 2.259851, so [1.2, 2.259851];
+ * s 1.4, o 0.65 → n = ln(0.75 / 0.4) / ln 1.5 = 0.628609 / 0.405465 = 1.550340.
  */
-export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [number, number, number] {
+export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [number, number] {
   if (!(shutoffRatio > 1 && shutoffRatio <= MAX_SHUTOFF_RATIO)) {
     outsideEnvelope(
       "shutoff_ratio",
@@ -130,9 +138,7 @@ export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [nu
       n(MIN_OVERLOAD_RATIO),
     );
   }
-  const x2 = OVERLOAD_FLOW_RATIO;
-  // Through (0, s), (1, 1), (x2, o): s + b + c = 1 and s + b x2 + c x2² = o.
-  const c = (overloadRatio - shutoffRatio - (1 - shutoffRatio) * x2) / (x2 * x2 - x2);
-  const b = 1 - shutoffRatio - c;
-  return [shutoffRatio, b, c];
+  // Through (1, 1) and (1.5, o): (s − 1) 1.5^n = s − o. With o < 1 < s the ratio is above 1, so n > 0.
+  const exponent = Math.log((shutoffRatio - overloadRatio) / (shutoffRatio - 1)) / Math.log(OVERLOAD_FLOW_RATIO);
+  return [shutoffRatio, exponent];
 }

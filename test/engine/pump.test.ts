@@ -49,7 +49,7 @@ describe("rounding the boost", () => {
   });
 });
 
-describe("pump curve: the parabola through shutoff, rated and 150 % points", () => {
+describe("pump curve: P = shutoff − k Q^n through shutoff, rated and 150 % points", () => {
   // (common practice) shape: shutoff 120 % of rated pressure, 70 % at 150 % flow; rated 500 gpm at 100 psi
   it("passes through its three points", () => {
     expect(pumpPressure(0, 500, 100, 1.2, 0.7)).toBeCloseTo(120, 10);
@@ -60,15 +60,22 @@ describe("pump curve: the parabola through shutoff, rated and 150 % points", () 
     expect(pumpPressure(1000, 1000, 80, 1.4, 0.65)).toBeCloseTo(80, 10);
     expect(pumpPressure(1500, 1000, 80, 1.4, 0.65)).toBeCloseTo(52, 10);
   });
-  it("has the coefficients worked by hand", () => {
-    // through (0, 1.2), (1, 1), (1.5, 0.7): c = (0.7 − 1.5 + 0.5 × 1.2) / 0.75 = −0.2 / 0.75 = −0.266667;
-    // b = 1 − 1.2 + 0.266667 = 0.066667
-    const [a, b, c] = pumpCurveShape(1.2, 0.7);
-    expect(a).toBe(1.2);
-    expect(b).toBeCloseTo(0.066667, 6);
-    expect(c).toBeCloseTo(-0.266667, 6);
-    // at half the rated flow: 100 × (1.2 + 0.066667 × 0.5 − 0.266667 × 0.25) = 100 × 1.166667 = 116.67 psi
-    expect(pumpPressure(250, 500, 100, 1.2, 0.7)).toBeCloseTo(116.6667, 4);
+  it("has the exponent and values worked by hand", () => {
+    // s 1.2, o 0.7: n = ln((1.2 − 0.7) / (1.2 − 1)) / ln 1.5 = ln 2.5 / ln 1.5 = 0.916291 / 0.405465 = 2.259851
+    const [s, n] = pumpCurveShape(1.2, 0.7);
+    expect(s).toBe(1.2);
+    expect(n).toBeCloseTo(2.259851, 6);
+    // s 1.4, o 0.65: n = ln(0.75 / 0.4) / ln 1.5 = 0.628609 / 0.405465 = 1.550340
+    expect(pumpCurveShape(1.4, 0.65)[1]).toBeCloseTo(1.55034, 5);
+    // at half the rated flow: 0.5^2.259851 = 0.208794; 120 − 20 × 0.208794 = 115.824 psi
+    expect(pumpPressure(250, 500, 100, 1.2, 0.7)).toBeCloseTo(115.824, 3);
+    // at 12.5 % of rated flow: 0.125^2.259851 = 0.009102; 120 − 20 × 0.009102 = 119.818 psi
+    expect(pumpPressure(62.5, 500, 100, 1.2, 0.7)).toBeCloseTo(119.818, 3);
+  });
+  it("never rises above its shutoff pressure, even just off shutoff (common practice shape)", () => {
+    // shutoff 1.2 × 100 = 120 psi; a curve drawn through the same three points must not exceed it anywhere
+    for (let i = 1; i <= 150; i++) expect(pumpPressure(i * 5, 500, 100, 1.2, 0.7)).toBeLessThan(120);
+    expect(pumpPressure(62.5, 500, 100, 1.2, 0.7)).toBeLessThan(120); // 12.5 % of rated flow
   });
   it("stays positive over the whole curve anywhere in the envelope [NFPA 20]", () => {
     for (const s of [1.01, 1.1, 1.2, 1.3, 1.4]) {
@@ -82,7 +89,7 @@ describe("pump curve: the parabola through shutoff, rated and 150 % points", () 
     expect(() => pumpPressure(751, 500, 100, 1.2, 0.7)).toThrow(/flow: got 150.2 % of rated flow; a fire pump curve runs from 0 to 150 % of rated flow/);
   });
   it("holds the ratios to the [NFPA 20] envelope: shutoff ≤ 140 % (and above 100 %), 150 % point ≥ 65 % (and below 100 %)", () => {
-    expect(pumpCurveShape(1.4, 0.65)).toHaveLength(3);
+    expect(pumpCurveShape(1.4, 0.65)).toHaveLength(2);
     expect(() => pumpCurveShape(1.41, 0.7)).toThrow(/shutoff_ratio: got 1.41; .* at most 1.4 × rated/);
     expect(errorOf(() => pumpCurveShape(1, 0.7)).kind).toBe("number");
     expect(() => pumpCurveShape(1.2, 0.64)).toThrow(/overload_ratio: got 0.64; .* at least 0.65 × rated/);
