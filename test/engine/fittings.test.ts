@@ -17,6 +17,13 @@ describe("equivalent length table", () => {
     expect(FITTING_TABLE_SIZES).toEqual([0.75, 1, 1.25, 1.5, 2, 2.5, 3, 3.5, 4, 5, 6, 8, 10, 12]);
   });
 
+  it("a ¾ in tee is 4 ft [NFPA 13] (from memory)", () => {
+    expect(tableLength("T", 0.75)).toBe(4); // [NFPA 13] (from memory)
+    // in copper Type L ¾ in, ID 0.785 [ASTM B88] (from memory) against Sch 40 0.824 [ASME B36.10M], C 120:
+    // 4 × (0.785 / 0.824)^4.87 = 4 × 0.952670^4.87 = 4 × 0.789677 = 3.15871 ft
+    expect(equivalentLength("T", 0.75, 120, "L")).toBeCloseTo(3.15871, 4);
+  });
+
   it("reads single values", () => {
     expect(tableLength("E", 2)).toBe(5); // [NFPA 13] (from memory)
     expect(tableLength("T", 12)).toBe(60); // [NFPA 13] (from memory)

@@ -212,7 +212,7 @@ const CHART: Record<string, (number | null)[]> = {
   EE: [1, 1, 1, 2, 2, 3, 3, 3, 4, 5, 7, 9, 11, 13], // [NFPA 13] (from memory)
   E: [2, 2, 3, 4, 5, 6, 7, 8, 10, 12, 14, 18, 22, 27], // [NFPA 13] (from memory)
   LtE: [1, 2, 2, 2, 3, 4, 5, 5, 6, 8, 9, 13, 16, 18], // [NFPA 13] (from memory)
-  T: [3, 5, 6, 8, 10, 12, 15, 17, 20, 25, 30, 35, 50, 60], // [NFPA 13] (from memory)
+  T: [4, 5, 6, 8, 10, 12, 15, 17, 20, 25, 30, 35, 50, 60], // [NFPA 13] (from memory; ¾ in: two recollections give 4)
   BV: [null, null, null, null, 6, 7, 10, null, 12, 9, 10, 12, 19, 21], // [NFPA 13] (from memory)
   GV: [null, null, null, null, 1, 1, 1, 1, 2, 2, 3, 4, 5, 6], // [NFPA 13] (from memory)
   CV: [null, 5, 7, 9, 11, 14, 16, 19, 22, 27, 32, 45, 55, 65], // [NFPA 13] (from memory)
@@ -318,6 +318,7 @@ describe("FITTINGS", () => {
     expect(f.fittings("swing check and 2 45", 2.5)).toBe(14 + 2 * 3); // 20
     expect(f.fittings("2EE LtE", 2.5)).toBe(2 * 3 + 4); // 10
     expect(f.fittings("cross", 2.5)).toBe(12);
+    expect(f.fittings("2 tees", "3/4")).toBe(2 * 4); // ¾ in column [NFPA 13] (from memory): T 4
     expect(f.fittings("E", 2.5)).toBe(6);
   });
 
