@@ -136,16 +136,6 @@ describe("AREADEMAND solve: invariants [NFPA 13]", () => {
     expect([r.heads, r.headsPerLine, r.lines]).toEqual([1, 1, 1]);
   });
 
-  it("solves a 4,000 ft² extra-hazard area well under 1 ms", () => {
-    const c = cases[4];
-    solveAreaDemand(c);
-    const runs = 200;
-    const t0 = performance.now();
-    for (let i = 0; i < runs; i++) solveAreaDemand({ ...c, density: 0.4 + i * 1e-6 });
-    const perSolve = (performance.now() - t0) / runs;
-    expect(perSolve).toBeLessThan(0.2);
-  });
-
   it("rejects inputs that are not positive, naming them", () => {
     expect(() => solveAreaDemand({ ...base, headSpacing: 0 })).toThrow(/head_spacing: got 0 ft; must be greater than 0/);
     expect(() => solveAreaDemand({ ...base, mainDiameter: -1 })).toThrow(/main_diameter/);
