@@ -462,9 +462,9 @@ export function pumpsize(demand_flow: any, boost: any, units?: any): any[][] {
 }
 
 /**
- * Net pressure of a fire pump at a flow, from the parabola through its shutoff, rated and 150 % points. #NUM!
- * beyond 150 % of rated flow or for ratios outside the NFPA 20 envelope (shutoff at most 140 % of rated pressure,
- * at least 65 % at 150 % flow).
+ * Net pressure of a fire pump at a flow, on the curve P = shutoff − k Q^n through its shutoff, rated and 150 %
+ * points: it falls with flow and is never above shutoff. #NUM! beyond 150 % of rated flow or for ratios outside
+ * the NFPA 20 envelope (shutoff at most 140 % of rated pressure, at least 65 % at 150 % flow).
  * @customfunction
  * @param flow Flow through the pump (gpm; SI: L/min), 0 to 1.5 × rated_flow.
  * @param rated_flow Rated flow of the pump (gpm; SI: L/min).
