@@ -15,7 +15,7 @@ import { installCustomFunctionsShim } from "../src/preview/customFunctionsShim";
 installCustomFunctionsShim();
 const f = await import("../src/functions/functions");
 const { solveAreaDemand } = await import("../src/engine/tree");
-const { frictionRate } = await import("../src/engine/friction");
+const { headLoss } = await import("../src/engine/friction");
 const { sheetBench } = await import("./sheet");
 
 interface Figure { name: string; value: number; unit: string; goal?: string; ok?: boolean }
@@ -88,7 +88,7 @@ const statics = Float64Array.from({ length: 1024 }, (_, i) => 60 + (i % 20));
   const input = { density: 0.15, area: 1500, coverage: 130, kFactor: 5.6, headSpacing: 13, branchDiameter: 1.38, mainDiameter: 2.469, cFactor: 120, minPressure: 7 };
   const { a: cell, b: engine, ratio } = compare(
     (i) => f.areademand(0.15, 1500 + (i & 7), 130, 5.6, 13, 1.38, 2.469)[0][0],
-    (i) => solveAreaDemand({ ...input, area: 1500 + (i & 7) }, frictionRate).flow,
+    (i) => solveAreaDemand({ ...input, area: 1500 + (i & 7) }, headLoss("US")).flow,
     20_000,
   );
   record({ name: "AREADEMAND µs/call (cell layer)", value: cell / 1000, unit: "µs" });
@@ -105,7 +105,7 @@ const statics = Float64Array.from({ length: 1024 }, (_, i) => 60 + (i % 20));
 {
   // the same area solved by the engine alone, 2 in lines (the solve the engine tests check for values)
   const input = { density: 0.4, area: 4000, coverage: 100, kFactor: 11.2, headSpacing: 10, branchDiameter: 2.067, mainDiameter: 4.026, cFactor: 120, minPressure: 7 };
-  const ns = nsPerCall((i) => solveAreaDemand({ ...input, density: 0.4 + (i & 1023) * 1e-6 }, frictionRate).flow, 5_000);
+  const ns = nsPerCall((i) => solveAreaDemand({ ...input, density: 0.4 + (i & 1023) * 1e-6 }, headLoss("US")).flow, 5_000);
   record({ name: "AREADEMAND 4,000 ft² extra hazard, engine, ms/solve", value: ns / 1e6, unit: "ms", goal: "< 0.2", ok: ns / 1e6 < 0.2 });
 }
 

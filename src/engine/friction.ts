@@ -1,7 +1,7 @@
 /**
  * Pipe friction (Hazen-Williams), mean velocity and elevation pressure. US units: gpm, in, ft, psi.
  */
-import { BARM_PER_PSIFT, PSI_PER_FT_WATER, type UnitSystem, fromUS } from "./units";
+import { BARM_PER_PSIFT, L_PER_GAL, MM_PER_IN, PSI_PER_FT_WATER, type UnitSystem } from "./units";
 
 /** Hazen-Williams exponent of flow and C. [NFPA 13] */
 export const HW_FLOW_EXPONENT = 1.85;
@@ -46,20 +46,62 @@ export function frictionRateSI(flowLpm: number, diameterMm: number, cFactor: num
     (Math.pow(cFactor, HW_FLOW_EXPONENT) * Math.pow(diameterMm, HW_DIAMETER_EXPONENT));
 }
 
-/** The SI rate expressed in psi/ft, for comparing both forms. */
-export function frictionRateSIasUS(flowLpm: number, diameterMm: number, cFactor: number): number {
-  return frictionRateSI(flowLpm, diameterMm, cFactor) / BARM_PER_PSIFT;
+/**
+ * Hazen-Williams pipe friction in one unit system's published form, on US quantities (gpm, in, ft, psi): the one
+ * head-loss interface of the engine. PIPERUN, AREADEMAND, SIZEFOR, FRICTION and the network solver all take their
+ * losses from here, so a unit system means one form everywhere.
+ */
+export interface HeadLoss {
+  /** the unit system whose published form this is: "US" the [NFPA 13] form, "SI" the [EN 12845] form */
+  readonly units: UnitSystem;
+  /** loss per foot of pipe, psi/ft, at `flow` gpm in `diameter` in internal diameter with C `cFactor` */
+  rate(flow: number, diameter: number, cFactor: number): number;
+  /** loss over `length` ft (pipe plus fitting equivalent length), psi */
+  loss(flow: number, diameter: number, cFactor: number, length: number): number;
+  /** d(loss)/d(flow) over `length` ft at `flow` gpm, psi per gpm: 1.85 × loss / flow (0 at no flow) */
+  slope(flow: number, diameter: number, cFactor: number, length: number): number;
 }
 
 /**
- * Friction loss over a length of pipe (Hazen-Williams rate × length).
- *
- * @param flow gpm, @param diameter in, @param cFactor C, @param length ft (pipe plus fitting equivalent length)
- * @returns psi
- * Source: [NFPA 13]. Worked value: 500 gpm, 4.026 in, C 120, 100 ft → 7.18 psi.
+ * The [EN 12845] constant carried into US quantities: p[psi/ft] = K·Q[gpm]^1.85 / (C^1.85 d[in]^4.87) with
+ * K = 6.05e5 × 3.785411784^1.85 / 25.4^4.87 / (0.0689476 / 0.3048) = 6.05e5 × 11.7357 / 6 942 889 / 0.226206
+ * = 4.5209, against the [NFPA 13] 4.52 (the two forms differ by 0.02 %). Derived from the exact unit constants, so the SI form on US quantities is the EN 12845
+ * formula on L/min and mm, to rounding.
  */
-export function frictionLoss(flow: number, diameter: number, cFactor: number, length: number): number {
-  return frictionRate(flow, diameter, cFactor) * length;
+export const HW_CONSTANT_SI_AS_US =
+  (HW_CONSTANT_SI * Math.pow(L_PER_GAL, HW_FLOW_EXPONENT)) / Math.pow(MM_PER_IN, HW_DIAMETER_EXPONENT) / BARM_PER_PSIFT;
+
+function hazenWilliams(units: UnitSystem, constant: number): HeadLoss {
+  const rate = (flow: number, diameter: number, cFactor: number) =>
+    (constant * Math.pow(flow, HW_FLOW_EXPONENT)) /
+    (Math.pow(cFactor, HW_FLOW_EXPONENT) * Math.pow(diameter, HW_DIAMETER_EXPONENT));
+  return Object.freeze({
+    units,
+    rate,
+    loss: (flow: number, diameter: number, cFactor: number, length: number) => rate(flow, diameter, cFactor) * length,
+    slope: (flow: number, diameter: number, cFactor: number, length: number) =>
+      flow > 0 ? (HW_FLOW_EXPONENT * rate(flow, diameter, cFactor) * length) / flow : 0,
+  });
+}
+
+const HEAD_LOSS: Record<UnitSystem, HeadLoss> = {
+  US: hazenWilliams("US", HW_CONSTANT_US),
+  SI: hazenWilliams("SI", HW_CONSTANT_SI_AS_US),
+};
+
+/**
+ * The Hazen-Williams head loss of a unit system: in US work the [NFPA 13] form, in SI work the [EN 12845] form (the
+ * two agree within 0.2 %), both on US quantities.
+ *
+ *   loss = K Q^1.85 / (C^1.85 d^4.87) × L,   d(loss)/dQ = 1.85 loss / Q
+ *
+ * @param units "US" or "SI"
+ * Source: [NFPA 13] (K = 4.52 in psi/ft, gpm, in), [EN 12845] (K = 6.05e5 in bar/m, L/min, mm).
+ * Worked value: headLoss("US").loss(500, 4.026, 120, 100) = 0.07178 × 100 = 7.18 psi;
+ * slope = 1.85 × 7.178 / 500 = 0.02656 psi per gpm.
+ */
+export function headLoss(units: UnitSystem): HeadLoss {
+  return HEAD_LOSS[units];
 }
 
 /**
@@ -87,14 +129,4 @@ export function velocity(flow: number, diameter: number): number {
  */
 export function elevationPressure(rise: number): number {
   return PSI_PER_FT_WATER * rise;
-}
-
-/**
- * Friction loss per length in the user's unit system: in US, psi/ft by the NFPA 13 form; in SI, bar/m by the
- * EN 12845 form (the two agree within 0.2 %). Takes US inputs (gpm, in) as the functions layer holds them.
- */
-export function frictionRateIn(flowGpm: number, diameterIn: number, cFactor: number, units: UnitSystem): number {
-  return units === "SI"
-    ? frictionRateSI(fromUS("flow", flowGpm, units), fromUS("diameter", diameterIn, units), cFactor)
-    : frictionRate(flowGpm, diameterIn, cFactor);
 }

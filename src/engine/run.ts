@@ -12,10 +12,8 @@
  * which gives a gain).
  */
 import { fail, n, q } from "./errors";
-import { elevationPressure, frictionRate } from "./friction";
+import { type HeadLoss, elevationPressure, headLoss } from "./friction";
 
-/** A Hazen-Williams loss rate: psi per ft for a flow (gpm) in a pipe of internal diameter (in) and C. */
-export type FrictionRateFn = (flowGpm: number, diameterIn: number, cFactor: number) => number;
 
 /** One segment of a run. */
 export interface Segment {
@@ -45,19 +43,19 @@ export interface SegmentLosses {
 /**
  * The losses of one segment:
  *
- *   friction  = rate(Q, d, C) × (length + fitting_length)      rate = 4.52 Q^1.85 / (C^1.85 d^4.87) psi/ft
+ *   friction  = loss(Q, d, C, length + fitting_length)      loss = 4.52 Q^1.85 / (C^1.85 d^4.87) × L psi
  *   elevation = 0.433 × rise
  *   fixed     = fixed_loss
  *
  * @param s the segment, US units
- * @param rate the Hazen-Williams rate in psi/ft; default the [NFPA 13] US form (the cell layer passes the
- *   [EN 12845] form, expressed in psi/ft, for SI work so that RUN agrees with FRICTION)
+ * @param hl the head loss of the user's unit system (headLoss(units)), default the [NFPA 13] US form, so that
+ *   PIPERUN in SI agrees with FRICTION in SI
  * @returns psi
  * Source: [NFPA 13] Hazen-Williams and 0.433 psi per ft.
  * Worked value: 500 gpm, 4.026 in, C 120, 80 ft + 20 ft of fittings, rise 10 ft, fixed 5 psi →
  * friction 0.07178 × 100 = 7.18 psi, elevation 4.33 psi, fixed 5 psi.
  */
-export function segmentLosses(s: Segment, rate: FrictionRateFn = frictionRate): SegmentLosses {
+export function segmentLosses(s: Segment, hl: HeadLoss = headLoss("US")): SegmentLosses {
   if (!(s.flow >= 0)) fail("flow", q("flow", s.flow), "must be 0 or more");
   if (!(s.diameter > 0)) fail("diameter", q("diameter", s.diameter), "must be greater than 0");
   if (!(s.cFactor > 0)) fail("c_factor", n(s.cFactor), "must be greater than 0");
@@ -66,7 +64,7 @@ export function segmentLosses(s: Segment, rate: FrictionRateFn = frictionRate): 
   if (!Number.isFinite(s.rise)) fail("rise", q("length", s.rise), "must be a finite number");
   if (!(s.fixedLoss >= 0)) fail("fixed_loss", q("pressure", s.fixedLoss), "must be 0 or more");
   return {
-    friction: rate(s.flow, s.diameter, s.cFactor) * (s.length + s.fittingLength),
+    friction: hl.loss(s.flow, s.diameter, s.cFactor, s.length + s.fittingLength),
     elevation: elevationPressure(s.rise),
     fixed: s.fixedLoss,
   };

@@ -21,8 +21,7 @@
  * multiplied by P / P_line and its flow by √(P / P_line), so each still flows K √p and the line totals K_line √P.
  */
 import { fail, n, q } from "./errors";
-import { frictionRate } from "./friction";
-import type { FrictionRateFn } from "./run";
+import { type HeadLoss, headLoss } from "./friction";
 import type { Quantity } from "./units";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headDischarge, headFlow, headPressure, headsPerLine } from "./sprinkler";
 
@@ -98,19 +97,19 @@ interface SolvedLine {
  * Walk one branch line of `count` sprinklers from the end sprinkler (q1 at p1) to the cross main.
  * Source: [NFPA 13] hydraulic calculation, Q = K √P and Hazen-Williams between sprinklers.
  */
-function solveLine(count: number, q1: number, p1: number, inp: AreaDemandInput, rate: FrictionRateFn): SolvedLine {
+function solveLine(count: number, q1: number, p1: number, inp: AreaDemandInput, hl: HeadLoss): SolvedLine {
   const flows = [q1];
   const pressures = [p1];
   let carried = q1;
   let p = p1;
   for (let i = 1; i < count; i++) {
-    p += rate(carried, inp.branchDiameter, inp.cFactor) * inp.headSpacing;
+    p += hl.loss(carried, inp.branchDiameter, inp.cFactor, inp.headSpacing);
     const q = headDischarge(inp.kFactor, p);
     flows.push(q);
     pressures.push(p);
     carried += q;
   }
-  const inletPressure = p + rate(carried, inp.branchDiameter, inp.cFactor) * inp.headSpacing;
+  const inletPressure = p + hl.loss(carried, inp.branchDiameter, inp.cFactor, inp.headSpacing);
   return { flows, pressures, inletFlow: carried, inletPressure };
 }
 
@@ -137,8 +136,7 @@ function checkInput(inp: AreaDemandInput): void {
  * Solve the design area of a tree system sprinkler by sprinkler (the method in the file comment).
  *
  * @param inp the design area, sprinklers and pipes, US units
- * @param rate the Hazen-Williams rate in psi/ft; default the [NFPA 13] US form (the cell layer passes the
- *   [EN 12845] form, expressed in psi/ft, for SI work)
+ * @param hl the head loss of the user's unit system (headLoss(units)); default the [NFPA 13] US form
  * @param detail also list every flowing sprinkler
  * @returns the cross-main flow (gpm) and pressure (psi) at the last line, counts, and the end-sprinkler pressure
  * Source: [NFPA 13] density/area method and hydraulic calculation procedure.
@@ -147,7 +145,7 @@ function checkInput(inp: AreaDemandInput): void {
  * q1 = 19.5 gpm at 12.13 psi → 254.3 gpm at 25.16 psi in the cross main. A two-line example is worked through by
  * hand in test/engine/tree.test.ts.
  */
-export function solveAreaDemand(inp: AreaDemandInput, rate: FrictionRateFn = frictionRate, detail = false): AreaDemand {
+export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("US"), detail = false): AreaDemand {
   checkInput(inp);
   const n = headCount(inp.area, inp.coverage);
   const m = Math.min(headsPerLine(inp.area, inp.headSpacing, DESIGN_AREA_LENGTH_FACTOR), n);
@@ -157,8 +155,8 @@ export function solveAreaDemand(inp: AreaDemandInput, rate: FrictionRateFn = fri
 
   const q1 = headFlow(inp.density, inp.coverage, inp.kFactor, inp.minPressure);
   const p1 = headPressure(q1, inp.kFactor, inp.minPressure);
-  const full = solveLine(m, q1, p1, inp, rate);
-  const partial = last === m ? full : solveLine(last, q1, p1, inp, rate);
+  const full = solveLine(m, q1, p1, inp, hl);
+  const partial = last === m ? full : solveLine(last, q1, p1, inp, hl);
 
   const lineFlows: number[] = [];
   const linePressures: number[] = [];
@@ -166,7 +164,7 @@ export function solveAreaDemand(inp: AreaDemandInput, rate: FrictionRateFn = fri
   let flow = 0;
   let pressure = full.inletPressure;
   for (let j = 1; j <= lines; j++) {
-    if (j > 1) pressure += rate(flow, inp.mainDiameter, inp.cFactor) * lineSpacing;
+    if (j > 1) pressure += hl.loss(flow, inp.mainDiameter, inp.cFactor, lineSpacing);
     const solved = j === lines ? partial : full;
     const scale = pressure / solved.inletPressure; // pressure ratio; flows scale by its square root
     const lineFlow = j === 1 ? solved.inletFlow : (solved.inletFlow / Math.sqrt(solved.inletPressure)) * Math.sqrt(pressure);

@@ -12,7 +12,7 @@ import { LIMITS_US, SIGNED, ZERO_ALLOWED, numberArg, optionalNumberArg, quantity
 import { decisionArgs, demandArgs, flowTestArgs, minPressureArg, pipeArgs } from "./common";
 import { convertUnit } from "./unit";
 import { assess, margin as supplyMargin, pumpBoost, verdictSentence } from "../engine/decision";
-import { elevationPressure, frictionRateIn, velocity as pipeVelocity } from "../engine/friction";
+import { elevationPressure, headLoss, velocity as pipeVelocity } from "../engine/friction";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
 import { finiteOr, n as plain, q as qty } from "../engine/errors";
 import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, supplyAt } from "../engine/supply";
@@ -177,7 +177,7 @@ export function friction(flow: any, diameter: any, c_factor: any, length: any, u
   return cell(units, (u) => {
     const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
     const l = quantityArg(length, "length", "length", u, ZERO_ALLOWED);
-    return finiteOr(frictionRateIn(q, d, c, u) * fromUS("length", l, u), "diameter", qty("diameter", d));
+    return fromUS("pressure", finiteOr(headLoss(u).loss(q, d, c, l), "diameter", qty("diameter", d)), u);
   });
 }
 
@@ -193,7 +193,7 @@ export function friction(flow: any, diameter: any, c_factor: any, length: any, u
 export function frictionrate(flow: any, diameter: any, c_factor: any, units?: any): number {
   return cell(units, (u) => {
     const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
-    return finiteOr(frictionRateIn(q, d, c, u), "diameter", qty("diameter", d));
+    return fromUS("frictionRate", finiteOr(headLoss(u).rate(q, d, c), "diameter", qty("diameter", d)), u);
   });
 }
 

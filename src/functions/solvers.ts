@@ -11,11 +11,11 @@
  * column of FRICTION calls in SI.
  */
 import { fail, n, notInTable, q } from "../engine/errors";
-import { frictionRate, frictionRateIn } from "../engine/friction";
+import { headLoss } from "../engine/friction";
 import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_MAX_POINTS, SUPPLY_CURVE_POINTS, supplyCurvePoints } from "../engine/curve";
 import { scheduleInfo, scheduleSizes } from "../engine/pipes";
 import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, pumpPressure, pumpRating } from "../engine/pump";
-import { type FrictionRateFn, type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
+import { type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
 import { solveAreaDemand } from "../engine/tree";
 import { type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
 import { SIGNED, ZERO_ALLOWED, isBlank, optionalNumberArg, optionalQuantityArg, quantityArg } from "./args";
@@ -25,15 +25,6 @@ import { scheduleArg } from "./tableCodes";
 
 /** Default Hazen-Williams C of AREADEMAND: black or galvanized steel, wet [NFPA 13]. */
 export const DEFAULT_C_FACTOR = 120;
-
-/**
- * The friction rate in psi/ft that matches FRICTION in `u`: the NFPA 13 US form, or in SI the EN 12845 form
- * (bar/m) expressed in psi/ft.
- */
-export function frictionRateFor(u: UnitSystem): FrictionRateFn {
-  if (u === "US") return frictionRate;
-  return (q, d, c) => toUS("frictionRate", frictionRateIn(q, d, c, "SI"), "SI");
-}
 
 // ─── Ranges ──────────────────────────────────────────────────────────────────────────────────────────────────────
 
@@ -92,7 +83,7 @@ export function runRows(segments: unknown, startPressure: unknown, u: UnitSystem
     );
   }
   const start = optionalQuantityArg(startPressure, "start_pressure", "pressure", u, 0, ZERO_ALLOWED);
-  const rate = frictionRateFor(u);
+  const hl = headLoss(u);
 
   const inputs: RunInput[] = [];
   const problems = new Map<number, unknown>();
@@ -102,7 +93,7 @@ export function runRows(segments: unknown, startPressure: unknown, u: UnitSystem
       return;
     }
     try {
-      inputs.push({ kind: "segment", losses: segmentLosses(readSegment(row, i + 1, u), rate) });
+      inputs.push({ kind: "segment", losses: segmentLosses(readSegment(row, i + 1, u), hl) });
     } catch (e) {
       problems.set(i, e);
       inputs.push({ kind: "unreadable" });
@@ -188,7 +179,7 @@ export function areaDemandRow(
     cFactor: isBlank(cFactor) ? DEFAULT_C_FACTOR : cFactorArg(cFactor),
     minPressure: minPressureArg(minPressure, u),
   };
-  const r = solveAreaDemand(inp, frictionRateFor(u));
+  const r = solveAreaDemand(inp, headLoss(u));
   return [
     [
       fromUS("flow", r.flow, u),
@@ -213,9 +204,9 @@ export function sizeFor(flow: unknown, length: unknown, cFactor: unknown, allowe
   const c = cFactorArg(cFactor);
   const allowed = quantityArg(allowedLoss, "allowed_loss", "pressure", u);
   const s = scheduleArg(schedule);
-  const rate = frictionRateFor(u);
+  const hl = headLoss(u);
   const sizes = scheduleSizes(s);
-  const lossOf = (id: number) => rate(qf, id, c) * l;
+  const lossOf = (id: number) => hl.loss(qf, id, c, l);
   const found = sizes.find((size) => lossOf(size.id) <= allowed * (1 + 1e-12));
   if (!found) {
     const largest = sizes[sizes.length - 1];

@@ -1,13 +1,13 @@
 import { describe, expect, it } from "vitest";
 import {
+  HW_CONSTANT_SI_AS_US,
   elevationPressure,
-  frictionLoss,
   frictionRate,
   frictionRateSI,
-  frictionRateSIasUS,
+  headLoss,
   velocity,
 } from "../../src/engine/friction";
-import { L_PER_GAL, MM_PER_IN } from "../../src/engine/units";
+import { BARM_PER_PSIFT, L_PER_GAL, MM_PER_IN } from "../../src/engine/units";
 
 describe("Hazen-Williams friction", () => {
   it("follows the US form p = 4.52 Q^1.85 / (C^1.85 d^4.87) [NFPA 13]", () => {
@@ -17,7 +17,8 @@ describe("Hazen-Williams friction", () => {
     expect(frictionRate(500, 4.026, 120)).toBeCloseTo((4.52 * 500 ** 1.85) / (120 ** 1.85 * 4.026 ** 4.87), 12);
     expect(frictionRate(500, 4.026, 120)).toBeCloseTo(0.0718, 4);
     // over 100 ft: 7.18 psi [NFPA 13]
-    expect(frictionLoss(500, 4.026, 120, 100)).toBeCloseTo(7.178, 2);
+    expect(headLoss("US").loss(500, 4.026, 120, 100)).toBeCloseTo(7.178, 2);
+    expect(headLoss("US").rate(500, 4.026, 120)).toBe(frictionRate(500, 4.026, 120));
   });
 
   it("follows the SI form p = 6.05e5 Q^1.85 / (C^1.85 d^4.87) bar/m [EN 12845]", () => {
@@ -27,8 +28,10 @@ describe("Hazen-Williams friction", () => {
   it("US and SI forms agree within 0.2 % after unit conversion [NFPA 13] [EN 12845]", () => {
     for (const [q, d, c] of [[20, 1.049, 120], [150, 2.067, 100], [500, 4.026, 120], [1500, 7.981, 140], [3000, 11.938, 150]]) {
       const us = frictionRate(q, d, c);
-      const si = frictionRateSIasUS(q * L_PER_GAL, d * MM_PER_IN, c);
+      const si = frictionRateSI(q * L_PER_GAL, d * MM_PER_IN, c) / BARM_PER_PSIFT;
       expect(Math.abs(si / us - 1)).toBeLessThan(0.002);
+      // the SI head loss on US quantities is the EN 12845 formula on L/min and mm, to rounding
+      expect(headLoss("SI").rate(q, d, c) / si).toBeCloseTo(1, 12);
     }
   });
 
@@ -39,6 +42,28 @@ describe("Hazen-Williams friction", () => {
     // doubling the flow multiplies the loss by 2^1.85 = 3.605 [NFPA 13] exponent
     expect(frictionRate(200, 2.067, 120) / frictionRate(100, 2.067, 120)).toBeCloseTo(2 ** 1.85, 10);
   });
+});
+
+describe("the head-loss interface: loss and its derivative with respect to flow", () => {
+  it("carries the EN 12845 constant into US quantities [EN 12845]", () => {
+    // 3.785411784^1.85 = 11.7357; 25.4^4.87 = 6 942 889; 0.0689476 / 0.3048 = 0.226206 bar/m per psi/ft
+    // → 6.05e5 × 11.7357 / 6 942 889 / 0.226206 = 4.5209 against the [NFPA 13] 4.52
+    expect(HW_CONSTANT_SI_AS_US).toBeCloseTo(4.5209, 4);
+    expect(Math.abs(HW_CONSTANT_SI_AS_US / 4.52 - 1)).toBeLessThan(0.002); // within 0.2 % [NFPA 13] [EN 12845]
+  });
+  for (const units of ["US", "SI"] as const) {
+    it(`${units}: slope = 1.85 × loss / Q, and matches a central difference of the loss [NFPA 13]`, () => {
+      const hl = headLoss(units);
+      for (const [q, d, c, l] of [[20, 1.049, 120, 12], [500, 4.026, 120, 100], [1500, 7.981, 140, 300]]) {
+        expect(hl.slope(q, d, c, l)).toBeCloseTo((1.85 * hl.loss(q, d, c, l)) / q, 12);
+        const h = q * 1e-6;
+        const numeric = (hl.loss(q + h, d, c, l) - hl.loss(q - h, d, c, l)) / (2 * h);
+        expect(hl.slope(q, d, c, l) / numeric).toBeCloseTo(1, 6);
+      }
+      expect(hl.slope(0, 2.067, 120, 10)).toBe(0); // no flow, no slope (the network solver linearises there)
+      expect(hl.loss(0, 2.067, 120, 10)).toBe(0);
+    });
+  }
 });
 
 describe("velocity", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { frictionRate } from "../../src/engine/friction";
+import { HW_CONSTANT_SI_AS_US, headLoss } from "../../src/engine/friction";
 import { type RunInput, type Segment, segmentLosses, walkRun } from "../../src/engine/run";
 
 const seg = (s: Partial<Segment>): Segment => ({
@@ -25,9 +25,9 @@ describe("segment losses [NFPA 13]", () => {
   it("a drop gives a gain", () => {
     expect(segmentLosses(seg({ rise: -10 })).elevation).toBeCloseTo(-4.33, 12); // 0.433 × −10 [NFPA 13]
   });
-  it("uses the rate it is given (the SI form in SI work)", () => {
-    const double = (q: number, d: number, c: number) => 2 * frictionRate(q, d, c);
-    expect(segmentLosses(seg({}), double).friction).toBeCloseTo(2 * 7.178, 2);
+  it("uses the head loss it is given (the EN 12845 form in SI work)", () => {
+    // 6.05e5 in SI carried to US quantities is 4.5209 against the NFPA 13 4.52 [EN 12845] [NFPA 13]
+    expect(segmentLosses(seg({}), headLoss("SI")).friction / segmentLosses(seg({})).friction).toBeCloseTo(HW_CONSTANT_SI_AS_US / 4.52, 12);
   });
   it("rejects impossible segments, naming the column", () => {
     expect(() => segmentLosses(seg({ diameter: 0 }))).toThrow(/diameter: got 0 in; must be greater than 0/);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { frictionRate } from "../../src/engine/friction";
+import { headLoss } from "../../src/engine/friction";
 import { headPressure } from "../../src/engine/sprinkler";
 import { type AreaDemandInput, solveAreaDemand } from "../../src/engine/tree";
 
@@ -24,7 +24,7 @@ describe("AREADEMAND solve: a worked two-line example [NFPA 13]", () => {
   // (1 in Schedule 40 [ASME B36.10M]), 1.38 in cross main (1¼ Schedule 40 [ASME B36.10M]), C 120, Pmin 7 psi.
   const r = solveAreaDemand(
     { density: 0.2, area: 300, coverage: 100, kFactor: 5.6, headSpacing: 12, branchDiameter: 1.049, mainDiameter: 1.38, cFactor: 120, minPressure: 7 },
-    frictionRate,
+    headLoss("US"),
     true,
   );
 
@@ -82,7 +82,7 @@ describe("AREADEMAND solve: invariants [NFPA 13]", () => {
 
   it("flow equals the sum of the individual sprinkler flows, each K √p [NFPA 13]", () => {
     for (const c of cases) {
-      const r = solveAreaDemand(c, frictionRate, true);
+      const r = solveAreaDemand(c, headLoss("US"), true);
       const s = r.sprinklers!;
       expect(s.length).toBe(r.heads);
       for (const h of s) expect(h.flow).toBeCloseTo(c.kFactor * Math.sqrt(h.pressure), 9);
@@ -125,7 +125,7 @@ describe("AREADEMAND solve: invariants [NFPA 13]", () => {
 
   it("with the minimum pressure governing, the end sprinkler sits at 7 psi [NFPA 13]", () => {
     // 0.05 × 130 = 6.5 gpm < 5.6 √7 = 14.82 gpm: q1 = 14.82 gpm at 7 psi
-    const r = solveAreaDemand({ ...base, density: 0.05 }, frictionRate, true);
+    const r = solveAreaDemand({ ...base, density: 0.05 }, headLoss("US"), true);
     expect(r.endPressure).toBeCloseTo(7, 12);
     expect(r.sprinklers![0].flow).toBeCloseTo(14.816, 3);
   });
