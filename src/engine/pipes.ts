@@ -5,7 +5,7 @@
  * (NPS 2-1/2 → 2.5); it is never a diameter. The cell layer (src/functions/nominal.ts) turns what users type
  * ("2-1/2", "2½", DN 65) into that number; this module knows nothing of cell values.
  *
- * Every value carries its source mark beside it, as ../shared/spec/reference.md marks it.
+ * Every value carries its source mark beside it, as docs/references.md lists the sources and marks.
  */
 import { fail, n, q } from "./errors";
 

@@ -1,13 +1,13 @@
 /**
  * Physical cross-check of Hazen-Williams against Darcy-Weisbach with the Colebrook friction factor from
- * python3-fluids (`fluids.friction.friction_factor(Re, eD)`), water at 999 kg/m³ and 1.12 mPa·s, as reference.md's
- * "Outside checks" describes: for smooth pipe, Hazen-Williams with C = 150 lands within about ±8 % of
- * Darcy-Weisbach for 1–8 in pipe at 1–8 m/s; C = 120 (aged steel) reads 14–35 % higher than new commercial steel
- * (ε = 45 µm).
+ * python3-fluids (`fluids.friction.friction_factor(Re, eD)`), water at 999 kg/m³ and 1.12 mPa·s (an outside check,
+ * docs/references.md). Expected before measuring: for smooth pipe, Hazen-Williams with C = 150 lands within about
+ * ±8 % of Darcy-Weisbach for 1–8 in pipe at 1–8 m/s; C = 120 (aged steel) reads 14–35 % higher than new commercial
+ * steel (ε = 45 µm).
  *
  * Measured here with python3-fluids 1.0.22 over these 20 cases: C = 150 against smooth pipe gives 0.92 to 1.09,
  * C = 120 against ε = 45 µm gives 1.08 to 1.41 (the spread grows at 8 m/s, faster than sprinkler piping runs).
- * reference.md's "about ±8 %" and "14–35 %" are approximate; the checks below use the measured span with a small
+ * The expected "about ±8 %" and "14–35 %" were approximate; the checks below use the measured span with a small
  * pad: within ±10 %, and 5 % to 45 % above (Hazen-Williams C = 120 always reads above new commercial steel).
  */
 import { beforeAll, describe, expect, it } from "vitest";

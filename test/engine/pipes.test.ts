@@ -30,7 +30,7 @@ describe("pipe schedules", () => {
     }
   });
 
-  it("has the sizes reference.md gives for each schedule", () => {
+  it("has the sizes each schedule's standard gives", () => {
     const steel = [0.75, 1, 1.25, 1.5, 2, 2.5, 3, 3.5, 4, 5, 6, 8, 10, 12]; // [ASME B36.10M]
     expect(scheduleSizes("10").map((s) => s.nominal)).toEqual(steel);
     expect(scheduleSizes("40").map((s) => s.nominal)).toEqual(steel);

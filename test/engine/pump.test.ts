@@ -10,7 +10,7 @@ import {
 } from "../../src/engine/pump";
 
 describe("standard rated capacities [NFPA 20] (from memory)", () => {
-  it("holds the list of reference.md", () => {
+  it("holds the list [NFPA 20] gives", () => {
     // [NFPA 20] (from memory)
     expect(STANDARD_RATED_CAPACITIES_GPM).toEqual([
       25, 50, 100, 150, 200, 250, 300, 400, 450, 500, 750, 1000, 1250, 1500, 2000, 2500, 3000, 3500, 4000, 4500, 5000,

@@ -24,7 +24,7 @@ describe("every US↔SI constant, confirmed by mathjs", () => {
     expect(M_PER_FT).toBeCloseTo(via(1, "ft", "m"), 12);
     expect(M2_PER_FT2).toBeCloseTo(via(1, "ft^2", "m^2"), 12);
   });
-  it("density gpm/ft² ↔ mm/min (mathjs); reference.md gives 40.746 [NFPA 13]", () => {
+  it("density gpm/ft² ↔ mm/min (mathjs); 40.746 as [NFPA 13] gives it", () => {
     expect(MMMIN_PER_GPMFT2).toBeCloseTo(via(1, "gal/min/ft^2", "mm/min"), 9);
     expect(MMMIN_PER_GPMFT2).toBeCloseTo(40.746, 3);
   });

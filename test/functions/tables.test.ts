@@ -1,7 +1,7 @@
 /**
  * The trade-table cell functions: PIPEID, CFACTOR, FITTINGLENGTH, FITTINGS, DESIGNDENSITY, DESIGNAREA,
- * HOSEALLOWANCE, DURATION. Every table value of ../shared/spec/reference.md is read here through a cell function and
- * checked against the value written out below, with its source mark beside it.
+ * HOSEALLOWANCE, DURATION. Every table value of the engine is read here through a cell function and checked against
+ * the value written out below, with its source mark beside it (the sources: docs/references.md).
  */
 import { describe, expect, it } from "vitest";
 import * as f from "../../src/functions/functions";
@@ -12,7 +12,7 @@ const NPS = [0.75, 1, 1.25, 1.5, 2, 2.5, 3, 3.5, 4, 5, 6, 8, 10, 12];
 
 // ─── PIPEID ─────────────────────────────────────────────────────────────────────────────────────────────────────
 
-/** Internal diameters, in, as reference.md gives them. */
+/** Internal diameters, in, as the pipe standards give them. */
 const PIPE_IDS: Record<string, [number, number][]> = {
   // [ASME B36.10M]
   "10": [[0.75, 0.884], [1, 1.097], [1.25, 1.442], [1.5, 1.682], [2, 2.157], [2.5, 2.635], [3, 3.26], [3.5, 3.76], [4, 4.26], [5, 5.295], [6, 6.357], [8, 8.329], [10, 10.42], [12, 12.39]],
