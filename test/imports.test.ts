@@ -81,7 +81,7 @@ function moduleGraph(): Graph {
   return graph;
 }
 
-/** The folder graph: src/<folder> → the other folders of src/ its files import. Files directly in src/ are their own. */
+/** The folder graph: src/<folder> → the other folders of src/ its files import (a file right in src/ is its own). */
 function folderGraph(modules: Graph): Graph {
   const folder = (file: string) => file.split("/").slice(0, file.split("/").length > 2 ? 2 : undefined).join("/");
   const graph: Graph = new Map();
@@ -162,7 +162,9 @@ function compare(graph: Graph, known: string[][]): string[] {
     ...found
       .filter((g) => !knownKeys.has(key(g)))
       .map((g) => `import circle among ${g.join(", ")}, for one: ${describeCircle(graph, g)}`),
-    ...known.filter((g) => !foundKeys.has(key(g))).map((g) => `no longer a circle, delete it from the known list: ${key(g)}`),
+    ...known
+      .filter((g) => !foundKeys.has(key(g)))
+      .map((g) => `no longer a circle, delete it from the known list: ${key(g)}`),
   ];
 }
 
