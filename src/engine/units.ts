@@ -10,6 +10,7 @@
 /** US liquid gallon in litres (exact by definition: 231 in³). 1 gpm = 3.785411784 L/min. */
 export const L_PER_GAL = 3.785411784;
 /** Pound-force per square inch in bar: 6894.757293168 Pa (exact from lbf and in) / 100000 Pa. */
+// eslint-disable-next-line no-loss-of-precision -- the 17th digit is the exact value's; it parses to the same double.
 export const BAR_PER_PSI = 0.06894757293168361;
 /** Inch in millimetres (exact). */
 export const MM_PER_IN = 25.4;

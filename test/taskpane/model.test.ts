@@ -73,15 +73,15 @@ describe("pane model: the verdict is VERDICT's, the margin MARGIN's", () => {
       const [[flow, pressure]] = pumpSizeCell(v.Demand_Flow, boost, v.Units) as number[][];
       const si = v.Units === "SI";
       expect(e.pumpSize!.ratedFlow * (si ? 3.785411784 : 1)).toBeCloseTo(flow, 6);
-      expect(e.pumpSize!.ratedPressure * (si ? 0.06894757293168361 : 1)).toBeCloseTo(pressure, 9);
+      expect(e.pumpSize!.ratedPressure * (si ? 0.0689475729316836 : 1)).toBeCloseTo(pressure, 9);
     }
   });
 
   it("rounds an SI pump pressure in bar", () => {
     // 1.52 bar → 2.0 bar in 0.5 bar steps; 2127 L/min = 561.9 gpm → 750 gpm [NFPA 20] (from memory)
-    const r = pumpSizeFor(2127 / 3.785411784, 1.52 / 0.06894757293168361, "SI");
+    const r = pumpSizeFor(2127 / 3.785411784, 1.52 / 0.0689475729316836, "SI");
     expect(r.ratedFlow).toBe(750);
-    expect(r.ratedPressure * 0.06894757293168361).toBeCloseTo(2.0, 9);
+    expect(r.ratedPressure * 0.0689475729316836).toBeCloseTo(2.0, 9);
   });
 
   it("explains why no pump size is given where the supply runs out", () => {
@@ -92,7 +92,7 @@ describe("pane model: the verdict is VERDICT's, the margin MARGIN's", () => {
 });
 
 function fromSheet(psi: number, units: string): number {
-  return units === "SI" ? psi * 0.06894757293168361 : psi;
+  return units === "SI" ? psi * 0.0689475729316836 : psi;
 }
 
 describe("pane model: what is wrong with the names", () => {
