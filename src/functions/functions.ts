@@ -23,7 +23,7 @@ import { fittingArg, fittingListArg } from "./fittingList";
 import { nominalArg } from "./nominal";
 import { boundArg, hazardArg, hosePartArg, materialArg, scheduleArg, systemArg } from "./tableCodes";
 import { hazenWilliamsC } from "../engine/cfactor";
-import { areaOnCurve, areaSpan, designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
+import { designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
 import { TABLE_C_FACTOR, equivalentLength } from "../engine/fittings";
 import { internalDiameter } from "../engine/pipes";
 import { areaDemandRow, pumpCurvePressure, pumpSizeRow, runRows, sizeFor, supplyCurveRows } from "./solvers";

@@ -6,7 +6,7 @@
  * "DN" before it ("DN65", "DN 65") is a DN in either unit system. The result is always the NPS in inches, the
  * engine's key (src/engine/pipes.ts).
  */
-import { fail, show } from "../engine/errors";
+import { fail } from "../engine/errors";
 import { type Schedule, findPipeSize, listSizes, nominalOfDn, scheduleInfo } from "../engine/pipes";
 import type { UnitSystem } from "../engine/units";
 import { isBlank } from "./args";

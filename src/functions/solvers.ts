@@ -10,14 +10,14 @@
  * Friction in SI work uses the EN 12845 form, as FRICTION does, so that a RUN or an AREADEMAND in SI agrees with a
  * column of FRICTION calls in SI.
  */
-import { fail, n, notInTable, q } from "../engine/errors";
+import { fail, notInTable, q } from "../engine/errors";
 import { headLoss } from "../engine/friction";
 import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_MAX_POINTS, SUPPLY_CURVE_POINTS, supplyCurvePoints } from "../engine/curve";
 import { scheduleInfo, scheduleSizes } from "../engine/pipes";
 import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, pumpPressure, pumpRating } from "../engine/pump";
 import { type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
 import { solveAreaDemand } from "../engine/tree";
-import { type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
+import { type UnitSystem, fromUS } from "../engine/units";
 import { SIGNED, ZERO_ALLOWED, isBlank, optionalNumberArg, optionalQuantityArg, quantityArg } from "./args";
 import { cellRow } from "./bridge";
 import { cFactorArg, flowTestArgs, minPressureArg, pumpRatingArgs } from "./common";

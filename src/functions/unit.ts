@@ -3,7 +3,7 @@
  * not its expression parser: user text is never evaluated, only looked up in the list below.
  */
 import { create, unitDependencies } from "mathjs";
-import { fail, show } from "../engine/errors";
+import { fail } from "../engine/errors";
 import { normaliseText } from "./args";
 
 const math = create({ unitDependencies });
