@@ -1,8 +1,8 @@
 /**
  * Builds the Excel add-in into dist/:
- *   functions.js    the cell functions (src/functions/functions.ts), with CustomFunctions.associate calls added by
- *                   the metadata plugin
- *   functions.json  their metadata, generated from the JSDoc of src/functions/functions.ts
+ *   functions.js    the cell functions (src/functions/functions.ts re-exports the topic files), with
+ *                   CustomFunctions.associate calls added by the metadata plugin to each topic file
+ *   functions.json  their metadata, generated from the JSDoc of the topic files (scripts/function-files.mjs)
  *   taskpane.html   the task pane page, which is also the shared runtime: it loads Office.js, functions.js and
  *                   taskpane.js
  *   assets/*.png    the icons the manifest names
@@ -18,10 +18,12 @@ import { fileURLToPath } from "node:url";
 import CopyWebpackPlugin from "copy-webpack-plugin";
 import CustomFunctionsMetadataPlugin from "custom-functions-metadata-plugin";
 import HtmlWebpackPlugin from "html-webpack-plugin";
+import { functionFiles } from "./scripts/function-files.mjs";
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 export const DEV_SERVER_PORT = 3000;
-const FUNCTIONS_INPUT = "./src/functions/functions.ts";
+/** The add-in's functions entry: re-exports every topic file of src/functions/. */
+const FUNCTIONS_ENTRY = "./src/functions/functions.ts";
 
 /** What every bundle of the project shares: TypeScript through ts-loader (type checking is `npm run typecheck`). */
 export function commonConfig(mode) {
@@ -50,7 +52,7 @@ export function addinConfig(mode) {
     ...commonConfig(mode),
     name: "addin",
     entry: {
-      functions: FUNCTIONS_INPUT,
+      functions: FUNCTIONS_ENTRY,
       taskpane: "./src/taskpane/taskpane.ts",
     },
     output: {
@@ -61,7 +63,8 @@ export function addinConfig(mode) {
     },
     plugins: [
       // First, as the templates have it: it generates functions.json and adds the associate calls to functions.ts.
-      new CustomFunctionsMetadataPlugin({ output: "functions.json", input: FUNCTIONS_INPUT }),
+      // It reads every file that holds a @customfunction (the topic files): one list shared with the tests.
+      new CustomFunctionsMetadataPlugin({ output: "functions.json", input: functionFiles() }),
       new HtmlWebpackPlugin({
         filename: "taskpane.html",
         template: "./src/taskpane/taskpane.html",

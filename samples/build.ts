@@ -1,13 +1,14 @@
 /**
  * Builds the sample estimate workbooks from their description (./scenarios.ts): each scenario is filled into the
  * estimate template, computed by the preview engine running the real cell functions (registered from the metadata
- * the generator writes for src/functions/functions.ts, as in the build), and saved as .xlsx with formulas, cached
+ * the generator writes for the cell-function files, as in the build), and saved as .xlsx with formulas, cached
  * values, roles, names and an "About" sheet. `npm run samples` writes them here; test/preview/samples.test.ts
  * rebuilds them in memory and compares with the committed files.
  */
 import { mkdir, writeFile } from "node:fs/promises";
 import path from "node:path";
 import { generateCustomFunctionsMetadata } from "custom-functions-metadata";
+import { functionFiles } from "../scripts/function-files.mjs";
 import { installCustomFunctionsShim } from "../src/preview/customFunctionsShim";
 import type { FunctionsMetadata } from "../src/preview/metadata";
 import type { SheetData, WorkbookData } from "../src/preview/model";
@@ -30,9 +31,9 @@ export interface BuiltSample {
 }
 
 /** Register the cell functions with the engine, from the generated metadata; returns their formula names. */
-export async function registerFunctions(root = process.cwd()): Promise<string[]> {
+export async function registerFunctions(): Promise<string[]> {
   installCustomFunctionsShim();
-  const result = await generateCustomFunctionsMetadata(path.join(root, "src/functions/functions.ts"));
+  const result = await generateCustomFunctionsMetadata(functionFiles());
   if (result.errors.length) throw new Error(`metadata generator: ${result.errors.join("; ")}`);
   const metadata = JSON.parse(result.metadataJson) as FunctionsMetadata;
   const functions = await import("../src/functions/functions");

@@ -25,6 +25,9 @@ import { type HeadLoss, headLoss } from "./friction";
 import type { Quantity } from "./units";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headDischarge, headFlow, headPressure, headsPerLine } from "./sprinkler";
 
+/** Hazen-Williams C of AREADEMAND when none is given: black or galvanized steel, wet. [NFPA 13] */
+export const DEFAULT_C_FACTOR = 120;
+
 /** The inputs of a design-area solve, US units. */
 export interface AreaDemandInput {
   /** design density, gpm/ft² */

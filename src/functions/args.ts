@@ -189,4 +189,23 @@ export function unitsArg(value: unknown): UnitSystem {
   return optionalCodeArg<UnitSystem>(value, "units", { US: ["us", "imperial", "customary"], SI: ["si", "metric"] }, "US");
 }
 
+// ─── Ranges ──────────────────────────────────────────────────────────────────────────────────────────────────────
+
+/** A range argument as rows of cells: a 2-D array as Excel hands it over; a lone value counts as a 1 × 1 range. */
+export function rangeArg(value: unknown, name: string): unknown[][] {
+  if (value === null || value === undefined) fail(name, undefined, "is empty: give a range of cells");
+  if (!Array.isArray(value)) return [[value]];
+  if (value.length === 0) fail(name, { text: "an empty range" }, "give a range of cells");
+  return value.map((row) => (Array.isArray(row) ? row : [row]));
+}
+
+/**
+ * True when a row of a range holds nothing: every cell empty (null or empty text), or every cell 0, which is how
+ * older Excel desktop builds hand over an untouched row (a row of zeros is no segment: a diameter of 0 is
+ * impossible).
+ */
+export function isBlankRow(row: readonly unknown[]): boolean {
+  return row.every((c) => isBlank(c)) || row.every((c) => c === 0);
+}
+
 export { HeadroomError, QUANTITIES };

@@ -140,7 +140,7 @@ let registered: FunctionPluginDefinition | undefined;
 export function buildHeadroomPlugin(
   metadata: FunctionsMetadata,
   module: Record<string, unknown>,
-  shapes: Record<string, SpillShape> = SPILL_SHAPES,
+  shapes: Readonly<Record<string, SpillShape>> = SPILL_SHAPES,
 ): HeadroomRegistration {
   const functions = bindFunctions(metadata, module);
   const problems = checkShapes(

@@ -4,37 +4,20 @@
  * HyperFormula reserves a spill range when it parses a formula, before any value is known (a function's
  * `sizeOfResultArrayMethod` sees only the syntax tree), so the preview must predict each spilling function's shape
  * from its arguments as written: the dimensions of a range argument, a number literal, or the default when the
- * argument is omitted. functions.json says which functions spill (result dimensionality "matrix") but not how much,
- * so the shape of each is declared here, by parameter name; the plugin refuses to start when a spilling function in
- * the metadata has no shape, or a shape names a parameter the function does not have.
+ * argument is omitted. functions.json says which functions spill (result dimensionality "matrix") but not how much:
+ * each spilling function declares its shape beside its wrapper (src/functions/, collected as SPILL_SHAPES); the
+ * plugin refuses to start when a spilling function in the metadata has no shape, or a shape names a parameter the
+ * function does not have.
  *
  * Excel sizes spills after computing; the preview cannot, so `points` of SUPPLYCURVE must be a literal number (or
  * omitted) in the preview. A cell reference there gives a #VALUE! that says so.
  */
+import { SPILL_SHAPES } from "../functions/functions";
+import type { Extent, SpillShape } from "../functions/shapes";
 import type { FunctionMetadata } from "./metadata";
 
-/** Rows (or columns) of the result: a constant, the row count of a range argument, or a literal number argument. */
-export type Extent =
-  | number
-  | { rowsOf: string }
-  | { literal: string; default: number; min: number; max: number };
-
-export interface SpillShape {
-  rows: Extent;
-  columns: Extent;
-}
-
-/** The spill shapes of Headroom's spilling cell functions (see ../shared/spec/functions.md), keyed by function id. */
-export const SPILL_SHAPES: Record<string, SpillShape> = {
-  // RUN(segments, [start_pressure], [units]): one row per segment row, [friction, elevation, fixed, pressure_after].
-  RUN: { rows: { rowsOf: "segments" }, columns: 4 },
-  // SUPPLYCURVE(static, residual, test_flow, [max_flow], [points = 16], [units]): `points` rows of [flow, pressure].
-  SUPPLYCURVE: { rows: { literal: "points", default: 16, min: 2, max: 1000 }, columns: 2 },
-  // AREADEMAND(...): one row [flow, pressure, heads, lines, end_pressure].
-  AREADEMAND: { rows: 1, columns: 5 },
-  // PUMPSIZE(demand_flow, boost, [units]): one row [rated_flow, rated_pressure].
-  PUMPSIZE: { rows: 1, columns: 2 },
-};
+export { SPILL_SHAPES };
+export type { Extent, SpillShape };
 
 /** A minimal view of HyperFormula's syntax tree nodes (its AST types are not exported from the package root). */
 export interface AstNode {
@@ -53,12 +36,12 @@ export type PredictedShape = { rows: number; columns: number } | { error: string
  * Check the declared shapes against the metadata: every spilling function has one, and every parameter a shape
  * names exists. Returns the problems found (empty when all is well).
  */
-export function checkShapes(functions: FunctionMetadata[], shapes: Record<string, SpillShape> = SPILL_SHAPES): string[] {
+export function checkShapes(functions: FunctionMetadata[], shapes: Readonly<Record<string, SpillShape>> = SPILL_SHAPES): string[] {
   const problems: string[] = [];
   for (const f of functions) {
     const spills = f.result?.dimensionality === "matrix";
     const shape = shapes[f.id];
-    if (spills && !shape) problems.push(`${f.id} spills but has no spill shape in src/preview/spill.ts`);
+    if (spills && !shape) problems.push(`${f.id} spills but declares no spill shape (SPILL_SHAPES in src/functions/functions.ts)`);
     if (!spills && shape) problems.push(`${f.id} has a spill shape but does not return a matrix`);
     if (!shape) continue;
     for (const extent of [shape.rows, shape.columns]) {

@@ -1,6 +1,6 @@
 /**
  * Runs the custom-functions metadata generator (the package custom-functions-metadata, the same code the webpack
- * plugin runs to write dist/functions.json) on src/functions/functions.ts and checks what Excel will show:
+ * plugin runs to write dist/functions.json) on the cell-function files and checks what Excel will show:
  * exactly the vocabulary's functions, each with a description and a description for every parameter.
  * The check itself is first tried on small made-up inputs, so a broken check cannot pass silently.
  */
@@ -10,6 +10,8 @@ import path from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { generateCustomFunctionsMetadata } from "custom-functions-metadata";
 import { VOCABULARY } from "./vocabulary";
+import { functionFiles } from "../../scripts/function-files.mjs";
+import * as functionsModule from "../../src/functions/functions";
 
 interface Parameter {
   name: string;
@@ -23,7 +25,7 @@ interface RegisteredFunction {
 }
 
 /** Every problem with the metadata generated from `file` against the list of names; empty when all is well. */
-async function metadataProblems(file: string, vocabulary: string[]): Promise<string[]> {
+async function metadataProblems(file: string | string[], vocabulary: string[]): Promise<string[]> {
   const result = await generateCustomFunctionsMetadata(file);
   const problems = result.errors.map((e) => `generator error: ${e}`);
   if (problems.length > 0) return problems;
@@ -93,10 +95,22 @@ describe("the metadata check itself, on made-up inputs", () => {
   });
 });
 
-describe("src/functions/functions.ts", () => {
-  it("registers exactly the vocabulary, each function and parameter described", async () => {
-    const problems = await metadataProblems(path.resolve(__dirname, "../../src/functions/functions.ts"), VOCABULARY);
+describe("the cell-function files (scripts/function-files.mjs)", () => {
+  it("are the topic files, and the generator finds exactly the vocabulary in them, each function and parameter described", async () => {
+    const files = functionFiles().map((f) => path.basename(f));
+    expect(files).toEqual(["decision.ts", "demand.ts", "piping.ts", "pump.ts", "supply.ts", "units.ts"]);
+    const problems = await metadataProblems(functionFiles(), VOCABULARY);
     expect(problems).toEqual([]);
+  });
+
+  it("every function the functions module exports is a registered cell function", () => {
+    // convertUnit is UNIT's converter, exported for the security test that checks it never parses user text
+    const notCells = new Set(["convertUnit"]);
+    const exported = Object.entries(functionsModule)
+      .filter(([name, v]) => typeof v === "function" && !notCells.has(name))
+      .map(([name]) => name.toUpperCase())
+      .sort();
+    expect(exported).toEqual([...VOCABULARY].sort());
   });
 
   it("the vocabulary list names each function once, in upper case", () => {

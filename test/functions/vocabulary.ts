@@ -1,6 +1,6 @@
 /**
  * The cell functions Headroom registers, by their cell names (upper case), as ../shared/spec/functions.md names them.
- * test/functions/metadata.test.ts checks that the metadata generator finds exactly these in src/functions/functions.ts,
+ * test/functions/metadata.test.ts checks that the metadata generator finds exactly these in the cell-function files,
  * each with a description and a description for every parameter. Add a function's name here when you add the
  * function.
  */

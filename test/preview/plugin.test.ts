@@ -156,7 +156,7 @@ describe("binding and shape checks refuse a mismatch loudly", () => {
 
   test("a spilling function without a declared shape", () => {
     expect(() => buildHeadroomPlugin({ functions: [one("SPILLER", true)] }, { spiller: () => [[1]] })).toThrow(
-      /SPILLER spills but has no spill shape/,
+      /SPILLER spills but declares no spill shape/,
     );
   });
 

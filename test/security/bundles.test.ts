@@ -88,7 +88,7 @@ describe("no evaluation of user text", () => {
   });
 
   it("UNIT looks unit names up in its own list and never hands text to mathjs's parser", async () => {
-    const { convertUnit } = await import("../../src/functions/unit");
+    const { convertUnit } = await import("../../src/functions/units");
     // an expression mathjs's parser would evaluate is just an unknown unit here
     expect(() => convertUnit(1, "2+2", "m")).toThrow(/from: got "2\+2"; must be one of/);
     expect(() => convertUnit(1, "ft", "import('x')")).toThrow(/to: got/);

@@ -1,10 +1,12 @@
 /**
- * UNIT's conversions, done by mathjs's unit system. Only mathjs's Unit code is built in (create + unitDependencies),
- * not its expression parser: user text is never evaluated, only looked up in the list below.
+ * The cell function UNIT: conversions between the units of the trade, done by mathjs's unit system. Only mathjs's
+ * Unit code is built in (create + unitDependencies), not its expression parser: user text is never evaluated, only
+ * looked up in the list below.
  */
 import { create, unitDependencies } from "mathjs";
-import { fail } from "../engine/errors";
-import { normaliseText } from "./args";
+import { fail, finiteOr, n as plain } from "../engine/errors";
+import { normaliseText, numberArg } from "./args";
+import { cell } from "./bridge";
 
 const math = create({ unitDependencies });
 
@@ -64,4 +66,20 @@ export function convertUnit(value: number, from: unknown, to: unknown): number {
   const [toKey, b] = lookup(to, "to");
   if (a.kind !== b.kind) fail("to", { cell: to }, `must be a unit of ${a.kind} like ${fromKey}; ${toKey} is a unit of ${b.kind}`);
   return (value * baseValue(a)) / baseValue(b);
+}
+
+/**
+ * Converts a value between units of the same kind: flow "gpm", "L/min", "m3/h"; pressure "psi", "bar", "kPa";
+ * length "ft", "m", "in", "mm"; area "ft2", "m2"; density "gpm/ft2", "mm/min"; K-factors "K-US", "K-SI".
+ * @customfunction
+ * @param value The value to convert (0 or more).
+ * @param from Its unit, e.g. "gpm".
+ * @param to The unit wanted, e.g. "L/min".
+ * @returns The converted value.
+ */
+export function unit(value: any, from: any, to: any): number {
+  return cell(null, () => {
+    const v = numberArg(value, "value", { min: 0 });
+    return finiteOr(convertUnit(v, from, to), "value", plain(v));
+  });
 }
