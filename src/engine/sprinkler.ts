@@ -7,9 +7,13 @@ export const MIN_SPRINKLER_PRESSURE_PSI = 7;
 /** Factor for the branch-line length of a rectangular design area: 1.2 √A. [NFPA 13] */
 export const DESIGN_AREA_LENGTH_FACTOR = 1.2;
 
-/** Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10). */
+/**
+ * Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10). Never −0: a value within
+ * the allowance of 0 would round to ceil(−1e-9…0) = −0, and a count or a number of steps reads 0.
+ */
 export function ceilCount(x: number): number {
-  return Math.ceil(x - 1e-9);
+  const n = Math.ceil(x - 1e-9);
+  return n === 0 ? 0 : n; // −0 === 0: replaces −0 by +0
 }
 
 /**
@@ -48,25 +52,26 @@ export function headPressure(flow: number, k: number, minPressure: number): numb
 }
 
 /**
- * Sprinklers in the design area, n = ceil(A / coverage).
+ * Sprinklers in the design area, n = ceil(A / coverage), at least 1 (a positive area holds a sprinkler).
  * @param area ft²; @param coverage ft² per sprinkler
  * Source: [NFPA 13] (fractions round up). Worked value: 1500 ft² at 130 ft² → 12.
  */
 export function headCount(area: number, coverage: number): number {
-  return ceilCount(area / coverage);
+  return Math.max(1, ceilCount(area / coverage));
 }
 
 /**
- * Sprinklers along one branch line of a rectangular design area whose long side, factor × √A, runs along the lines:
+ * Sprinklers along one branch line of a rectangular design area whose long side, factor × √A, runs along the lines,
+ * at least 1:
  *
- *   n_line = ceil(factor √A / S)
+ *   n_line = max(1, ceil(factor √A / S))
  *
  * @param area ft² (or m²); @param spacing S, between sprinklers on the line, ft (or m: the ratio has no unit)
  * @param factor 1.2 by default
  * Source: [NFPA 13]. Worked value: 1500 ft², S 12 ft → ceil(1.2 × 38.73 / 12) = ceil(3.87) = 4.
  */
 export function headsPerLine(area: number, spacing: number, factor: number): number {
-  return ceilCount((factor * Math.sqrt(area)) / spacing);
+  return Math.max(1, ceilCount((factor * Math.sqrt(area)) / spacing));
 }
 
 /** Minimum operating pressure of a sprinkler in SI work, bar (the vocabulary's SI default). [NFPA 13] */

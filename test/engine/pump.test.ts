@@ -47,6 +47,10 @@ describe("rounding the boost", () => {
     expect(roundUpToStep(1.52, 0.5)).toBe(2);
     expect(roundUpToStep(1.5, 0.5)).toBe(1.5);
   });
+  it("a boost within the noise allowance of 0 rounds to 0 steps, never to -0", () => {
+    // 1e-10 psi is 2e-11 steps of 5 psi, within the noise allowance: 0 steps, as +0 (it was -0)
+    expect(Object.is(roundUpToStep(1e-10, 5), 0)).toBe(true);
+  });
 });
 
 describe("pump curve: P = shutoff − k Q^n through shutoff, rated and 150 % points", () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { headCount, headDischarge, headFlow, headPressure, headsPerLine } from "../../src/engine/sprinkler";
+import { ceilCount, headCount, headDischarge, headFlow, headPressure, headsPerLine } from "../../src/engine/sprinkler";
 
 describe("sprinkler discharge [NFPA 13]", () => {
   it("is Q = K √P [NFPA 13]", () => {
@@ -34,5 +34,19 @@ describe("design-area counts [NFPA 13]", () => {
     expect(headsPerLine(1500, 10, 1.2)).toBe(5);
     // 1.2 × √2500 / 15 = 60 / 15 = 4 exactly
     expect(headsPerLine(2500, 15, 1.2)).toBe(4);
+  });
+});
+
+describe("counts never come out as -0 or as 0 sprinklers for a positive area", () => {
+  it("rounding up a value within the noise allowance of 0 gives +0, not -0", () => {
+    // ceil(1e-12 - 1e-9) = ceil(-9.99e-10) is -0 in IEEE arithmetic; a count or a step count must read 0
+    expect(Object.is(ceilCount(1e-12), 0)).toBe(true);
+    expect(Object.is(ceilCount(0), 0)).toBe(true);
+  });
+  it("a positive design area, however small, holds at least one sprinkler", () => {
+    // 1e-10 ft² / 130 ft² = 7.7e-13 sprinklers: rounded up, 1 (it was -0)
+    expect(headCount(1e-10, 130)).toBe(1);
+    // 1.2 × √1e-20 / 12 = 1e-11 sprinklers on a line: rounded up, 1 (it was -0)
+    expect(headsPerLine(1e-20, 12, 1.2)).toBe(1);
   });
 });
