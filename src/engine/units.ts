@@ -43,14 +43,17 @@ export const QUANTITIES = {
 export type Quantity = keyof typeof QUANTITIES;
 export type UnitSystem = "US" | "SI";
 
-/** Convert a value of `quantity` given in `units` to US customary. */
+// Both conversions add 0, which turns -0 into +0 and leaves every other value as it is: a -0 argument, or a tiny
+// negative that underflows in the conversion, must not reach a cell as -0.
+
+/** Convert a value of `quantity` given in `units` to US customary (never -0). */
 export function toUS(quantity: Quantity, value: number, units: UnitSystem): number {
-  return units === "SI" ? value / QUANTITIES[quantity].factor : value;
+  return (units === "SI" ? value / QUANTITIES[quantity].factor : value) + 0;
 }
 
-/** Convert a US customary value of `quantity` to `units`. */
+/** Convert a US customary value of `quantity` to `units` (never -0). */
 export function fromUS(quantity: Quantity, value: number, units: UnitSystem): number {
-  return units === "SI" ? value * QUANTITIES[quantity].factor : value;
+  return (units === "SI" ? value * QUANTITIES[quantity].factor : value) + 0;
 }
 
 /** The unit name of `quantity` in `units`, e.g. unitName("pressure", "SI") = "bar". */

@@ -51,3 +51,21 @@ describe("every US↔SI constant, confirmed by mathjs", () => {
     }
   });
 });
+
+describe("conversions never hand out -0", () => {
+  it("a zero of either sign converts to +0 in US and SI work", () => {
+    // ELEVATION(-0) and VELOCITY(-0, 4) gave -0: a -0 argument went through the arithmetic and out unchanged
+    for (const q of ["flow", "pressure", "length", "velocity"] as const) {
+      for (const u of ["US", "SI"] as const) {
+        expect(Object.is(fromUS(q, -0, u), 0), `fromUS ${q} ${u}`).toBe(true);
+        expect(Object.is(toUS(q, -0, u), 0), `toUS ${q} ${u}`).toBe(true);
+      }
+    }
+  });
+  it("a tiny negative that underflows in the conversion gives +0", () => {
+    // ELEVATION(-2.5E-323, "SI") gave -0: -8.2e-323 ft × 0.433 psi/ft = -3.5e-323 psi; × 0.0689 bar/psi underflows
+    // to -0 (the smallest double is 4.9e-324)
+    expect(Object.is(fromUS("pressure", -3.5e-323, "SI"), 0)).toBe(true);
+    expect(Object.is(toUS("pressure", -1e-323, "SI"), -1e-323 / BAR_PER_PSI)).toBe(true); // no underflow: kept
+  });
+});
