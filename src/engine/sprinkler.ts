@@ -1,11 +1,26 @@
 /**
  * Sprinkler discharge and the design-area counts of the density/area method. US units: gpm, psi, ft, ft².
  */
+import { fail, show } from "./errors";
 
 /** Minimum operating pressure of a sprinkler, psi. [NFPA 13] */
 export const MIN_SPRINKLER_PRESSURE_PSI = 7;
 /** Factor for the branch-line length of a rectangular design area: 1.2 √A. [NFPA 13] */
 export const DESIGN_AREA_LENGTH_FACTOR = 1.2;
+
+/**
+ * The most sprinklers one design area, or one branch line of it, may hold. (common practice) A real design area holds
+ * tens to a few hundred sprinklers; more than 5000 is a typing error (a coverage in the wrong unit, an area typed
+ * with extra zeros), and the bound keeps the sprinkler-by-sprinkler solve of AREADEMAND small.
+ */
+export const MAX_DESIGN_AREA_SPRINKLERS = 5000;
+
+/**
+ * The closest spacing of sprinklers along a branch line, ft. (common practice) Half the 6 ft that standard spray
+ * sprinklers keep apart: closer is a typing error, not a layout, and the floor leaves room for metric-rounded and
+ * specially listed spacings.
+ */
+export const MIN_HEAD_SPACING_FT = 3;
 
 /**
  * Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10). Never −0: a value within
@@ -51,13 +66,28 @@ export function headPressure(flow: number, k: number, minPressure: number): numb
   return Math.max((flow / k) ** 2, minPressure);
 }
 
+/** Throw unless `value` is a positive finite number. */
+function checkPositive(value: number, name: string): void {
+  if (!(value > 0 && value < Infinity)) fail(`${name}: got ${show(value)}; must be greater than 0`);
+}
+
 /**
- * Sprinklers in the design area, n = ceil(A / coverage), at least 1 (a positive area holds a sprinkler).
- * @param area ft²; @param coverage ft² per sprinkler
+ * Sprinklers in the design area, n = ceil(A / coverage), at least 1 (a positive area holds a sprinkler) and at most
+ * MAX_DESIGN_AREA_SPRINKLERS: a coverage below area ÷ 5000 is an input error naming coverage.
+ * @param area ft² (or m²); @param coverage per sprinkler, in the unit of area (the ratio has no unit)
  * Source: [NFPA 13] (fractions round up). Worked value: 1500 ft² at 130 ft² → 12.
  */
 export function headCount(area: number, coverage: number): number {
-  return Math.max(1, ceilCount(area / coverage));
+  checkPositive(area, "area");
+  checkPositive(coverage, "coverage");
+  const n = Math.max(1, ceilCount(area / coverage));
+  if (!(n <= MAX_DESIGN_AREA_SPRINKLERS)) {
+    fail(
+      `coverage: got ${show(coverage)} (the unit of area); must be at least area ÷ ${MAX_DESIGN_AREA_SPRINKLERS} = ` +
+        `${show(area / MAX_DESIGN_AREA_SPRINKLERS)}: a design area of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+    );
+  }
+  return n;
 }
 
 /**
@@ -66,12 +96,27 @@ export function headCount(area: number, coverage: number): number {
  *
  *   n_line = max(1, ceil(factor √A / S))
  *
- * @param area ft² (or m²); @param spacing S, between sprinklers on the line, ft (or m: the ratio has no unit)
+ * A spacing below MIN_HEAD_SPACING_FT, or a line of more than MAX_DESIGN_AREA_SPRINKLERS, is an input error.
+ * @param area ft²; @param spacing S, between sprinklers on the line, ft
  * @param factor 1.2 by default
  * Source: [NFPA 13]. Worked value: 1500 ft², S 12 ft → ceil(1.2 × 38.73 / 12) = ceil(3.87) = 4.
  */
 export function headsPerLine(area: number, spacing: number, factor: number): number {
-  return Math.max(1, ceilCount((factor * Math.sqrt(area)) / spacing));
+  checkPositive(area, "area");
+  checkPositive(spacing, "head_spacing");
+  checkPositive(factor, "factor");
+  if (spacing < MIN_HEAD_SPACING_FT) {
+    fail(`head_spacing: got ${show(spacing)} ft; must be at least ${MIN_HEAD_SPACING_FT} ft: sprinklers closer than that on a line are an input error`);
+  }
+  const n = Math.max(1, ceilCount((factor * Math.sqrt(area)) / spacing));
+  if (!(n <= MAX_DESIGN_AREA_SPRINKLERS)) {
+    const largest = ((MAX_DESIGN_AREA_SPRINKLERS * spacing) / factor) ** 2;
+    fail(
+      `area: got ${show(area)} ft²; must be at most ${show(largest)} ft² with head_spacing ${show(spacing)} ft and factor ${show(factor)}: ` +
+        `a line of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+    );
+  }
+  return n;
 }
 
 /** Minimum operating pressure of a sprinkler in SI work, bar (the vocabulary's SI default). [NFPA 13] */

@@ -1,5 +1,13 @@
 import { describe, expect, it } from "vitest";
-import { ceilCount, headCount, headDischarge, headFlow, headPressure, headsPerLine } from "../../src/engine/sprinkler";
+import {
+  ceilCount,
+  headCount,
+  headDischarge,
+  headFlow,
+  headPressure,
+  headsPerLine,
+} from "../../src/engine/sprinkler";
+import { errorOf } from "./engineError";
 
 describe("sprinkler discharge [NFPA 13]", () => {
   it("is Q = K √P [NFPA 13]", () => {
@@ -48,5 +56,40 @@ describe("counts never come out as -0 or as 0 sprinklers for a positive area", (
     expect(headCount(1e-10, 130)).toBe(1);
     // 1.2 × √1e-20 / 12 = 1e-11 sprinklers on a line: rounded up, 1 (it was -0)
     expect(headsPerLine(1e-20, 12, 1.2)).toBe(1);
+  });
+});
+
+describe("counts stay finite: a tiny coverage or spacing is an input error naming it", () => {
+  it("HEADCOUNT(1000000, 1E-303) was Infinity: now coverage must be at least area ÷ 5000", () => {
+    // 1e6 / 1e-303 = 1e309 overflows to Infinity; the smallest coverage for 1e6 is 1e6 / 5000 = 200
+    expect(errorOf(() => headCount(1_000_000, 1e-303)).message).toBe(
+      "coverage: got 1e-303 (the unit of area); must be at least area ÷ 5000 = 200: a design area of more than 5000 sprinklers is an input error",
+    );
+    // 1500 / 1e-300 = 1.5e303 sprinklers was finite but absurd: the same error
+    expect(errorOf(() => headCount(1500, 1e-300)).message).toMatch(/^coverage: got 1e-300 \(the unit of area\); must be at least area ÷ 5000 = 0.3:/);
+  });
+  it("keeps every count up to 5000 and refuses 5001", () => {
+    // 5000 × 130 = 650000 ft² at 130 ft² is exactly 5000 sprinklers; 650130 ft² would be 5001
+    expect(headCount(650_000, 130)).toBe(5000);
+    expect(errorOf(() => headCount(650_130, 130)).message).toMatch(/^coverage: got 130 \(the unit of area\); must be at least area ÷ 5000 = 130.026:/);
+  });
+  it("refuses an area or coverage that is not a positive finite number", () => {
+    expect(errorOf(() => headCount(1500, 0)).message).toBe("coverage: got 0; must be greater than 0");
+    expect(errorOf(() => headCount(NaN, 130)).message).toBe("area: got NaN; must be greater than 0");
+    expect(errorOf(() => headCount(Infinity, 130)).message).toBe("area: got Infinity; must be greater than 0");
+  });
+  it("HEADSPERLINE(1000000, 1E-305, 10) was Infinity: a head spacing below 3 ft is refused", () => {
+    // 10 × √1e6 / 1e-305 = 1e309 overflows to Infinity
+    expect(errorOf(() => headsPerLine(1_000_000, 1e-305, 10)).message).toBe(
+      "head_spacing: got 1e-305 ft; must be at least 3 ft: sprinklers closer than that on a line are an input error",
+    );
+    expect(headsPerLine(1500, 3, 1.2)).toBe(16); // 1.2 × 38.73 / 3 = 15.49 → 16: 3 ft itself is allowed
+  });
+  it("a line of more than 5000 sprinklers is refused, naming the area", () => {
+    // at 3 ft and factor 1.2, 5000 sprinklers need 1.2 √A / 3 ≤ 5000, √A ≤ 12500, A ≤ 1.5625e8 ft²
+    expect(headsPerLine(1.5625e8, 3, 1.2)).toBe(5000);
+    expect(errorOf(() => headsPerLine(1e300, 3, 1.2)).message).toBe(
+      "area: got 1e+300 ft²; must be at most 156250000 ft² with head_spacing 3 ft and factor 1.2: a line of more than 5000 sprinklers is an input error",
+    );
   });
 });
