@@ -1,7 +1,7 @@
 /**
  * Sprinkler discharge and the design-area counts of the density/area method. US units: gpm, psi, ft, ft².
  */
-import { fail, show } from "./errors";
+import { fail, n as plain, q } from "./errors";
 
 /** Minimum operating pressure of a sprinkler, psi. [NFPA 13] */
 export const MIN_SPRINKLER_PRESSURE_PSI = 7;
@@ -68,7 +68,7 @@ export function headPressure(flow: number, k: number, minPressure: number): numb
 
 /** Throw unless `value` is a positive finite number. */
 function checkPositive(value: number, name: string): void {
-  if (!(value > 0 && value < Infinity)) fail(`${name}: got ${show(value)}; must be greater than 0`);
+  if (!(value > 0 && value < Infinity)) fail(name, plain(value), "must be greater than 0");
 }
 
 /**
@@ -83,8 +83,11 @@ export function headCount(area: number, coverage: number): number {
   const n = Math.max(1, ceilCount(area / coverage));
   if (!(n <= MAX_DESIGN_AREA_SPRINKLERS)) {
     fail(
-      `coverage: got ${show(coverage)} (the unit of area); must be at least area ÷ ${MAX_DESIGN_AREA_SPRINKLERS} = ` +
-        `${show(area / MAX_DESIGN_AREA_SPRINKLERS)}: a design area of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+      "coverage",
+      plain(coverage),
+      `must be at least area ÷ ${MAX_DESIGN_AREA_SPRINKLERS} = {0} (in the unit of area): a design area of more than ` +
+        `${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+      plain(area / MAX_DESIGN_AREA_SPRINKLERS),
     );
   }
   return n;
@@ -106,14 +109,19 @@ export function headsPerLine(area: number, spacing: number, factor: number): num
   checkPositive(spacing, "head_spacing");
   checkPositive(factor, "factor");
   if (spacing < MIN_HEAD_SPACING_FT) {
-    fail(`head_spacing: got ${show(spacing)} ft; must be at least ${MIN_HEAD_SPACING_FT} ft: sprinklers closer than that on a line are an input error`);
+    fail("head_spacing", q("length", spacing), "must be at least {0}: sprinklers closer than that on a line are an input error", q("length", MIN_HEAD_SPACING_FT));
   }
   const n = Math.max(1, ceilCount((factor * Math.sqrt(area)) / spacing));
   if (!(n <= MAX_DESIGN_AREA_SPRINKLERS)) {
     const largest = ((MAX_DESIGN_AREA_SPRINKLERS * spacing) / factor) ** 2;
     fail(
-      `area: got ${show(area)} ft²; must be at most ${show(largest)} ft² with head_spacing ${show(spacing)} ft and factor ${show(factor)}: ` +
-        `a line of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+      "area",
+      q("area", area),
+      `must be at most {0} with head_spacing {1} and factor {2}: a line of more than ${MAX_DESIGN_AREA_SPRINKLERS} ` +
+        "sprinklers is an input error",
+      q("area", largest),
+      q("length", spacing),
+      plain(factor),
     );
   }
   return n;

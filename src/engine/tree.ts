@@ -5,7 +5,9 @@
  * The method (../shared/spec/functions.md, "AREADEMAND: the solve it must do"):
  *
  * 1. n = ceil(A / coverage) sprinklers flow; m = ceil(1.2 √A / S) per line (at most n); L = ceil(n / m) lines,
- *    the line nearest the feed flowing r = n − (L − 1) m. Line spacing = coverage / S.
+ *    the line nearest the feed flowing r = n − (L − 1) m. Line spacing = coverage / S. Plausibility bounds keep
+ *    every loop short: n at most MAX_DESIGN_AREA_SPRINKLERS, coverage at least MIN_COVERAGE_FT2, S at least
+ *    MIN_HEAD_SPACING_FT, line spacing at least MIN_LINE_SPACING_FT; beyond them the input is an error.
  * 2. The most remote sprinkler flows q1 = max(density × coverage, K √Pmin) at p1 = max((q1 / K)², Pmin).
  * 3. Walking back along the line, each pipe between sprinklers carries the sum of the flows beyond it; its
  *    Hazen-Williams loss over S (branch diameter) gives the next sprinkler's pressure, and that sprinkler flows K √p.
@@ -23,7 +25,30 @@
 import { fail, n, q } from "./errors";
 import { type HeadLoss, headLoss } from "./friction";
 import type { Quantity } from "./units";
-import { DESIGN_AREA_LENGTH_FACTOR, headCount, headDischarge, headFlow, headPressure, headsPerLine } from "./sprinkler";
+import {
+  DESIGN_AREA_LENGTH_FACTOR,
+  MAX_DESIGN_AREA_SPRINKLERS,
+  MIN_HEAD_SPACING_FT,
+  ceilCount,
+  headCount,
+  headDischarge,
+  headFlow,
+  headPressure,
+  headsPerLine,
+} from "./sprinkler";
+
+/**
+ * The closest spacing of the branch lines (coverage ÷ head spacing), ft. (common practice) The same floor as
+ * MIN_HEAD_SPACING_FT, half the usual 6 ft between sprinklers: closer lines are a typing error, not a layout.
+ */
+export const MIN_LINE_SPACING_FT = 3;
+
+/**
+ * The smallest floor area one sprinkler may protect, ft²: the closest head spacing by the closest line spacing,
+ * 3 ft × 3 ft = 9 ft². (common practice) A smaller coverage is a typing error (a coverage in m² is still above it:
+ * 9.3 m² is 100 ft²), and it would make the design area hold absurdly many sprinklers.
+ */
+export const MIN_COVERAGE_FT2 = MIN_HEAD_SPACING_FT * MIN_LINE_SPACING_FT;
 
 /** Hazen-Williams C of AREADEMAND when none is given: black or galvanized steel, wet. [NFPA 13] */
 export const DEFAULT_C_FACTOR = 120;
@@ -133,6 +158,36 @@ function checkInput(inp: AreaDemandInput): void {
     if (!(v > 0) || !Number.isFinite(v)) fail(name, quantity ? q(quantity, v) : n(v), "must be greater than 0");
   }
   if (inp.coverage > inp.area) fail("coverage", q("area", inp.coverage), "must not exceed the design area {0}", q("area", inp.area));
+  // The plausible-count bounds: every loop of the solve runs at most MAX_DESIGN_AREA_SPRINKLERS times.
+  if (inp.coverage < MIN_COVERAGE_FT2) {
+    fail(
+      "coverage",
+      q("area", inp.coverage),
+      "must be at least {0}: a sprinkler protecting less than {1} × {2} is an input error",
+      q("area", MIN_COVERAGE_FT2),
+      q("length", MIN_HEAD_SPACING_FT),
+      q("length", MIN_LINE_SPACING_FT),
+    );
+  }
+  headsPerLine(inp.area, inp.headSpacing, DESIGN_AREA_LENGTH_FACTOR); // refuses a head spacing below MIN_HEAD_SPACING_FT
+  if (inp.coverage / inp.headSpacing < MIN_LINE_SPACING_FT) {
+    fail(
+      "head_spacing",
+      q("length", inp.headSpacing),
+      "must be at most coverage ÷ {0} = {1}: branch lines closer than {0} are an input error",
+      q("length", MIN_LINE_SPACING_FT),
+      q("length", inp.coverage / MIN_LINE_SPACING_FT),
+    );
+  }
+  if (ceilCount(inp.area / inp.coverage) > MAX_DESIGN_AREA_SPRINKLERS) {
+    fail(
+      "area",
+      q("area", inp.area),
+      `must be at most {0} with a coverage of {1}: a design area of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+      q("area", MAX_DESIGN_AREA_SPRINKLERS * inp.coverage),
+      q("area", inp.coverage),
+    );
+  }
 }
 
 /**

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { headLoss } from "../../src/engine/friction";
 import { headPressure } from "../../src/engine/sprinkler";
 import { type AreaDemandInput, solveAreaDemand } from "../../src/engine/tree";
+import { errorOf } from "./engineError";
 
 // Hazen-Williams, US form [NFPA 13]: psi/ft = 4.52 Q^1.85 / (C^1.85 d^4.87), written out here so the test does not
 // lean on the engine's own formula.
@@ -140,5 +141,42 @@ describe("AREADEMAND solve: invariants [NFPA 13]", () => {
     expect(() => solveAreaDemand({ ...base, headSpacing: 0 })).toThrow(/head_spacing: got 0 ft; must be greater than 0/);
     expect(() => solveAreaDemand({ ...base, mainDiameter: -1 })).toThrow(/main_diameter/);
     expect(() => solveAreaDemand({ ...base, density: Number.NaN })).toThrow(/density/);
+  });
+});
+
+describe("AREADEMAND solve: every loop is bounded by a plausible count", () => {
+  // 0.20 gpm/ft² over 1500 ft², K 8.0, 12 ft spacing, 1¼ and 2½ Schedule 40 [ASME B36.10M], C 120, 7 psi
+  const oh2: AreaDemandInput = { ...base, density: 0.2, kFactor: 8, headSpacing: 12 };
+
+  it("AREADEMAND(0.2, 1500, 1E-300, 8, 12, 1.38, 2.469) looped 1.5e303 times: a coverage below 9 ft² is refused", () => {
+    expect(errorOf(() => solveAreaDemand({ ...oh2, coverage: 1e-300 })).message).toBe(
+      "coverage: got 1e-300 ft²; must be at least 9 ft²: a sprinkler protecting less than 3 ft × 3 ft is an input error",
+    );
+    // 1e-5 ft² gave 150 million sprinklers (seconds and a gigabyte); 8.9 ft² gave 169: both refused alike
+    expect(errorOf(() => solveAreaDemand({ ...oh2, coverage: 1e-5 })).message).toMatch(/^coverage: got 0.00001 ft²; must be at least 9 ft²/);
+    expect(errorOf(() => solveAreaDemand({ ...oh2, coverage: 8.9 })).message).toMatch(/^coverage: got 8.9 ft²; must be at least 9 ft²/);
+  });
+
+  it("a head spacing below 3 ft is refused, naming head_spacing", () => {
+    expect(errorOf(() => solveAreaDemand({ ...oh2, headSpacing: 1e-10 })).message).toBe(
+      "head_spacing: got 1e-10 ft; must be at least 3 ft: sprinklers closer than that on a line are an input error",
+    );
+  });
+
+  it("branch lines closer than 3 ft (coverage ÷ head_spacing) are refused, naming head_spacing", () => {
+    // 130 ft² at 50 ft along the line puts the lines 130 / 50 = 2.6 ft apart; at most 130 / 3 = 43.3333 ft
+    expect(errorOf(() => solveAreaDemand({ ...oh2, headSpacing: 50 })).message).toBe(
+      "head_spacing: got 50 ft; must be at most coverage ÷ 3 ft = 43.3333 ft: branch lines closer than 3 ft are an input error",
+    );
+    // 130 / 43 = 3.02 ft: allowed
+    expect(solveAreaDemand({ ...oh2, headSpacing: 43 }).lineSpacing).toBeCloseTo(130 / 43, 12);
+  });
+
+  it("a design area of more than 5000 sprinklers is refused, naming area", () => {
+    // 5000 × 130 = 650000 ft² holds exactly 5000 sprinklers; 650130 ft² would hold 5001
+    expect(solveAreaDemand({ ...oh2, area: 650_000, branchDiameter: 12, mainDiameter: 24 }).heads).toBe(5000);
+    expect(errorOf(() => solveAreaDemand({ ...oh2, area: 650_130 })).message).toBe(
+      "area: got 650130 ft²; must be at most 650000 ft² with coverage 130 ft²: a design area of more than 5000 sprinklers is an input error",
+    );
   });
 });
