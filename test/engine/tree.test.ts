@@ -180,3 +180,24 @@ describe("AREADEMAND solve: every loop is bounded by a plausible count", () => {
     );
   });
 });
+
+describe("AREADEMAND solve: a result beyond any number names the argument behind it", () => {
+  // Hazen-Williams divides by d^4.87: (1e-70)^4.87 = 1e-341 underflows to 0, so the loss is Infinity
+  it("a branch line too small for any finite loss names branch_diameter", () => {
+    expect(errorOf(() => solveAreaDemand({ ...base, branchDiameter: 1e-70 })).message).toBe(
+      "branch_diameter: got 1e-70 in (C 120); the friction loss along a branch line is beyond any number: must be larger",
+    );
+  });
+  it("a cross main too small for any finite loss names main_diameter", () => {
+    // it was "AREADEMAND: the inputs give no finite result (a pipe far too small for the flow?); check the diameters"
+    expect(errorOf(() => solveAreaDemand({ ...base, mainDiameter: 1e-70 })).message).toBe(
+      "main_diameter: got 1e-70 in (C 120); the friction loss in the cross main between lines is beyond any number: must be larger",
+    );
+  });
+  it("a K-factor so small that the end sprinkler needs more than any pressure names k_factor", () => {
+    // q1 = 0.15 × 130 = 19.5 gpm; (19.5 / 1e-300)² = 3.8e602 overflows to Infinity
+    expect(errorOf(() => solveAreaDemand({ ...base, kFactor: 1e-300 })).message).toBe(
+      "k_factor: got 1e-300 gpm/psi^0.5; the end sprinkler would need more than any pressure to flow 19.5 gpm: must be larger",
+    );
+  });
+});
