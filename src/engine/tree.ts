@@ -214,12 +214,12 @@ export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("U
   const q1 = headFlow(inp.density, inp.coverage, inp.kFactor, inp.minPressure);
   const p1 = headPressure(q1, inp.kFactor, inp.minPressure);
   if (!Number.isFinite(p1)) {
-    fail("k_factor", q("kfactor", inp.kFactor), "is too small: the end sprinkler would need more than any pressure to flow {0}", q("flow", q1));
+    fail("k_factor", q("kfactor", inp.kFactor), "must be larger: the end sprinkler would need more than any pressure to flow {0}", q("flow", q1));
   }
   const full = solveLine(m, q1, p1, inp, hl);
   const partial = last === m ? full : solveLine(last, q1, p1, inp, hl);
   if (!Number.isFinite(full.inletPressure) || !Number.isFinite(partial.inletPressure)) {
-    fail("branch_diameter", q("diameter", inp.branchDiameter), "is far too small for the flow: the friction loss along a branch line has no finite value");
+    fail("branch_diameter", q("diameter", inp.branchDiameter), "must be larger: the friction loss along a branch line has no finite value");
   }
 
   const lineFlows: number[] = [];
@@ -243,7 +243,7 @@ export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("U
     flow += lineFlow;
   }
   if (!Number.isFinite(flow) || !Number.isFinite(pressure)) {
-    fail("main_diameter", q("diameter", inp.mainDiameter), "is far too small for the flow: the friction loss in the cross main has no finite value");
+    fail("main_diameter", q("diameter", inp.mainDiameter), "must be larger: the friction loss in the cross main has no finite value");
   }
   const result: AreaDemand = { flow, pressure, heads: n, lines, endPressure: p1, headsPerLine: m, lineSpacing, lineFlows, linePressures };
   if (detail) result.sprinklers = sprinklers;

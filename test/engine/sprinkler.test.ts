@@ -63,15 +63,15 @@ describe("counts stay finite: a tiny coverage or spacing is an input error namin
   it("HEADCOUNT(1000000, 1E-303) was Infinity: now coverage must be at least area ÷ 5000", () => {
     // 1e6 / 1e-303 = 1e309 overflows to Infinity; the smallest coverage for 1e6 is 1e6 / 5000 = 200
     expect(errorOf(() => headCount(1_000_000, 1e-303)).message).toBe(
-      "coverage: got 1e-303 (the unit of area); must be at least area ÷ 5000 = 200: a design area of more than 5000 sprinklers is an input error",
+      "coverage: got 1e-303; must be at least area ÷ 5000 = 200 (in the unit of area): a design area of more than 5000 sprinklers is an input error",
     );
     // 1500 / 1e-300 = 1.5e303 sprinklers was finite but absurd: the same error
-    expect(errorOf(() => headCount(1500, 1e-300)).message).toMatch(/^coverage: got 1e-300 \(the unit of area\); must be at least area ÷ 5000 = 0.3:/);
+    expect(errorOf(() => headCount(1500, 1e-300)).message).toMatch(/^coverage: got 1e-300; must be at least area ÷ 5000 = 0.3 \(in the unit of area\):/);
   });
   it("keeps every count up to 5000 and refuses 5001", () => {
     // 5000 × 130 = 650000 ft² at 130 ft² is exactly 5000 sprinklers; 650130 ft² would be 5001
     expect(headCount(650_000, 130)).toBe(5000);
-    expect(errorOf(() => headCount(650_130, 130)).message).toMatch(/^coverage: got 130 \(the unit of area\); must be at least area ÷ 5000 = 130.026:/);
+    expect(errorOf(() => headCount(650_130, 130)).message).toMatch(/^coverage: got 130; must be at least area ÷ 5000 = 130.026 \(in the unit of area\):/);
   });
   it("refuses an area or coverage that is not a positive finite number", () => {
     expect(errorOf(() => headCount(1500, 0)).message).toBe("coverage: got 0; must be greater than 0");

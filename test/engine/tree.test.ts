@@ -176,7 +176,7 @@ describe("AREADEMAND solve: every loop is bounded by a plausible count", () => {
     // 5000 × 130 = 650000 ft² holds exactly 5000 sprinklers; 650130 ft² would hold 5001
     expect(solveAreaDemand({ ...oh2, area: 650_000, branchDiameter: 12, mainDiameter: 24 }).heads).toBe(5000);
     expect(errorOf(() => solveAreaDemand({ ...oh2, area: 650_130 })).message).toBe(
-      "area: got 650130 ft²; must be at most 650000 ft² with coverage 130 ft²: a design area of more than 5000 sprinklers is an input error",
+      "area: got 650130 ft²; must be at most 650000 ft² with a coverage of 130 ft²: a design area of more than 5000 sprinklers is an input error",
     );
   });
 });
@@ -185,19 +185,19 @@ describe("AREADEMAND solve: a result beyond any number names the argument behind
   // Hazen-Williams divides by d^4.87: (1e-70)^4.87 = 1e-341 underflows to 0, so the loss is Infinity
   it("a branch line too small for any finite loss names branch_diameter", () => {
     expect(errorOf(() => solveAreaDemand({ ...base, branchDiameter: 1e-70 })).message).toBe(
-      "branch_diameter: got 1e-70 in (C 120); the friction loss along a branch line is beyond any number: must be larger",
+      "branch_diameter: got 1e-70 in; must be larger: the friction loss along a branch line has no finite value",
     );
   });
   it("a cross main too small for any finite loss names main_diameter", () => {
     // it was "AREADEMAND: the inputs give no finite result (a pipe far too small for the flow?); check the diameters"
     expect(errorOf(() => solveAreaDemand({ ...base, mainDiameter: 1e-70 })).message).toBe(
-      "main_diameter: got 1e-70 in (C 120); the friction loss in the cross main between lines is beyond any number: must be larger",
+      "main_diameter: got 1e-70 in; must be larger: the friction loss in the cross main has no finite value",
     );
   });
   it("a K-factor so small that the end sprinkler needs more than any pressure names k_factor", () => {
     // q1 = 0.15 × 130 = 19.5 gpm; (19.5 / 1e-300)² = 3.8e602 overflows to Infinity
     expect(errorOf(() => solveAreaDemand({ ...base, kFactor: 1e-300 })).message).toBe(
-      "k_factor: got 1e-300 gpm/psi^0.5; the end sprinkler would need more than any pressure to flow 19.5 gpm: must be larger",
+      "k_factor: got 1e-300 gpm/psi^0.5; must be larger: the end sprinkler would need more than any pressure to flow 19.5 gpm",
     );
   });
 });
