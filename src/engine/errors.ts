@@ -93,8 +93,8 @@ export function outsideEnvelope(argument: string, got: Shown | undefined, rule: 
  * overflows still names the argument whose size caused it (`argument`, `got`), and what would fix it.
  */
 export function finiteOr(x: number, argument: string, got: Shown, signed = false): number {
-  if (!Number.isFinite(x)) fail(argument, got, "gives a result too large to compute; check its magnitude");
-  if (!signed && x < 0) fail(argument, got, "gives a negative result; check it");
+  if (!Number.isFinite(x)) fail(argument, got, "must be smaller: the result is too large to compute");
+  if (!signed && x < 0) fail(argument, got, "must give a result of 0 or more");
   return x === 0 ? 0 : x; // never −0
 }
 
