@@ -9,11 +9,33 @@ import { type FlowTest, checkFlowTest, exhaustionFlow } from "./supply";
 export const SUPPLY_CURVE_POINTS = 16;
 /** The curve runs to this multiple of the test flow by default. */
 export const SUPPLY_CURVE_FLOW_FACTOR = 1.5;
+/**
+ * A supply curve drawn for a demand runs to at least this multiple of the demand flow, so the demand point sits
+ * inside the picture with room to read the curve beyond it: the sheet's chart and the pane's plot alike.
+ * (common practice)
+ */
+export const CURVE_DEMAND_FLOW_FACTOR = 1.2;
 /** The most rows a curve may have (a plausibility bound on `points`). (common practice) */
 export const SUPPLY_CURVE_MAX_POINTS = 1000;
 
 /** One point of the curve: [flow gpm, pressure psi]. */
 export type CurvePoint = readonly [flow: number, pressure: number];
+
+/**
+ * `count` + 1 evenly spaced flows from 0 to `end`, plus the `extra` flows that lie strictly inside, ascending and
+ * without repeats: the one sampler of the supply curve for the sheet (SUPPLYCURVE) and the pane's plot.
+ *
+ *   Q_i = end × i / count,   i = 0 … count
+ *
+ * @param end gpm (≥ 0); @param count a whole number ≥ 1; @param extra gpm
+ * Worked value: sampleFlows(1500, 3, [1000]) → [0, 500, 1000, 1500].
+ */
+export function sampleFlows(end: number, count: number, extra: readonly number[] = []): number[] {
+  const flows: number[] = [];
+  for (let i = 0; i <= count; i++) flows.push((end * i) / count);
+  for (const x of extra) if (x > 0 && x < end && !flows.includes(x)) flows.push(x);
+  return extra.length === 0 ? flows : flows.sort((a, b) => a - b);
+}
 
 /**
  * `points` evenly spaced points of the supply curve from 0 to `maxFlow`:
@@ -41,12 +63,11 @@ export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number):
   const qe = exhaustionFlow(t);
   const rows: (CurvePoint | null)[] = [];
   let exhausted = false;
-  for (let i = 0; i < points; i++) {
+  for (const q of sampleFlows(maxFlow, points - 1)) {
     if (exhausted) {
       rows.push(null);
       continue;
     }
-    const q = (maxFlow * i) / (points - 1);
     const p = t.static - (t.static - t.residual) * Math.pow(q / t.testFlow, HW_FLOW_EXPONENT);
     if (q >= qe || !(p > 0)) {
       rows.push([qe, 0]);

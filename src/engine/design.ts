@@ -15,7 +15,7 @@ export type Hazard = "LH" | "OH1" | "OH2" | "EH1" | "EH2";
 export const HAZARD_CODES: readonly Hazard[] = ["LH", "OH1", "OH2", "EH1", "EH2"];
 
 /** One end of a density/area curve. */
-export interface CurvePoint {
+export interface DensityAreaPoint {
   /** gpm/ft² */
   readonly density: number;
   /** ft² */
@@ -28,9 +28,9 @@ export interface HazardInfo {
   /** the standard's name of the occupancy class */
   readonly name: string;
   /** the curve's upper point: highest density at the smallest design area */
-  readonly upper: CurvePoint;
+  readonly upper: DensityAreaPoint;
   /** the curve's lower point: lowest density at the largest design area */
-  readonly lower: CurvePoint;
+  readonly lower: DensityAreaPoint;
   /** hose stream allowance, inside + outside, gpm */
   readonly hoseTotal: number;
   /** the inside hose allowances the standard offers, gpm */

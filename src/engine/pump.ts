@@ -19,6 +19,12 @@ export const RATED_PRESSURE_STEP_PSI = 5;
 /** PUMPSIZE rounds the boost up to a whole number of these steps in SI work, bar (the vocabulary's rule). */
 export const RATED_PRESSURE_STEP_BAR = 0.5;
 
+/** A fire pump's rating, US units: rated flow, gpm, and rated net pressure, psi. */
+export interface PumpRating {
+  ratedFlow: number;
+  ratedPressure: number;
+}
+
 /** Flow of the overload point as a multiple of rated flow. [NFPA 20] */
 export const OVERLOAD_FLOW_RATIO = 1.5;
 /** Churn (shutoff) pressure may be at most this multiple of rated pressure. [NFPA 20] */

@@ -162,24 +162,35 @@ export function normaliseText(value: string): string {
   return value.trim().toLowerCase().replace(/\s+/g, " ");
 }
 
+/** Fold the punctuation users put inside codes ("OH-1", "Sch. 40", "cement-lined", "K-US") into spaces. */
+function foldCode(value: string): string {
+  const folded = value.replace(/[-_]|\.(?!\d)/g, " ").replace(/\s+/g, " ");
+  return folded.trim() === "" ? value : folded;
+}
+
 /**
- * A code from a fixed list. `codes` maps each canonical code to the spellings accepted for it (matched after
- * normaliseText; the canonical code itself is always accepted). Numbers are accepted as their text ("40").
+ * A code from a fixed list: the one text-code matcher of the add-in (units, schedules, materials, hazards, UNIT's
+ * unit names, ...). `codes` maps each canonical code to the spellings accepted for it; the canonical code itself is
+ * always accepted. Matching is case-insensitive with inner white space folded (normaliseText), raw and with the
+ * punctuation inside codes folded to spaces (raw first, so that "sdr 13.5" keeps its dot). Numbers are accepted as
+ * their text ("40"). Unknown: #VALUE! listing the accepted codes, plus `hint` (e.g. the plain words) when given.
  */
-export function codeArg<C extends string>(value: unknown, name: string, codes: Record<C, readonly string[]>): C {
+export function codeArg<C extends string>(value: unknown, name: string, codes: Readonly<Record<C, readonly string[]>>, hint = ""): C {
   const list = Object.keys(codes) as C[];
-  const allowed = list.map((c) => `"${c}"`).join(", ");
+  const allowed = list.map((c) => `"${c}"`).join(", ") + hint;
   if (isBlank(value)) fail(name, undefined, `is empty: type one of ${allowed}`);
   if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${allowed}`);
-  const t = normaliseText(String(value));
+  const text = String(value);
+  const forms = [normaliseText(text), normaliseText(foldCode(text))];
   for (const c of list) {
-    if (normaliseText(c) === t || codes[c].some((a) => normaliseText(a) === t)) return c;
+    const spellings = [c, ...codes[c]].flatMap((a) => [normaliseText(a), normaliseText(foldCode(a))]);
+    if (forms.some((f) => spellings.includes(f))) return c;
   }
   fail(name, { cell: value }, `must be one of ${allowed}`);
 }
 
 /** Like codeArg, but an omitted or empty argument gives `fallback`. */
-export function optionalCodeArg<C extends string>(value: unknown, name: string, codes: Record<C, readonly string[]>, fallback: C): C {
+export function optionalCodeArg<C extends string>(value: unknown, name: string, codes: Readonly<Record<C, readonly string[]>>, fallback: C): C {
   return isBlank(value) ? fallback : codeArg(value, name, codes);
 }
 

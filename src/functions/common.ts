@@ -2,6 +2,7 @@
  * Argument groups that several cell functions share: a flow test, a pipe, a demand point, a minimum pressure.
  * Each returns US values and throws a HeadroomError naming the argument at fault.
  */
+import type { PumpRating } from "../engine/pump";
 import { MIN_SPRINKLER_PRESSURE_BAR, MIN_SPRINKLER_PRESSURE_PSI } from "../engine/sprinkler";
 import { type FlowTest, checkFlowTest } from "../engine/supply";
 import { type UnitSystem, toUS } from "../engine/units";
@@ -100,7 +101,7 @@ export function decisionArgs(
 }
 
 /** rated_flow and rated_pressure of a pump, as PUMPCURVE reads them (US units). */
-export function pumpRatingArgs(ratedFlow: unknown, ratedPressure: unknown, u: UnitSystem): { ratedFlow: number; ratedPressure: number } {
+export function pumpRatingArgs(ratedFlow: unknown, ratedPressure: unknown, u: UnitSystem): PumpRating {
   return {
     ratedFlow: quantityArg(ratedFlow, "rated_flow", "flow", u),
     ratedPressure: quantityArg(ratedPressure, "rated_pressure", "pressure", u),

@@ -1,14 +1,13 @@
 /**
  * The text codes of the trade-table functions and the plain-word spellings accepted for each: schedules, materials,
- * system types, hazards, hose allowance parts and duration bounds. Matching is case-insensitive with inner white
- * space folded (as args.codeArg does); hyphens, dots and underscores count as spaces here, so "OH-1", "Sch. 40" and
- * "cement-lined" all match. An unknown code is #VALUE! listing the accepted codes.
+ * system types, hazards, hose allowance parts and duration bounds, matched by the one code matcher (args.codeArg):
+ * case-insensitive, inner white space folded, hyphens, dots and underscores counting as spaces, so "OH-1",
+ * "Sch. 40" and "cement-lined" all match. An unknown code is #VALUE! listing the accepted codes.
  */
 import type { Material, SystemType } from "../engine/cfactor";
 import type { DurationBound, Hazard, HosePart } from "../engine/design";
 import type { Schedule } from "../engine/pipes";
-import { fail } from "../engine/errors";
-import { isBlank, normaliseText } from "./args";
+import { codeArg, isBlank } from "./args";
 
 /** Spellings of each pipe schedule code. */
 export const SCHEDULE_ALIASES: Readonly<Record<Schedule, readonly string[]>> = {
@@ -75,57 +74,32 @@ export const BOUND_ALIASES: Readonly<Record<DurationBound, readonly string[]>> =
   max: ["maximum", "high", "upper"],
 };
 
-/** Fold the punctuation users put inside codes ("OH-1", "Sch. 40", "cement-lined") into spaces. */
-function foldCode(value: unknown): unknown {
-  if (typeof value !== "string") return value;
-  const folded = value.replace(/[-_]|\.(?!\d)/g, " ").replace(/\s+/g, " ");
-  return folded.trim() === "" ? value : folded;
-}
-
-/**
- * A code of `codes`: the canonical code or one of its spellings, compared after normaliseText, raw and with
- * foldCode applied (raw first, so that "sdr 13.5" keeps its dot). Unknown: #VALUE! listing the accepted codes,
- * plus `hint` (e.g. the plain words) when given.
- */
-function tableCode<C extends string>(value: unknown, name: string, codes: Readonly<Record<C, readonly string[]>>, hint = ""): C {
-  const list = Object.keys(codes) as C[];
-  const allowed = list.map((c) => `"${c}"`).join(", ") + hint;
-  if (isBlank(value)) fail(name, undefined, `is empty: type one of ${allowed}`);
-  if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${allowed}`);
-  const forms = [normaliseText(String(value)), normaliseText(String(foldCode(String(value))))];
-  for (const c of list) {
-    const spellings = [c, ...codes[c]].flatMap((a) => [normaliseText(a), normaliseText(String(foldCode(a)))]);
-    if (forms.some((f) => spellings.includes(f))) return c;
-  }
-  fail(name, { cell: value }, `must be one of ${allowed}`);
-}
-
 /** The `schedule` argument, default "40". */
 export function scheduleArg(value: unknown, name = "schedule"): Schedule {
-  return isBlank(value) ? "40" : tableCode(value, name, SCHEDULE_ALIASES);
+  return isBlank(value) ? "40" : codeArg(value, name, SCHEDULE_ALIASES);
 }
 
 /** The `material` argument (required). */
 export function materialArg(value: unknown, name = "material"): Material {
-  return tableCode(value, name, MATERIAL_ALIASES);
+  return codeArg(value, name, MATERIAL_ALIASES);
 }
 
 /** The `system` argument, default "wet". */
 export function systemArg(value: unknown, name = "system"): SystemType {
-  return isBlank(value) ? "wet" : tableCode(value, name, SYSTEM_ALIASES);
+  return isBlank(value) ? "wet" : codeArg(value, name, SYSTEM_ALIASES);
 }
 
 /** The `hazard` argument (required). */
 export function hazardArg(value: unknown, name = "hazard"): Hazard {
-  return tableCode(value, name, HAZARD_ALIASES, ' (or "light", "ordinary 1", "ordinary 2", "extra 1", "extra 2")');
+  return codeArg(value, name, HAZARD_ALIASES, ' (or "light", "ordinary 1", "ordinary 2", "extra 1", "extra 2")');
 }
 
 /** The `part` argument of HOSEALLOWANCE, default "total". */
 export function hosePartArg(value: unknown, name = "part"): HosePart {
-  return isBlank(value) ? "total" : tableCode(value, name, HOSE_PART_ALIASES);
+  return isBlank(value) ? "total" : codeArg(value, name, HOSE_PART_ALIASES);
 }
 
 /** The `bound` argument of DURATION, default "min". */
 export function boundArg(value: unknown, name = "bound"): DurationBound {
-  return isBlank(value) ? "min" : tableCode(value, name, BOUND_ALIASES);
+  return isBlank(value) ? "min" : codeArg(value, name, BOUND_ALIASES);
 }

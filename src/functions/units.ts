@@ -5,7 +5,7 @@
  */
 import { create, unitDependencies } from "mathjs";
 import { fail, finiteOr, n as plain } from "../engine/errors";
-import { normaliseText, numberArg } from "./args";
+import { codeArg, numberArg } from "./args";
 import { cell } from "./bridge";
 
 const math = create({ unitDependencies });
@@ -39,17 +39,14 @@ export const UNITS: Record<string, UnitEntry> = {
   "K-SI": { kind: "K-factor", mathjs: { flow: "L/min", pressure: "bar" }, aliases: ["ksi", "k si", "k-metric", "k-lpm"] },
 };
 
-const ALLOWED = Object.keys(UNITS).map((u) => `"${u}"`).join(", ");
+/** The spellings of each unit name, for the one code matcher. */
+const UNIT_CODES: Readonly<Record<string, readonly string[]>> = Object.fromEntries(
+  Object.entries(UNITS).map(([key, entry]) => [key, entry.aliases]),
+);
 
 function lookup(value: unknown, name: string): [string, UnitEntry] {
-  if (typeof value !== "string" || value.trim() === "") {
-    fail(name, { cell: value }, `must be one of ${ALLOWED}`);
-  }
-  const t = normaliseText(value);
-  for (const [key, entry] of Object.entries(UNITS)) {
-    if (normaliseText(key) === t || entry.aliases.some((a) => normaliseText(a) === t)) return [key, entry];
-  }
-  fail(name, { cell: value }, `must be one of ${ALLOWED}`);
+  const key = codeArg(value, name, UNIT_CODES);
+  return [key, UNITS[key]];
 }
 
 /** Size of one `entry` unit expressed in SI base units (a K-factor as m³/s per Pa^0.5). */

@@ -11,12 +11,14 @@ import {
   DEFAULT_OVERLOAD_RATIO,
   DEFAULT_SHUTOFF_RATIO,
   OVERLOAD_FLOW_RATIO,
+  type PumpRating,
   pumpPressure,
   pumpRating,
 } from "../engine/pump";
+import { CURVE_DEMAND_FLOW_FACTOR, type CurvePoint, SUPPLY_CURVE_FLOW_FACTOR, sampleFlows } from "../engine/curve";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { ZERO_ALLOWED, quantityArg } from "../functions/args";
+import { ZERO_ALLOWED, quantityArg, unitsArg } from "../functions/args";
 import { decisionArgs, pumpRatingArgs } from "../functions/common";
 import { type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
 
@@ -38,11 +40,7 @@ export interface Problem {
   message: string;
 }
 
-/** A pump rating, US units. */
-export interface PumpRating {
-  ratedFlow: number;
-  ratedPressure: number;
-}
+export type { PumpRating };
 
 /** A readable estimate, US units inside; `units` is how the sheet speaks. */
 export interface Estimate {
@@ -123,11 +121,19 @@ function isBlank(r: Reading): boolean {
   return r.kind === "missing" || r.kind === "empty" || (r.kind === "text" && r.value.trim() === "");
 }
 
+/** The Units cell read as the cell functions read their `[units]` argument (unitsArg): blank or missing is US. */
 function readUnits(r: Reading): { units: UnitSystem; assumed: boolean } | string {
-  if (r.kind === "missing") return { units: "US", assumed: true };
-  if (r.kind === "text" && /^\s*(us|si)\s*$/i.test(r.value)) return { units: r.value.trim().toUpperCase() as UnitSystem, assumed: false };
-  const shown = r.kind === "text" ? `"${r.value}"` : r.kind === "number" ? String(r.value) : r.kind;
-  return `Units${where(r)} holds ${shown}: type US or SI.`;
+  if (r.kind === "missing" || r.kind === "empty") return { units: "US", assumed: true };
+  if (r.kind === "text" || r.kind === "number") {
+    try {
+      return { units: unitsArg(r.value), assumed: isBlank(r) };
+    } catch (e) {
+      if (!(e instanceof HeadroomError)) throw e;
+      return `Units${where(r)}: ${e.messageIn("US")}`;
+    }
+  }
+  if (r.kind === "error") return `Units${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: type US or SI.`;
+  return `Units: ${r.reason}. Point the name at one cell (Formulas > Name Manager).`;
 }
 
 /**
@@ -260,8 +266,8 @@ export function pumpSizeFor(demandFlowGpm: number, boostPsi: number, units: Unit
 
 // ─── The picture ─────────────────────────────────────────────────────────────────────────────────────────────────
 
-/** A point of the picture in the sheet's units: flow, pressure. */
-export type Pt = readonly [q: number, p: number];
+/** A point of the picture in the sheet's units: flow, pressure (the engine's curve-point type). */
+export type Pt = CurvePoint;
 
 export interface DemandPoint {
   id: "sprinklers" | "total";
@@ -296,9 +302,9 @@ export interface PlotData {
 
 /** Points along the curves: enough for a smooth line at any pane width. */
 export const CURVE_SAMPLES = 48;
-/** The plot runs to the larger of these multiples of the test flow and of the demand flow. (common practice) */
-export const PLOT_TEST_FLOW_FACTOR = 1.5;
-export const PLOT_DEMAND_FLOW_FACTOR = 1.15;
+/** The plot runs to the larger of these multiples of the test flow and of the demand flow, as the sheet's chart. */
+export const PLOT_TEST_FLOW_FACTOR = SUPPLY_CURVE_FLOW_FACTOR;
+export const PLOT_DEMAND_FLOW_FACTOR = CURVE_DEMAND_FLOW_FACTOR;
 /** Headroom above the highest point. */
 export const PLOT_PRESSURE_FACTOR = 1.1;
 
@@ -314,7 +320,7 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
   const qEndUS = Math.min(qe, toUS("flow", qMax, u));
 
   const supplyP = (q: number) => (q >= qe ? 0 : supplyAt(q, e.test));
-  const flows = sampleFlows(qEndUS, [e.test.testFlow]);
+  const flows = sampleFlows(qEndUS, CURVE_SAMPLES, [e.test.testFlow]);
   const supply: Pt[] = flows.map((q) => [f(q), p(supplyP(q))]);
 
   let band: Pt[] | null = null;
@@ -327,7 +333,7 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
   if (e.pump) {
     const { ratedFlow, ratedPressure } = e.pump;
     const end = Math.min(pumpReach, qe, toUS("flow", qMax, u));
-    pump = sampleFlows(end, [Math.min(ratedFlow, end)]).map((q) => [
+    pump = sampleFlows(end, CURVE_SAMPLES, [Math.min(ratedFlow, end)]).map((q) => [
       f(q),
       p(supplyP(q) + pumpPressure(q, ratedFlow, ratedPressure, DEFAULT_SHUTOFF_RATIO, DEFAULT_OVERLOAD_RATIO)),
     ]);
@@ -362,12 +368,4 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
     pump,
     pumpLabel,
   };
-}
-
-/** 0 … end in CURVE_SAMPLES steps, plus the given flows that lie inside, sorted, without repeats. */
-function sampleFlows(end: number, extra: number[]): number[] {
-  const set = new Set<number>();
-  for (let i = 0; i <= CURVE_SAMPLES; i++) set.add((end * i) / CURVE_SAMPLES);
-  for (const x of extra) if (x > 0 && x < end) set.add(x);
-  return [...set].sort((a, b) => a - b);
 }

@@ -12,7 +12,7 @@
  * and a cross main) gives the flow and pressure at the start of the run, and the sections after it read only those
  * refs (`AreaDemandRefs`), so that another way of finding the demand can take its place.
  */
-import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_POINTS } from "../engine/curve";
+import { CURVE_DEMAND_FLOW_FACTOR, SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_POINTS } from "../engine/curve";
 import { type UnitSystem, unitName } from "../engine/units";
 import { columnLetters, parseCell } from "./a1";
 import { CAUTION, type CellRole, PALETTE } from "./look";
@@ -66,7 +66,7 @@ const SHEET_UNITS: Record<UnitSystem, SheetUnits> = { US: sheetUnits("US"), SI: 
  */
 const CHART_POINTS = SUPPLY_CURVE_POINTS;
 const CHART_TEST_FLOW_FACTOR = SUPPLY_CURVE_FLOW_FACTOR;
-const CHART_DEMAND_FLOW_FACTOR = 1.2;
+const CHART_DEMAND_FLOW_FACTOR = CURVE_DEMAND_FLOW_FACTOR;
 
 // ─── Writing cells ───────────────────────────────────────────────────────────────────────────────────────────────
 

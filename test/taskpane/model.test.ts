@@ -163,7 +163,15 @@ describe("pane model: what is wrong with the names", () => {
   });
 
   it("refuses a Units cell that is neither US nor SI", () => {
-    expect(problems({ ...BASE, Units: "metric-ish" })).toEqual(['Units (Estimate!B2) holds "metric-ish": type US or SI.']);
+    // the cell functions' own message for their [units] argument (unitsArg)
+    expect(problems({ ...BASE, Units: "metric-ish" })).toEqual(['Units (Estimate!B2): units: got "metric-ish"; must be one of "US", "SI"']);
+  });
+
+  it("reads Units as the cell functions read [units]: case, spaces and the plain words", () => {
+    expect(ready({ ...BASE, Units: " us " }).units).toBe("US");
+    expect(ready({ ...BASE, Units: "Imperial" }).units).toBe("US");
+    const si = { Units: "metric", Supply_Static: 4.96, Supply_Residual: 4.0, Supply_TestFlow: 4164, Demand_Flow: 2127, Demand_Pressure: 3.3 };
+    expect(ready(si).units).toBe("SI");
   });
 
   it("waits on #BUSY! instead of calling it a problem", () => {
