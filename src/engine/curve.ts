@@ -7,15 +7,19 @@ import { type FlowTest, checkFlowTest, exhaustionFlow } from "./supply";
 
 /** Rows of a supply curve by default: enough for a smooth native chart line. */
 export const SUPPLY_CURVE_POINTS = 16;
-/** The curve runs to this multiple of the test flow by default. */
+/** The curve runs to this multiple of the test flow by default, dimensionless. */
 export const SUPPLY_CURVE_FLOW_FACTOR = 1.5;
 /**
  * A supply curve drawn for a demand runs to at least this multiple of the demand flow, so the demand point sits
- * inside the picture with room to read the curve beyond it: the sheet's chart and the pane's plot alike.
- * (common practice)
+ * inside the picture with room to read the curve beyond it: the sheet's chart and the pane's plot alike,
+ * dimensionless.
+ * @see (common practice)
  */
 export const CURVE_DEMAND_FLOW_FACTOR = 1.2;
-/** The most rows a curve may have (a plausibility bound on `points`). (common practice) */
+/**
+ * The most rows a curve may have (a plausibility bound on `points`).
+ * @see (common practice)
+ */
 export const SUPPLY_CURVE_MAX_POINTS = 1000;
 
 /** One point of the curve: [flow gpm, pressure psi]. */
@@ -27,8 +31,16 @@ export type CurvePoint = readonly [flow: number, pressure: number];
  *
  *   Q_i = end × i / count,   i = 0 … count
  *
- * @param end gpm (≥ 0); @param count a whole number ≥ 1; @param extra gpm
- * Worked value: sampleFlows(1500, 3, [1000]) → [0, 500, 1000, 1500].
+ * 1500 gpm in 3 steps: 0, 500, 1000, 1500; an extra 1000 is already there, an extra 750 joins in order.
+ *
+ * @param end the largest flow, gpm (≥ 0)
+ * @param count the number of steps, a whole number ≥ 1
+ * @param extra flows to include where they lie inside, gpm
+ * @returns the flows, gpm, ascending
+ * @see definition
+ * @example
+ * sampleFlows(1500, 3, [1000]) // → [0, 500, 1000, 1500]
+ * sampleFlows(1500, 3, [750]) // → [0, 500, 750, 1000, 1500]
  */
 export function sampleFlows(end: number, count: number, extra: readonly number[] = []): number[] {
   const flows: number[] = [];
@@ -38,21 +50,26 @@ export function sampleFlows(end: number, count: number, extra: readonly number[]
 }
 
 /**
- * `points` evenly spaced points of the supply curve from 0 to `maxFlow`:
+ * `points` evenly spaced points of the supply curve from 0 to `maxFlow`.
  *
  *   Q_i = maxFlow × i / (points − 1),   P_i = Ps − (Ps − Pr) (Q_i / Qt)^1.85,   i = 0 … points − 1
  *
  * If the supply reaches 0 psi before maxFlow (at Qe = Qt (Ps / (Ps − Pr))^(1/1.85)), the first point at or beyond
  * Qe becomes [Qe, 0] and every later point is null (the cell layer shows it as blank cells), so the number of rows
- * never depends on the values, only on `points`.
+ * never depends on the values, only on `points`. Static 70, residual 50 psi at 1000 gpm, 4 points to 1500 gpm:
+ * 500 gpm → 70 − 20 × 0.5^1.85 = 70 − 20 × 0.27739 = 64.45 psi; 1500 gpm → 70 − 20 × 1.5^1.85 = 70 − 20 × 2.1171
+ * = 27.66 psi.
  *
- * @param t the flow test (psi, gpm)
- * @param maxFlow gpm (> 0)
- * @param points number of rows, a whole number from 2 to SUPPLY_CURVE_MAX_POINTS
- * @returns `points` entries, each a point or null
- * Source: [NFPA 291] supply curve.
- * Worked value: static 70, residual 50 at 1000 gpm, maxFlow 1500, 4 points → [0, 70], [500, 64.45],
- * [1000, 50], [1500, 27.66] psi.
+ * @param t the flow test: static and residual pressure, psi; test flow, gpm
+ * @param maxFlow the last point's flow, gpm (> 0)
+ * @param points the number of rows, a whole number from 2 to SUPPLY_CURVE_MAX_POINTS
+ * @returns `points` entries, each a point [flow gpm, pressure psi] or null
+ * @see [NFPA 291] water supply curve
+ * @example
+ * supplyCurvePoints({ static: 70, residual: 50, testFlow: 1000 }, 1500, 4)
+ * // ≈ [[0, 70], [500, 64.45], [1000, 50], [1500, 27.66]] psi
+ * supplyCurvePoints({ static: 70, residual: 50, testFlow: 1000 }, 3000, 4)
+ * // ≈ [[0, 70], [1000, 50], [1968, 0], null] psi
  */
 export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number): (CurvePoint | null)[] {
   checkFlowTest(t);

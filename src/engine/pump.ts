@@ -8,7 +8,7 @@ import { type UnitSystem, fromUS } from "./units";
 
 /**
  * Standard rated capacities of centrifugal fire pumps, gpm, ascending.
- * [NFPA 20] (from memory)
+ * @see [NFPA 20] standard rated capacities (from memory)
  */
 export const STANDARD_RATED_CAPACITIES_GPM: readonly number[] = [
   25, 50, 100, 150, 200, 250, 300, 400, 450, 500, 750, 1000, 1250, 1500, 2000, 2500, 3000, 3500, 4000, 4500, 5000,
@@ -25,23 +25,41 @@ export interface PumpRating {
   ratedPressure: number;
 }
 
-/** Flow of the overload point as a multiple of rated flow. [NFPA 20] */
+/**
+ * Flow of the overload point as a multiple of rated flow, dimensionless.
+ * @see [NFPA 20] centrifugal pump performance
+ */
 export const OVERLOAD_FLOW_RATIO = 1.5;
-/** Churn (shutoff) pressure may be at most this multiple of rated pressure. [NFPA 20] */
+/**
+ * Churn (shutoff) pressure may be at most this multiple of rated pressure, dimensionless.
+ * @see [NFPA 20] centrifugal pump performance
+ */
 export const MAX_SHUTOFF_RATIO = 1.4;
-/** At 150 % of rated flow the pump must give at least this multiple of rated pressure. [NFPA 20] */
+/**
+ * At 150 % of rated flow the pump must give at least this multiple of rated pressure, dimensionless.
+ * @see [NFPA 20] centrifugal pump performance
+ */
 export const MIN_OVERLOAD_RATIO = 0.65;
-/** Default curve shape when only the rating is known: shutoff at 120 % of rated pressure. (common practice) */
+/**
+ * Default curve shape when only the rating is known: shutoff at 120 % of rated pressure, dimensionless.
+ * @see (common practice)
+ */
 export const DEFAULT_SHUTOFF_RATIO = 1.2;
-/** Default curve shape: 70 % of rated pressure at 150 % of rated flow. (common practice) */
+/**
+ * Default curve shape: 70 % of rated pressure at 150 % of rated flow, dimensionless.
+ * @see (common practice)
+ */
 export const DEFAULT_OVERLOAD_RATIO = 0.7;
 
 /**
  * The smallest standard rated capacity not below the demand flow.
  *
- * @param demandFlow gpm (> 0)
- * @returns gpm, one of STANDARD_RATED_CAPACITIES_GPM; `#N/A` kind above the largest (5000 gpm)
- * Source: [NFPA 20] standard rated capacities (from memory). Worked value: 562 gpm → 750 gpm; 500 gpm → 500 gpm.
+ * @param demandFlow the demand flow, gpm (> 0)
+ * @returns the rated capacity, gpm, one of STANDARD_RATED_CAPACITIES_GPM; `#N/A` kind above the largest (5000 gpm)
+ * @see [NFPA 20] standard rated capacities (from memory)
+ * @example
+ * ratedCapacity(562) // → 750 gpm
+ * ratedCapacity(500) // → 500 gpm
  */
 export function ratedCapacity(demandFlow: number): number {
   if (!(demandFlow > 0) || !Number.isFinite(demandFlow)) fail("demand_flow", q("flow", demandFlow), "must be greater than 0");
@@ -59,8 +77,13 @@ export function ratedCapacity(demandFlow: number): number {
  *
  *   rounded = step × ceil(value / step)
  *
- * @param value ≥ 0; @param step > 0 (same unit)
- * Worked value: 22.0 psi in 5 psi steps → 25 psi; 25 psi → 25 psi; 1.52 bar in 0.5 bar steps → 2.0 bar.
+ * @param value the value, any unit (≥ 0)
+ * @param step the step, the value's unit (> 0)
+ * @returns the rounded value, the value's unit
+ * @example
+ * roundUpToStep(22.0, 5) // → 25 psi
+ * roundUpToStep(25, 5) // → 25 psi
+ * roundUpToStep(1.52, 0.5) // → 2 bar
  */
 export function roundUpToStep(value: number, step: number): number {
   if (!(step > 0)) fail("step", n(step), "must be greater than 0");
@@ -69,13 +92,22 @@ export function roundUpToStep(value: number, step: number): number {
 }
 
 /**
- * PUMPSIZE's rating: the smallest standard rated capacity not below the demand flow, and the boost rounded up to the
- * next 5 psi in US work or the next 0.5 bar in SI work (rounded in bar, so that SI ratings are whole steps of bar).
+ * PUMPSIZE's rating: a standard rated capacity, and the boost rounded up to a whole step.
  *
- * @param demandFlowGpm gpm (> 0); @param boostPsi psi (> 0); @param units the unit system of the rated pressure
+ *   rated flow = the smallest standard rated capacity ≥ demand flow
+ *   rated pressure = step × ceil(boost / step),   step 5 psi (US) or 0.5 bar (SI, rounded in bar)
+ *
+ * Rounding in bar makes SI ratings whole steps of bar. 475 gpm, 21.3 psi, US: 500 gpm at 5 × ceil(4.26) = 25 psi;
+ * in SI, 21.3 × 0.0689476 = 1.469 bar → 0.5 × ceil(2.94) = 1.5 bar.
+ *
+ * @param demandFlowGpm the demand flow, gpm (> 0)
+ * @param boostPsi the boost the pump must add, psi (> 0)
+ * @param units the unit system of the rated pressure, "US" or "SI"
  * @returns ratedFlowGpm in gpm; ratedPressure in `units` (psi or bar)
- * Source: [NFPA 20] standard rated capacities (from memory); the steps are common practice.
- * Worked value: 475 gpm, 21.3 psi, US → 500 gpm at 25 psi.
+ * @see [NFPA 20] standard rated capacities (from memory); the steps (common practice)
+ * @example
+ * pumpRating(475, 21.3, "US") // → { ratedFlowGpm: 500, ratedPressure: 25 } gpm, psi
+ * pumpRating(475, 21.3, "SI") // → { ratedFlowGpm: 500, ratedPressure: 1.5 } gpm, bar
  */
 export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitSystem): { ratedFlowGpm: number; ratedPressure: number } {
   const step = units === "SI" ? RATED_PRESSURE_STEP_BAR : RATED_PRESSURE_STEP_PSI;
@@ -83,8 +115,9 @@ export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitS
 }
 
 /**
- * A pump's net pressure along a monotone curve through three points: shutoff (0, s·Pr), rated (Qr, Pr) and
- * overload (1.5 Qr, o·Pr):
+ * A pump's net pressure along a monotone curve through shutoff, rated and overload points.
+ *
+ * The three points are shutoff (0, s·Pr), rated (Qr, Pr) and overload (1.5 Qr, o·Pr):
  *
  *   P = s·Pr − k Q^n,   n = ln((s − o) / (s − 1)) / ln 1.5,   k = (s − 1) Pr / Qr^n
  *
@@ -95,18 +128,30 @@ export function pumpRating(demandFlowGpm: number, boostPsi: number, units: UnitS
  * Inputs are held to the centrifugal fire pump envelope: 1 < s ≤ 1.4 and 0.65 ≤ o < 1; flow from 0 to 1.5 Qr.
  * Outside that the error is of kind "number" (`#NUM!` in a cell).
  *
- * @param flow Q, gpm (≥ 0, at most 1.5 Qr)
- * @param ratedFlow Qr, gpm (> 0); @param ratedPressure Pr, psi (> 0)
- * @param shutoffRatio s; @param overloadRatio o
- * @returns psi
- * Source: envelope [NFPA 20]; the three-point shape with s = 1.2 and o = 0.7 (common practice); the form
- * P = shutoff − k Q^n through the three points is the one reference.md gives ("Pumps").
- * Worked value: rated 500 gpm at 100 psi, defaults s = 1.2, o = 0.7:
- *   n = ln(0.5 / 0.2) / ln 1.5 = 0.916291 / 0.405465 = 2.259851;
- *   k = 0.2 × 100 / 500^2.259851 = 20 / 1 256 811 = 1.5913e−5 psi/gpm^n;
- *   0 gpm → 120 psi; 62.5 gpm → 120 − 20 × 0.125^2.259851 = 120 − 20 × 0.009102 = 119.82 psi;
- *   250 gpm → 120 − 20 × 0.5^2.259851 = 120 − 20 × 0.208794 = 115.82 psi; 500 gpm → 120 − 20 × 1 = 100 psi;
- *   750 gpm → 120 − 20 × 1.5^2.259851 = 120 − 20 × 2.5 = 70 psi.
+ * Rated 500 gpm at 100 psi, defaults s = 1.2, o = 0.7:
+ *
+ *   n = ln(0.5 / 0.2) / ln 1.5 = 0.916291 / 0.405465 = 2.259851
+ *   k = 0.2 × 100 / 500^2.259851 = 20 / 1 256 811 = 1.5913e−5 psi/gpm^n
+ *   0 gpm → 120 psi; 62.5 gpm → 120 − 20 × 0.125^2.259851 = 120 − 20 × 0.009102 = 119.82 psi
+ *   250 gpm → 120 − 20 × 0.5^2.259851 = 120 − 20 × 0.208794 = 115.82 psi; 500 gpm → 120 − 20 × 1 = 100 psi
+ *   750 gpm → 120 − 20 × 1.5^2.259851 = 120 − 20 × 2.5 = 70 psi
+ *
+ * @param flow Q, the flow, gpm (≥ 0, at most 1.5 Qr)
+ * @param ratedFlow Qr, the rated flow, gpm (> 0)
+ * @param ratedPressure Pr, the rated net pressure, psi (> 0)
+ * @param shutoffRatio s, shutoff pressure over rated pressure, dimensionless (1 < s ≤ 1.4)
+ * @param overloadRatio o, pressure at 150 % flow over rated pressure, dimensionless (0.65 ≤ o < 1)
+ * @returns P, the net pressure, psi
+ * @see [NFPA 20] the envelope; the three-point shape with s = 1.2 and o = 0.7 (common practice); the form
+ *   P = shutoff − k Q^n through the three points is the one reference.md gives ("Pumps")
+ * @example
+ * pumpPressure(0, 500, 100, 1.2, 0.7) // ≈ 120.00 psi
+ * pumpPressure(62.5, 500, 100, 1.2, 0.7) // ≈ 119.82 psi
+ * pumpPressure(250, 500, 100, 1.2, 0.7) // ≈ 115.82 psi
+ * pumpPressure(500, 500, 100, 1.2, 0.7) // ≈ 100.00 psi
+ * pumpPressure(750, 500, 100, 1.2, 0.7) // ≈ 70.00 psi
+ * pumpPressure(800, 500, 100, 1.2, 0.7)
+ * // throws "flow: got 160 % of rated flow; a fire pump curve runs from 0 to 150 % of rated flow"
  */
 export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: number, shutoffRatio: number, overloadRatio: number): number {
   if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail("rated_flow", q("flow", ratedFlow), "must be greater than 0");
@@ -122,10 +167,22 @@ export function pumpPressure(flow: number, ratedFlow: number, ratedPressure: num
 }
 
 /**
- * The shape [s, n] of P / Pr = s − (s − 1) (Q / Qr)^n through shutoff, rated and overload points, after checking the
- * ratios against the [NFPA 20] envelope: n = ln((s − o) / (s − 1)) / ln 1.5. See pumpPressure.
- * Worked value: s 1.2, o 0.7 → n = ln 2.5 / ln 1.5 = 0.916291 / 0.405465 = 2.259851, so [1.2, 2.259851];
- * s 1.4, o 0.65 → n = ln(0.75 / 0.4) / ln 1.5 = 0.628609 / 0.405465 = 1.550340.
+ * The shape [s, n] of a pump curve through shutoff, rated and overload points (see pumpPressure).
+ *
+ *   P / Pr = s − (s − 1) (Q / Qr)^n,   n = ln((s − o) / (s − 1)) / ln 1.5
+ *
+ * The ratios are checked against the [NFPA 20] envelope first. s 1.2, o 0.7: n = ln 2.5 / ln 1.5
+ * = 0.916291 / 0.405465 = 2.259851; s 1.4, o 0.65: n = ln(0.75 / 0.4) / ln 1.5 = 0.628609 / 0.405465 = 1.550340.
+ *
+ * @param shutoffRatio s, shutoff pressure over rated pressure, dimensionless (1 < s ≤ 1.4)
+ * @param overloadRatio o, pressure at 150 % flow over rated pressure, dimensionless (0.65 ≤ o < 1)
+ * @returns [s, n], both dimensionless
+ * @see [NFPA 20] the envelope; the three-point shape (common practice)
+ * @example
+ * pumpCurveShape(1.2, 0.7) // ≈ [1.2, 2.259851]
+ * pumpCurveShape(1.4, 0.65) // ≈ [1.4, 1.550340]
+ * pumpCurveShape(1.5, 0.7)
+ * // throws "shutoff_ratio: got 1.5; a fire pump's shutoff pressure must be above rated pressure and at most 1.4 × rated"
  */
 export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [number, number] {
   if (!(shutoffRatio > 1 && shutoffRatio <= MAX_SHUTOFF_RATIO)) {

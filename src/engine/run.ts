@@ -41,19 +41,23 @@ export interface SegmentLosses {
 }
 
 /**
- * The losses of one segment:
+ * The losses of one segment: friction, elevation and fixed.
  *
  *   friction  = loss(Q, d, C, length + fitting_length)      loss = 4.52 Q^1.85 / (C^1.85 d^4.87) × L psi
  *   elevation = 0.433 × rise
  *   fixed     = fixed_loss
  *
- * @param s the segment, US units
+ * 500 gpm, 4.026 in, C 120, 80 ft + 20 ft of fittings, rise 10 ft, fixed 5 psi: friction 0.07178 × 100 = 7.18 psi,
+ * elevation 0.433 × 10 = 4.33 psi, fixed 5 psi.
+ *
+ * @param s the segment: flow gpm, diameter in, C, lengths and rise ft, fixed loss psi
  * @param hl the head loss of the user's unit system (headLoss(units)), default the [NFPA 13] US form, so that
  *   PIPERUN in SI agrees with FRICTION in SI
- * @returns psi
- * Source: [NFPA 13] Hazen-Williams and 0.433 psi per ft.
- * Worked value: 500 gpm, 4.026 in, C 120, 80 ft + 20 ft of fittings, rise 10 ft, fixed 5 psi →
- * friction 0.07178 × 100 = 7.18 psi, elevation 4.33 psi, fixed 5 psi.
+ * @returns the three losses, psi
+ * @see [NFPA 13] Hazen-Williams and 0.433 psi per ft
+ * @example
+ * segmentLosses({ flow: 500, diameter: 4.026, cFactor: 120, length: 80, fittingLength: 20, rise: 10, fixedLoss: 5 })
+ * // ≈ { friction: 7.18, elevation: 4.33, fixed: 5 } psi
  */
 export function segmentLosses(s: Segment, hl: HeadLoss = headLoss("US")): SegmentLosses {
   if (!(s.flow >= 0)) fail("flow", q("flow", s.flow), "must be 0 or more");
@@ -90,16 +94,27 @@ export type RunStep =
     };
 
 /**
- * Walk a run: accumulate the losses of each segment row from the start pressure. Blank rows pass through (a sheet
- * keeps room for more segments); an unreadable row, or a row whose pressure would go below 0, breaks the chain for
- * every later row's pressure (their losses still stand).
+ * Walk a run: accumulate the losses of each segment row from the start pressure.
  *
  *   pressure_after(i) = start + Σ_{j ≤ i} (friction_j + elevation_j + fixed_j)
  *
- * @param start pressure where the run begins (the demand end), psi (≥ 0)
- * @param rows the rows in order
- * Source: [NFPA 13] hydraulic calculation procedure (losses summed node by node).
- * Worked value: start 40 psi; segments of 7.18 + 4.33 + 5 and 2 + (−4.33) + 0 psi → 56.51 psi, then 54.18 psi.
+ * Blank rows pass through (a sheet keeps room for more segments); an unreadable row, or a row whose pressure would go
+ * below 0, breaks the chain for every later row's pressure (their losses still stand). Start 40 psi; segments of
+ * 7.18 + 4.33 + 5 and 2 + (−4.33) + 0 psi: 40 + 16.51 = 56.51 psi, then 56.51 − 2.33 = 54.18 psi.
+ *
+ * @param start the pressure where the run begins (the demand end), psi (≥ 0)
+ * @param rows the rows in order, losses in psi
+ * @returns one step per row: the pressure after each segment, psi, and the row that broke the chain, if any
+ * @see [NFPA 13] hydraulic calculation procedure (losses summed node by node)
+ * @example
+ * walkRun(40, [{ kind: "segment", losses: { friction: 7.18, elevation: 4.33, fixed: 5 } },
+ *   { kind: "blank" }, { kind: "segment", losses: { friction: 2, elevation: -4.33, fixed: 0 } }])
+ * // [0].pressureAfter ≈ 56.51 psi
+ * // [1] → { kind: "blank" }
+ * // [2].pressureAfter ≈ 54.18 psi
+ * // [2].brokenBy → null
+ * walkRun(40, [{ kind: "unreadable" }, { kind: "segment", losses: { friction: 2, elevation: 0, fixed: 0 } }])
+ * // [1] ≈ { pressureAfter: 42, brokenBy: 1 } psi, row 1
  */
 export function walkRun(start: number, rows: readonly RunInput[]): RunStep[] {
   if (!(start >= 0)) fail("start_pressure", q("pressure", start), "must be 0 or more");

@@ -3,9 +3,15 @@
  */
 import { fail, n as plain, q } from "./errors";
 
-/** Minimum operating pressure of a sprinkler, psi. [NFPA 13] */
+/**
+ * Minimum operating pressure of a sprinkler, psi.
+ * @see [NFPA 13] minimum operating pressure
+ */
 export const MIN_SPRINKLER_PRESSURE_PSI = 7;
-/** Factor for the branch-line length of a rectangular design area: 1.2 √A. [NFPA 13] */
+/**
+ * Factor for the branch-line length of a rectangular design area, 1.2 √A, dimensionless.
+ * @see [NFPA 13] density/area method
+ */
 export const DESIGN_AREA_LENGTH_FACTOR = 1.2;
 
 /**
@@ -25,6 +31,14 @@ export const MIN_HEAD_SPACING_FT = 3;
 /**
  * Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10). Never −0: a value within
  * the allowance of 0 would round to ceil(−1e-9…0) = −0, and a count or a number of steps reads 0.
+ *
+ *   n = ceil(x − 1e-9)
+ *
+ * @param x the count as a fraction, dimensionless
+ * @returns the whole count
+ * @example
+ * ceilCount(10.0000000001) // → 10
+ * ceilCount(10.01) // → 11
  */
 export function ceilCount(x: number): number {
   const n = Math.ceil(x - 1e-9);
@@ -32,35 +46,58 @@ export function ceilCount(x: number): number {
 }
 
 /**
- * Sprinkler discharge, Q = K √P.
- * @param k K-factor, gpm/psi^0.5; @param pressure psi
- * @returns gpm. Source: [NFPA 13]. Worked value: K 5.6 at 7 psi → 14.8 gpm.
+ * Sprinkler discharge.
+ *
+ *   Q = K √P
+ *
+ * K 5.6 at 7 psi: 5.6 × 2.6458 = 14.8 gpm.
+ *
+ * @param k K, the K-factor, gpm/psi^0.5
+ * @param pressure P, the pressure at the sprinkler, psi
+ * @returns Q, the discharge, gpm
+ * @see [NFPA 13] sprinkler discharge
+ * @example
+ * headDischarge(5.6, 7) // ≈ 14.8 gpm
  */
 export function headDischarge(k: number, pressure: number): number {
   return k * Math.sqrt(pressure);
 }
 
 /**
- * Design flow of the most remote sprinkler by the density/area method:
+ * Design flow of the most remote sprinkler by the density/area method.
  *
  *   q = max(density × coverage, K √Pmin)
  *
- * @param density gpm/ft²; @param coverage ft² per sprinkler; @param k gpm/psi^0.5; @param minPressure psi
- * @returns gpm
- * Source: [NFPA 13] density/area method. Worked value: 0.15 gpm/ft² × 130 ft², K 5.6, 7 psi → 19.5 gpm.
+ * 0.15 gpm/ft² × 130 ft², K 5.6, 7 psi: max(19.5, 14.8) = 19.5 gpm.
+ *
+ * @param density the design density, gpm/ft²
+ * @param coverage the floor area per sprinkler, ft²
+ * @param k K, the K-factor, gpm/psi^0.5
+ * @param minPressure Pmin, the minimum operating pressure, psi
+ * @returns q, the flow, gpm
+ * @see [NFPA 13] density/area method
+ * @example
+ * headFlow(0.15, 130, 5.6, 7) // ≈ 19.5 gpm
  */
 export function headFlow(density: number, coverage: number, k: number, minPressure: number): number {
   return Math.max(density * coverage, headDischarge(k, minPressure));
 }
 
 /**
- * Pressure a sprinkler needs to discharge a flow, not below the minimum operating pressure:
+ * Pressure a sprinkler needs to discharge a flow, not below the minimum operating pressure.
  *
  *   p = max((q / K)², Pmin)
  *
- * @param flow gpm; @param k gpm/psi^0.5; @param minPressure psi
- * @returns psi
- * Source: [NFPA 13]. Worked value: K 8.0 flowing 24 gpm → 9 psi (common practice check).
+ * K 8.0 flowing 24 gpm: (24 / 8)² = 9 psi, above 7 psi (common practice check).
+ *
+ * @param flow q, the flow, gpm
+ * @param k K, the K-factor, gpm/psi^0.5
+ * @param minPressure Pmin, the minimum operating pressure, psi
+ * @returns p, the pressure, psi
+ * @see [NFPA 13] sprinkler discharge and minimum operating pressure
+ * @example
+ * headPressure(24, 8, 7) // → 9 psi
+ * headPressure(14, 8, 7) // → 7 psi
  */
 export function headPressure(flow: number, k: number, minPressure: number): number {
   return Math.max((flow / k) ** 2, minPressure);
@@ -72,10 +109,19 @@ function checkPositive(value: number, name: string): void {
 }
 
 /**
- * Sprinklers in the design area, n = ceil(A / coverage), at least 1 (a positive area holds a sprinkler) and at most
+ * Sprinklers in the design area, at least 1 (a positive area holds a sprinkler) and at most
  * MAX_DESIGN_AREA_SPRINKLERS: a coverage below area ÷ 5000 is an input error naming coverage.
- * @param area ft² (or m²); @param coverage per sprinkler, in the unit of area (the ratio has no unit)
- * Source: [NFPA 13] (fractions round up). Worked value: 1500 ft² at 130 ft² → 12.
+ *
+ *   n = ceil(A / coverage)
+ *
+ * 1500 ft² at 130 ft²: ceil(11.54) = 12.
+ *
+ * @param area A, the design area, ft² (or m²)
+ * @param coverage the floor area per sprinkler, in the unit of area (the ratio has no unit)
+ * @returns n, the number of sprinklers
+ * @see [NFPA 13] density/area method (fractions round up)
+ * @example
+ * headCount(1500, 130) // → 12
  */
 export function headCount(area: number, coverage: number): number {
   checkPositive(area, "area");
@@ -100,9 +146,15 @@ export function headCount(area: number, coverage: number): number {
  *   n_line = max(1, ceil(factor √A / S))
  *
  * A spacing below MIN_HEAD_SPACING_FT, or a line of more than MAX_DESIGN_AREA_SPRINKLERS, is an input error.
- * @param area ft²; @param spacing S, between sprinklers on the line, ft
- * @param factor 1.2 by default
- * Source: [NFPA 13]. Worked value: 1500 ft², S 12 ft → ceil(1.2 × 38.73 / 12) = ceil(3.87) = 4.
+ * 1500 ft², S 12 ft: ceil(1.2 × 38.73 / 12) = ceil(3.87) = 4.
+ *
+ * @param area A, the design area, ft² (or m²)
+ * @param spacing S, between sprinklers on the line, ft
+ * @param factor the long side over √A, dimensionless (1.2: DESIGN_AREA_LENGTH_FACTOR)
+ * @returns n_line, the number of sprinklers on a line
+ * @see [NFPA 13] density/area method, 1.2 √A
+ * @example
+ * headsPerLine(1500, 12, 1.2) // → 4
  */
 export function headsPerLine(area: number, spacing: number, factor: number): number {
   checkPositive(area, "area");
@@ -127,5 +179,8 @@ export function headsPerLine(area: number, spacing: number, factor: number): num
   return n;
 }
 
-/** Minimum operating pressure of a sprinkler in SI work, bar (the vocabulary's SI default). [NFPA 13] */
+/**
+ * Minimum operating pressure of a sprinkler in SI work, bar (the vocabulary's SI default).
+ * @see [NFPA 13] minimum operating pressure in SI work
+ */
 export const MIN_SPRINKLER_PRESSURE_BAR = 0.5;

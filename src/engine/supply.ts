@@ -15,7 +15,16 @@ export interface FlowTest {
   testFlow: number;
 }
 
-/** Check a flow test: static > residual ≥ 0, test flow > 0. */
+/**
+ * Check a flow test: static > residual ≥ 0, test flow > 0; an error names the first reading that breaks the rule.
+ *
+ * @param t the flow test: static and residual pressure, psi; test flow, gpm
+ * @see [NFPA 291] hydrant flow test
+ * @example
+ * checkFlowTest({ static: 70, residual: 50, testFlow: 1000 }) // → undefined
+ * checkFlowTest({ static: 70, residual: 80, testFlow: 1000 })
+ * // throws "residual: got 80 psi; must be below the static pressure 70 psi"
+ */
 export function checkFlowTest(t: FlowTest): void {
   if (!(t.static > 0)) fail("static_pressure", q("pressure", t.static), "must be greater than 0");
   if (!(t.residual >= 0)) fail("residual", q("pressure", t.residual), "must be 0 or more");
@@ -26,16 +35,37 @@ export function checkFlowTest(t: FlowTest): void {
 }
 
 /**
- * The flow at which the supply curve reaches 0 psi: Qt (Ps / (Ps − Pr))^(1/1.85).
- * Source: [NFPA 291] supply curve solved for P = 0. Worked value: 70 / 50 at 1000 gpm → 1968 gpm.
+ * The flow at which the supply curve reaches 0 psi.
+ *
+ *   Qe = Qt (Ps / (Ps − Pr))^(1/1.85)
+ *
+ * Static 70, residual 50 psi at 1000 gpm: 1000 × (70 / 20)^(1/1.85) = 1000 × 3.5^0.54054 = 1968 gpm.
+ *
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm (checked by the caller)
+ * @returns Qe, the flow, gpm
+ * @see [NFPA 291] supply curve solved for P = 0
+ * @example
+ * exhaustionFlow({ static: 70, residual: 50, testFlow: 1000 }) // ≈ 1968 gpm
  */
 export function exhaustionFlow(t: FlowTest): number {
   return t.testFlow * Math.pow(t.static / (t.static - t.residual), 1 / HW_FLOW_EXPONENT);
 }
 
 /**
- * The supply curve itself, P(Q) = Ps − (Ps − Pr)(Q/Qt)^1.85, unchecked: for callers that have checked the flow test
- * and the flow, and that handle P ≤ 0 themselves. [NFPA 291]
+ * The supply curve itself, unchecked.
+ *
+ *   P(Q) = Ps − (Ps − Pr) (Q / Qt)^1.85
+ *
+ * For callers that have checked the flow test and the flow, and that handle P ≤ 0 themselves. Static 70, residual
+ * 50 psi at 1000 gpm; at 2500 gpm, past the exhaustion flow: 70 − 20 × 2.5^1.85 = 70 − 20 × 5.4474 = −38.95 psi.
+ *
+ * @param flow Q, the flow, gpm
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm
+ * @returns P, the pressure, psi (0 or below past the exhaustion flow)
+ * @see [NFPA 291] water supply curve
+ * @example
+ * supplyCurve(600, { static: 70, residual: 50, testFlow: 1000 }) // ≈ 62.2 psi
+ * supplyCurve(2500, { static: 70, residual: 50, testFlow: 1000 }) // ≈ -38.95 psi
  */
 export function supplyCurve(flow: number, t: FlowTest): number {
   return t.static - (t.static - t.residual) * Math.pow(flow / t.testFlow, HW_FLOW_EXPONENT);
@@ -47,9 +77,16 @@ export function supplyCurve(flow: number, t: FlowTest): number {
  *   P(Q) = Ps − (Ps − Pr) (Q / Qt)^1.85
  *
  * Flows above the test flow extrapolate along the same curve. Where P(Q) ≤ 0 the supply is exhausted: an error.
- * @param flow Q, gpm (≥ 0)
- * @returns psi (> 0)
- * Source: [NFPA 291]. Worked value: static 70, residual 50 at 1000 gpm; at 600 gpm → 62.2 psi.
+ * Static 70, residual 50 psi at 1000 gpm; at 600 gpm: 70 − 20 × 0.6^1.85 = 70 − 20 × 0.38866 = 62.2 psi.
+ *
+ * @param flow Q, the flow, gpm (≥ 0)
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm
+ * @returns P, the pressure, psi (> 0)
+ * @see [NFPA 291] water supply curve
+ * @example
+ * supplyAt(600, { static: 70, residual: 50, testFlow: 1000 }) // ≈ 62.2 psi
+ * supplyAt(2000, { static: 70, residual: 50, testFlow: 1000 })
+ * // throws "flow: got 2000 gpm; this supply reaches 0 psi at 1968.3 gpm"
  */
 export function supplyAt(flow: number, t: FlowTest): number {
   checkFlowTest(t);
@@ -67,10 +104,15 @@ export function supplyAt(flow: number, t: FlowTest): number {
  *   Q(P) = Qt ((Ps − P) / (Ps − Pr))^(1/1.85)
  *
  * [NFPA 291] writes the exponent as 0.54, the rounded 1/1.85; the exact reciprocal is used so that
- * flowAt(supplyAt(Q)) = Q.
- * @param pressure P, psi, from 0 to the static pressure
- * @returns gpm
- * Source: [NFPA 291]. Worked value: static 70, residual 50 at 1000 gpm; at 20 psi → 1641 gpm (fire flow at 20 psi).
+ * flowAt(supplyAt(Q)) = Q. Static 70, residual 50 psi at 1000 gpm; at 20 psi (the fire flow at 20 psi):
+ * 1000 × (50 / 20)^(1/1.85) = 1641 gpm.
+ *
+ * @param pressure P, the pressure, psi, from 0 to the static pressure
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm
+ * @returns Q, the flow, gpm
+ * @see [NFPA 291] water supply curve
+ * @example
+ * flowAt(20, { static: 70, residual: 50, testFlow: 1000 }) // ≈ 1641 gpm
  */
 export function flowAt(pressure: number, t: FlowTest): number {
   checkFlowTest(t);
@@ -80,9 +122,15 @@ export function flowAt(pressure: number, t: FlowTest): number {
   return t.testFlow * Math.pow((t.static - pressure) / (t.static - t.residual), 1 / HW_FLOW_EXPONENT);
 }
 
-/** Pitot coefficient of a smooth, well-rounded hydrant outlet. [NFPA 291] */
+/**
+ * Pitot coefficient of a smooth, well-rounded hydrant outlet, dimensionless.
+ * @see [NFPA 291] hydrant outlet coefficients
+ */
 export const PITOT_COEFFICIENT_SMOOTH = 0.9;
-/** Pitot flow constant: Q = 29.83 c d² √p with Q gpm, d in, p psi. [NFPA 291] */
+/**
+ * Pitot flow constant: Q = 29.83 c d² √p with Q gpm, d in, p psi.
+ * @see [NFPA 291] hydrant outlet flow
+ */
 export const PITOT_CONSTANT = 29.83;
 
 /**
@@ -90,11 +138,16 @@ export const PITOT_CONSTANT = 29.83;
  *
  *   Q = 29.83 c d² √p
  *
- * @param pitot p, psi (> 0)
- * @param outletDiameter d, in (> 0)
- * @param coefficient c: 0.90 smooth rounded outlet, 0.80 square and sharp, 0.70 square projecting into the barrel
- * @returns gpm
- * Source: [NFPA 291]. Worked value: 2.5 in outlet, c 0.90, 16 psi → 671 gpm.
+ * 2.5 in outlet, c 0.90, 16 psi: 29.83 × 0.90 × 2.5² × √16 = 29.83 × 0.90 × 6.25 × 4 = 671 gpm.
+ *
+ * @param pitot p, the pitot (velocity-head) pressure, psi (> 0)
+ * @param outletDiameter d, the outlet's internal diameter, in (> 0)
+ * @param coefficient c, dimensionless: 0.90 smooth rounded outlet, 0.80 square and sharp, 0.70 square projecting
+ *   into the barrel
+ * @returns Q, the flow, gpm
+ * @see [NFPA 291] hydrant outlet flow from a pitot reading
+ * @example
+ * pitotFlow(16, 2.5, 0.9) // ≈ 671 gpm
  */
 export function pitotFlow(pitot: number, outletDiameter: number, coefficient: number): number {
   return PITOT_CONSTANT * coefficient * outletDiameter * outletDiameter * Math.sqrt(pitot);

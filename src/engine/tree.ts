@@ -123,7 +123,7 @@ interface SolvedLine {
 
 /**
  * Walk one branch line of `count` sprinklers from the end sprinkler (q1 at p1) to the cross main.
- * Source: [NFPA 13] hydraulic calculation, Q = K √P and Hazen-Williams between sprinklers.
+ * @see [NFPA 13] hydraulic calculation, Q = K √P and Hazen-Williams between sprinklers
  */
 function solveLine(count: number, q1: number, p1: number, inp: AreaDemandInput, hl: HeadLoss): SolvedLine {
   const flows = [q1];
@@ -193,15 +193,27 @@ function checkInput(inp: AreaDemandInput): void {
 /**
  * Solve the design area of a tree system sprinkler by sprinkler (the method in the file comment).
  *
- * @param inp the design area, sprinklers and pipes, US units
+ *   n = ceil(A / coverage),   m = ceil(1.2 √A / S),   L = ceil(n / m),   q1 = max(density × coverage, K √Pmin)
+ *
+ * 0.15 gpm/ft² over 1500 ft², 130 ft² per sprinkler, K 5.6, 13 ft spacing, 1.38 in branch lines (1¼ Schedule 40),
+ * 2.469 in cross main (2½ Schedule 40), C 120, 7 psi: n = ceil(11.54) = 12 sprinklers, m = ceil(1.2 × 38.73 / 13)
+ * = ceil(3.58) = 4 on a line, L = 3 lines; q1 = 0.15 × 130 = 19.5 gpm at (19.5 / 5.6)² = 12.13 psi; → 254.3 gpm at
+ * 25.16 psi in the cross main. A two-line example is worked through by hand in test/engine/tree.test.ts.
+ *
+ * @param inp the design area, sprinklers and pipes, US units (gpm/ft², ft², gpm/psi^0.5, ft, in, psi)
  * @param hl the head loss of the user's unit system (headLoss(units)); default the [NFPA 13] US form
  * @param detail also list every flowing sprinkler
- * @returns the cross-main flow (gpm) and pressure (psi) at the last line, counts, and the end-sprinkler pressure
- * Source: [NFPA 13] density/area method and hydraulic calculation procedure.
- * Worked value: 0.15 gpm/ft² over 1500 ft², 130 ft² per sprinkler, K 5.6, 13 ft spacing, 1.38 in branch lines
- * (1¼ Schedule 40), 2.469 in cross main (2½ Schedule 40), C 120, 7 psi: 12 sprinklers, 4 on a line, 3 lines;
- * q1 = 19.5 gpm at 12.13 psi → 254.3 gpm at 25.16 psi in the cross main. A two-line example is worked through by
- * hand in test/engine/tree.test.ts.
+ * @returns the cross-main flow (gpm) and pressure (psi) at the last line, counts, and the end-sprinkler pressure (psi)
+ * @see [NFPA 13] density/area method and hydraulic calculation procedure
+ * @example
+ * solveAreaDemand({ density: 0.15, area: 1500, coverage: 130, kFactor: 5.6, headSpacing: 13,
+ *   branchDiameter: 1.38, mainDiameter: 2.469, cFactor: 120, minPressure: 7 })
+ * // .heads → 12
+ * // .headsPerLine → 4
+ * // .lines → 3
+ * // .endPressure ≈ 12.13 psi
+ * // .flow ≈ 254.3 gpm
+ * // .pressure ≈ 25.16 psi
  */
 export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("US"), detail = false): AreaDemand {
   checkInput(inp);
