@@ -78,7 +78,15 @@ const ROW_OF_MATERIAL: Readonly<Record<Material, CFactorRow>> = {
   concrete: C_TABLE.concrete,
 };
 
-/** The table row a material reads (its description and both C values). */
+/**
+ * The table row a material reads: its description and both C values.
+ *
+ * @param material the material code: "steel", "galvanized", "plastic", "cpvc", "copper", ...
+ * @returns the row: the standard's description and C in wet and dry systems, dimensionless
+ * @see [NFPA 13] Hazen-Williams C value table
+ * @example
+ * cFactorRow("cpvc") // → { description: "plastic (listed), all", wet: 150, dry: 150 }
+ */
 export function cFactorRow(material: Material): CFactorRow {
   const row = ROW_OF_MATERIAL[material];
   if (!row) fail("material", { cell: material }, `must be one of ${MATERIAL_CODES.map((m) => `"${m}"`).join(", ")}`);
@@ -86,11 +94,15 @@ export function cFactorRow(material: Material): CFactorRow {
 }
 
 /**
- * Hazen-Williams C of new pipe of `material` in a `system` ("wet" incl. deluge, "dry" incl. preaction).
+ * Hazen-Williams C of new pipe of a material in a system, by table look-up.
  *
- * Formula: table look-up. Units: dimensionless. Source: [NFPA 13] Hazen-Williams C value table.
- *
- * Example: hazenWilliamsC("steel", "dry") = 100 (black steel in a dry system) [NFPA 13].
+ * @param material the material code: "steel", "galvanized", "plastic", "cpvc", "copper", ...
+ * @param system "wet" (wet-pipe and deluge) or "dry" (dry-pipe and preaction)
+ * @returns C, dimensionless
+ * @see [NFPA 13] Hazen-Williams C value table
+ * @example
+ * hazenWilliamsC("steel", "dry") // → 100 (black steel in a dry system)
+ * hazenWilliamsC("steel") // → 120
  */
 export function hazenWilliamsC(material: Material, system: SystemType = "wet"): number {
   const row = cFactorRow(material);

@@ -40,8 +40,12 @@ export interface HazardInfo {
 }
 
 /**
- * [NFPA 13] density/area curves (from memory), each a straight line between its two points, with the hose stream
- * allowance and water supply duration table (from memory).
+ * The design criteria of each hazard: density gpm/ft², area ft², hose allowance gpm, duration min.
+ *
+ * The density/area curves, each a straight line between its two points, with the hose stream allowance and water
+ * supply duration table.
+ *
+ * @see [NFPA 13] density/area curves, hose stream allowance and water supply duration table (from memory)
  */
 export const HAZARDS: Readonly<Record<Hazard, HazardInfo>> = {
   LH: {
@@ -92,28 +96,59 @@ export const HAZARDS: Readonly<Record<Hazard, HazardInfo>> = {
 };
 
 /**
- * Relative slack accepted at each end of a curve's area span, so that an area typed as the standard's rounded metric
- * equivalent still lands on the curve: the metric edition writes 1500 ft² as 139 m², which is 1496 ft² (0.25 % short).
- * An area within the slack is read as the end point itself; anything further off is an error. 0.5 %.
+ * Relative slack accepted at each end of a curve's area span, dimensionless: 0.5 %.
+ *
+ * So that an area typed as the standard's rounded metric equivalent still lands on the curve: the metric edition
+ * writes 1500 ft² as 139 m², which is 1496 ft² (0.25 % short). An area within the slack is read as the end point
+ * itself; anything further off is an error.
  */
 export const AREA_SPAN_SLACK = 0.005;
 
-/** Design criteria of a hazard. Example: hazardInfo("OH2").name = "ordinary hazard group 2". */
+/**
+ * Design criteria of a hazard.
+ *
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @returns the hazard's name, curve points (gpm/ft², ft²), hose allowances (gpm) and durations (min)
+ * @see [NFPA 13] density/area curves, hose stream allowance and water supply duration table (from memory)
+ * @example
+ * hazardInfo("OH2").name // → "ordinary hazard group 2"
+ * hazardInfo("OH2").upper // → { density: 0.2, area: 1500 } gpm/ft², ft²
+ * hazardInfo("XH") // throws "hazard: got \"XH\"; must be one of LH, OH1, OH2, EH1, EH2"
+ */
 export function hazardInfo(hazard: Hazard): HazardInfo {
   const info = HAZARDS[hazard];
   if (!info) fail("hazard", { cell: hazard }, `must be one of ${HAZARD_CODES.join(", ")}`);
   return info;
 }
 
-/** The area span of a hazard's curve, ft²: from the upper point's area to the lower point's. Example: OH1 → 1500 to 4000. */
+/**
+ * The area span of a hazard's curve: from the upper point's area to the lower point's.
+ *
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @returns the smallest and the largest design area, ft²
+ * @see [NFPA 13] density/area curves (from memory)
+ * @example
+ * areaSpan("OH1") // → { min: 1500, max: 4000 } ft²
+ */
 export function areaSpan(hazard: Hazard): { min: number; max: number } {
   const h = hazardInfo(hazard);
   return { min: h.upper.area, max: h.lower.area };
 }
 
 /**
- * `area` (ft²) placed on a hazard's curve: the area itself inside the span, the end point within AREA_SPAN_SLACK of
- * an end, undefined when it is off the curve.
+ * An area placed on a hazard's curve, or undefined when it is off the curve.
+ *
+ * The area itself inside the span; the end point within AREA_SPAN_SLACK of an end. OH1 spans 1500 to 4000 ft²:
+ * 1496 ft² is short of 1500 but not of 1500 × (1 − 0.005) = 1492.5 ft², so it reads as 1500 ft²; 1400 ft² is off.
+ *
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @param area the design area, ft²
+ * @returns the area on the curve, ft², or undefined
+ * @see [NFPA 13] density/area curves (from memory); the slack is Headroom's own
+ * @example
+ * areaOnCurve("OH1", 2000) // → 2000 ft²
+ * areaOnCurve("OH1", 1496) // → 1500 ft²
+ * areaOnCurve("OH1", 1400) // → undefined
  */
 export function areaOnCurve(hazard: Hazard, area: number): number | undefined {
   const { min, max } = areaSpan(hazard);
@@ -127,11 +162,19 @@ export function areaOnCurve(hazard: Hazard, area: number): number | undefined {
 /**
  * Design density of a hazard at a design area, read from the straight density/area line.
  *
- * Formula: D(A) = D_u + (D_l − D_u) × (A − A_u) / (A_l − A_u), (D_u, A_u) the upper point, (D_l, A_l) the lower one.
- * Units: area ft², density gpm/ft². Source: [NFPA 13] density/area curves (from memory). An area off the curve is an
- * error stating the span. Without an area, the curve's smallest area (the upper point) is used.
+ *   D(A) = D_u + (D_l − D_u) × (A − A_u) / (A_l − A_u)
  *
- * Example: designDensity("OH2", 2000) = 0.20 + (0.17 − 0.20) × (2000 − 1500) / (4000 − 1500) = 0.20 − 0.006 = 0.194 gpm/ft².
+ * (D_u, A_u) is the upper point, (D_l, A_l) the lower one. An area off the curve is an error stating the span.
+ * Without an area, the curve's smallest area (the upper point) is used. OH2 at 2000 ft²:
+ * 0.20 + (0.17 − 0.20) × (2000 − 1500) / (4000 − 1500) = 0.20 − 0.006 = 0.194 gpm/ft².
+ *
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @param area A, the design area, ft² (omitted: the upper point's area)
+ * @returns D, the design density, gpm/ft²
+ * @see [NFPA 13] density/area curves (from memory)
+ * @example
+ * designDensity("OH2", 2000) // ≈ 0.194 gpm/ft²
+ * designDensity("OH2") // → 0.2 gpm/ft²
  */
 export function designDensity(hazard: Hazard, area?: number): number {
   const h = hazardInfo(hazard);
@@ -144,9 +187,13 @@ export function designDensity(hazard: Hazard, area?: number): number {
 }
 
 /**
- * The smallest design area of a hazard's curve (its upper point), ft².
+ * The smallest design area of a hazard's curve (its upper point).
  *
- * Source: [NFPA 13] density/area curves (from memory). Example: designArea("EH1") = 2500 ft².
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @returns the design area, ft²
+ * @see [NFPA 13] density/area curves (from memory)
+ * @example
+ * designArea("EH1") // → 2500 ft²
  */
 export function designArea(hazard: Hazard): number {
   return hazardInfo(hazard).upper.area;
@@ -156,12 +203,20 @@ export function designArea(hazard: Hazard): number {
 export type HosePart = "total" | "inside" | "outside";
 
 /**
- * Hose stream allowance of a hazard, gpm.
+ * Hose stream allowance of a hazard.
  *
- * Formula: "total" = inside + outside from the table; "inside" = the largest inside allowance the table offers
- * (100 gpm); "outside" = total − inside. Units: gpm. Source: [NFPA 13] hose stream allowance table (from memory).
+ *   total = inside + outside (the table's total),   inside = the largest inside allowance offered (100 gpm),
+ *   outside = total − inside
  *
- * Example: hoseAllowance("OH1", "outside") = 250 − 100 = 150 gpm.
+ * OH1 outside: 250 − 100 = 150 gpm.
+ *
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @param part "total", "inside" or "outside"
+ * @returns the allowance, gpm
+ * @see [NFPA 13] hose stream allowance table (from memory)
+ * @example
+ * hoseAllowance("OH1", "outside") // → 150 gpm
+ * hoseAllowance("OH1") // → 250 gpm
  */
 export function hoseAllowance(hazard: Hazard, part: HosePart = "total"): number {
   const h = hazardInfo(hazard);
@@ -182,9 +237,15 @@ export function hoseAllowance(hazard: Hazard, part: HosePart = "total"): number 
 export type DurationBound = "min" | "max";
 
 /**
- * Required water supply duration of a hazard, minutes: the lower ("min") or upper ("max") end of the table's range.
+ * Required water supply duration of a hazard: the lower ("min") or upper ("max") end of the table's range.
  *
- * Source: [NFPA 13] water supply duration table (from memory). Example: supplyDuration("EH2", "max") = 120 min.
+ * @param hazard the occupancy hazard code: "LH", "OH1", "OH2", "EH1" or "EH2"
+ * @param bound "min" or "max"
+ * @returns the duration, min
+ * @see [NFPA 13] water supply duration table (from memory)
+ * @example
+ * supplyDuration("EH2", "max") // → 120 min
+ * supplyDuration("EH2") // → 90 min
  */
 export function supplyDuration(hazard: Hazard, bound: DurationBound = "min"): number {
   const h = hazardInfo(hazard);

@@ -42,6 +42,7 @@ export interface Problem {
   amounts?: readonly Shown[];
 }
 
+/** A problem thrown: its message is the US wording, `messageIn` gives it in either unit system. */
 export class HeadroomError extends Error {
   readonly kind: HeadroomErrorKind;
   readonly argument: string;
@@ -63,34 +64,92 @@ export class HeadroomError extends Error {
   }
 }
 
-/** A quantity in US units, for `got` and `amounts`. */
+/**
+ * A quantity in US units, for `got` and `amounts`.
+ *
+ * @param quantity what it measures: "flow", "pressure", "diameter", "length", ...
+ * @param us the value, in the quantity's US unit (gpm, psi, in, ft, ...)
+ * @returns the quantity, shown in the user's units
+ * @example
+ * q("flow", 500) // → { quantity: "flow", us: 500 }
+ */
 export function q(quantity: Quantity, us: number): Shown {
   return { quantity, us };
 }
 
-/** A plain number (no unit conversion), for `got` and `amounts`. */
+/**
+ * A plain number (no unit conversion), for `got` and `amounts`.
+ *
+ * @param number the number, shown as it is
+ * @param unit a fixed unit written after it, if any
+ * @returns the number to show
+ * @example
+ * n(150, "%") // → { number: 150, unit: "%" }
+ * n(1.2) // → { number: 1.2 }
+ */
 export function n(number: number, unit?: string): Shown {
   return unit === undefined ? { number } : { number, unit };
 }
 
-/** Throw a `#VALUE!`-kind problem. */
+/**
+ * Throw a `#VALUE!`-kind problem.
+ *
+ * @param argument the argument at fault, as the user names it
+ * @param got what it held (US units), or undefined when nothing was given
+ * @param rule the rule broken, with {0}, {1} … slots for `amounts`
+ * @param amounts further amounts (US units)
+ * @example
+ * fail("flow", { quantity: "flow", us: -1 }, "must be 0 or more") // throws "flow: got -1 gpm; must be 0 or more"
+ */
 export function fail(argument: string, got: Shown | undefined, rule: string, ...amounts: Shown[]): never {
   throw new HeadroomError({ kind: "value", argument, got, rule, amounts });
 }
 
-/** Throw a `#N/A`-kind problem: the table has no entry for these inputs. */
+/**
+ * Throw a `#N/A`-kind problem: the table has no entry for these inputs.
+ *
+ * @param argument the argument at fault, as the user names it
+ * @param got what it held (US units), or undefined when nothing was given
+ * @param rule the rule broken, with {0}, {1} … slots for `amounts`
+ * @param amounts further amounts (US units)
+ * @example
+ * notInTable("nominal", { number: 3.5, unit: "in" }, "the table has no gate valve at this size")
+ * // throws "nominal: got 3.5 in; the table has no gate valve at this size"
+ */
 export function notInTable(argument: string, got: Shown | undefined, rule: string, ...amounts: Shown[]): never {
   throw new HeadroomError({ kind: "na", argument, got, rule, amounts });
 }
 
-/** Throw a `#NUM!`-kind problem: outside a physical envelope. */
+/**
+ * Throw a `#NUM!`-kind problem: outside a physical envelope.
+ *
+ * @param argument the argument at fault, as the user names it
+ * @param got what it held (US units), or undefined when nothing was given
+ * @param rule the rule broken, with {0}, {1} … slots for `amounts`
+ * @param amounts further amounts (US units)
+ * @example
+ * outsideEnvelope("shutoff_ratio", { number: 1.5 }, "must be at most {0} × rated", { number: 1.4 })
+ * // throws "shutoff_ratio: got 1.5; must be at most 1.4 × rated"
+ */
 export function outsideEnvelope(argument: string, got: Shown | undefined, rule: string, ...amounts: Shown[]): never {
   throw new HeadroomError({ kind: "number", argument, got, rule, amounts });
 }
 
 /**
- * Require a finite, non-negative (unless `signed`) result of a computation whose inputs were checked: a result that
- * overflows still names the argument whose size caused it (`argument`, `got`), and what would fix it.
+ * Require a finite, non-negative (unless `signed`) result of a computation whose inputs were checked.
+ *
+ * A result that overflows still names the argument whose size caused it (`argument`, `got`), and what would fix it.
+ * −0 comes back as 0.
+ *
+ * @param x the result, in whatever unit it has
+ * @param argument the argument to blame, as the user names it
+ * @param got what that argument held (US units)
+ * @param signed whether a negative result is allowed
+ * @returns x, the same unit (never −0)
+ * @example
+ * finiteOr(-0, "flow", { quantity: "flow", us: 0 }) // → 0
+ * finiteOr(-4.33, "rise", { quantity: "length", us: -10 }, true) // → -4.33
+ * finiteOr(-1, "flow", { quantity: "flow", us: 5 }) // throws "flow: got 5 gpm; gives a negative result; check it"
  */
 export function finiteOr(x: number, argument: string, got: Shown, signed = false): number {
   if (!Number.isFinite(x)) fail(argument, got, "must be smaller: the result is too large to compute");
@@ -98,7 +157,19 @@ export function finiteOr(x: number, argument: string, got: Shown, signed = false
   return x === 0 ? 0 : x; // never −0
 }
 
-/** Format a number for a message: 6 significant digits, no exponent noise for ordinary values, never "-0". */
+/**
+ * Format a value for a message: numbers to 6 significant digits, never "-0"; text quoted; cells as Excel says them.
+ *
+ * @param x a number, or what a cell handed over
+ * @returns the text
+ * @example
+ * show(0.333333333) // → "0.333333"
+ * show(-0) // → "0"
+ * show("abc") // → "\"abc\""
+ * show(null) // → "empty"
+ * show(true) // → "TRUE"
+ * show([[1, 2]]) // → "a range"
+ */
 export function show(x: unknown): string {
   if (typeof x === "number") {
     if (!Number.isFinite(x)) return String(x);
@@ -112,7 +183,16 @@ export function show(x: unknown): string {
   return String(x);
 }
 
-/** One shown thing in `units`. */
+/**
+ * One shown thing in `units`: a quantity converted with its unit name, a number with its fixed unit, text as it is.
+ *
+ * @param s the thing to show (a quantity in US units)
+ * @param units the unit system of the message, "US" or "SI"
+ * @returns the text
+ * @example
+ * showShown({ quantity: "pressure", us: 100 }, "SI") // → "6.89476 bar" (100 × 0.0689476)
+ * showShown({ number: 150, unit: "%" }, "SI") // → "150 %"
+ */
 export function showShown(s: Shown, units: UnitSystem): string {
   if ("quantity" in s) return `${show(fromUS(s.quantity, s.us, units))} ${unitName(s.quantity, units)}`;
   if ("number" in s) return s.unit === undefined ? show(s.number) : `${show(s.number)} ${s.unit}`;
@@ -121,8 +201,19 @@ export function showShown(s: Shown, units: UnitSystem): string {
 }
 
 /**
- * The one-line message of a problem in `units`:
- *   "<argument>: got <value>; <rule>"   or, when nothing was given,   "<argument> <rule>".
+ * The one-line message of a problem in `units`.
+ *
+ *   "<argument>: got <value>; <rule>"   or, when nothing was given,   "<argument> <rule>"
+ *
+ * @param p the problem: argument, what it held and the rule with its amounts (US units)
+ * @param units the unit system of the message, "US" or "SI"
+ * @returns the message
+ * @example
+ * formatProblem({ argument: "residual", got: { quantity: "pressure", us: 80 },
+ *   rule: "must be below the static pressure {0}", amounts: [{ quantity: "pressure", us: 70 }] }, "US")
+ * // → "residual: got 80 psi; must be below the static pressure 70 psi"
+ * formatProblem({ argument: "segments", rule: "must have at least one row" }, "SI")
+ * // → "segments must have at least one row"
  */
 export function formatProblem(p: Pick<Problem, "argument" | "got" | "rule" | "amounts">, units: UnitSystem): string {
   const amounts = p.amounts ?? [];

@@ -16,7 +16,10 @@ export type Fitting = "EE" | "E" | "LtE" | "T" | "BV" | "GV" | "CV";
 /** Every fitting code, in the table's order. */
 export const FITTING_CODES: readonly Fitting[] = ["EE", "E", "LtE", "T", "BV", "GV", "CV"];
 
-/** What each code stands for, as the table names it. */
+/**
+ * What each code stands for, as the table names it.
+ * @see [NFPA 13] equivalent Schedule 40 steel pipe length chart
+ */
 export const FITTING_NAMES: Readonly<Record<Fitting, string>> = {
   EE: "45° elbow",
   E: "90° standard elbow",
@@ -27,7 +30,10 @@ export const FITTING_NAMES: Readonly<Record<Fitting, string>> = {
   CV: "swing check valve",
 };
 
-/** The nominal sizes (in) of the table's columns. */
+/**
+ * The nominal sizes of the table's columns, in (NPS).
+ * @see [NFPA 13] equivalent Schedule 40 steel pipe length chart (from memory)
+ */
 export const FITTING_TABLE_SIZES: readonly number[] = [0.75, 1, 1.25, 1.5, 2, 2.5, 3, 3.5, 4, 5, 6, 8, 10, 12];
 
 /**
@@ -46,10 +52,21 @@ const EQUIVALENT_LENGTH_FT: Readonly<Record<Fitting, ReadonlyArray<number | null
   CV: [null, 5, 7, 9, 11, 14, 16, 19, 22, 27, 32, 45, 55, 65], // [NFPA 13] (from memory)
 };
 
-/** The C factor the table is written for. [NFPA 13] */
+/**
+ * The C factor the table is written for, dimensionless.
+ * @see [NFPA 13] equivalent Schedule 40 steel pipe length chart
+ */
 export const TABLE_C_FACTOR = 120;
 
-/** The nominal sizes (in) at which the table has a value for `fitting`. */
+/**
+ * The nominal sizes at which the table has a value for a fitting.
+ *
+ * @param fitting the fitting code: "EE", "E", "LtE", "T", "BV", "GV" or "CV"
+ * @returns the nominal sizes, in (NPS), ascending
+ * @see [NFPA 13] equivalent Schedule 40 steel pipe length chart (from memory)
+ * @example
+ * fittingSizes("GV") // → [2, 2.5, 3, 3.5, 4, 5, 6, 8, 10, 12] in
+ */
 export function fittingSizes(fitting: Fitting): number[] {
   const row = EQUIVALENT_LENGTH_FT[fitting];
   return FITTING_TABLE_SIZES.filter((_, i) => row[i] !== null);
@@ -58,10 +75,15 @@ export function fittingSizes(fitting: Fitting): number[] {
 /**
  * Equivalent length straight from the table: ft of Schedule 40 steel pipe at C = 120.
  *
- * Source: [NFPA 13] equivalent Schedule 40 steel pipe length chart (from memory). A size outside the table's columns
- * is #VALUE! listing the columns; a gap ("–") is #N/A naming the fitting and the sizes it has.
+ * A size outside the table's columns is #VALUE! listing the columns; a gap ("–") is #N/A naming the fitting and the
+ * sizes it has.
  *
- * Example: tableLength("E", 2) = 5 ft [NFPA 13] (from memory).
+ * @param fitting the fitting code: "EE", "E", "LtE", "T", "BV", "GV" or "CV"
+ * @param nominal the nominal size, in (NPS)
+ * @returns the equivalent length, ft
+ * @see [NFPA 13] equivalent Schedule 40 steel pipe length chart (from memory)
+ * @example
+ * tableLength("E", 2) // → 5 ft
  */
 export function tableLength(fitting: Fitting, nominal: number): number {
   const row = EQUIVALENT_LENGTH_FT[fitting];
@@ -82,10 +104,17 @@ export function tableLength(fitting: Fitting, nominal: number): number {
 /**
  * Multiplier of a table length for a C factor other than 120.
  *
- * Formula: (C / 120)^1.85 (dimensionless). Source: [NFPA 13] equivalent length adjustment table, which rounds these
- * to C 100 → 0.713, 130 → 1.16, 140 → 1.33, 150 → 1.51.
+ *   m = (C / 120)^1.85
  *
- * Example: cFactorMultiplier(150) = (150/120)^1.85 = 1.25^1.85 = 1.5111.
+ * The standard's adjustment table rounds these to C 100 → 0.713, 130 → 1.16, 140 → 1.33, 150 → 1.51.
+ * C 150: (150 / 120)^1.85 = 1.25^1.85 = 1.5111; C 100: (100 / 120)^1.85 = 0.83333^1.85 = 0.7137.
+ *
+ * @param cFactor C, the Hazen-Williams C of the pipe, dimensionless (> 0)
+ * @returns m, dimensionless
+ * @see [NFPA 13] equivalent length adjustment table for C
+ * @example
+ * cFactorMultiplier(150) // ≈ 1.5111
+ * cFactorMultiplier(100) // ≈ 0.7137 (the table writes 0.713)
  */
 export function cFactorMultiplier(cFactor: number): number {
   if (!(cFactor > 0) || !Number.isFinite(cFactor)) fail("c_factor", n(cFactor), "must be greater than 0");
@@ -95,10 +124,18 @@ export function cFactorMultiplier(cFactor: number): number {
 /**
  * Multiplier of a table length for pipe other than Schedule 40 steel of the same nominal size.
  *
- * Formula: (d_actual / d_sch40)^4.87 (dimensionless), d from the schedule tables of ./pipes. Source: [NFPA 13] note
- * to the equivalent length table; internal diameters [ASME B36.10M] and the other schedules' sources.
+ *   m = (d_actual / d_sch40)^4.87
  *
- * Example: diameterMultiplier(2, "10") = (2.157 / 2.067)^4.87 = 1.04354^4.87 = 1.2307.
+ * d from the schedule tables of ./pipes. 2 in Schedule 10: (2.157 / 2.067)^4.87 = 1.04354^4.87 = 1.2307.
+ *
+ * @param nominal the nominal size, in (NPS)
+ * @param schedule the schedule code of the pipe: "10", "40", "CPVC", "K", "L", "M", "DR14" or "DR18"
+ * @returns m, dimensionless
+ * @see [NFPA 13] note to the equivalent length table; internal diameters [ASME B36.10M] and the other schedules'
+ *   sources
+ * @example
+ * diameterMultiplier(2, "10") // ≈ 1.2307
+ * diameterMultiplier(2, "40") // → 1
  */
 export function diameterMultiplier(nominal: number, schedule: Schedule): number {
   const actual = internalDiameter(nominal, schedule);
@@ -108,14 +145,23 @@ export function diameterMultiplier(nominal: number, schedule: Schedule): number 
 }
 
 /**
- * Equivalent pipe length of one fitting or valve in the pipe it sits in, ft.
+ * Equivalent pipe length of one fitting or valve in the pipe it sits in.
  *
- * Formula: L = L_table × (C / 120)^1.85 × (d_schedule / d_sch40)^4.87, L_table in ft of Schedule 40 steel at C 120.
- * Units: nominal in (NPS), length ft. Source: [NFPA 13] equivalent length chart (from memory), its C adjustment table
- * and its note for pipe other than Schedule 40. A size the schedule lacks is #VALUE! (listing its sizes); a table gap
- * is #N/A.
+ *   L = L_table × (C / 120)^1.85 × (d_schedule / d_sch40)^4.87
  *
- * Example: a 2-1/2 in tee in Schedule 10 steel at C 120: 12 × 1 × (2.635 / 2.469)^4.87 = 12 × 1.3728 = 16.47 ft.
+ * L_table in ft of Schedule 40 steel at C 120. A size the schedule lacks is #VALUE! (listing its sizes); a table gap
+ * is #N/A. A 2-1/2 in tee in Schedule 10 steel at C 120: 12 × 1 × (2.635 / 2.469)^4.87 = 12 × 1.3728 = 16.47 ft.
+ *
+ * @param fitting the fitting code: "EE", "E", "LtE", "T", "BV", "GV" or "CV"
+ * @param nominal the nominal size, in (NPS)
+ * @param cFactor C, the Hazen-Williams C of the pipe, dimensionless (default 120)
+ * @param schedule the schedule code of the pipe (default "40")
+ * @returns L, the equivalent length, ft
+ * @see [NFPA 13] equivalent length chart (from memory), its C adjustment table and its note for pipe other than
+ *   Schedule 40
+ * @example
+ * equivalentLength("T", 2.5, 120, "10") // ≈ 16.47 ft
+ * equivalentLength("E", 2) // → 5 ft
  */
 export function equivalentLength(fitting: Fitting, nominal: number, cFactor: number = TABLE_C_FACTOR, schedule: Schedule = "40"): number {
   scheduleInfo(schedule);

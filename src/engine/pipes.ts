@@ -146,12 +146,18 @@ const C900_OUTSIDE_DIAMETER: ReadonlyArray<readonly [nps: number, od: number]> =
 /**
  * Internal diameter of C900 PVC pipe from its outside diameter and dimension ratio.
  *
- * Formula: ID = OD × (1 − 2 / DR), in. DR = OD / t_min, so the wall is t = OD / DR and ID = OD − 2t: this is the
- * minimum-wall derivation (the real average wall is a little thicker, so the real ID is a little smaller, and this
- * ID errs on the large side by a few thousandths of an inch). Source: [AWWA C900] dimension ratio definition,
- * OD (from memory).
+ *   ID = OD × (1 − 2 / DR)
  *
- * Example: 6 in DR14: 6.90 × (1 − 2/14) = 6.90 × 12/14 = 5.9143 in.
+ * DR = OD / t_min, so the wall is t = OD / DR and ID = OD − 2t: this is the minimum-wall derivation (the real average
+ * wall is a little thicker, so the real ID is a little smaller, and this ID errs on the large side by a few
+ * thousandths of an inch). 6 in DR14: 6.90 × (1 − 2/14) = 6.90 × 12/14 = 5.9143 in.
+ *
+ * @param outsideDiameter OD, the outside diameter, in (> 0)
+ * @param dimensionRatio DR, the dimension ratio, dimensionless (> 2)
+ * @returns ID, the internal diameter, in
+ * @see [AWWA C900] dimension ratio definition, OD (from memory)
+ * @example
+ * c900InternalDiameter(6.9, 14) // ≈ 5.9143 in
  */
 export function c900InternalDiameter(outsideDiameter: number, dimensionRatio: number): number {
   if (!(outsideDiameter > 0)) fail("outside_diameter", q("diameter", outsideDiameter), "must be greater than 0");
@@ -159,7 +165,17 @@ export function c900InternalDiameter(outsideDiameter: number, dimensionRatio: nu
   return outsideDiameter * (1 - 2 / dimensionRatio);
 }
 
-/** The trade's written form of a nominal size: 0.75 → "3/4", 2.5 → "2-1/2", 4 → "4". */
+/**
+ * The trade's written form of a nominal size: quarters as fractions, after a hyphen.
+ *
+ * @param nominal the nominal size, in (NPS)
+ * @returns the written form
+ * @see (common practice) the trade's written form of NPS
+ * @example
+ * nominalLabel(0.75) // → "3/4"
+ * nominalLabel(2.5) // → "2-1/2"
+ * nominalLabel(4) // → "4"
+ */
 export function nominalLabel(nominal: number): string {
   const whole = Math.floor(nominal);
   const part = nominal - whole;
@@ -174,12 +190,29 @@ export function nominalLabel(nominal: number): string {
   return whole === 0 ? f[1] : `${whole}-${f[1]}`;
 }
 
-/** The DN of an NPS (2.5 → 65), or undefined when the size has none in the table. [ASME B36.10M] (from memory) */
+/**
+ * The metric designator DN of an NPS, or undefined when the size has none in the table.
+ *
+ * @param nominal the nominal size, in (NPS)
+ * @returns DN, a designator (nominally mm), or undefined
+ * @see [ASME B36.10M] DN designators (from memory)
+ * @example
+ * dnOfNominal(2.5) // → 65
+ * dnOfNominal(7) // → undefined
+ */
 export function dnOfNominal(nominal: number): number | undefined {
   return DN_OF_NPS.find(([nps]) => nps === nominal)?.[1];
 }
 
-/** The NPS of a DN (65 → 2.5), or undefined for a DN the table does not list. [ASME B36.10M] (from memory) */
+/**
+ * The NPS of a metric designator DN, or undefined for a DN the table does not list.
+ *
+ * @param dn the metric designator (nominally mm)
+ * @returns the nominal size, in (NPS), or undefined
+ * @see [ASME B36.10M] DN designators (from memory)
+ * @example
+ * nominalOfDn(65) // → 2.5 in
+ */
 export function nominalOfDn(dn: number): number | undefined {
   return DN_OF_NPS.find(([, d]) => d === dn)?.[0];
 }
@@ -224,7 +257,16 @@ const SCHEDULE_TABLE: Readonly<Record<Schedule, ScheduleInfo>> = {
   },
 };
 
-/** Name, source and sizes of a schedule. Example: scheduleInfo("40").name = "Schedule 40 steel". */
+/**
+ * Name, source and sizes of a schedule.
+ *
+ * @param schedule the schedule code: "10", "40", "CPVC", "K", "L", "M", "DR14" or "DR18"
+ * @returns the schedule's name, the source of its values and its sizes (internal diameters in in)
+ * @see [ASME B36.10M] steel; [ASTM F442] CPVC, [ASTM B88] copper, [AWWA C900] PVC (each from memory)
+ * @example
+ * scheduleInfo("40").name // → "Schedule 40 steel"
+ * scheduleInfo("K").source // → "[ASTM B88] (from memory)"
+ */
 export function scheduleInfo(schedule: Schedule): ScheduleInfo {
   const info = SCHEDULE_TABLE[schedule];
   if (!info) fail("schedule", { cell: schedule }, `must be one of ${SCHEDULE_CODES.map((c) => `"${c}"`).join(", ")}`);
@@ -232,20 +274,43 @@ export function scheduleInfo(schedule: Schedule): ScheduleInfo {
 }
 
 /**
- * The nominal sizes of a schedule in ascending order, each with its label, DN and internal diameter (in).
- * Source: the schedule's table (scheduleInfo(schedule).source). Example: scheduleSizes("CPVC")[0] =
- * { nominal: 0.75, label: "3/4", dn: 20, id: 0.874 }.
+ * The nominal sizes of a schedule in ascending order, each with its label, DN and internal diameter.
+ *
+ * @param schedule the schedule code: "10", "40", "CPVC", "K", "L", "M", "DR14" or "DR18"
+ * @returns the sizes: nominal in (NPS), label, DN, internal diameter in
+ * @see [ASME B36.10M] steel; [ASTM F442] CPVC, [ASTM B88] copper, [AWWA C900] PVC (each from memory)
+ * @example
+ * scheduleSizes("CPVC")[0] // → { nominal: 0.75, label: "3/4", dn: 20, id: 0.874 }
  */
 export function scheduleSizes(schedule: Schedule): readonly PipeSize[] {
   return scheduleInfo(schedule).sizes;
 }
 
-/** The row of `nominal` in `schedule`, or undefined when the schedule does not have that size. */
+/**
+ * The row of a nominal size in a schedule, or undefined when the schedule does not have that size.
+ *
+ * @param nominal the nominal size, in (NPS)
+ * @param schedule the schedule code: "10", "40", "CPVC", "K", "L", "M", "DR14" or "DR18"
+ * @returns the row: nominal in (NPS), label, DN, internal diameter in; or undefined
+ * @see [ASME B36.10M] steel; [ASTM F442] CPVC, [ASTM B88] copper, [AWWA C900] PVC (each from memory)
+ * @example
+ * findPipeSize(2.5, "40") // → { nominal: 2.5, label: "2-1/2", dn: 65, id: 2.469 }
+ * findPipeSize(3.5, "CPVC") // → undefined
+ */
 export function findPipeSize(nominal: number, schedule: Schedule): PipeSize | undefined {
   return scheduleSizes(schedule).find((s) => Math.abs(s.nominal - nominal) < 1e-9);
 }
 
-/** The nominal sizes of a schedule as the trade writes them, for messages: "3/4, 1, 1-1/4, …" (or DN when `dn`). */
+/**
+ * The nominal sizes of a schedule as the trade writes them, for messages: "3/4, 1, 1-1/4, …" (or DN when `dn`).
+ *
+ * @param schedule the schedule code: "10", "40", "CPVC", "K", "L", "M", "DR14" or "DR18"
+ * @param dn list the metric designators instead
+ * @returns the sizes, separated by commas
+ * @example
+ * listSizes("CPVC") // → "3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3"
+ * listSizes("DR14", true) // → "100, 150, 200, 250, 300"
+ */
 export function listSizes(schedule: Schedule, dn = false): string {
   return scheduleSizes(schedule)
     .map((s) => (dn ? String(s.dn) : s.label))
@@ -253,13 +318,20 @@ export function listSizes(schedule: Schedule, dn = false): string {
 }
 
 /**
- * Internal diameter of a pipe of nominal size `nominal` (in) in `schedule`, in inches.
+ * Internal diameter of a pipe of a nominal size in a schedule, by table look-up.
  *
- * Formula: table look-up (C900 DR14/DR18: ID = OD × (1 − 2/DR), see c900InternalDiameter). Units: in.
- * Source: [ASME B36.10M] steel; [ASTM F442] CPVC, [ASTM B88] copper, [AWWA C900] PVC (each from memory).
- * A size the schedule does not have is an error listing the sizes it has.
+ * C900 DR14 and DR18 are derived: ID = OD × (1 − 2/DR), see c900InternalDiameter. A size the schedule does not have
+ * is an error listing the sizes it has.
  *
- * Example: internalDiameter(2.5, "10") = 2.635 in [ASME B36.10M].
+ * @param nominal the nominal size, in (NPS)
+ * @param schedule the schedule code: "10", "40", "CPVC", "K", "L", "M", "DR14" or "DR18"
+ * @returns the internal diameter, in
+ * @see [ASME B36.10M] steel; [ASTM F442] CPVC, [ASTM B88] copper, [AWWA C900] PVC (each from memory)
+ * @example
+ * internalDiameter(2.5, "10") // → 2.635 in
+ * internalDiameter(6, "DR14") // ≈ 5.9143 in
+ * internalDiameter(3.5, "CPVC")
+ * // throws "nominal: got 3.5 in; CPVC SDR 13.5 comes in 3/4, 1, 1-1/4, 1-1/2, 2, 2-1/2, 3 (in)"
  */
 export function internalDiameter(nominal: number, schedule: Schedule): number {
   const row = findPipeSize(nominal, schedule);
