@@ -10,9 +10,10 @@ export const SUPPLY_CURVE_POINTS = 16;
 /** The curve runs to this multiple of the test flow by default, dimensionless. */
 export const SUPPLY_CURVE_FLOW_FACTOR = 1.5;
 /**
- * A supply curve drawn for a demand runs to at least this multiple of the demand flow, so the demand point sits
- * inside the picture with room to read the curve beyond it: the sheet's chart and the pane's plot alike,
- * dimensionless.
+ * How far past the demand flow a supply curve is drawn, as a multiple of it, dimensionless.
+ *
+ * The demand point sits inside the picture with room to read the curve beyond it: the sheet's chart and the pane's
+ * plot alike.
  * @see (common practice)
  */
 export const CURVE_DEMAND_FLOW_FACTOR = 1.2;
@@ -26,8 +27,10 @@ export const SUPPLY_CURVE_MAX_POINTS = 1000;
 export type CurvePoint = readonly [flow: number, pressure: number];
 
 /**
- * `count` + 1 evenly spaced flows from 0 to `end`, plus the `extra` flows that lie strictly inside, ascending and
- * without repeats: the one sampler of the supply curve for the sheet (SUPPLYCURVE) and the pane's plot.
+ * Evenly spaced flows from 0 to `end`, with given flows added in order: the one sampler of the supply curve.
+ *
+ * `count` + 1 flows, plus the `extra` flows that lie strictly inside, ascending and without repeats, for the sheet
+ * (SUPPLYCURVE) and the pane's plot alike.
  *
  *   Q_i = end × i / count,   i = 0 … count
  *

@@ -149,7 +149,7 @@ export function outsideEnvelope(argument: string, got: Shown | undefined, rule: 
  * @example
  * finiteOr(-0, "flow", { quantity: "flow", us: 0 }) // → 0
  * finiteOr(-4.33, "rise", { quantity: "length", us: -10 }, true) // → -4.33
- * finiteOr(-1, "flow", { quantity: "flow", us: 5 }) // throws "flow: got 5 gpm; gives a negative result; check it"
+ * finiteOr(-1, "flow", { quantity: "flow", us: 5 }) // throws "flow: got 5 gpm; must give a result of 0 or more"
  */
 export function finiteOr(x: number, argument: string, got: Shown, signed = false): number {
   if (!Number.isFinite(x)) fail(argument, got, "must be smaller: the result is too large to compute");

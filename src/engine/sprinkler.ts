@@ -15,22 +15,29 @@ export const MIN_SPRINKLER_PRESSURE_PSI = 7;
 export const DESIGN_AREA_LENGTH_FACTOR = 1.2;
 
 /**
- * The most sprinklers one design area, or one branch line of it, may hold. (common practice) A real design area holds
- * tens to a few hundred sprinklers; more than 5000 is a typing error (a coverage in the wrong unit, an area typed
- * with extra zeros), and the bound keeps the sprinkler-by-sprinkler solve of AREADEMAND small.
+ * The most sprinklers one design area, or one branch line of it, may hold.
+ *
+ * A real design area holds tens to a few hundred sprinklers; more than 5000 is a typing error (a coverage in the
+ * wrong unit, an area typed with extra zeros), and the bound keeps the sprinkler-by-sprinkler solve of AREADEMAND
+ * small.
+ * @see (common practice)
  */
 export const MAX_DESIGN_AREA_SPRINKLERS = 5000;
 
 /**
- * The closest spacing of sprinklers along a branch line, ft. (common practice) Half the 6 ft that standard spray
- * sprinklers keep apart: closer is a typing error, not a layout, and the floor leaves room for metric-rounded and
- * specially listed spacings.
+ * The closest spacing of sprinklers along a branch line, ft.
+ *
+ * Half the 6 ft that standard spray sprinklers keep apart: closer is a typing error, not a layout, and the floor
+ * leaves room for metric-rounded and specially listed spacings.
+ * @see (common practice)
  */
 export const MIN_HEAD_SPACING_FT = 3;
 
 /**
- * Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10). Never −0: a value within
- * the allowance of 0 would round to ceil(−1e-9…0) = −0, and a count or a number of steps reads 0.
+ * Round up, forgiving floating-point noise just above a whole number (1500 / 150 stays 10).
+ *
+ * Never −0: a value within the allowance of 0 would round to ceil(−1e-9…0) = −0, and a count or a number of steps
+ * reads 0.
  *
  *   n = ceil(x − 1e-9)
  *
@@ -109,8 +116,10 @@ function checkPositive(value: number, name: string): void {
 }
 
 /**
- * Sprinklers in the design area, at least 1 (a positive area holds a sprinkler) and at most
- * MAX_DESIGN_AREA_SPRINKLERS: a coverage below area ÷ 5000 is an input error naming coverage.
+ * Sprinklers in the design area.
+ *
+ * At least 1 (a positive area holds a sprinkler) and at most MAX_DESIGN_AREA_SPRINKLERS: a coverage below
+ * area ÷ 5000 is an input error naming coverage.
  *
  *   n = ceil(A / coverage)
  *
@@ -140,8 +149,9 @@ export function headCount(area: number, coverage: number): number {
 }
 
 /**
- * Sprinklers along one branch line of a rectangular design area whose long side, factor × √A, runs along the lines,
- * at least 1:
+ * Sprinklers along one branch line of a rectangular design area whose long side, factor × √A, runs along the lines.
+ *
+ * At least 1:
  *
  *   n_line = max(1, ceil(factor √A / S))
  *

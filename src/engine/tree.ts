@@ -38,19 +38,28 @@ import {
 } from "./sprinkler";
 
 /**
- * The closest spacing of the branch lines (coverage ÷ head spacing), ft. (common practice) The same floor as
- * MIN_HEAD_SPACING_FT, half the usual 6 ft between sprinklers: closer lines are a typing error, not a layout.
+ * The closest spacing of the branch lines (coverage ÷ head spacing), ft.
+ *
+ * The same floor as MIN_HEAD_SPACING_FT, half the usual 6 ft between sprinklers: closer lines are a typing error, not
+ * a layout.
+ * @see (common practice)
  */
 export const MIN_LINE_SPACING_FT = 3;
 
 /**
- * The smallest floor area one sprinkler may protect, ft²: the closest head spacing by the closest line spacing,
- * 3 ft × 3 ft = 9 ft². (common practice) A smaller coverage is a typing error (a coverage in m² is still above it:
- * 9.3 m² is 100 ft²), and it would make the design area hold absurdly many sprinklers.
+ * The smallest floor area one sprinkler may protect, ft².
+ *
+ * The closest head spacing by the closest line spacing, 3 ft × 3 ft = 9 ft². A smaller coverage is a typing error (a
+ * coverage in m² is still above it: 9.3 m² is 100 ft²), and it would make the design area hold absurdly many
+ * sprinklers.
+ * @see (common practice)
  */
 export const MIN_COVERAGE_FT2 = MIN_HEAD_SPACING_FT * MIN_LINE_SPACING_FT;
 
-/** Hazen-Williams C of AREADEMAND when none is given: black or galvanized steel, wet. [NFPA 13] */
+/**
+ * Hazen-Williams C of AREADEMAND when none is given: black or galvanized steel, wet, dimensionless.
+ * @see [NFPA 13] Hazen-Williams C value table
+ */
 export const DEFAULT_C_FACTOR = 120;
 
 /** The inputs of a design-area solve, US units. */
