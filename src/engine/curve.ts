@@ -58,43 +58,33 @@ export function sampleFlows(end: number, count: number, extra: readonly number[]
  *   Q_i = maxFlow × i / (points − 1),   P_i = Ps − (Ps − Pr) (Q_i / Qt)^1.85,   i = 0 … points − 1
  *
  * If the supply reaches 0 psi before maxFlow (at Qe = Qt (Ps / (Ps − Pr))^(1/1.85)), the first point at or beyond
- * Qe becomes [Qe, 0] and every later point is null (the cell layer shows it as blank cells), so the number of rows
- * never depends on the values, only on `points`. Static 70, residual 50 psi at 1000 gpm, 4 points to 1500 gpm:
- * 500 gpm → 70 − 20 × 0.5^1.85 = 70 − 20 × 0.27739 = 64.45 psi; 1500 gpm → 70 − 20 × 1.5^1.85 = 70 − 20 × 2.1171
- * = 27.66 psi.
+ * Qe and every later point are [Qe, 0]: every row is a number a chart can plot (a chart reads a blank or text row
+ * as a zero, and an XY chart reads text flows as counting numbers), the line ends at the exhaustion point, and the
+ * number of rows never depends on the values, only on `points`. Static 70, residual 50 psi at 1000 gpm, 4 points to
+ * 1500 gpm: 500 gpm → 70 − 20 × 0.5^1.85 = 70 − 20 × 0.27739 = 64.45 psi; 1500 gpm → 70 − 20 × 1.5^1.85 = 70 − 20 ×
+ * 2.1171 = 27.66 psi. To 3000 gpm: 0 psi at 1000 × (70 / 20)^(1/1.85) = 1000 × 3.5^0.54054 = 1968 gpm, before 2000.
  *
  * @param t the flow test: static and residual pressure, psi; test flow, gpm
  * @param maxFlow the last point's flow, gpm (> 0)
  * @param points the number of rows, a whole number from 2 to SUPPLY_CURVE_MAX_POINTS
- * @returns `points` entries, each a point [flow gpm, pressure psi] or null
+ * @returns `points` points [flow gpm, pressure psi]
  * @see [NFPA 291] water supply curve
  * @example
  * supplyCurvePoints({ static: 70, residual: 50, testFlow: 1000 }, 1500, 4)
  * // ≈ [[0, 70], [500, 64.45], [1000, 50], [1500, 27.66]] psi
  * supplyCurvePoints({ static: 70, residual: 50, testFlow: 1000 }, 3000, 4)
- * // ≈ [[0, 70], [1000, 50], [1968, 0], null] psi
+ * // ≈ [[0, 70], [1000, 50], [1968, 0], [1968, 0]] psi
  */
-export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number): (CurvePoint | null)[] {
+export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number): CurvePoint[] {
   checkFlowTest(t);
   if (!(maxFlow > 0) || !Number.isFinite(maxFlow)) fail("max_flow", q("flow", maxFlow), "must be greater than 0");
   if (!(Number.isInteger(points) && points >= 2 && points <= SUPPLY_CURVE_MAX_POINTS)) {
     fail("points", n(points), "must be a whole number from 2 to {0}", n(SUPPLY_CURVE_MAX_POINTS));
   }
   const qe = exhaustionFlow(t);
-  const rows: (CurvePoint | null)[] = [];
-  let exhausted = false;
-  for (const q of sampleFlows(maxFlow, points - 1)) {
-    if (exhausted) {
-      rows.push(null);
-      continue;
-    }
+  const exhausted: CurvePoint = [qe, 0];
+  return sampleFlows(maxFlow, points - 1).map((q): CurvePoint => {
     const p = t.static - (t.static - t.residual) * Math.pow(q / t.testFlow, HW_FLOW_EXPONENT);
-    if (q >= qe || !(p > 0)) {
-      rows.push([qe, 0]);
-      exhausted = true;
-    } else {
-      rows.push([q, p]);
-    }
-  }
-  return rows;
+    return q >= qe || !(p > 0) ? exhausted : [q, p];
+  });
 }

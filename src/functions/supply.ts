@@ -80,7 +80,7 @@ export const SUPPLYCURVE_SPILL: SpillShape = {
 /**
  * Points of the water supply curve through the hydrant flow test, for a native chart: P = static − (static −
  * residual) × (Q / test_flow)^1.85 (NFPA 291) at flows evenly spaced from 0 to max_flow. Where the supply reaches
- * 0 before max_flow, that row holds [that flow, 0] and the rows after it are blank.
+ * 0 before max_flow, that row and every row after it hold [that flow, 0], so that a chart draws every row.
  * @customfunction
  * @param static_pressure Static pressure of the flow test (psi; SI: bar).
  * @param residual Residual pressure while the test flow runs (psi; SI: bar).
@@ -101,7 +101,7 @@ export function supplycurve(
   return cell(units, (u) => supplyCurveRows(static_pressure, residual, test_flow, max_flow, points, u));
 }
 
-/** SUPPLYCURVE: exactly `points` rows of [flow, pressure]; after the flow where the supply reaches 0, ["", ""]. */
+/** SUPPLYCURVE: exactly `points` rows of [flow, pressure]; from the flow where the supply reaches 0, [that flow, 0]. */
 function supplyCurveRows(
   staticP: unknown,
   residual: unknown,
@@ -113,7 +113,5 @@ function supplyCurveRows(
   const t = flowTestArgs(staticP, residual, testFlow, u);
   const qMax = optionalQuantityArg(maxFlow, "max_flow", "flow", u, SUPPLY_CURVE_FLOW_FACTOR * t.testFlow);
   const n = optionalNumberArg(points, "points", SUPPLY_CURVE_POINTS, { integer: true, min: 2, max: SUPPLY_CURVE_MAX_POINTS });
-  return supplyCurvePoints(t, qMax, n).map((pt) =>
-    pt === null ? ["", ""] : [fromUS("flow", pt[0], u), fromUS("pressure", pt[1], u)],
-  );
+  return supplyCurvePoints(t, qMax, n).map((pt) => [fromUS("flow", pt[0], u), fromUS("pressure", pt[1], u)]);
 }

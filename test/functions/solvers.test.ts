@@ -167,13 +167,21 @@ describe("SUPPLYCURVE", () => {
     expect(rows[15][1]).toBeCloseTo(42.359, 3);
   });
 
-  it("ends at the flow where the supply reaches 0 psi; later rows are blank [NFPA 291]", () => {
+  it("ends at the flow where the supply reaches 0 psi; later rows repeat that point, never blank [NFPA 291]", () => {
     // 0 psi at 1100 × (72 / 14)^(1/1.85) = 1100 × 2.4235 = 2666 gpm
     const rows = supplycurve(72, 58, 1100, 4000, 5); // 0, 1000, 2000, 3000, 4000
     expect(rows).toHaveLength(5);
-    expect(rows[3][0]).toBeCloseTo(2665.8, 0);
-    expect(rows[3][1]).toBe(0);
-    expect(rows[4]).toEqual(["", ""]);
+    expect(rows[2][0]).toBe(2000);
+    for (const r of rows.slice(3)) {
+      expect(r[0]).toBeCloseTo(2665.8, 0);
+      expect(r[1]).toBe(0);
+    }
+    // in SI: the same point in L/min and bar
+    const si = supplycurve(72 * BAR_PER_PSI, 58 * BAR_PER_PSI, 1100 * L_PER_GAL, 4000 * L_PER_GAL, 5, "SI");
+    for (const r of si.slice(3)) {
+      expect(r[0]).toBeCloseTo(2665.8 * L_PER_GAL, -1);
+      expect(r[1]).toBe(0);
+    }
   });
 
   it("works in SI: L/min and bar [NFPA 291]", () => {

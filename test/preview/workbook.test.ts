@@ -67,6 +67,18 @@ describe("spills, names and reloading", () => {
     expect(wb.toData().sheets[0].cells.B2.spill).toBe("B2:C2");
   });
 
+  test("a supply curve that runs out before max_flow spills a number into every cell, down to the last row", () => {
+    const wb = blank();
+    wb.setContent("S", "A1", "=HEADROOM.SUPPLYCURVE(58,44,1050,4200,5)");
+    expect(wb.cell("S", "A1").spillRange).toBe("A1:B5");
+    // 0 psi at 1050 × (58 / 14)^(1/1.85) = 1050 × 4.1429^0.54054 = 2264 gpm [NFPA 291]: before 3150, the fourth row
+    for (const row of [4, 5]) {
+      expect(wb.value("S", `A${row}`)).toBeCloseTo(2264, 0);
+      expect(wb.value("S", `B${row}`)).toBe(0);
+    }
+    for (const address of ["A1", "B1", "A2", "B2", "A3", "B3", "A4", "B4", "A5", "B5"]) expect(typeof wb.value("S", address), address).toBe("number");
+  });
+
   test("names point at cells, can move, and are read case-insensitively", () => {
     const wb = blank();
     wb.setContent("S", "B3", 72);

@@ -60,7 +60,7 @@ function exportOf(id: string): Call | undefined {
 
 /** Functions whose description documents a negative result (ELEVATION: a drop; MARGIN: a shortfall). */
 const mayBeNegative = (r: Registered) => /\bnegative\b/i.test(r.description ?? "");
-/** Spilling functions whose description documents blank cells (RUN's blank rows, SUPPLYCURVE past exhaustion). */
+/** Spilling functions whose description documents blank cells (RUN's blank rows). */
 const mayBeBlank = (r: Registered) => /\bblank\b/i.test(r.description ?? "");
 /** Spilled columns that may be negative: RUN's elevation column (a drop gives a gain). */
 const NEGATIVE_COLUMNS: Readonly<Record<string, readonly number[]>> = { RUN: [1] };

@@ -118,17 +118,24 @@ describe("RUN", () => {
 });
 
 describe("SUPPLYCURVE, PUMPSIZE, PUMPCURVE, SIZEFOR", () => {
-  test.prop([arb.flowTest, fc.integer({ min: 2, max: 60 })], RUNS)("the curve starts at static, falls, and has `points` rows [NFPA 291]", (t, n) => {
-    const rows = f.supplycurve(t.static, t.residual, t.testFlow, null, n) as (number | string)[][];
-    expect(rows).toHaveLength(n);
-    expect(rows[0]).toEqual([0, t.static]);
-    const numeric = rows.filter((r) => typeof r[1] === "number") as number[][];
-    for (let i = 1; i < numeric.length; i++) {
-      expect(numeric[i][0]).toBeGreaterThan(numeric[i - 1][0]);
-      expect(numeric[i][1]).toBeLessThanOrEqual(numeric[i - 1][1]);
-      expect(numeric[i][1]).toBeGreaterThanOrEqual(0);
-    }
-  });
+  test.prop([arb.flowTest, fc.integer({ min: 2, max: 60 })], RUNS)(
+    "the curve starts at static, falls to 0 at most, and has `points` rows of numbers, the 0 point repeated to the end [NFPA 291]",
+    (t, n) => {
+      const rows = f.supplycurve(t.static, t.residual, t.testFlow, null, n) as number[][];
+      expect(rows).toHaveLength(n);
+      expect(rows[0]).toEqual([0, t.static]);
+      for (const r of rows) expect(r.every((v) => typeof v === "number" && Number.isFinite(v))).toBe(true);
+      for (let i = 1; i < rows.length; i++) {
+        if (rows[i - 1][1] === 0) {
+          expect(rows[i]).toEqual(rows[i - 1]);
+        } else {
+          expect(rows[i][0]).toBeGreaterThan(rows[i - 1][0]);
+          expect(rows[i][1]).toBeLessThanOrEqual(rows[i - 1][1]);
+        }
+        expect(rows[i][1]).toBeGreaterThanOrEqual(0);
+      }
+    },
+  );
   test.prop([d(10, 5000), d(0.5, 200)], RUNS)("PUMPSIZE: a standard rating at or above the flow, boost up to a 5 psi step [NFPA 20] (from memory)", (q, boost) => {
     const [[rated, pressure]] = f.pumpsize(q, boost) as number[][];
     expect(STANDARD_RATED_CAPACITIES_GPM).toContain(rated);

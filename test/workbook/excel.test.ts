@@ -1,5 +1,9 @@
-import { describe, expect, it } from "vitest";
-import { cellAddress, parseCell } from "../../src/workbook/a1";
+import { beforeAll, describe, expect, it } from "vitest";
+import * as functions from "../../src/functions/functions";
+import type { CellData } from "../../src/preview/model";
+import { registerHeadroomFunctions } from "../../src/preview/plugin";
+import { PreviewWorkbook } from "../../src/preview/workbook";
+import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
 import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
@@ -8,6 +12,11 @@ import { spillCells } from "../../src/workbook/sheet";
 import { estimateTemplate } from "../../src/workbook/template";
 import { portContract, type PortHarness } from "./contract";
 import { FakeExcel } from "./fakeExcel";
+import { generatedMetadata } from "../preview/metadataFixture";
+
+beforeAll(async () => {
+  registerHeadroomFunctions(await generatedMetadata(), functions);
+});
 
 const SETTLE_MS = 5;
 const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
@@ -59,6 +68,33 @@ function calculate(fake: FakeExcel, sheet: string, value: (address: string) => n
   for (const [a, c] of fake.sheetByName(sheet)!.cells) {
     if (c.formula) Object.assign(c, { value: value(a), error: false });
   }
+}
+
+/**
+ * Calculate a sheet of the fake as Excel does once the functions have answered, with the real cell functions (run by
+ * the preview's formula engine): every formula cell shows its value, and every cell a spill fills shows its part.
+ */
+function calculateWithFunctions(fake: FakeExcel, sheet: string): void {
+  const s = fake.sheetByName(sheet)!;
+  const cells: Record<string, CellData> = {};
+  for (const [a, c] of s.cells) cells[a] = { content: c.formula ?? (c.value === "" ? null : c.value) };
+  const wb = new PreviewWorkbook({ sheets: [{ name: s.name, cells }], names: [] });
+  for (const v of wb.cells(s.name)) {
+    const formula = typeof v.content === "string" && v.content.startsWith("=");
+    if (!formula && !v.spilledFrom) continue;
+    const cell = s.cells.get(v.address) ?? { value: "" };
+    const error = v.value !== null && typeof v.value === "object";
+    Object.assign(cell, { value: error ? (v.value as { error: string }).error : (v.value ?? ""), error });
+    s.cells.set(v.address, cell);
+  }
+}
+
+/** The addresses of a block, row by row. */
+function blockCells(range: string): string[] {
+  const r = parseRange(range);
+  const out: string[] = [];
+  for (let i = 0; i < r.rows; i++) for (let j = 0; j < r.cols; j++) out.push(cellAddress({ row: r.start.row + i, col: r.start.col + j }));
+  return out;
 }
 
 describe("Excel port: reading names", () => {
@@ -167,6 +203,32 @@ describe("Excel port: the estimate sheet", () => {
     expect(chart.props["axes/categoryAxis/title/text"]).toBe("Flow (gpm)");
     expect(chart.props["axes/valueAxis/title/text"]).toBe("Pressure (psi)");
     expect(chart.position).toEqual([t.chart.from, t.chart.to]);
+  });
+
+  it("charts a number on every row of a supply curve that reaches 0 psi before the chart's last flow", async () => {
+    // a weak main: residual 20 of a static 72 psi (below about half of static); it reaches 0 psi at
+    // Qt × (72 / (72 − 20))^(1/1.85) = Qt × 1.3846^0.5405 = 1.192 Qt [NFPA 291], well before the chart's 1.5 Qt
+    const s = demoScenario("US");
+    s.flowTest.residual = 20;
+    const fake = new FakeExcel(["Sheet1"]);
+    const { sheetName } = await excelPort(fake).insertEstimateSheet("US", s);
+    calculateWithFunctions(fake, sheetName);
+    const sheet = fake.sheetByName(sheetName)!;
+    const supply = sheet.charts[0].series[0];
+    expect(supply.name).toBe("Water supply");
+    const xs = blockCells(supply.x!).map((a) => sheet.cells.get(a));
+    const ys = blockCells(supply.y!).map((a) => sheet.cells.get(a));
+    expect(xs).toHaveLength(16);
+    expect(ys).toHaveLength(16);
+    for (const [i, c] of [...xs, ...ys].entries()) {
+      expect(typeof c?.value, `${i < 16 ? "flow" : "pressure"} of row ${i % 16}: ${JSON.stringify(c?.value)}`).toBe("number");
+    }
+    // the supply runs out inside the chart, and the last rows stay at [that flow, 0]
+    const testFlow = sheet.cells.get(fake.nameTarget("Supply_TestFlow")!.address)!.value as number;
+    const exhaustion = testFlow * Math.pow(72 / 52, 1 / 1.85);
+    expect(ys.filter((c) => c!.value === 0).length).toBeGreaterThan(1);
+    expect(xs.at(-1)!.value).toBeCloseTo(exhaustion, 6);
+    expect(ys.at(-1)!.value).toBe(0);
   });
 
   it("keeps text that looks like a formula as text", async () => {
