@@ -8,7 +8,7 @@
  * the one module the preview host and the tests import. Names and argument orders follow the vocabulary.
  */
 import { AREADEMAND_SPILL } from "./demand";
-import { RUN_SPILL } from "./piping";
+import { PIPERUN_SPILL } from "./piping";
 import { PUMPSIZE_SPILL } from "./pump";
 import type { SpillShape } from "./shapes";
 import { SUPPLYCURVE_SPILL } from "./supply";
@@ -25,7 +25,7 @@ export * from "./units";
  * refuses to start when a spilling function in the metadata has none).
  */
 export const SPILL_SHAPES: Readonly<Record<string, SpillShape>> = {
-  RUN: RUN_SPILL,
+  PIPERUN: PIPERUN_SPILL,
   SUPPLYCURVE: SUPPLYCURVE_SPILL,
   AREADEMAND: AREADEMAND_SPILL,
   PUMPSIZE: PUMPSIZE_SPILL,

@@ -1,6 +1,6 @@
 /**
  * Cell functions of the piping: Hazen-Williams friction (FRICTION, FRICTIONRATE), velocity, elevation, a run of pipe
- * segment by segment (RUN), pipe sizing (SIZEFOR) and the pipe, C-factor and fitting tables (PIPEID, CFACTOR,
+ * segment by segment (PIPERUN), pipe sizing (SIZEFOR) and the pipe, C-factor and fitting tables (PIPEID, CFACTOR,
  * FITTINGLENGTH, FITTINGS). Friction comes from the engine's one head-loss interface (headLoss(units)): the NFPA 13
  * form in US work, the EN 12845 form in SI work, the same in every function.
  */
@@ -86,14 +86,14 @@ export function elevation(rise: any, units?: any): number {
   });
 }
 
-// ─── RUN ─────────────────────────────────────────────────────────────────────────────────────────────────────────────────
-/** The columns of a RUN segment row, in order; the first four are required. */
-export const RUN_COLUMNS = ["flow", "diameter", "c_factor", "length", "fitting_length", "rise", "fixed_loss"] as const;
-const RUN_REQUIRED = 4;
-/** RUN's output columns, one row per segment row. */
-export const RUN_OUTPUT_COLUMNS = ["friction", "elevation", "fixed", "pressure_after"] as const;
-/** RUN spills one row per row of `segments`. */
-export const RUN_SPILL: SpillShape = { rows: { rowsOf: "segments" }, columns: RUN_OUTPUT_COLUMNS.length };
+// ─── PIPERUN ─────────────────────────────────────────────────────────────────────────────────────────────────────────────
+/** The columns of a PIPERUN segment row, in order; the first four are required. */
+export const PIPERUN_COLUMNS = ["flow", "diameter", "c_factor", "length", "fitting_length", "rise", "fixed_loss"] as const;
+const PIPERUN_REQUIRED = 4;
+/** PIPERUN's output columns, one row per segment row. */
+export const PIPERUN_OUTPUT_COLUMNS = ["friction", "elevation", "fixed", "pressure_after"] as const;
+/** PIPERUN spills one row per row of `segments`. */
+export const PIPERUN_SPILL: SpillShape = { rows: { rowsOf: "segments" }, columns: PIPERUN_OUTPUT_COLUMNS.length };
 
 /**
  * A run of pipe, segment by segment, from the design area back to the supply: friction (Hazen-Williams, NFPA 13;
@@ -105,13 +105,13 @@ export const RUN_SPILL: SpillShape = { rows: { rowsOf: "segments" }, columns: RU
  * @param units "US" (default) or "SI".
  * @returns Rows of [friction, elevation, fixed, pressure_after] (psi; SI: bar).
  */
-export function run(segments: any[][], start_pressure?: any, units?: any): any[][] {
-  return cell(units, (u) => runRows(segments, start_pressure, u));
+export function piperun(segments: any[][], start_pressure?: any, units?: any): any[][] {
+  return cell(units, (u) => pipeRunRows(segments, start_pressure, u));
 }
 
 /** Read one used row of `segments` into a segment in US units; errors name the row (1-based) and the column. */
 function readSegment(row: readonly unknown[], r: number, u: UnitSystem): Segment {
-  const name = (i: number) => `segments row ${r} ${RUN_COLUMNS[i]}`;
+  const name = (i: number) => `segments row ${r} ${PIPERUN_COLUMNS[i]}`;
   const cellAt = (i: number) => (i < row.length ? row[i] : null);
   const optional = (i: number, read: (v: unknown, n: string) => number) => (isBlank(cellAt(i)) ? 0 : read(cellAt(i), name(i)));
   return {
@@ -126,14 +126,14 @@ function readSegment(row: readonly unknown[], r: number, u: UnitSystem): Segment
 }
 
 /**
- * RUN: one output row per row of `segments`: [friction, elevation, fixed, pressure_after] in the user's units.
+ * PIPERUN: one output row per row of `segments`: [friction, elevation, fixed, pressure_after] in the user's units.
  * A blank row gives a row of "" cells; a row that cannot be read gives its error in its 4 cells; a pressure that
  * cannot be known (it would go below 0, or an earlier row has an error) is an error in that row's pressure cell.
  */
-function runRows(segments: unknown, startPressure: unknown, u: UnitSystem): unknown[][] {
+function pipeRunRows(segments: unknown, startPressure: unknown, u: UnitSystem): unknown[][] {
   const rows = rangeArg(segments, "segments");
   const width = rows[0].length;
-  if (width < RUN_REQUIRED || width > RUN_COLUMNS.length) {
+  if (width < PIPERUN_REQUIRED || width > PIPERUN_COLUMNS.length) {
     fail(
       "segments",
       { text: `a range ${width} column${width === 1 ? "" : "s"} wide` },
@@ -163,7 +163,7 @@ function runRows(segments: unknown, startPressure: unknown, u: UnitSystem): unkn
     const r = i + 1;
     if (step.kind === "blank") return ["", "", "", ""];
     if (step.kind === "unreadable") {
-      return cellRow(RUN_OUTPUT_COLUMNS.length, u, () => {
+      return cellRow(PIPERUN_OUTPUT_COLUMNS.length, u, () => {
         throw problems.get(i);
       });
     }

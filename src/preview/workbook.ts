@@ -15,7 +15,7 @@ import { normaliseTypedFormula } from "./formulaText";
 export const ENGINE_CONFIG: Partial<ConfigParams> = {
   // HyperFormula is used under the GPL v3 (see README, "Licences"); without the key custom functions give #LIC!.
   licenseKey: "gpl-v3",
-  // Spilling formulas behave as in Excel 365: IF(…, RUN(…), …) spills, =A1:A3*2 spills.
+  // Spilling formulas behave as in Excel 365: IF(…, PIPERUN(…), …) spills, =A1:A3*2 spills.
   useArrayArithmetic: true,
   // Values exactly as the functions compute them (the grid rounds for display; files get every digit).
   smartRounding: false,

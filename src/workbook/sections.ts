@@ -6,7 +6,7 @@
  * Columns: A label, B value, C unit, D note; the run table uses A to P. Every formula passes the sheet's Units cell as
  * its `units` argument, so the same sections serve US and SI work. Formulas refer to cells, not to the workbook names,
  * so that an older estimate sheet keeps working after a newer one takes the names over. Spilled results (AREADEMAND,
- * RUN, PUMPSIZE, SUPPLYCURVE) are written as their anchor formula only; the cells they spill into are left empty.
+ * PIPERUN, PUMPSIZE, SUPPLYCURVE) are written as their anchor formula only; the cells they spill into are left empty.
  *
  * The design area's demand is one section among others: `treeDemandSection` (AREADEMAND over a tree of branch lines
  * and a cross main) gives the flow and pressure at the start of the run, and the sections after it read only those
@@ -302,7 +302,7 @@ export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard:
   return sh.done({ flow: `B${areaRow}`, pressure: `C${areaRow}`, system, source: "AREADEMAND" });
 };
 
-/** The pipe run from the design area back to the supply, one row a segment, into RUN. */
+/** The pipe run from the design area back to the supply, one row a segment, into PIPERUN. */
 export function pipeRunSection(s: Scenario, row: number, { units: U, area }: UnitsRefs & { area: AreaDemandRefs }): Section<RunRefs> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
@@ -349,7 +349,7 @@ export function pipeRunSection(s: Scenario, row: number, { units: U, area }: Uni
     sh.put("K", "input", seg.rise, { format: s.units === "SI" ? "0.0" : "0" });
     sh.put("L", "input", seg.fixedLoss, { format: f.pressure });
     if (i === 0) {
-      sh.put("M", "computed", `=${hr("RUN", `F${r}:L${r + n - 1}`, area.pressure, U)}`, { format: f.pressure, spill: { rows: n, cols: 4, formats: [f.pressure, f.pressure, f.pressure, f.pressure] } });
+      sh.put("M", "computed", `=${hr("PIPERUN", `F${r}:L${r + n - 1}`, area.pressure, U)}`, { format: f.pressure, spill: { rows: n, cols: 4, formats: [f.pressure, f.pressure, f.pressure, f.pressure] } });
     }
     sh.row++;
   });
@@ -370,7 +370,7 @@ export function supplyDemandSection(
   const sprinklerFlow = sh.line("Sprinkler flow", "computed", `=${area.flow}`, u.flow, `from ${area.source}`, f.flow);
   const hoseFlow = sh.line("Hose stream allowance", "computed", `=${hazard.hose}`, u.flow, "", f.flow);
   const demandFlow = sh.line("Demand flow, sprinklers + hose", "computed", `=${sprinklerFlow}+${hoseFlow}`, u.flow, "", f.flow);
-  const demandPressure = sh.line("Demand pressure at the supply", "computed", `=${run.pressureAfter}`, u.pressure, "from RUN: the pressure after the last segment", f.pressure);
+  const demandPressure = sh.line("Demand pressure at the supply", "computed", `=${run.pressureAfter}`, u.pressure, "from PIPERUN: the pressure after the last segment", f.pressure);
   sh.name("Demand_HoseFlow", hoseFlow, "Hose stream allowance included in Demand_Flow");
   sh.name("Demand_Flow", demandFlow, "Demand flow at the supply, sprinklers plus hose");
   sh.name("Demand_Pressure", demandPressure, "Pressure the system needs at the supply");

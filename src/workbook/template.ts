@@ -6,7 +6,7 @@
  * Sections, top to bottom:
  *   caution, project and units · water supply (flow test, or a pitot reading through PITOTFLOW) · hazard and design
  *   area (DESIGNAREA, DESIGNDENSITY, HOSEALLOWANCE) · sprinklers and the design area's pipes (HEADFLOW, PIPEID,
- *   CFACTOR, AREADEMAND) · the pipe run back to the supply (PIPEID, CFACTOR, FITTINGS helper columns into RUN) ·
+ *   CFACTOR, AREADEMAND) · the pipe run back to the supply (PIPEID, CFACTOR, FITTINGS helper columns into PIPERUN) ·
  *   demand at the supply · verdict (MARGIN, VERDICT, PUMPBOOST, PUMPSIZE) · supply curve for the chart (SUPPLYCURVE).
  */
 import type { Scenario } from "./scenario";

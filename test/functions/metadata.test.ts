@@ -117,4 +117,27 @@ describe("the cell-function files (scripts/function-files.mjs)", () => {
     expect(new Set(VOCABULARY).size).toBe(VOCABULARY.length);
     for (const name of VOCABULARY) expect(name).toMatch(/^[A-Z][A-Z0-9.]*$/);
   });
+
+  it("no cell name is one Excel's naming guidance for custom functions rules out", () => {
+    // learn.microsoft.com/office/dev/add-ins/excel/custom-functions-naming: at least three characters, a letter first;
+    // not a cell (A1 to XFD1048576, R1C1 to R1048576C16384); not an Excel 4.0 macro function "such as RUN, ECHO".
+    // The further macro function names below (from memory) are those a hydraulics name could plausibly meet.
+    const MACRO_FUNCTIONS = ["RUN", "ECHO", "ALERT", "ARGUMENT", "BEEP", "BREAK", "CALL", "CALLER", "EVALUATE", "EXEC", "FORMULA", "GOTO", "HALT", "INPUT", "MESSAGE", "NEXT", "PAUSE", "REGISTER", "RESTART", "RESULT", "RESUME", "RETURN", "SELECT", "STEP", "VOLATILE", "WAIT", "WHILE"];
+    const columnNumber = (letters: string) => [...letters].reduce((n, ch) => n * 26 + ch.charCodeAt(0) - 64, 0);
+    const isCell = (name: string) => {
+      const a1 = /^([A-Z]{1,3})([0-9]+)$/.exec(name);
+      if (a1) return columnNumber(a1[1]) <= 16384 && Number(a1[2]) >= 1 && Number(a1[2]) <= 1048576;
+      const r1c1 = /^R([0-9]+)C([0-9]+)$/.exec(name);
+      return r1c1 !== null && Number(r1c1[1]) >= 1 && Number(r1c1[1]) <= 1048576 && Number(r1c1[2]) >= 1 && Number(r1c1[2]) <= 16384;
+    };
+    // the check itself, on names it must refuse and keep
+    expect(["XFD1048576", "A1", "R12C3"].map(isCell)).toEqual([true, true, true]);
+    expect(["XFE1", "A0", "HEAD2", "R0C1"].map(isCell)).toEqual([false, false, false, false]);
+    const problems = VOCABULARY.flatMap((name) => [
+      ...(name.length < 3 ? [`${name}: shorter than three characters`] : []),
+      ...(isCell(name) ? [`${name}: reads as a cell address`] : []),
+      ...(MACRO_FUNCTIONS.includes(name) ? [`${name}: an Excel 4.0 macro function's name`] : []),
+    ]);
+    expect(problems).toEqual([]);
+  });
 });

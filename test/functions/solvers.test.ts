@@ -1,5 +1,5 @@
 /**
- * The range functions and solvers from a cell: RUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE, in US
+ * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE, in US
  * and SI units, with their spill shapes and every error path.
  */
 import { describe, expect, it } from "vitest";
@@ -9,10 +9,10 @@ import {
   friction,
   headpressure,
   pipeid,
+  piperun,
   pumpboost,
   pumpcurve,
   pumpsize,
-  run,
   sizefor,
   supplyat,
   supplycurve,
@@ -28,8 +28,8 @@ function cellError(v: unknown): { code: string; message: string } {
   return { code: e.code, message: e.message };
 }
 
-// ─── RUN ─────────────────────────────────────────────────────────────────────────────────────────────────────────
-describe("RUN", () => {
+// ─── PIPERUN ─────────────────────────────────────────────────────────────────────────────────────────────────────
+describe("PIPERUN", () => {
   // flow, diameter, C, length, fitting length, rise, fixed loss; 4 in and 6 in Schedule 40 [ASME B36.10M]
   const segments = [
     [500, 4.026, 120, 80, 20, 10, 5],
@@ -38,7 +38,7 @@ describe("RUN", () => {
   ];
 
   it("matches a column of FRICTION and ELEVATION calls, accumulated from start_pressure [NFPA 13]", () => {
-    const out = run(segments, 40);
+    const out = piperun(segments, 40);
     expect(out).toHaveLength(3);
     let p = 40;
     segments.forEach((s, i) => {
@@ -67,7 +67,7 @@ describe("RUN", () => {
       s[6] === "" || s[6] === null ? s[6] : Number(s[6]) * BAR_PER_PSI,
     ]);
     const start = 40 * BAR_PER_PSI;
-    const out = run(si, start, "SI");
+    const out = piperun(si, start, "SI");
     let p = start;
     si.forEach((s, i) => {
       const f = friction(s[0], s[1], s[2], Number(s[3]) + Number(s[4] || 0), "SI");
@@ -78,26 +78,26 @@ describe("RUN", () => {
       expect(out[i][3]).toBeCloseTo(p, 10);
     });
     // the same run in bar as in psi, within the 0.2 % the two Hazen-Williams forms differ by [NFPA 13] [EN 12845]
-    const us = run(segments, 40);
+    const us = piperun(segments, 40);
     expect(Math.abs(out[2][3] / BAR_PER_PSI / us[2][3] - 1)).toBeLessThan(0.002);
   });
 
   it("gives one output row per input row: blank rows, trailing or not, give blank cells", () => {
-    const out = run([segments[0], [null, null, null, null], segments[1], ["", "", "", ""], [null, "", null, null]], 40);
+    const out = piperun([segments[0], [null, null, null, null], segments[1], ["", "", "", ""], [null, "", null, null]], 40);
     expect(out).toHaveLength(5);
     expect(out[1]).toEqual(["", "", "", ""]);
     expect(out[3]).toEqual(["", "", "", ""]);
     expect(out[4]).toEqual(["", "", "", ""]);
-    expect(out[2][3]).toBeCloseTo(run(segments.slice(0, 2), 40)[1][3], 12);
+    expect(out[2][3]).toBeCloseTo(piperun(segments.slice(0, 2), 40)[1][3], 12);
   });
 
   it("reads an untouched row of zeros (older Excel desktop) as blank", () => {
-    const out = run([segments[0], [0, 0, 0, 0, 0, 0, 0]], 40);
+    const out = piperun([segments[0], [0, 0, 0, 0, 0, 0, 0]], 40);
     expect(out[1]).toEqual(["", "", "", ""]);
   });
 
   it("takes 4 to 7 columns; blank optional columns are 0; start_pressure defaults to 0", () => {
-    const four = run([[500, 4.026, 120, 100]]);
+    const four = piperun([[500, 4.026, 120, 100]]);
     expect(four[0][0]).toBeCloseTo(friction(500, 4.026, 120, 100), 12);
     expect(four[0][1]).toBe(0);
     expect(four[0][2]).toBe(0);
@@ -105,7 +105,7 @@ describe("RUN", () => {
   });
 
   it("a blank required cell is an error naming the row and the column; the other rows compute", () => {
-    const out = run([segments[0], [500, null, 120, 40], segments[2]], 40);
+    const out = piperun([segments[0], [500, null, 120, 40], segments[2]], 40);
     expect(out).toHaveLength(3);
     expect(out[0][3]).toBeCloseTo(56.508, 2);
     for (const c of out[1]) {
@@ -119,7 +119,7 @@ describe("RUN", () => {
   });
 
   it("a 0 where a diameter or C must be, text, or an impossible value: that row's error names row and column", () => {
-    const out = run([[500, 0, 120, 40], [500, 4.026, "C120", 40], [500, 4.026, 120, -5], [500, 4.026, 120, 40, null, null, -2], [true, 4, 120, 1]]);
+    const out = piperun([[500, 0, 120, 40], [500, 4.026, "C120", 40], [500, 4.026, 120, -5], [500, 4.026, 120, 40, null, null, -2], [true, 4, 120, 1]]);
     expect(cellError(out[0][0]).message).toMatch(/^segments row 1 diameter: got 0 in; must be from 0.1 in to 120 in/);
     expect(cellError(out[1][2]).message).toBe('segments row 2 c_factor: got "C120"; must be a number');
     expect(cellError(out[2][1]).message).toMatch(/^segments row 3 length: got -5 ft; must be from 0/);
@@ -129,21 +129,21 @@ describe("RUN", () => {
 
   it("a pressure that would go below 0 is an error in that row's pressure cell, and breaks the later rows", () => {
     // 10 psi + friction − 0.433 × 50 ft = 10 + 0.18 − 21.65 < 0 [NFPA 13]
-    const out = run([[100, 4.026, 120, 50, null, -50], [100, 4.026, 120, 50]], 10);
+    const out = piperun([[100, 4.026, 120, 50, null, -50], [100, 4.026, 120, 50]], 10);
     expect(out[0][1]).toBeCloseTo(-21.65, 10);
     expect(cellError(out[0][3]).message).toMatch(/^segments row 1 pressure_after: got -11\.\d+ psi; must not fall below 0: the drops gain more/);
     expect(cellError(out[1][3]).message).toMatch(/row 1 has an error/);
   });
 
   it("refuses a range of the wrong width, or no range", () => {
-    expect(errorOf(() => run([[500, 4.026, 120]])).message).toBe(
+    expect(errorOf(() => piperun([[500, 4.026, 120]])).message).toBe(
       "segments: got a range 3 columns wide; must be 4 to 7 columns: flow, diameter, c_factor, length, [fitting_length], [rise], [fixed_loss]",
     );
-    expect(errorOf(() => run([[1, 2, 3, 4, 5, 6, 7, 8]])).message).toMatch(/8 columns wide/);
-    expect(errorOf(() => run(5 as never)).message).toMatch(/1 column wide/);
-    expect(errorOf(() => run(null as never)).message).toBe("segments is empty: give a range of cells");
-    expect(errorOf(() => run(segments, -1)).message).toMatch(/^start_pressure: got -1 psi/);
-    expect(errorOf(() => run(segments, 0, "metric-ish")).message).toMatch(/^units/);
+    expect(errorOf(() => piperun([[1, 2, 3, 4, 5, 6, 7, 8]])).message).toMatch(/8 columns wide/);
+    expect(errorOf(() => piperun(5 as never)).message).toMatch(/1 column wide/);
+    expect(errorOf(() => piperun(null as never)).message).toBe("segments is empty: give a range of cells");
+    expect(errorOf(() => piperun(segments, -1)).message).toMatch(/^start_pressure: got -1 psi/);
+    expect(errorOf(() => piperun(segments, 0, "metric-ish")).message).toMatch(/^units/);
   });
 });
 

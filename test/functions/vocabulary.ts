@@ -35,7 +35,7 @@ export const VOCABULARY: string[] = [
   "HOSEALLOWANCE",
   "DURATION",
   // Range functions and solvers
-  "RUN",
+  "PIPERUN",
   "SUPPLYCURVE",
   "AREADEMAND",
   "SIZEFOR",

@@ -5,12 +5,12 @@
 import { describe, expect, test } from "vitest";
 import { fileNameOf, fromFileFormula, normaliseTypedFormula, toFileFormula } from "../../src/preview/formulaText";
 
-const KNOWN = ["HEADROOM.PIPEID", "HEADROOM.RUN", "HEADROOM.SUPPLYCURVE"];
+const KNOWN = ["HEADROOM.PIPEID", "HEADROOM.PIPERUN", "HEADROOM.SUPPLYCURVE"];
 
 describe("from a file to the engine", () => {
   test("an add-in function comes back under its dotted name", () => {
     expect(fromFileFormula("_xldudf_HEADROOM_PIPEID(B36,C36,$B$9)", KNOWN)).toBe("=HEADROOM.PIPEID(B36,C36,$B$9)");
-    expect(fromFileFormula("IF(A1>0,_xldudf_headroom_run(F48:L51,C42),0)", KNOWN)).toBe("=IF(A1>0,HEADROOM.RUN(F48:L51,C42),0)");
+    expect(fromFileFormula("IF(A1>0,_xldudf_headroom_piperun(F48:L51,C42),0)", KNOWN)).toBe("=IF(A1>0,HEADROOM.PIPERUN(F48:L51,C42),0)");
   });
 
   test("the underscore is resolved by the known list, not by a rule", () => {
@@ -44,7 +44,7 @@ describe("from the engine to a file", () => {
     expect(toFileFormula("=IFNA(HEADROOM.PIPEID(B36,\"40\"),0)+SUM(A1:A2)", KNOWN)).toBe(
       '_xlfn.IFNA(_xldudf_HEADROOM_PIPEID(B36,"40"),0)+SUM(A1:A2)',
     );
-    expect(toFileFormula("=headroom.run(F48:L51)", KNOWN)).toBe("_xldudf_HEADROOM_RUN(F48:L51)");
+    expect(toFileFormula("=headroom.piperun(F48:L51)", KNOWN)).toBe("_xldudf_HEADROOM_PIPERUN(F48:L51)");
   });
 
   test("there and back again gives the same formula", () => {
@@ -52,7 +52,7 @@ describe("from the engine to a file", () => {
       "=IF(COUNT(B15:B16)=2,HEADROOM.PIPEID(B15,B16,$B$9),\"\")",
       "=HEADROOM.SUPPLYCURVE(B12,B13,B19,B72,16,$B$9)",
       "=MAX(1.5*B19,1.2*B56)",
-      "=IFNA(A1,\"HEADROOM.RUN(\")",
+      "=IFNA(A1,\"HEADROOM.PIPERUN(\")",
     ];
     for (const f of formulas) expect(fromFileFormula(toFileFormula(f, KNOWN), KNOWN)).toBe(f);
   });

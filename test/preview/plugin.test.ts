@@ -116,7 +116,7 @@ describe("with the real functions module and its generated metadata", () => {
     ];
     const hf = sheet([
       ...segments.map((r) => [...r]),
-      ["=HEADROOM.RUN(A1:G3,40)", null, null, null, "=HEADROOM.AREADEMAND(0.2,1500,130,5.6,12,1.38,2.469)"],
+      ["=HEADROOM.PIPERUN(A1:G3,40)", null, null, null, "=HEADROOM.AREADEMAND(0.2,1500,130,5.6,12,1.38,2.469)"],
       [],
       [],
       ["=HEADROOM.SUPPLYCURVE(84,69,920)", null, "=HEADROOM.SUPPLYCURVE(84,69,920,1400,5)", null, "=HEADROOM.PUMPSIZE(587,37.7)"],
@@ -125,7 +125,7 @@ describe("with the real functions module and its generated metadata", () => {
       const s = hf.simpleCellAddressFromString(a1, 0)!;
       return hf.getRangeValues({ start: s, end: { sheet: 0, row: s.row + rows - 1, col: s.col + cols - 1 } });
     };
-    expect(block("A4", 3, 4)).toEqual(functions.run(segments, 40));
+    expect(block("A4", 3, 4)).toEqual(functions.piperun(segments, 40));
     expect(block("E4", 1, 5)).toEqual(functions.areademand(0.2, 1500, 130, 5.6, 12, 1.38, 2.469));
     expect(block("A7", 16, 2)).toEqual(functions.supplycurve(84, 69, 920));
     expect(block("C7", 5, 2)).toEqual(functions.supplycurve(84, 69, 920, 1400, 5));
@@ -161,20 +161,20 @@ describe("binding and shape checks refuse a mismatch loudly", () => {
   });
 
   test("a shape naming a parameter the function lacks", () => {
-    expect(checkShapes([one("RUN", true)], { RUN: SPILL_SHAPES.RUN })).toEqual([
-      'RUN: spill shape names parameter "segments", which the function does not have',
+    expect(checkShapes([one("PIPERUN", true)], { PIPERUN: SPILL_SHAPES.PIPERUN })).toEqual([
+      'PIPERUN: spill shape names parameter "segments", which the function does not have',
     ]);
   });
 });
 
 describe("spills, with test doubles standing for the spilling functions", () => {
-  // Doubles with the parameter layout of RUN and SUPPLYCURVE (../shared/spec/functions.md); their values only
+  // Doubles with the parameter layout of PIPERUN and SUPPLYCURVE (../shared/spec/functions.md); their values only
   // echo their arguments, to show what the adapter hands over and how it lays the result out.
   const meta: FunctionsMetadata = {
     functions: [
       {
-        id: "RUN",
-        name: "RUN",
+        id: "PIPERUN",
+        name: "PIPERUN",
         parameters: [
           { name: "segments", type: "any", dimensionality: "matrix" },
           { name: "start_pressure", type: "any", optional: true },
@@ -196,7 +196,7 @@ describe("spills, with test doubles standing for the spilling functions", () => 
   };
   const calls: unknown[][] = [];
   const doubles = {
-    run(segments: unknown[][], start?: unknown) {
+    piperun(segments: unknown[][], start?: unknown) {
       calls.push([segments, start]);
       if (start === "bad") throw new ShimCellError("#VALUE!", "start_pressure: got \"bad\"; must be a number");
       return segments.map((row, i) =>
@@ -213,7 +213,7 @@ describe("spills, with test doubles standing for the spilling functions", () => 
   test("a range argument arrives as rows of values, blanks as null, and spills one row per row", () => {
     calls.length = 0;
     const hf = sheet([
-      [10, "x", null, null, "=HEADROOM.RUN(A1:B3, 5)"],
+      [10, "x", null, null, "=HEADROOM.PIPERUN(A1:B3, 5)"],
       [null, 2],
       [30, true],
     ]);
@@ -234,14 +234,14 @@ describe("spills, with test doubles standing for the spilling functions", () => 
   });
 
   test("the spill follows the range when its rows change, and a blocked spill is #SPILL!", () => {
-    const hf = sheet([[1, null, "=HEADROOM.RUN(A1:A2)"], [2], [null, null, "in the way"]]);
+    const hf = sheet([[1, null, "=HEADROOM.PIPERUN(A1:A2)"], [2], [null, null, "in the way"]]);
     expect(hf.getCellValue({ sheet: 0, row: 1, col: 3 })).toBe(2);
-    hf.setCellContents({ sheet: 0, row: 0, col: 2 }, "=HEADROOM.RUN(A1:A3)");
+    hf.setCellContents({ sheet: 0, row: 0, col: 2 }, "=HEADROOM.PIPERUN(A1:A3)");
     expect((hf.getCellValue({ sheet: 0, row: 0, col: 2 }) as DetailedCellError).value).toBe("#SPILL!");
   });
 
   test("a thrown error fills the formula's cell with its code and message", () => {
-    const hf = sheet([[1, "=HEADROOM.RUN(A1:A2,\"bad\")"], [2]]);
+    const hf = sheet([[1, "=HEADROOM.PIPERUN(A1:A2,\"bad\")"], [2]]);
     const e = hf.getCellValue({ sheet: 0, row: 0, col: 1 }) as DetailedCellError;
     expect(e.value).toBe("#VALUE!");
     expect(e.message).toBe('start_pressure: got "bad"; must be a number');
@@ -265,7 +265,7 @@ describe("spills, with test doubles standing for the spilling functions", () => 
   });
 
   test("a result of another size than reserved is an error that says so, never a silent cut", () => {
-    const hf = sheet([["=HEADROOM.RUN({1,2;3,4})"]]);
+    const hf = sheet([["=HEADROOM.PIPERUN({1,2;3,4})"]]);
     // the double returns two rows of four: as reserved (rows of the array literal), so this one works…
     expect(hf.getCellValue({ sheet: 0, row: 1, col: 3 })).toBe(4);
     const lying = { ...doubles, supplycurve: () => [[1, 2]] };

@@ -85,8 +85,8 @@ describe("round trip", () => {
     expect(formulas.some((f) => /HEADROOM\./.test(f))).toBe(false);
     expect(zipEntry(bytes, "xl/workbook.xml")).toMatch(/<calcPr[^>]*fullCalcOnLoad="1"/);
     expect(x.definedNames.model.map((n: { name: string }) => n.name)).toContain("Supply_Static");
-    // the RUN anchor is an array formula over its block
-    const runAnchor = Object.entries(demoWorkbook().toData().sheets[0].cells).find(([, c]) => String(c.content).includes("HEADROOM.RUN("));
+    // the PIPERUN anchor is an array formula over its block
+    const runAnchor = Object.entries(demoWorkbook().toData().sheets[0].cells).find(([, c]) => String(c.content).includes("HEADROOM.PIPERUN("));
     expect(runAnchor).toBeDefined();
     const v = ws.getCell(runAnchor![0]).value as { shareType?: string; ref?: string };
     if (runAnchor![1].spill) {

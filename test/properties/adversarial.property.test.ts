@@ -10,7 +10,7 @@
  *     names (range cells: "segments row N <column>") and, where that argument had a value, says "got ..."; or
  *   - a value with no NaN, no ±Infinity, no −0 anywhere (spilled cells included; "" only where the function's
  *     description documents blank cells), and no negative number except where the function documents one (ELEVATION,
- *     MARGIN) and in RUN's elevation column.
+ *     MARGIN) and in PIPERUN's elevation column.
  * Never a foreign exception (a plain Error, a TypeError) and never a message beginning "unexpected error".
  * fast-check shrinks any failing call to a small counterexample.
  */
@@ -19,7 +19,7 @@ import { fc, test } from "@fast-check/vitest";
 import { generateCustomFunctionsMetadata } from "custom-functions-metadata";
 import { functionFiles } from "../../scripts/function-files.mjs";
 import * as cellFunctions from "../../src/functions/functions";
-import { RUN_COLUMNS } from "../../src/functions/piping";
+import { PIPERUN_COLUMNS } from "../../src/functions/piping";
 import { FITTING_CODES } from "../../src/engine/fittings";
 import { HAZARD_CODES } from "../../src/engine/design";
 import { MATERIAL_CODES } from "../../src/engine/cfactor";
@@ -60,10 +60,10 @@ function exportOf(id: string): Call | undefined {
 
 /** Functions whose description documents a negative result (ELEVATION: a drop; MARGIN: a shortfall). */
 const mayBeNegative = (r: Registered) => /\bnegative\b/i.test(r.description ?? "");
-/** Spilling functions whose description documents blank cells (RUN's blank rows). */
+/** Spilling functions whose description documents blank cells (PIPERUN's blank rows). */
 const mayBeBlank = (r: Registered) => /\bblank\b/i.test(r.description ?? "");
-/** Spilled columns that may be negative: RUN's elevation column (a drop gives a gain). */
-const NEGATIVE_COLUMNS: Readonly<Record<string, readonly number[]>> = { RUN: [1] };
+/** Spilled columns that may be negative: PIPERUN's elevation column (a drop gives a gain). */
+const NEGATIVE_COLUMNS: Readonly<Record<string, readonly number[]>> = { PIPERUN: [1] };
 
 // ─── Plausible values, by parameter name ─────────────────────────────────────────────────────────────────────────
 
@@ -150,7 +150,7 @@ const PLAUSIBLE: Readonly<Record<string, Plausible>> = {
   bound: codes(null, "min", "max"),
 };
 
-/** Plausible cells of a RUN segment row, in RUN_COLUMNS order, US units. */
+/** Plausible cells of a PIPERUN segment row, in PIPERUN_COLUMNS order, US units. */
 const SEGMENT_CELLS: Plausible[] = [
   q("flow", 0, 1500),
   q("diameter", 1, 8),
@@ -275,7 +275,7 @@ function errorProblems(r: Registered, args: unknown[], e: unknown): string[] {
   if (/[\r\n]/.test(message)) problems.push(`message spans lines: ${JSON.stringify(message)}`);
   if (/^unexpected error/i.test(message)) problems.push(`unexpected error: ${message}`);
   const names = r.parameters.map((p) => p.name).sort((a, b) => b.length - a.length);
-  // an output cell that cannot be known (RUN's pressure_after after a broken row) says so and names the row at fault
+  // an output cell that cannot be known (PIPERUN's pressure_after after a broken row) says so and names the row at fault
   const pattern = new RegExp(`^(${names.map(escape).join("|")})(?::| is empty| row (\\d+) ([a-z_]+)(?::| is empty| is not known, because row \\d+))`);
   const m = pattern.exec(message);
   if (!m) return [...problems, `${e.code} message names no argument: ${message}`];
@@ -285,7 +285,7 @@ function errorProblems(r: Registered, args: unknown[], e: unknown): string[] {
   if (m[2] !== undefined) {
     // a range cell: the value of row N, column <column>, when <column> is an input column
     column = m[3];
-    const c = (RUN_COLUMNS as readonly string[]).indexOf(column);
+    const c = (PIPERUN_COLUMNS as readonly string[]).indexOf(column);
     const row = rowsOf(args[i])[Number(m[2]) - 1];
     given = c >= 0 && row !== undefined && c < row.length ? row[c] : undefined;
   }
@@ -388,7 +388,7 @@ const KNOWN: Readonly<Record<string, unknown[][]>> = {
     [0.15, 1500, 130, 5.6, 13, 1.38, 1e-70],
   ],
   ELEVATION: [[-0], [-2.5e-323, "SI"]],
-  RUN: [[[[500, 4.026, 120, 100, 0, -0, 0]]]],
+  PIPERUN: [[[[500, 4.026, 120, 100, 0, -0, 0]]]],
   MARGIN: [[3000, 40, 72, 58, 1100]],
   PUMPBOOST: [[3000, 40, 72, 58, 1100]],
   HEADCOUNT: [[1_000_000, 1e-303], [1e-10, 130]],

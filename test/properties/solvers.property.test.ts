@@ -81,12 +81,12 @@ describe("AREADEMAND", () => {
   });
 });
 
-describe("RUN", () => {
+describe("PIPERUN", () => {
   const segment = fc.tuple(arb.smallFlow, d(1, 6), d(100, 150), d(1, 300), d(0, 50), d(-20, 40), d(0, 10));
   test.prop([fc.array(segment, { minLength: 1, maxLength: 8 }), d(0, 60)], RUNS)(
     "each row equals FRICTION over pipe + fittings, ELEVATION and the fixed loss, accumulated",
     (segs, start) => {
-      const out = f.run(segs, start) as number[][];
+      const out = f.piperun(segs, start) as number[][];
       let p = start;
       let negative = false; // once the pressure would go below 0, that row and every later pressure is an error
       segs.forEach(([q, dia, c, l, fl, rise, fixed], i) => {
@@ -108,7 +108,7 @@ describe("RUN", () => {
       const row = rowPick % rows.length;
       rows[row][colPick] = bad;
       if ((colPick === 0 || colPick === 3) && bad === 0) return; // a flow or a length of 0 is real
-      const out = f.run(rows as never, 200);
+      const out = f.piperun(rows as never, 200);
       expect(out[row].slice(0, 3).every(isError) || isError(out[row][3])).toBe(true);
       out.forEach((r, i) => {
         if (i < row) expect(r.every((v) => typeof v === "number" && Number.isFinite(v))).toBe(true);
@@ -182,7 +182,7 @@ describe("SUPPLYCURVE, PUMPSIZE, PUMPCURVE, SIZEFOR", () => {
   );
 });
 
-describe("invalid inputs of SUPPLYCURVE, SIZEFOR, PUMPSIZE, PUMPCURVE and RUN give an error with a message", () => {
+describe("invalid inputs of SUPPLYCURVE, SIZEFOR, PUMPSIZE, PUMPCURVE and PIPERUN give an error with a message", () => {
   const positive = [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE];
   const specs: { name: string; fn: (...a: unknown[]) => unknown; valid: unknown[]; bad: unknown[][] }[] = [
     {
@@ -214,9 +214,9 @@ describe("invalid inputs of SUPPLYCURVE, SIZEFOR, PUMPSIZE, PUMPCURVE and RUN gi
     });
   }
   test.prop([fc.constantFrom<unknown>([[500, 2, 120]], [[500]], "A1:G3", 5, null, [[]], []), fc.constantFrom(null, -1, "x")], { numRuns: 60 })(
-    "RUN with a range of the wrong shape, or a bad start pressure",
+    "PIPERUN with a range of the wrong shape, or a bad start pressure",
     (segments, start) => {
-      const call = () => f.run(segments as never, start);
+      const call = () => f.piperun(segments as never, start);
       let out: unknown;
       try {
         out = call();

@@ -101,7 +101,7 @@ describe.each(["US", "SI"] as const)("estimate template, %s", (units) => {
       }
     }
     // the functions the estimate is built from
-    for (const f of ["PITOTFLOW", "DESIGNAREA", "DESIGNDENSITY", "HOSEALLOWANCE", "HEADFLOW", "AREADEMAND", "PIPEID", "CFACTOR", "FITTINGS", "RUN", "SUPPLYAT", "MARGIN", "VERDICT", "PUMPBOOST", "PUMPSIZE", "SUPPLYCURVE"]) {
+    for (const f of ["PITOTFLOW", "DESIGNAREA", "DESIGNDENSITY", "HOSEALLOWANCE", "HEADFLOW", "AREADEMAND", "PIPEID", "CFACTOR", "FITTINGS", "PIPERUN", "SUPPLYAT", "MARGIN", "VERDICT", "PUMPBOOST", "PUMPSIZE", "SUPPLYCURVE"]) {
       expect(used.has(f), f).toBe(true);
     }
   });
@@ -164,7 +164,7 @@ describe("estimate template, the US demo worked through", () => {
     if (r.Demand_Flow.kind === "number") expect(r.Demand_Flow.value).toBeCloseTo(sprinklers + 250, 9);
     // density × area: 0.20 gpm/ft² × 1500 ft² = 300 gpm, the least the sprinklers may flow [NFPA 13] (from memory)
     expect(sprinklers).toBeGreaterThanOrEqual(300);
-    const run = t.cells.find((c) => c.formula?.includes("HEADROOM.RUN("))!;
+    const run = t.cells.find((c) => c.formula?.includes("HEADROOM.PIPERUN("))!;
     const a = parseCell(run.address);
     const last = wb.value("Estimate", cellAddress({ row: a.row + run.spill!.rows - 1, col: a.col + 3 }));
     expect(r.Demand_Pressure).toMatchObject({ kind: "number", value: last });
