@@ -25,13 +25,18 @@ export const DEV_SERVER_PORT = 3000;
 /** The add-in's functions entry: re-exports every topic file of src/functions/. */
 const FUNCTIONS_ENTRY = "./src/functions/functions.ts";
 
-/** What every bundle of the project shares: TypeScript through ts-loader (type checking is `npm run typecheck`). */
+/**
+ * What every bundle of the project shares: TypeScript through ts-loader (type checking is `npm run typecheck`), and
+ * source maps as separate .map files in every mode. Never an eval-* devtool: those wrap each module in eval(), and
+ * the pages' Content-Security-Policies (taskpane.html, src/preview/index.html) have no 'unsafe-eval', so such a
+ * bundle stops at its first module (test/security/bundles.test.ts builds the development bundles to check this).
+ */
 export function commonConfig(mode) {
   const production = mode === "production";
   return {
     mode,
     context: root,
-    devtool: production ? "source-map" : "eval-source-map",
+    devtool: "source-map",
     resolve: { extensions: [".ts", ".js"] },
     module: {
       rules: [
@@ -87,8 +92,6 @@ export function previewConfig(mode) {
   return {
     ...commonConfig(mode),
     name: "preview",
-    // no eval-based source maps: the page's Content-Security-Policy allows scripts from 'self' only
-    devtool: "source-map",
     entry: { preview: "./src/preview/main.ts" },
     output: {
       path: path.join(root, "dist", "preview"),

@@ -73,6 +73,48 @@ describe("production add-in bundles", () => {
   });
 });
 
+/**
+ * `npm run dev-server` and `npm run start:excel` serve the development build, and the pane page's
+ * Content-Security-Policy has no 'unsafe-eval': a bundle that evaluates its modules from strings (webpack's eval-*
+ * source maps) stops at its first module, so every cell function and the pane fail to load. The development build
+ * is built here as configured (its source map included), into a temporary folder.
+ */
+describe("development add-in bundles", () => {
+  let devOut = "";
+  let devtool: unknown;
+  const dev: Record<string, string> = {};
+  let maps: string[] = [];
+
+  beforeAll(async () => {
+    devOut = mkdtempSync(path.join(tmpdir(), "headroom-dev-bundle-"));
+    const config = addinConfig("development");
+    devtool = config.devtool;
+    config.output = { ...config.output, path: devOut, clean: true };
+    const stats = await new Promise<webpack.Stats>((resolve, reject) =>
+      webpack(config, (err, s) => (err ? reject(err) : s ? resolve(s) : reject(new Error("no stats")))),
+    );
+    if (stats.hasErrors()) throw new Error(stats.toString({ all: false, errors: true }));
+    const names = readdirSync(devOut);
+    for (const name of names) if (name.endsWith(".js")) dev[name] = readFileSync(path.join(devOut, name), "utf8");
+    maps = names.filter((n) => n.endsWith(".js.map"));
+  }, 240_000);
+
+  afterAll(() => {
+    if (devOut) rmSync(devOut, { recursive: true, force: true });
+  });
+
+  it("evaluate no code from strings (the pane's Content-Security-Policy has no 'unsafe-eval')", () => {
+    expect(Object.keys(dev)).toEqual(expect.arrayContaining(["functions.js", "taskpane.js"]));
+    const counts = Object.entries(dev).map(([name, text]) => [name, (text.match(/\beval\s*\(|\bnew\s+Function\s*\(/g) ?? []).length]);
+    expect(counts.filter(([, n]) => n !== 0)).toEqual([]);
+  });
+
+  it("still come with source maps, as separate files", () => {
+    expect(String(devtool)).not.toMatch(/eval/);
+    expect(maps.sort()).toEqual(expect.arrayContaining(["functions.js.map", "taskpane.js.map"]));
+  });
+});
+
 describe("no evaluation of user text", () => {
   it("no source file of the project calls eval or new Function", () => {
     const offenders: string[] = [];
