@@ -12,9 +12,22 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 // @ts-expect-error: the webpack configuration is plain JavaScript
 import { addinConfig } from "../../webpack.config.js";
 
-const OFFICE_JS = "https://appsforoffice.microsoft.com/lib/1/hosted/office.js";
-/** the same origin, as the pane page's Content-Security-Policy names it */
-const OFFICE_JS_ORIGIN = "https://appsforoffice.microsoft.com";
+/**
+ * Office.js from Microsoft's CDN, which now serves it from officeapis.public.onecdn.static.microsoft
+ * (https://github.com/OfficeDev/office-js-docs-pr/pull/5882, "Update CDN URL to OCDI URL"; the same move in Microsoft's
+ * samples: https://github.com/OfficeDev/office-js-snippets/pull/1119).
+ */
+const OFFICE_JS = "https://officeapis.public.onecdn.static.microsoft/1/office.js";
+/**
+ * Every remote origin the pane page's Content-Security-Policy may name: Office.js's CDN alone. Office.js loads its
+ * host files (excel-web-16.00.js, ...), string tables and the host-trust page (AgaveErrorUX, in a frame, Excel on the
+ * web) from the folder it was itself loaded from (getOfficeJsBasePath in @microsoft/office-js 1.1.110's office.js and
+ * excel-*-16.*.js). Hosts others report (https://github.com/OfficeDev/office-js/issues/1005) that it does not need:
+ * ajax.aspnetcdn.com (MicrosoftAjax.js: office.js loads it only when `requiresMsAjax`, which it never sets),
+ * *.pipe.aria.microsoft.com (telemetry), alcdn.msauth.net (Microsoft's own first-party sign-in) and
+ * appsforoffice.microsoft.com (the former CDN, no longer the one the page loads Office.js from).
+ */
+const OFFICE_JS_ORIGINS = ["https://officeapis.public.onecdn.static.microsoft"];
 const NAMESPACES = new Set(["http://www.w3.org/2000/svg", "http://www.w3.org/1999/xhtml", "http://www.w3.org/1999/xlink"]);
 const URL_PATTERN = /\b(?:https?:)?\/\/[a-z0-9.-]+\.[a-z]{2,}[^\s"'`)<>\\;]*/gi;
 
@@ -48,7 +61,7 @@ describe("production add-in bundles", () => {
     const found = Object.entries(files).flatMap(([name, text]) => [...text.matchAll(URL_PATTERN)].map((m) => `${name}: ${m[0]}`));
     const remote = found.filter((f) => {
       const url = f.slice(f.indexOf(": ") + 2);
-      return url !== OFFICE_JS && url !== OFFICE_JS_ORIGIN && !NAMESPACES.has(url.replace(/^\/\//, "http://"));
+      return url !== OFFICE_JS && !OFFICE_JS_ORIGINS.includes(url) && !NAMESPACES.has(url.replace(/^\/\//, "http://"));
     });
     expect(remote).toEqual([]);
     expect(files["taskpane.html"]).toContain(OFFICE_JS);
@@ -59,7 +72,14 @@ describe("production add-in bundles", () => {
     expect(csp).toMatch(/default-src 'self'/);
     const origins = [...csp.matchAll(/https?:\/\/[^\s;]+/g)].map((m) => m[0]);
     expect(origins.length).toBeGreaterThan(0);
-    expect(new Set(origins)).toEqual(new Set(["https://appsforoffice.microsoft.com"]));
+    expect(new Set(origins)).toEqual(new Set(OFFICE_JS_ORIGINS));
+    // no evaluation from strings, in any bundle (see "development add-in bundles")
+    expect(csp).not.toMatch(/unsafe-eval/);
+    const directive = (name: string) => new RegExp(`(?:^|;)\\s*${name}\\s+([^;]*)`).exec(csp)?.[1].trim().split(/\s+/) ?? [];
+    // Office.js itself, and the frame it opens on Excel on the web, come from its own CDN
+    const officeOrigin = new URL(OFFICE_JS).origin;
+    expect(directive("script-src")).toContain(officeOrigin);
+    expect(directive("frame-src")).toContain(officeOrigin);
   });
 
   it("carry neither HyperFormula nor mathjs's expression parser", () => {
