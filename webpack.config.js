@@ -18,7 +18,8 @@ import { fileURLToPath } from "node:url";
 import CopyWebpackPlugin from "copy-webpack-plugin";
 import CustomFunctionsMetadataPlugin from "custom-functions-metadata-plugin";
 import HtmlWebpackPlugin from "html-webpack-plugin";
-import { functionFiles } from "./scripts/function-files.mjs";
+import webpack from "webpack";
+import { functionFiles, shippedMetadata } from "./scripts/function-files.mjs";
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 export const DEV_SERVER_PORT = 3000;
@@ -51,6 +52,26 @@ export function commonConfig(mode) {
   };
 }
 
+/**
+ * Rewrites the functions.json the metadata plugin emitted into the metadata the add-in ships (shippedMetadata in
+ * scripts/function-files.mjs: without allowCustomDataForDataTypeAny, which the generator always writes).
+ */
+class ShippedMetadataPlugin {
+  apply(compiler) {
+    compiler.hooks.thisCompilation.tap("ShippedMetadataPlugin", (compilation) => {
+      compilation.hooks.processAssets.tap(
+        { name: "ShippedMetadataPlugin", stage: webpack.Compilation.PROCESS_ASSETS_STAGE_ADDITIONS },
+        () => {
+          const asset = compilation.getAsset("functions.json");
+          if (!asset) return;
+          const json = shippedMetadata(asset.source.source().toString());
+          compilation.updateAsset("functions.json", new webpack.sources.RawSource(json));
+        },
+      );
+    });
+  }
+}
+
 /** The add-in itself: cell functions, task pane page (= shared runtime) and icons. */
 export function addinConfig(mode) {
   return {
@@ -70,6 +91,7 @@ export function addinConfig(mode) {
       // First, as the templates have it: it generates functions.json and adds the associate calls to functions.ts.
       // It reads every file that holds a @customfunction (the topic files): one list shared with the tests.
       new CustomFunctionsMetadataPlugin({ output: "functions.json", input: functionFiles() }),
+      new ShippedMetadataPlugin(),
       new HtmlWebpackPlugin({
         filename: "taskpane.html",
         template: "./src/taskpane/taskpane.html",

@@ -18,3 +18,22 @@ export function functionFiles() {
     .map((f) => path.join(FUNCTIONS_DIR, f))
     .filter((file) => /^\s*\*\s*@customfunction\b/m.test(readFileSync(file, "utf8")));
 }
+
+/**
+ * The metadata as the add-in ships it (dist/functions.json): the generator's output without
+ * `allowCustomDataForDataTypeAny`. custom-functions-metadata (2.2.3, lib/generate.js) writes that key as true for
+ * every project, with no option to leave it out; it makes Excel hand data-typed cells (formatted numbers, entities,
+ * images) to `any` parameters as objects, and needs CustomFunctionsRuntime 1.4
+ * (https://learn.microsoft.com/javascript/api/requirement-sets/excel/custom-functions-requirement-sets,
+ * https://learn.microsoft.com/office/dev/add-ins/excel/custom-functions-json#allowcustomdatafordatatypeany).
+ * Headroom uses no data types: the build takes the key out (webpack.config.js), and args.ts still reads the basic
+ * value of a data-typed cell, or refuses it, should one arrive.
+ *
+ * @param {string} json functions.json as the generator wrote it
+ * @returns {string} the same metadata without the key
+ */
+export function shippedMetadata(json) {
+  const metadata = JSON.parse(json);
+  delete metadata.allowCustomDataForDataTypeAny;
+  return JSON.stringify(metadata, null, 4);
+}

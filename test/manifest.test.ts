@@ -33,7 +33,7 @@ describe("manifest.xml", () => {
   it("is the Headroom add-in: namespace HEADROOM, shared runtime, Excel workbook host", () => {
     expect(manifest).toContain('<bt:String id="Functions.Namespace" DefaultValue="HEADROOM"/>');
     expect(manifest).toContain('<Set Name="SharedRuntime" MinVersion="1.1"/>');
-    expect(manifest).toContain('<Set Name="CustomFunctionsRuntime" MinVersion="1.1"/>');
+    expect(manifest).toContain('<Set Name="CustomFunctionsRuntime" MinVersion="1.3"/>');
     expect(manifest).toContain('<Runtime resid="Taskpane.Url" lifetime="long"/>');
     expect(manifest).toContain('<Host Name="Workbook"/>');
     expect(manifest).toContain("<ProviderName>Headroom</ProviderName>");

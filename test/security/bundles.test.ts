@@ -33,6 +33,7 @@ const URL_PATTERN = /\b(?:https?:)?\/\/[a-z0-9.-]+\.[a-z]{2,}[^\s"'`)<>\\;]*/gi;
 
 let out = "";
 const files: Record<string, string> = {};
+let metadataJson = "";
 
 beforeAll(async () => {
   out = mkdtempSync(path.join(tmpdir(), "headroom-bundle-"));
@@ -46,6 +47,7 @@ beforeAll(async () => {
   for (const name of readdirSync(out)) {
     if (/\.(js|html)$/.test(name)) files[name] = readFileSync(path.join(out, name), "utf8");
   }
+  metadataJson = readFileSync(path.join(out, "functions.json"), "utf8");
 }, 240_000);
 
 afterAll(() => {
@@ -80,6 +82,12 @@ describe("production add-in bundles", () => {
     const officeOrigin = new URL(OFFICE_JS).origin;
     expect(directive("script-src")).toContain(officeOrigin);
     expect(directive("frame-src")).toContain(officeOrigin);
+  });
+
+  it("ship functions.json without allowCustomDataForDataTypeAny (data-typed cells stay basic values; see test/requirements.test.ts)", () => {
+    const metadata = JSON.parse(metadataJson);
+    expect(metadata.functions.length).toBeGreaterThan(0);
+    expect(metadata).not.toHaveProperty("allowCustomDataForDataTypeAny");
   });
 
   it("carry neither HyperFormula nor mathjs's expression parser", () => {
