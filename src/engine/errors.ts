@@ -160,6 +160,9 @@ export function finiteOr(x: number, argument: string, got: Shown, signed = false
 /**
  * Format a value for a message: numbers to 6 significant digits, never "-0"; text quoted; cells as Excel says them.
  *
+ * A data type (an object cell value such as `{ type: "Entity", text }`) is named by its type and text, an error value
+ * by its error text.
+ *
  * @param x a number, or what a cell handed over
  * @returns the text
  * @example
@@ -169,6 +172,8 @@ export function finiteOr(x: number, argument: string, got: Shown, signed = false
  * show(null) // → "empty"
  * show(true) // → "TRUE"
  * show([[1, 2]]) // → "a range"
+ * show({ type: "Entity", text: "Pump house" }) // → "a data type (Entity \"Pump house\")"
+ * show({ type: "Error", basicValue: "#DIV/0!" }) // → "#DIV/0!"
  */
 export function show(x: unknown): string {
   if (typeof x === "number") {
@@ -180,7 +185,18 @@ export function show(x: unknown): string {
   if (x === null || x === undefined) return "empty";
   if (typeof x === "boolean") return x ? "TRUE" : "FALSE";
   if (Array.isArray(x)) return "a range";
+  if (typeof x === "object") return showCellObject(x as { type?: unknown; basicValue?: unknown; text?: unknown });
   return String(x);
+}
+
+/**
+ * A cell value that is an object, as Excel's data types are (Excel.CellValue: `{ type: "Entity", text, ... }`): an
+ * error as its error text, another data type by its type and its text, anything else as "an object".
+ */
+function showCellObject(x: { type?: unknown; basicValue?: unknown; text?: unknown }): string {
+  if (typeof x.type !== "string") return "an object";
+  if (x.type === "Error" && typeof x.basicValue === "string") return x.basicValue;
+  return `a data type (${x.type}${typeof x.text === "string" ? ` ${JSON.stringify(x.text)}` : ""})`;
 }
 
 /**

@@ -34,8 +34,26 @@ export const FLOORS_US: Partial<Record<Quantity, number>> = {
   kfactor: 0.1, // gpm/psi^0.5: below every sprinkler K-factor
 };
 
+/**
+ * The basic value of a data-typed cell value, or the value itself. Excel hands a data-typed cell to an `any`
+ * parameter as an object when functions.json allows custom data (the add-in ships without that key, but a check must
+ * not depend on it): the cell-value shapes of the Excel JavaScript API (https://learn.microsoft.com/javascript/api/excel/excel.cellvalue).
+ * Double and FormattedNumber give their number, String its text, Boolean its TRUE/FALSE, Empty "". Any other value
+ * comes back as it is: plain values, ranges, and the data types whose basic value is an error (Entity,
+ * LinkedEntity, WebImage, Array, Error, ...), which the checks then refuse, `show` naming the data type.
+ */
+export function cellBasicValue(value: unknown): unknown {
+  if (value === null || typeof value !== "object" || Array.isArray(value)) return value;
+  const { type, basicValue } = value as { type?: unknown; basicValue?: unknown };
+  if (type === "Double" || type === "FormattedNumber") return typeof basicValue === "number" ? basicValue : value;
+  if (type === "String") return typeof basicValue === "string" ? basicValue : value;
+  if (type === "Boolean") return typeof basicValue === "boolean" ? basicValue : value;
+  return type === "Empty" ? "" : value;
+}
+
 /** True when a cell value stands for "nothing here": an omitted argument, an empty cell or empty text. */
 export function isBlank(value: unknown): boolean {
+  if (value !== null && typeof value === "object") value = cellBasicValue(value);
   return value === null || value === undefined || (typeof value === "string" && value.trim() === "");
 }
 
@@ -43,6 +61,7 @@ const NUMERIC_TEXT = /^[+-]?(\d+(\.\d*)?|\.\d+)(e[+-]?\d+)?$/i;
 
 /** Any cell value as a finite number, or an error naming `name`. Numeric text ("12.5") is accepted. */
 export function toNumber(value: unknown, name: string): number {
+  if (value !== null && typeof value === "object") value = cellBasicValue(value);
   if (isBlank(value)) fail(name, undefined, "is empty: type a number");
   if (typeof value === "number") {
     if (Number.isFinite(value)) return value;
@@ -178,6 +197,7 @@ function foldCode(value: string): string {
 export function codeArg<C extends string>(value: unknown, name: string, codes: Readonly<Record<C, readonly string[]>>, hint = ""): C {
   const list = Object.keys(codes) as C[];
   const allowed = list.map((c) => `"${c}"`).join(", ") + hint;
+  if (value !== null && typeof value === "object") value = cellBasicValue(value);
   if (isBlank(value)) fail(name, undefined, `is empty: type one of ${allowed}`);
   if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${allowed}`);
   const text = String(value);

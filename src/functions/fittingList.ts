@@ -6,7 +6,7 @@
  */
 import { fail, show } from "../engine/errors";
 import { FITTING_CODES, type Fitting } from "../engine/fittings";
-import { isBlank } from "./args";
+import { cellBasicValue, isBlank } from "./args";
 
 /** Spellings of each fitting code (lower case, hyphens and "°" read as spaces). */
 export const FITTING_ALIASES: Readonly<Record<Fitting, readonly string[]>> = {
@@ -73,6 +73,7 @@ function countOf(text: string, list: unknown, name: string): number {
  * glued ("2E", "2x E") or apart ("2 E", "2 x E"). The result keeps the order typed; an empty list is an error.
  */
 export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
+  value = cellBasicValue(value);
   if (isBlank(value)) fail(name, undefined, `is empty: type fittings such as "2E T GV" or "elbow, tee, check"; codes: ${FITTING_HELP}`);
   if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be text such as "2E T GV"`);
   const text = String(value);
@@ -130,6 +131,7 @@ export function fittingListArg(value: unknown, name = "list"): FittingCount[] {
 
 /** One fitting (FITTINGLENGTH): a code or plain word, no count; a list is an error that points to FITTINGS. */
 export function fittingArg(value: unknown, name = "fitting"): Fitting {
+  value = cellBasicValue(value);
   if (isBlank(value)) fail(name, undefined, `is empty: type one of ${FITTING_HELP}`);
   if (typeof value !== "string" && typeof value !== "number") fail(name, { cell: value }, `must be one of ${FITTING_HELP}`);
   let items: FittingCount[];

@@ -9,7 +9,7 @@
 import { fail } from "../engine/errors";
 import { type Schedule, findPipeSize, listSizes, nominalOfDn, scheduleInfo } from "../engine/pipes";
 import type { UnitSystem } from "../engine/units";
-import { isBlank } from "./args";
+import { cellBasicValue, isBlank } from "./args";
 
 /** What a typed size says: an NPS in inches, or a DN. */
 export type NominalText = { kind: "nps"; nps: number } | { kind: "dn"; dn: number } | { kind: "number"; value: number };
@@ -51,6 +51,7 @@ export function readNominal(value: unknown): NominalText | undefined {
  * DN in SI work. A size the schedule lacks is #VALUE! listing the sizes it has (as NPS in US work, as DN in SI).
  */
 export function nominalArg(value: unknown, name: string, schedule: Schedule, units: UnitSystem): number {
+  value = cellBasicValue(value);
   const info = scheduleInfo(schedule);
   const sizesUS = `${info.name} comes in ${listSizes(schedule)} in`;
   const sizesSI = `${info.name} comes in DN ${listSizes(schedule, true)}`;
