@@ -26,7 +26,7 @@ describe("data-typed numbers are read by their basic value", () => {
 
   it("in a range too (RUN's segments)", () => {
     const plain = [[500, 4.026, 120, 100]];
-    expect(f.run([[formatted(500), double(4.026), 120, formatted(100)]])).toEqual(f.run(plain));
+    expect(f.piperun([[formatted(500), double(4.026), 120, formatted(100)]])).toEqual(f.piperun(plain));
   });
 
   it("a data-typed nominal size is the size it shows", () => {
@@ -63,7 +63,7 @@ describe("data types without a plain value are refused with a one-line message",
   });
 
   it("an entity in a range names its row and column", () => {
-    const rows = f.run([[500, entity, 120, 100]]);
+    const rows = f.piperun([[500, entity, 120, 100]]);
     expect(String((rows[0][0] as { message?: string }).message)).toBe('segments row 1 diameter: got a data type (Entity "Pump house"); must be a number');
   });
 
