@@ -24,7 +24,7 @@ describe("data-typed numbers are read by their basic value", () => {
     expect(f.headcount(double(1500), formatted(130))).toBe(f.headcount(1500, 130));
   });
 
-  it("in a range too (RUN's segments)", () => {
+  it("in a range too (PIPERUN's segments)", () => {
     const plain = [[500, 4.026, 120, 100]];
     expect(f.piperun([[formatted(500), double(4.026), 120, formatted(100)]])).toEqual(f.piperun(plain));
   });
