@@ -2,7 +2,8 @@
  * The Workbook port over Office.js (Excel JavaScript API): named cells, change and calculation events, the estimate
  * sheet, the values-only share copy.
  *
- * Requirement sets used: ExcelApi 1.2 (range.merge), 1.4 (names.getItemOrNullObject, NamedItem.getRangeOrNullObject),
+ * Requirement sets used: ExcelApi 1.1 (application.calculate), 1.2 (range.merge), 1.4 (names.getItemOrNullObject,
+ * NamedItem.getRangeOrNullObject), 1.6 (application.suspendApiCalculationUntilNextSync),
  * 1.7 (chart series, worksheet.copy), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom).
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
@@ -193,6 +194,8 @@ async function insertEstimateSheet(ctx: Ctx, units: UnitSystem, scenario?: Scena
   const existing = template.names.map((n) => wb.names.getItemOrNullObject(n.name));
   await ctx.sync();
 
+  // Hundreds of cells are written in one batch: calculation waits until it is done (ExcelApi 1.6; "Suspend
+  // calculation temporarily", https://learn.microsoft.com/office/dev/add-ins/excel/performance).
   ctx.application.suspendApiCalculationUntilNextSync();
   const sheet = wb.worksheets.add(sheetName);
   writeCells(sheet, template);
@@ -206,6 +209,15 @@ async function insertEstimateSheet(ctx: Ctx, units: UnitSystem, scenario?: Scena
   });
   addChart(sheet, template.chart);
   sheet.activate();
+  await ctx.sync();
+  // Suspending makes recalculation the add-in's duty: "once set, it is the developer's responsibility to re-calc the
+  // workbook, to ensure that any dependencies are propagated"
+  // (https://learn.microsoft.com/javascript/api/excel/excel.application#excel-excel-application-suspendapicalculationuntilnextsync-member(1)).
+  // The names were deleted and added again, so any formula anywhere in the workbook that reads them depends on the
+  // new sheet now: a full calculation marks every cell dirty and recalculates it (CalculationType "Full", ExcelApi 1.1,
+  // https://learn.microsoft.com/javascript/api/excel/excel.calculationtype), in a batch of its own, after the one
+  // that suspended calculation.
+  ctx.application.calculate("Full");
   await ctx.sync();
   return { sheetName, namesMoved };
 }

@@ -231,6 +231,19 @@ describe("Excel port: the estimate sheet", () => {
     expect(ys.at(-1)!.value).toBe(0);
   });
 
+  it("leaves no formula elsewhere in the workbook with a result of the names' old cells", async () => {
+    const fake = new FakeExcel(["Inputs", "Summary"]);
+    const h = harness(fake);
+    await h.put("Supply_Static", 72);
+    // a hand-made summary that reads the name, calculated before: 72 × 2 = 144 (arithmetic)
+    fake.setCell("Summary", "A1", { value: 144, formula: "=Supply_Static*2" });
+    const { namesMoved } = await excelPort(fake).insertEstimateSheet("US");
+    expect(namesMoved).toContain("Supply_Static");
+    expect([...fake.stale]).toEqual([]);
+    // recalculated against the new sheet: pending until its functions answer, no longer the old 144
+    expect(fake.sheetByName("Summary")!.cells.get("A1")).toMatchObject({ value: "#BUSY!", error: true });
+  });
+
   it("keeps text that looks like a formula as text", async () => {
     const fake = new FakeExcel(["Sheet1"]);
     const s = demoScenario("US");

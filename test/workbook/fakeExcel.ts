@@ -8,6 +8,15 @@
  * the context (so that context.sync() reaches it); property writes the port queues are applied to the model at the
  * next sync, method calls at once. The fake does not calculate: a formula shows whatever value it was given, and a
  * formula written by the port shows #BUSY! (as a custom function does before Excel has its result).
+ *
+ * What it models of calculation is when a formula is recalculated, not what it computes: a recalculated formula shows
+ * #BUSY! until a test gives it a value. A batch that adds or deletes a workbook name recalculates every formula that
+ * mentions the name, as automatic calculation would, unless the batch called suspendApiCalculationUntilNextSync():
+ * then those formulas keep their old result and are listed in `stale`, because "once set, it is the developer's
+ * responsibility to re-calc the workbook, to ensure that any dependencies are propagated"
+ * (https://learn.microsoft.com/javascript/api/excel/excel.application, suspendApiCalculationUntilNextSync).
+ * application.calculate("Full" | "FullRebuild"), queued in a later batch, recalculates every formula and clears
+ * `stale`; a calculation queued in a suspended batch is taken as suspended too.
  */
 import { OfficeMockObject } from "office-addin-mock";
 import { cellAddress, parseCell, parseRange, quoteSheet, splitSheet } from "../../src/workbook/a1";
@@ -82,6 +91,13 @@ export class FakeExcel {
   calculated = new Set<Handler>();
   /** every batch run, for tests that count round trips */
   syncs = 0;
+  /** the calculation types the port asked for, in order */
+  calculations: string[] = [];
+  /**
+   * formula cells ("Sheet!A1") whose shown result predates a change of a name they mention: left so by a batch that
+   * suspended calculation, until a full calculation
+   */
+  stale = new Set<string>();
   private nextId = 1;
 
   constructor(sheetNames: string[] = ["Sheet1"]) {
@@ -160,6 +176,38 @@ export class FakeExcel {
     return `${cellAddress({ row: r0, col: c0 })}:${cellAddress({ row: r1, col: c1 })}`;
   }
 
+  /** Every formula cell of the workbook: [sheet, address, cell]. */
+  formulaCells(): Array<[FakeSheet, string, FakeCell]> {
+    const out: Array<[FakeSheet, string, FakeCell]> = [];
+    for (const s of this.sheets) for (const [a, c] of s.cells) if (c.formula) out.push([s, a, c]);
+    return out;
+  }
+
+  /** A formula recalculated: pending (#BUSY!) until a test gives it its value. */
+  recalculate(sheet: FakeSheet, address: string, cell: FakeCell): void {
+    Object.assign(cell, { value: "#BUSY!", error: true });
+    this.stale.delete(`${sheet.name}!${address}`);
+  }
+
+  /** After a batch: what calculation its changes of names set off (see the header). */
+  afterBatch(suspended: boolean, namesChanged: Set<string>, calculations: string[]): void {
+    if (namesChanged.size > 0) {
+      const mentions = [...namesChanged].map((n) => new RegExp(`(^|[^A-Za-z0-9_.])${n}($|[^A-Za-z0-9_.(])`, "i"));
+      for (const [sheet, a, c] of this.formulaCells()) {
+        if (!mentions.some((m) => m.test(c.formula!))) continue;
+        if (suspended) this.stale.add(`${sheet.name}!${a}`);
+        else this.recalculate(sheet, a, c);
+      }
+    }
+    for (const type of calculations) {
+      this.calculations.push(type);
+      if (suspended) continue;
+      if (type !== "Full" && type !== "FullRebuild") throw new Error(`the fake calculates "Full" or "FullRebuild" only, not "${type}"`);
+      for (const [sheet, a, c] of this.formulaCells()) this.recalculate(sheet, a, c);
+      this.stale.clear();
+    }
+  }
+
   // ── Office.js surface ──
   /** Excel.run over the fake: a fresh context each batch. */
   run = async <T>(batch: (ctx: Excel.RequestContext) => Promise<T>): Promise<T> => {
@@ -194,16 +242,31 @@ class Session {
   private proxies: Proxy[] = [];
   private pool: OfficeMockObject;
   private poolKey = 0;
+  /** what the batch under way asked of calculation */
+  private suspended = false;
+  private namesChanged = new Set<string>();
+  private calculations: string[] = [];
 
   constructor(private readonly x: FakeExcel) {
     // eslint-disable-next-line @typescript-eslint/no-this-alias
     const session = this;
     const ctx = new OfficeMockObject({
       pool: {},
-      application: { suspendApiCalculationUntilNextSync() {} },
+      application: {
+        suspendApiCalculationUntilNextSync: () => {
+          this.suspended = true;
+        },
+        calculate: (type: string) => {
+          this.calculations.push(type);
+        },
+      },
       workbook: {},
       sync: async function (this: OfficeMockObject) {
         session.commit();
+        x.afterBatch(session.suspended, session.namesChanged, session.calculations);
+        session.suspended = false;
+        session.namesChanged = new Set();
+        session.calculations = [];
         x.syncs++;
         await OfficeMockObject.prototype.sync.call(this);
         await new Promise((r) => setTimeout(r, 0));
@@ -221,6 +284,7 @@ class Session {
           const target = (ref as { _ref?: NameTarget })._ref;
           if (!target) throw new Error("names.add: the fake takes a Range");
           this.x.names.set(n, { ...target, comment });
+          this.namesChanged.add(n);
           return this.nameItem(n);
         },
       },
@@ -275,7 +339,10 @@ class Session {
         value: sheet ? `=${quoteSheet(sheet.name)}!${t.address}` : "#REF!",
         getRange: () => this.rangeProxy(this.x.sheetById(t.sheetId), t.address),
         getRangeOrNullObject: () => (sheet ? this.rangeProxy(sheet, t.address) : this.nullProxy()),
-        delete: () => this.x.names.delete(n),
+        delete: () => {
+          this.x.names.delete(n);
+          this.namesChanged.add(n);
+        },
       },
       undefined,
     );
