@@ -26,12 +26,21 @@ export interface PaneHandle {
   ready: Promise<void>;
   /** read the workbook again and redraw */
   refresh(): Promise<void>;
-  /** resolves when no reading is running or waiting */
+  /** resolves when no reading is running or asked for (a re-read scheduled while an input is busy is not awaited) */
   idle(): Promise<void>;
   /** the current model (for hosts and tests) */
   model(): PaneModel | null;
   destroy(): Promise<void>;
 }
+
+/**
+ * While an input shows #BUSY!, the pane reads the workbook again after each of these delays (ms) in turn, then every
+ * last delay until no input is busy. It cannot wait for a calculation event alone: in Excel on the web onCalculated
+ * was reported not to fire after the last custom-function result was delivered
+ * (https://github.com/OfficeDev/office-js/issues/587), and a function whose promise never settles stays #BUSY!
+ * (https://learn.microsoft.com/office/dev/add-ins/excel/custom-functions-troubleshooting).
+ */
+export const BUSY_REREAD_MS: readonly number[] = [250, 500, 1000, 2000, 4000];
 
 const DEFAULT_WIDTH = 320;
 /** Horizontal padding of the pane, px: the plot gets the rest. */
@@ -219,10 +228,35 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   async function readOnce(): Promise<void> {
     try {
       const readings = await port.readInputs();
-      if (!destroyed) draw(buildModel(readings));
+      if (destroyed) return;
+      const m = buildModel(readings);
+      draw(m);
+      followBusy(m);
     } catch (err) {
       setStatus(`Could not read the workbook: ${message(err)}`, "refused");
     }
+  }
+
+  // ── while an input is #BUSY!: read again on the back-off timer, one timer at a time ──
+  let busyTimer: ReturnType<typeof setTimeout> | undefined;
+  let busyRereads = 0;
+  function stopBusyTimer(): void {
+    if (busyTimer !== undefined) clearTimeout(busyTimer);
+    busyTimer = undefined;
+  }
+  function followBusy(m: PaneModel): void {
+    if (m.kind !== "busy") {
+      stopBusyTimer();
+      busyRereads = 0;
+      return;
+    }
+    if (busyTimer !== undefined || destroyed) return;
+    const delay = BUSY_REREAD_MS[Math.min(busyRereads, BUSY_REREAD_MS.length - 1)];
+    busyRereads++;
+    busyTimer = setTimeout(() => {
+      busyTimer = undefined;
+      if (!destroyed) void refresh();
+    }, delay);
   }
   function refresh(): Promise<void> {
     if (running) {
@@ -314,6 +348,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     model: () => current,
     destroy: async () => {
       destroyed = true;
+      stopBusyTimer();
       resize?.disconnect();
       await unsubscribe?.();
       root.replaceChildren();

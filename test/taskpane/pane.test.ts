@@ -1,7 +1,7 @@
 // @vitest-environment happy-dom
-import { afterEach, describe, expect, it } from "vitest";
+import { afterEach, describe, expect, it, vi } from "vitest";
 import { verdict as verdictCell } from "../../src/functions/functions";
-import { type PaneHandle, mountPane } from "../../src/taskpane/pane";
+import { BUSY_REREAD_MS, type PaneHandle, mountPane } from "../../src/taskpane/pane";
 import { CAUTION } from "../../src/workbook/look";
 import { BASE, FakePort, type Values } from "./fakePort";
 
@@ -201,6 +201,54 @@ describe("the verdict and the caution", () => {
     expect($("calc-note")!.hidden).toBe(false);
     expect($("calc-note")!.textContent).toBe("Excel is still calculating Demand_Pressure…");
     expect($("caution")!.hidden).toBe(false);
+  });
+});
+
+describe("waiting out #BUSY! without a calculation event", () => {
+  afterEach(() => {
+    vi.useRealTimers();
+  });
+  const BUSY = { kind: "error", code: "#BUSY!", address: "Estimate!B57" } as const;
+
+  it("reads again on a back-off timer while an input shows #BUSY!, and stops once it has a number", async () => {
+    vi.useFakeTimers();
+    const { port, pane, $ } = await mount({ ...BASE, Demand_Pressure: BUSY });
+    expect(pane.model()?.kind).toBe("busy");
+    expect(port.reads).toBe(1);
+    // nothing tells the pane that anything changed: each delay of the back-off brings one more reading
+    for (const [i, delay] of BUSY_REREAD_MS.entries()) {
+      await vi.advanceTimersByTimeAsync(delay - 1);
+      expect(port.reads, `before re-read ${i + 1}`).toBe(1 + i);
+      await vi.advanceTimersByTimeAsync(1);
+      expect(port.reads, `re-read ${i + 1}`).toBe(2 + i);
+    }
+    const longest = BUSY_REREAD_MS[BUSY_REREAD_MS.length - 1];
+    await vi.advanceTimersByTimeAsync(longest);
+    expect(port.reads).toBe(2 + BUSY_REREAD_MS.length);
+    // the function answers; no event is raised (the web case of office-js #587)
+    port.readings.Demand_Pressure = { kind: "number", value: 48, address: "Estimate!B57" };
+    await vi.advanceTimersByTimeAsync(longest);
+    await pane.idle();
+    expect(pane.model()?.kind).toBe("ready");
+    expect($("calc-note")!.hidden).toBe(true);
+    expect($("verdict")!.textContent).toMatch(/^No pump needed/);
+    const reads = port.reads;
+    await vi.advanceTimersByTimeAsync(10 * longest);
+    expect(port.reads).toBe(reads);
+  });
+
+  it("keeps one timer when change events arrive while waiting, and stops when the pane is closed", async () => {
+    vi.useFakeTimers();
+    const { port, pane } = await mount({ ...BASE, Demand_Pressure: BUSY });
+    port.set({ Demand_Flow: 570 }); // a change event: one reading of its own, still busy
+    await pane.idle();
+    expect(port.reads).toBe(2);
+    await vi.advanceTimersByTimeAsync(BUSY_REREAD_MS[0]);
+    expect(port.reads).toBe(3);
+    await pane.destroy();
+    mounted = mounted.filter((p) => p !== pane);
+    await vi.advanceTimersByTimeAsync(BUSY_REREAD_MS.reduce((a, b) => a + b, 0));
+    expect(port.reads).toBe(3);
   });
 });
 

@@ -1,8 +1,10 @@
-import { beforeAll, describe, expect, it } from "vitest";
+import { Window } from "happy-dom";
+import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
 import * as functions from "../../src/functions/functions";
 import type { CellData } from "../../src/preview/model";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
+import { BUSY_REREAD_MS, mountPane } from "../../src/taskpane/pane";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
 import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
@@ -148,6 +150,56 @@ describe("Excel port: events", () => {
     expect(calls).toBe(1);
     await stop();
     expect(fake.changed.size).toBe(0);
+    expect(fake.calculated.size).toBe(0);
+  });
+});
+
+describe("Excel port under the pane: an input that reads #BUSY!", () => {
+  afterEach(() => {
+    vi.useRealTimers();
+  });
+
+  /**
+   * Run the fake clock a millisecond at a time until `p` settles: each batch of the fake workbook resolves on a timer
+   * tick, which the fake clock schedules a millisecond on.
+   */
+  async function settled<T>(p: Promise<T>): Promise<T> {
+    let done = false;
+    void p.finally(() => (done = true));
+    while (!done) await vi.advanceTimersByTimeAsync(1);
+    return p;
+  }
+
+  it("is read again when its function answers without an onCalculated event", async () => {
+    vi.useFakeTimers();
+    const fake = new FakeExcel(["Inputs"]);
+    const h = harness(fake);
+    // the flow-test and demand inputs of the engine's decision tests [NFPA 291]: supply at 562 gpm is
+    // 72 − 14 × (562/1100)^1.85 = 67.96 psi, above the 48 psi demand
+    for (const [name, value] of [["Units", "US"], ["Supply_Static", 72], ["Supply_Residual", 58], ["Supply_TestFlow", 1100], ["Demand_Flow", 562]] as const) {
+      await h.put(name, value);
+    }
+    await h.putFormula("Demand_Pressure", "=HEADROOM.AREADEMAND(1)", 0); // a function that has not answered yet
+    const cell = fake.sheetByName("Inputs")!.cells.get(fake.nameTarget("Demand_Pressure")!.address)!;
+    Object.assign(cell, { value: "#BUSY!", error: true });
+
+    // a DOM of its own for the pane (happy-dom's types are its own; the pane sees a standard document)
+    const doc = new Window().document as unknown as Document;
+    const root = doc.createElement("div");
+    doc.body.appendChild(root);
+    const pane = mountPane(root, excelPort(fake), { width: 320 });
+    await settled(pane.ready);
+    await settled(pane.idle());
+    expect(pane.model()).toEqual({ kind: "busy", names: ["Demand_Pressure"] });
+    expect(fake.calculated.size).toBe(1);
+
+    // the function answers; the fake raises no event at all, as on the web in office-js #587
+    Object.assign(cell, { value: 48, error: false });
+    await vi.advanceTimersByTimeAsync(BUSY_REREAD_MS[0]);
+    await settled(pane.idle());
+    expect(pane.model()?.kind).toBe("ready");
+    expect(root.querySelector('[data-role="verdict"]')!.textContent).toMatch(/^No pump needed/);
+    await settled(pane.destroy());
     expect(fake.calculated.size).toBe(0);
   });
 });
