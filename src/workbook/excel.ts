@@ -3,8 +3,9 @@
  * sheet, the values-only share copy.
  *
  * Requirement sets used: ExcelApi 1.1 (application.calculate), 1.2 (range.merge), 1.4 (names.getItemOrNullObject,
- * NamedItem.getRangeOrNullObject), 1.6 (application.suspendApiCalculationUntilNextSync),
- * 1.7 (chart series, worksheet.copy), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom).
+ * NamedItem.getRangeOrNullObject, worksheet.names), 1.6 (application.suspendApiCalculationUntilNextSync),
+ * 1.7 (chart series, worksheet.copy, worksheets.onActivated), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged,
+ * range.copyFrom).
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
@@ -65,13 +66,28 @@ export function createExcelPort(host: ExcelHost = officeExcelHost()): WorkbookPo
 
 // ─── Reading ─────────────────────────────────────────────────────────────────────────────────────────────────────
 
+/**
+ * A name as the active sheet sees it, queued for the next sync: the sheet's own definition (a name scoped to the
+ * sheet) first, else the workbook's. `workbook.names` holds the names scoped to the workbook only
+ * (https://learn.microsoft.com/javascript/api/excel/excel.workbook#excel-excel-workbook-names-member; office-js #1011,
+ * https://github.com/OfficeDev/office-js/issues/1011); `worksheet.names` is the "collection of names scoped to the
+ * current worksheet" (ExcelApi 1.4, https://learn.microsoft.com/javascript/api/excel/excel.worksheet#excel-excel-worksheet-names-member).
+ * #1011 reports that on the web a sheet's collection also lists the workbook's names; looking at the sheet first and
+ * the workbook second finds the same name either way. The returned function picks, after the sync.
+ */
+function lookUpName(ctx: Ctx, sheet: Excel.Worksheet, name: string, load: string): () => Excel.NamedItem {
+  const own = sheet.names.getItemOrNullObject(name);
+  own.load(load);
+  const workbook = ctx.workbook.names.getItemOrNullObject(name);
+  workbook.load(load);
+  return () => (own.isNullObject ? workbook : own);
+}
+
 async function readInputs(ctx: Ctx): Promise<Readings> {
-  const items = INPUT_NAMES.map((n) => {
-    const item = ctx.workbook.names.getItemOrNullObject(n);
-    item.load("type,value");
-    return item;
-  });
+  const active = ctx.workbook.worksheets.getActiveWorksheet();
+  const found = INPUT_NAMES.map((n) => lookUpName(ctx, active, n, "type,value"));
   await ctx.sync();
+  const items = found.map((pick) => pick());
   const ranges = items.map((item) => {
     if (item.isNullObject || item.type !== "Range") return null;
     const range = item.getRangeOrNullObject();
@@ -151,8 +167,11 @@ async function subscribe(host: ExcelHost, onChange: () => void): Promise<() => P
   const { context, handlers } = await host.run(async (ctx) => {
     const changed = ctx.workbook.worksheets.onChanged.add(poke);
     const calculated = ctx.workbook.worksheets.onCalculated.add(poke);
+    // the names the pane reads depend on the active sheet (its own names first): another sheet activated, read again
+    // (WorksheetCollection.onActivated, ExcelApi 1.7, https://learn.microsoft.com/office/dev/add-ins/excel/excel-add-ins-events)
+    const activated = ctx.workbook.worksheets.onActivated.add(poke);
     await ctx.sync();
-    return { context: ctx, handlers: [changed, calculated] };
+    return { context: ctx, handlers: [changed, calculated, activated] };
   });
   return async () => {
     live = false;
@@ -290,11 +309,11 @@ function pairRange(x: string, y: string): string {
 
 async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
   const wb = ctx.workbook;
-  const item = wb.names.getItemOrNullObject("Supply_Static");
-  item.load("type");
   const active = wb.worksheets.getActiveWorksheet();
   active.load("name");
+  const found = lookUpName(ctx, active, "Supply_Static", "type");
   await ctx.sync();
+  const item = found();
   let source = active;
   if (!item.isNullObject && item.type === "Range") source = item.getRange().worksheet;
   source.load("name");

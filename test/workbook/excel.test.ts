@@ -136,6 +136,65 @@ describe("Excel port: reading names", () => {
   });
 });
 
+describe("Excel port: names scoped to a sheet", () => {
+  /** Workbook names on "Inputs" (Supply_Static 72) and a sheet "Site B" with names of its own. */
+  async function twoSites() {
+    const fake = new FakeExcel(["Inputs", "Site B"]);
+    const h = harness(fake);
+    await h.put("Supply_Static", 72);
+    const siteB = fake.sheetByName("Site B")!;
+    siteB.names.set("Supply_Static", { sheetId: siteB.id, address: "B2" });
+    siteB.names.set("Demand_Flow", { sheetId: siteB.id, address: "B3" });
+    fake.setCell("Site B", "B2", { value: 65 });
+    fake.setCell("Site B", "B3", { value: 480 });
+    return { fake, h };
+  }
+
+  it("reads the active sheet's own definition of a name before the workbook's", async () => {
+    const { fake, h } = await twoSites();
+    fake.activate("Site B");
+    const r = await h.port.readInputs();
+    expect(r.Supply_Static).toEqual({ kind: "number", value: 65, address: "'Site B'!B2" });
+    expect(r.Demand_Flow).toEqual({ kind: "number", value: 480, address: "'Site B'!B3" });
+  });
+
+  it("leaves another sheet's names out, and still reads the workbook's", async () => {
+    const { fake, h } = await twoSites();
+    fake.activate("Inputs");
+    const r = await h.port.readInputs();
+    expect(r.Supply_Static).toEqual({ kind: "number", value: 72, address: "Inputs!B2" });
+    expect(r.Demand_Flow).toEqual({ kind: "missing" });
+  });
+
+  it("reads them in two round trips, as before", async () => {
+    const { fake, h } = await twoSites();
+    const before = fake.syncs;
+    await h.port.readInputs();
+    expect(fake.syncs - before).toBe(2);
+  });
+
+  it("reads again when another sheet is activated", async () => {
+    const { fake, h } = await twoSites();
+    let calls = 0;
+    const stop = await h.port.subscribe(() => calls++);
+    expect(fake.activated.size).toBe(1);
+    fake.activate("Site B");
+    await h.settle();
+    expect(calls).toBe(1);
+    await stop();
+    expect(fake.activated.size).toBe(0);
+  });
+
+  it("makes the share copy of the active sheet when its own names point at it", async () => {
+    const { fake, h } = await twoSites();
+    fake.activate("Site B");
+    const result = await excelPort(fake, new Date(2026, 4, 4)).makeShareCopy();
+    expect(result).toMatchObject({ ok: true, sourceSheet: "Site B", sheetName: "Site B values 2026-05-04" });
+    // Supply_Static of the workbook still points at Inputs
+    expect((await h.nameTarget("Supply_Static"))?.sheet).toBe("Inputs");
+  });
+});
+
 describe("Excel port: events", () => {
   it("listens to both change and calculation events and makes one call of a burst", async () => {
     const fake = new FakeExcel(["Inputs"]);

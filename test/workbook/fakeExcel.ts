@@ -3,8 +3,12 @@
  *
  * office-addin-mock gives the load/sync semantics of Office.js objects (a property read before load and sync is an
  * error string) but no Excel behaviour and no collections. This fake supplies the behaviour the port relies on:
- * sheets of cells (value, formula, number format, look), merged blocks, row heights, workbook names, used ranges, sheet
- * copy, copyFrom values, row insertion, charts and events. Every Office.js object the port asks for is a fresh OfficeMockObject hung under
+ * sheets of cells (value, formula, number format, look), merged blocks, row heights, workbook names and names scoped to
+ * a sheet, used ranges, sheet copy, copyFrom values, row insertion, charts and events. A sheet's `names` collection
+ * holds its own names only, as the reference describes worksheet.names ("names scoped to the current worksheet",
+ * https://learn.microsoft.com/javascript/api/excel/excel.worksheet#excel-excel-worksheet-names-member), and the
+ * workbook's holds the workbook's only (office-js #1011 reports that on the web a sheet's collection also listed the
+ * workbook's names; a port that looks at the sheet first and the workbook second reads the same either way). Every Office.js object the port asks for is a fresh OfficeMockObject hung under
  * the context (so that context.sync() reaches it); property writes the port queues are applied to the model at the
  * next sync, method calls at once. The fake does not calculate: a formula shows whatever value it was given, and a
  * formula written by the port shows #BUSY! (as a custom function does before Excel has its result).
@@ -41,6 +45,8 @@ export interface FakeSheet {
   merges: string[];
   charts: FakeChart[];
   tabColor?: string;
+  /** names scoped to this sheet */
+  names: Map<string, NameTarget>;
 }
 
 export interface FakeChart {
@@ -89,6 +95,7 @@ export class FakeExcel {
   activeId = 0;
   changed = new Set<Handler>();
   calculated = new Set<Handler>();
+  activated = new Set<Handler>();
   /** every batch run, for tests that count round trips */
   syncs = 0;
   /** the calculation types the port asked for, in order */
@@ -108,7 +115,16 @@ export class FakeExcel {
   // ── model ──
   addSheet(name: string, after?: FakeSheet): FakeSheet {
     if (this.sheetByName(name)) throw new Error(`A resource with the same name or identifier already exists: ${name}`);
-    const s: FakeSheet = { id: this.nextId++, name, cells: new Map(), columnWidths: new Map(), rowHeights: new Map(), merges: [], charts: [] };
+    const s: FakeSheet = {
+      id: this.nextId++,
+      name,
+      cells: new Map(),
+      columnWidths: new Map(),
+      rowHeights: new Map(),
+      merges: [],
+      charts: [],
+      names: new Map(),
+    };
     if (after) this.sheets.splice(this.sheets.indexOf(after) + 1, 0, s);
     else this.sheets.push(s);
     return s;
@@ -131,6 +147,13 @@ export class FakeExcel {
     else s.cells.set(address, cell);
     void this.fire(this.changed, { address: `${sheet}!${address}`, changeType: "RangeEdited", source: "Local" });
     if (cell?.formula) void this.fire(this.calculated, { address: `${sheet}!${address}` });
+  }
+
+  /** Activate a sheet as a user would (clicking its tab); fires the activation events. */
+  activate(sheet: string): void {
+    const s = this.sheetByName(sheet)!;
+    this.activeId = s.id;
+    void this.fire(this.activated, { worksheetId: String(s.id), type: "WorksheetActivated" });
   }
 
   private async fire(set: Set<Handler>, args: unknown): Promise<void> {
@@ -297,6 +320,7 @@ class Session {
         getActiveWorksheet: () => this.sheetProxy(this.x.sheetById(this.x.activeId)),
         onChanged: { add: (h: Handler) => this.handler(this.x.changed, h, ctx) },
         onCalculated: { add: (h: Handler) => this.handler(this.x.calculated, h, ctx) },
+        onActivated: { add: (h: Handler) => this.handler(this.x.activated, h, ctx) },
       },
     });
   }
@@ -324,8 +348,10 @@ class Session {
     return this.proxy({ name: "", type: "", value: "" }, undefined, { isNullObject: true });
   }
 
-  private nameItem(n: string): OfficeMockObject {
-    const t = [...this.x.names].find(([k]) => k.toLowerCase() === n.toLowerCase())?.[1];
+  /** A name of the workbook, or of `scope` (a sheet's own names) when given. */
+  private nameItem(n: string, scope?: FakeSheet): OfficeMockObject {
+    const names = scope ? scope.names : this.x.names;
+    const t = [...names].find(([k]) => k.toLowerCase() === n.toLowerCase())?.[1];
     if (!t) {
       const nul = this.nullProxy();
       Object.assign(nul, { getRangeOrNullObject: () => this.nullProxy() });
@@ -340,7 +366,7 @@ class Session {
         getRange: () => this.rangeProxy(this.x.sheetById(t.sheetId), t.address),
         getRangeOrNullObject: () => (sheet ? this.rangeProxy(sheet, t.address) : this.nullProxy()),
         delete: () => {
-          this.x.names.delete(n);
+          names.delete(n);
           this.namesChanged.add(n);
         },
       },
@@ -354,6 +380,7 @@ class Session {
       position: this.x.sheets.indexOf(sheet),
       tabColor: sheet.tabColor ?? "",
       getRange: (a: string) => this.rangeProxy(sheet, a),
+      names: { getItemOrNullObject: (n: string) => this.nameItem(n, sheet) },
       getUsedRange: () => {
         const u = this.x.usedRange(sheet);
         if (!u) throw new Error("the sheet is empty");
@@ -377,6 +404,8 @@ class Session {
         copy.rowHeights = new Map(sheet.rowHeights);
         copy.merges = [...sheet.merges];
         copy.charts = structuredClone(sheet.charts);
+        // the sheet's own names come along, pointing at the copy where they pointed at the sheet
+        for (const [n, t] of sheet.names) copy.names.set(n, t.sheetId === sheet.id ? { ...t, sheetId: copy.id } : { ...t });
         return this.sheetProxy(copy);
       },
       charts: {
