@@ -31,7 +31,9 @@ if (process.platform !== "win32" && process.platform !== "darwin") {
     console.log("  2. Open https://localhost:3000/taskpane.html once in the browser and accept the local certificate.");
     console.log("  3. In Excel on the web (https://www.office.com, any workbook): Home > Add-ins > More Settings >");
     console.log("     Upload My Add-in, and choose manifest.xml from this folder.");
-    console.log("  4. Type =HEADROOM. in a cell; the Home tab gets a \"Supply vs demand\" button for the pane.");
+    console.log("  4. Chrome and other Chromium-based browsers (Edge) ask whether the page may access devices on your");
+    console.log("     local network (the add-in comes from localhost): choose Allow.");
+    console.log("  5. Type =HEADROOM. in a cell; the Home tab gets a \"Supply vs demand\" button for the pane.");
   } else {
     console.log(`Nothing was sideloaded on ${process.platform}. Stop npm run dev-server with Ctrl+C in its terminal;`);
     console.log("Excel on the web keeps an uploaded manifest in the browser's local storage: clearing the site data removes it.");
