@@ -1,6 +1,6 @@
 /**
  * The estimate template (../workbook/template.ts) as preview workbook data: its cells with their roles and number
- * formats, its column widths, and its names pointing at the sheet.
+ * formats, its column widths, its print setup, and its names pointing at the sheet.
  */
 import { absoluteRef, cellAddress, columnIndex, parseCell } from "../workbook/a1";
 import { ROLE_STYLES, wrappedLines } from "../workbook/look";
@@ -46,7 +46,7 @@ export function templateSheet(t: SheetTemplate, sheetName = t.sheetName): SheetD
     cells[line.address].style = { ...cells[line.address].style, wrap: true };
     rowHeights[parseCell(line.address).row] = line.height;
   }
-  return { name: sheetName, cells, columnWidths, merges, rowHeights };
+  return { name: sheetName, cells, columnWidths, merges, rowHeights, print: { ...t.print } };
 }
 
 /** The template's names, pointing at `sheetName`. */

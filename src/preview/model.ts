@@ -38,6 +38,18 @@ export interface CellData {
   spill?: string;
 }
 
+/** How a sheet prints, as far as the preview keeps it: the print area and what goes with it. */
+export interface PrintSetup {
+  /** "A1:P89" (a file may give several blocks, "A1:D9&&F1:H9") */
+  area: string;
+  /** rows repeated at the top of every page, "1:2" */
+  titleRows?: string;
+  /** pages across and down the area is scaled to fit, where the sheet is fitted rather than scaled */
+  fitWide?: number;
+  fitTall?: number;
+  orientation?: "portrait" | "landscape";
+}
+
 export interface SheetData {
   name: string;
   /** Keyed by A1 address ("B7"). */
@@ -48,6 +60,7 @@ export interface SheetData {
   merges?: string[];
   /** Row heights in points, by 0-based row (rows not listed have the default height). */
   rowHeights?: Record<number, number>;
+  print?: PrintSetup;
 }
 
 /** A workbook-scoped defined name: `ref` like "Estimate!$B$8" (or a constant such as "=0"). */

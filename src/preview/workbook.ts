@@ -7,7 +7,7 @@
 import { DetailedCellError, HyperFormula } from "hyperformula";
 import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformula";
 import { absoluteRef, cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
-import type { CachedValue, CellContent, CellData, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
+import type { CachedValue, CellContent, CellData, CellStyle, DefinedName, PrintSetup, SheetData, WorkbookData } from "./model";
 import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
 import { normaliseTypedFormula } from "./formulaText";
 
@@ -52,6 +52,7 @@ export class PreviewWorkbook {
   private readonly widths = new Map<string, Record<number, number>>();
   private readonly merges = new Map<string, string[]>();
   private readonly heights = new Map<string, Record<number, number>>();
+  private readonly prints = new Map<string, PrintSetup>();
   private readonly listeners = new Set<ChangeListener>();
   private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
   activeSheet = "";
@@ -73,6 +74,7 @@ export class PreviewWorkbook {
     this.widths.clear();
     this.merges.clear();
     this.heights.clear();
+    this.prints.clear();
     for (const s of data.sheets) {
       sheets[s.name] = toRows(s);
       this.keepLayout(s);
@@ -349,6 +351,8 @@ export class PreviewWorkbook {
     if (merges?.length) data.merges = [...merges];
     const heights = this.heights.get(name);
     if (heights && Object.keys(heights).length) data.rowHeights = { ...heights };
+    const print = this.prints.get(name);
+    if (print) data.print = { ...print };
     return data;
   }
 
@@ -364,6 +368,8 @@ export class PreviewWorkbook {
     this.widths.set(s.name, { ...(s.columnWidths ?? {}) });
     this.merges.set(s.name, [...(s.merges ?? [])]);
     this.heights.set(s.name, { ...(s.rowHeights ?? {}) });
+    if (s.print) this.prints.set(s.name, { ...s.print });
+    else this.prints.delete(s.name);
   }
 }
 

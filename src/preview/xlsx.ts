@@ -3,20 +3,21 @@
  *
  * Reading: every formula with its cached value (the add-in's functions mapped from `_xldudf_HEADROOM_…` back to
  * `HEADROOM.…` by the known function list, `_xlfn.` dropped, exponents made lowercase: ./formulaText), values,
- * number formats, the cell roles recognised from the styles this module writes, column widths, merges, row heights
- * and the workbook's defined names. A spilled block (an array formula with its `ref`) becomes its anchor formula;
+ * number formats, the cell roles recognised from the styles this module writes, column widths, merges, row heights,
+ * a sheet's print area with its print title rows, fit and orientation, and the workbook's defined names. A spilled block (an array formula with its `ref`) becomes its anchor formula;
  * the other cells of the block keep only their cached values, so that the engine can spill into them.
  *
  * Writing: formulas in the file's spelling with their current values cached (so a colleague with the add-in sees
  * numbers at once, and Excel recalculates on open: fullCalcOnLoad), spills as array formulas over their block,
- * roles as fills and fonts (ROLE_STYLES of ../workbook/look.ts), names. ExcelJS cannot write charts; the pane draws the
- * plot.
+ * roles as fills and fonts (ROLE_STYLES of ../workbook/look.ts), names, print setups (ExcelJS's pageSetup: printArea,
+ * printTitlesRow, fitToPage, fitToWidth, fitToHeight, orientation; README "Page Setup",
+ * https://github.com/exceljs/exceljs#page-setup). ExcelJS cannot write charts; the pane draws the plot.
  */
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
 import { cellAddress, parseRange } from "../workbook/a1";
 import { ROLE_STYLES } from "../workbook/look";
 import { fromFileFormula, toFileFormula } from "./formulaText";
-import type { CachedValue, CellData, CellRole, CellStyle, DefinedName, SheetData, WorkbookData } from "./model";
+import type { CachedValue, CellData, CellRole, CellStyle, DefinedName, PrintSetup, SheetData, WorkbookData } from "./model";
 
 type ExcelJSModule = typeof import("exceljs");
 
@@ -174,7 +175,34 @@ function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
   if (Object.keys(heights).length) sheet.rowHeights = heights;
   const merges = (ws.model as { merges?: string[] }).merges;
   if (merges?.length) sheet.merges = [...merges];
+  const print = printOf(ws);
+  if (print) sheet.print = print;
   return sheet;
+}
+
+/** A sheet's print setup, where it has a print area (ExcelJS reads the area and title rows from the file's names). */
+function printOf(ws: Worksheet): PrintSetup | undefined {
+  const setup = ws.pageSetup;
+  if (!setup?.printArea) return undefined;
+  const print: PrintSetup = { area: setup.printArea.replace(/\$/g, "") };
+  if (setup.printTitlesRow) print.titleRows = setup.printTitlesRow.replace(/\$/g, "");
+  if (setup.fitToPage) {
+    print.fitWide = setup.fitToWidth ?? 1;
+    print.fitTall = setup.fitToHeight ?? 1;
+  }
+  if (setup.orientation === "portrait" || setup.orientation === "landscape") print.orientation = setup.orientation;
+  return print;
+}
+
+/**
+ * A print area as ExcelJS takes it so that the file holds absolute references ("$A$1:$P$89"), as Excel writes them:
+ * ExcelJS puts a "$" before each corner itself (lib/xlsx/xform/book/workbook-xform.js), so the rows get theirs here.
+ */
+function printAreaForFile(area: string): string {
+  return area
+    .split("&&")
+    .map((block) => block.split(":").map((corner) => corner.replace(/^([A-Z]+)(\d+)$/, "$1$$$2")).join(":"))
+    .join("&&");
 }
 
 
@@ -246,6 +274,17 @@ function writeSheet(ws: Worksheet, s: SheetData, known: readonly string[]): void
   }
   for (const m of s.merges ?? []) ws.mergeCells(m);
   for (const [row, points] of Object.entries(s.rowHeights ?? {})) ws.getRow(Number(row) + 1).height = points;
+  if (s.print) {
+    const p = s.print;
+    ws.pageSetup.printArea = printAreaForFile(p.area);
+    if (p.titleRows) ws.pageSetup.printTitlesRow = p.titleRows;
+    if (p.fitWide !== undefined || p.fitTall !== undefined) {
+      ws.pageSetup.fitToPage = true;
+      ws.pageSetup.fitToWidth = p.fitWide ?? 1;
+      ws.pageSetup.fitToHeight = p.fitTall ?? 1;
+    }
+    if (p.orientation) ws.pageSetup.orientation = p.orientation;
+  }
 }
 
 function applyStyle(cell: Cell, style: CellStyle): void {

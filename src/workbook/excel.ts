@@ -5,7 +5,7 @@
  * Requirement sets used: ExcelApi 1.1 (application.calculate), 1.2 (range.merge), 1.4 (names.getItemOrNullObject,
  * NamedItem.getRangeOrNullObject, worksheet.names), 1.6 (application.suspendApiCalculationUntilNextSync),
  * 1.7 (chart series, worksheet.copy, worksheets.onActivated), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged,
- * range.copyFrom).
+ * range.copyFrom, worksheet.pageLayout).
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
@@ -26,7 +26,7 @@ import {
 } from "./port";
 import { type Scenario, demoScenario } from "./scenario";
 import { ROLE_STYLES, wrappedLines } from "./look";
-import type { SheetTemplate, TemplateChart } from "./sheet";
+import type { SheetTemplate, TemplateChart, TemplatePrint } from "./sheet";
 import { estimateTemplate } from "./template";
 
 type Ctx = Excel.RequestContext;
@@ -227,6 +227,7 @@ async function insertEstimateSheet(ctx: Ctx, units: UnitSystem, scenario?: Scena
     wb.names.add(n.name, sheet.getRange(n.address), n.comment);
   });
   addChart(sheet, template.chart);
+  setPrint(sheet, template.print);
   sheet.activate();
   await ctx.sync();
   // Suspending makes recalculation the add-in's duty: "once set, it is the developer's responsibility to re-calc the
@@ -266,6 +267,22 @@ function writeCells(sheet: Excel.Worksheet, t: SheetTemplate): void {
     block.format.verticalAlignment = "Top";
     block.format.rowHeight = line.height;
   }
+}
+
+/**
+ * The template's print setup as the sheet's page layout (ExcelApi 1.9, like the rest of the port's needs): print area
+ * and print title rows through PageLayout.setPrintArea / setPrintTitleRows, as in "Page layout and print settings"
+ * (https://learn.microsoft.com/office/dev/add-ins/excel/excel-add-ins-worksheet-display); the fit through `zoom`,
+ * which "must be set as a JSON object" (https://learn.microsoft.com/javascript/api/excel/excel.pagelayout#excel-excel-pagelayout-zoom-member,
+ * https://learn.microsoft.com/javascript/api/excel/excel.pagelayoutzoomoptions).
+ */
+function setPrint(sheet: Excel.Worksheet, print: TemplatePrint): void {
+  const layout = sheet.pageLayout;
+  layout.setPrintArea(print.area);
+  const [first, last] = print.titleRows.split(":");
+  layout.setPrintTitleRows(`$${first}:$${last}`);
+  layout.orientation = print.orientation === "portrait" ? "Portrait" : "Landscape";
+  layout.zoom = { horizontalFitToPages: print.fitWide, verticalFitToPages: print.fitTall };
 }
 
 const MARKERS = { none: "None", circle: "Circle", square: "Square", diamond: "Diamond", triangle: "Triangle" } as const;

@@ -56,6 +56,21 @@ export interface TemplateChart {
   to: string;
 }
 
+/**
+ * How the estimate sheet prints: the dependable route to paper. Hosts set it as the sheet's page setup (Excel's page
+ * layout, the .xlsx file's print area, print titles and fit).
+ */
+export interface TemplatePrint {
+  /** the printed block, "A1:P89": every cell of the template, spills and chart included (templateExtent) */
+  area: string;
+  /** the rows printed again at the top of every page, "1:2": the title and the caution */
+  titleRows: string;
+  /** pages across and down the area is scaled to fit */
+  fitWide: number;
+  fitTall: number;
+  orientation: "portrait" | "landscape";
+}
+
 export interface SheetTemplate {
   /** the base of the worksheet name ("Estimate"; a host adds " 2", " 3"... when taken) */
   sheetName: string;
@@ -65,6 +80,7 @@ export interface SheetTemplate {
   chart: TemplateChart;
   /** column widths in points, by column letter */
   columnWidths: Record<string, number>;
+  print: TemplatePrint;
 }
 
 /**
@@ -81,7 +97,7 @@ export interface Section<Refs> {
 }
 
 /** Every cell a spilled formula of the template will fill, anchors excluded: for checks and for hosts. */
-export function spillCells(t: SheetTemplate): string[] {
+export function spillCells(t: Pick<SheetTemplate, "cells">): string[] {
   const out: string[] = [];
   for (const c of t.cells) {
     if (!c.spill) continue;
@@ -97,7 +113,7 @@ export function spillCells(t: SheetTemplate): string[] {
 }
 
 /** The rectangle the template's cells cover, spills included: "A1:P90". */
-export function templateExtent(t: SheetTemplate): { rows: number; cols: number } {
+export function templateExtent(t: Pick<SheetTemplate, "cells">): { rows: number; cols: number } {
   let rows = 0;
   let cols = 0;
   for (const addr of [...t.cells.map((c) => c.address), ...spillCells(t)]) {

@@ -21,7 +21,8 @@ import {
   verdictSection,
   waterSupplySection,
 } from "./sections";
-import type { Section, SheetTemplate } from "./sheet";
+import { columnLetters, parseCell } from "./a1";
+import { type Section, type SheetTemplate, type TemplateCell, type TemplatePrint, templateExtent } from "./sheet";
 
 /** Blank rows between two sections. */
 const GAP = 1;
@@ -60,12 +61,36 @@ export function estimateTemplate(s: Scenario, { areaDemand = treeDemandSection }
   lay(verdictSection(s, row, { units, supply, demand }));
   const { chart } = lay(supplyCurveSection(s, row, { units, supply, demand }));
 
-  return {
+  const sheet: Omit<SheetTemplate, "print"> = {
     sheetName: "Estimate",
     units: s.units,
     cells: built.flatMap((b) => b.cells),
     names: built.flatMap((b) => b.names),
     chart: { ...chart, from: CHART_FROM, to: CHART_TO },
     columnWidths: { ...COLUMN_WIDTHS },
+  };
+  return { ...sheet, print: printSetup(sheet) };
+}
+
+/**
+ * The print setup of the estimate: the whole template (its extent, which takes in the chart beside the upper
+ * sections), scaled to one page wide and one page tall, so that the first page holds the caution at the top and the
+ * verdict further down whatever the paper; the title and the caution repeat on every page should a user print it
+ * larger, over several pages. Portrait: the sheet is about as tall as it is wide (1215 pt of columns, some 1420 pt of
+ * rows at Excel's default 15 pt a row), so an upright page gives the larger scale, and there the width sets it: about
+ * 42 % on Letter and 41 % on A4 with Excel's normal margins of 0.7 in and 0.75 in (from memory), at which the sheet
+ * takes some 600 of the 684 pt (Letter) and 580 of the 734 pt (A4) a page holds, so one page tall costs nothing.
+ */
+function printSetup(t: Omit<SheetTemplate, "print">): TemplatePrint {
+  const { rows, cols } = templateExtent(t);
+  const row = (c: TemplateCell | undefined) => (c ? parseCell(c.address).row + 1 : 1);
+  const title = row(t.cells.find((c) => c.role === "title"));
+  const caution = row(t.cells.find((c) => c.role === "caution"));
+  return {
+    area: `A1:${columnLetters(cols - 1)}${rows}`,
+    titleRows: `${Math.min(title, caution)}:${Math.max(title, caution)}`,
+    fitWide: 1,
+    fitTall: 1,
+    orientation: "portrait",
   };
 }

@@ -14,6 +14,7 @@ import { readXlsx } from "../../src/preview/xlsx";
 import { REQUIRED_NAMES } from "../../src/workbook/port";
 import { PreviewPort } from "../../src/preview/port";
 import { CAUTION } from "../../src/workbook/look";
+import { estimateTemplate } from "../../src/workbook/template";
 
 let known: string[];
 beforeAll(async () => {
@@ -67,6 +68,11 @@ describe.each(SAMPLES.map((s) => [s.file, s] as const))("%s", (file, spec) => {
       }
     }
     expect(compared).toBeGreaterThan(80);
+  });
+
+  test("it prints on one page: the estimate sheet's print area, title rows and fit are in the file", async () => {
+    const estimate = (await committed(file)).sheets.find((s) => s.name === "Estimate")!;
+    expect(estimate.print).toEqual(estimateTemplate(spec.scenario).print);
   });
 
   test("it carries the caution and every named cell the pane reads", async () => {

@@ -98,6 +98,32 @@ describe("round trip", () => {
     expect(fill.fgColor?.argb).toBe("FFFFF2B3");
   });
 
+  test("the estimate sheet keeps its print area, title rows and one-page fit in the file, and reads them back", async () => {
+    const t = estimateTemplate(demoScenario("US"));
+    const data = demoWorkbook().toData();
+    expect(data.sheets[0].print).toEqual(t.print);
+    const bytes = await writeXlsx(data, known);
+    const x = new ExcelJS.Workbook();
+    await x.xlsx.load(bytes as unknown as ArrayBuffer);
+    const setup = x.getWorksheet("Estimate")!.pageSetup;
+    expect({
+      printArea: setup.printArea,
+      printTitlesRow: setup.printTitlesRow,
+      fitToPage: setup.fitToPage,
+      fitToWidth: setup.fitToWidth,
+      fitToHeight: setup.fitToHeight,
+      orientation: setup.orientation,
+    }).toEqual({ printArea: t.print.area, printTitlesRow: t.print.titleRows, fitToPage: true, fitToWidth: 1, fitToHeight: 1, orientation: "portrait" });
+    // the area as Excel writes one: a name of the sheet, absolute references
+    const [from, to] = t.print.area.split(":").map((a) => a.replace(/^([A-Z]+)(\d+)$/, "$$$1$$$2"));
+    expect(zipEntry(bytes, "xl/workbook.xml")).toContain(
+      `<definedName name="_xlnm.Print_Area" localSheetId="0">&apos;Estimate&apos;!${from}:${to}</definedName>`,
+    );
+    const { workbook: opened } = await readXlsx(bytes, known);
+    expect(opened.sheets[0].print).toEqual(t.print);
+    expect(new PreviewWorkbook(opened).toData().sheets[0].print).toEqual(t.print);
+  });
+
   test("a share copy saved alone holds values only, with the stamp", async () => {
     const wb = demoWorkbook();
     const port = new PreviewPort(wb, () => new Date(2026, 4, 4));

@@ -302,6 +302,19 @@ describe("Excel port: the estimate sheet", () => {
     expect(fake.sheetByName(sheetName)!.cells.get(t.names.find((n) => n.name === "Units")!.address)?.value).toBe("SI");
   });
 
+  it("gives the new sheet the template's print area, repeated title rows and one-page fit", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const { sheetName } = await excelPort(fake).insertEstimateSheet("SI");
+    const t = estimateTemplate(demoScenario("SI"));
+    const [first, last] = t.print.titleRows.split(":");
+    expect(fake.sheetByName(sheetName)!.print).toEqual({
+      area: t.print.area,
+      titleRows: `$${first}:$${last}`,
+      orientation: "Portrait",
+      zoom: { horizontalFitToPages: 1, verticalFitToPages: 1 },
+    });
+  });
+
   it("adds an XY scatter chart of the supply curve against the demand points", async () => {
     const fake = new FakeExcel(["Sheet1"]);
     const { sheetName } = await excelPort(fake).insertEstimateSheet("US");

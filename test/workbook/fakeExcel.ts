@@ -47,6 +47,8 @@ export interface FakeSheet {
   tabColor?: string;
   /** names scoped to this sheet */
   names: Map<string, NameTarget>;
+  /** what the port set of the sheet's page layout */
+  print?: { area?: string; titleRows?: string; orientation?: string; zoom?: unknown };
 }
 
 export interface FakeChart {
@@ -381,6 +383,13 @@ class Session {
       tabColor: sheet.tabColor ?? "",
       getRange: (a: string) => this.rangeProxy(sheet, a),
       names: { getItemOrNullObject: (n: string) => this.nameItem(n, sheet) },
+      pageLayout: {
+        orientation: "",
+        // a scalar in the seed, so that the object the port assigns (zoom is set as a whole) is seen at the sync
+        zoom: "",
+        setPrintArea: (area: string) => void (sheet.print = { ...sheet.print, area }),
+        setPrintTitleRows: (rows: string) => void (sheet.print = { ...sheet.print, titleRows: rows }),
+      },
       getUsedRange: () => {
         const u = this.x.usedRange(sheet);
         if (!u) throw new Error("the sheet is empty");
@@ -419,6 +428,8 @@ class Session {
           if (this.x.sheetByName(String(v)) && this.x.sheetByName(String(v)) !== sheet) throw new Error(`sheet name taken: ${v}`);
           sheet.name = String(v);
         } else if (path === "tabColor") sheet.tabColor = String(v);
+        else if (path === "pageLayout/orientation") sheet.print = { ...sheet.print, orientation: String(v) };
+        else if (path === "pageLayout/zoom") sheet.print = { ...sheet.print, zoom: structuredClone(v) };
       },
       { _sheetId: sheet.id },
     );

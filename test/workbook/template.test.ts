@@ -9,12 +9,12 @@ import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { buildModel } from "../../src/taskpane/model";
-import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
+import { cellAddress, columnLetters, parseCell, parseRange } from "../../src/workbook/a1";
 import { INPUT_NAMES } from "../../src/workbook/port";
 import { PreviewPort } from "../../src/preview/port";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
 import { CAUTION } from "../../src/workbook/look";
-import { type SheetTemplate, spillCells } from "../../src/workbook/sheet";
+import { type SheetTemplate, spillCells, templateExtent } from "../../src/workbook/sheet";
 import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
 
@@ -116,6 +116,26 @@ describe.each(["US", "SI"] as const)("estimate template, %s", (units) => {
     expect(total).toMatchObject({ x: name("Demand_Flow"), y: name("Demand_Pressure"), style: "marker" });
     expect(sprinklers.y).toBe(name("Demand_Pressure"));
     expect(t.chart.xTitle).toBe(units === "US" ? "Flow (gpm)" : "Flow (L/min)");
+  });
+
+  it("prints every cell on one page, the caution and the verdict with it, title and caution repeated on any page", () => {
+    const area = parseRange(t.print.area);
+    const inside = (address: string) => {
+      const p = parseCell(address);
+      return p.row >= area.start.row && p.row < area.start.row + area.rows && p.col >= area.start.col && p.col < area.start.col + area.cols;
+    };
+    const { rows, cols } = templateExtent(t);
+    expect(t.print.area).toBe(`A1:${columnLetters(cols - 1)}${rows}`);
+    for (const c of t.cells) expect(inside(c.address), c.address).toBe(true);
+    for (const a of spillCells(t)) expect(inside(a), a).toBe(true);
+    expect(inside(t.chart.from) && inside(t.chart.to), "the chart").toBe(true);
+    const title = t.cells.find((c) => c.role === "title")!;
+    const caution = t.cells.find((c) => c.role === "caution")!;
+    const verdict = t.cells.find((c) => c.formula?.startsWith("=HEADROOM.VERDICT("))!;
+    expect(inside(caution.address) && inside(verdict.address)).toBe(true);
+    // one page wide and one tall: whatever the paper, page 1 holds the caution and the verdict
+    expect(t.print).toMatchObject({ fitWide: 1, fitTall: 1, orientation: "portrait" });
+    expect(t.print.titleRows).toBe(`${parseCell(title.address).row + 1}:${parseCell(caution.address).row + 1}`);
   });
 
   it("calculates without a single error cell", () => {
