@@ -95,6 +95,22 @@ export const CODE_ROWS = [
     source: `${EXCEL_REF}excel.chartseries, ${EXCEL_REF}excel.chartseriescollection, ${EXCEL_REF}excel.worksheet`,
   },
   {
+    api: "Application.calculate",
+    code: /\bapplication\.calculate\s*\(/,
+    excelOnly: true,
+    set: "ExcelApi",
+    version: "1.1",
+    source: `${EXCEL_REF}excel.application`,
+  },
+  {
+    api: "WorksheetCollection.onActivated",
+    code: /\bworksheets\.onActivated\b/,
+    excelOnly: true,
+    set: "ExcelApi",
+    version: "1.7",
+    source: `${EXCEL_REF}excel.worksheetcollection`,
+  },
+  {
     api: "WorksheetCollection.onCalculated",
     code: /\bworksheets\.onCalculated\b/,
     excelOnly: true,
@@ -103,12 +119,12 @@ export const CODE_ROWS = [
     source: `${EXCEL_REF}excel.worksheetcollection`,
   },
   {
-    api: "WorksheetCollection.onChanged, Range.copyFrom",
-    code: /\bworksheets\.onChanged\b|\.copyFrom\s*\(/,
+    api: "WorksheetCollection.onChanged, Range.copyFrom, Worksheet.pageLayout",
+    code: /\bworksheets\.onChanged\b|\.copyFrom\s*\(|\.pageLayout\b/,
     excelOnly: true,
     set: "ExcelApi",
     version: "1.9",
-    source: `${EXCEL_REF}excel.worksheetcollection, ${EXCEL_REF}excel.range`,
+    source: `${EXCEL_REF}excel.worksheetcollection, ${EXCEL_REF}excel.range, ${EXCEL_REF}excel.worksheet`,
   },
 ];
 
