@@ -86,7 +86,7 @@ describe("the requirement-set check itself, on made-up inputs", () => {
     expect(Object.fromEntries(runtimeChecks({ "pane.ts": guardOk }))).toEqual({ ExcelApi: { version: "1.9", where: "pane.ts" } });
     expect(requirementProblems({ sources: { "x.ts": excel, "pane.ts": guardOk }, manifest: toyManifest("") })).toEqual([]);
     expect(requirementProblems({ sources: { "x.ts": excel, "pane.ts": guardLow }, manifest: toyManifest("") })).toEqual([
-      "pane.ts checks ExcelApi 1.8, but the add-in needs 1.9 for WorksheetCollection.onChanged, Range.copyFrom (ExcelApi 1.9) in x.ts",
+      "pane.ts checks ExcelApi 1.8, but the add-in needs 1.9 for WorksheetCollection.onChanged, Range.copyFrom, Worksheet.pageLayout (ExcelApi 1.9) in x.ts",
     ]);
     expect(requirementProblems({ sources: { "x.ts": excel }, manifest: toyManifest("") })[0]).toMatch(/^ExcelApi 1.9 is neither in manifest.xml/);
   });
