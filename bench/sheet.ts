@@ -8,6 +8,7 @@ import * as functions from "../src/functions/functions";
 import { registerHeadroomFunctions } from "../src/preview/plugin";
 import type { FunctionsMetadata } from "../src/preview/metadata";
 import { ENGINE_CONFIG } from "../src/preview/workbook";
+import { functionFiles } from "../scripts/function-files.mjs";
 
 const ms = (f: () => void) => {
   const t = performance.now();
@@ -22,7 +23,11 @@ function rows(n: number, formula: (r: number) => string): unknown[][] {
 }
 
 export async function sheetBench(n: number) {
-  const generated = await generateCustomFunctionsMetadata("src/functions/functions.ts");
+  // The metadata the build generates: every file of src/functions/ that holds a cell function.
+  const generated = await generateCustomFunctionsMetadata(functionFiles());
+  if (generated.errors.length || !generated.metadataJson) {
+    throw new Error(`metadata generator: ${generated.errors.join("; ") || "no metadata"}`);
+  }
   registerHeadroomFunctions(JSON.parse(generated.metadataJson) as FunctionsMetadata, functions);
   const variants = {
     headroom: (r: number) => `=HEADROOM.FRICTION(A${r},C${r},B${r},$F$1)`,
