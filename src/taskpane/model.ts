@@ -18,7 +18,7 @@ import {
 import { CURVE_DEMAND_FLOW_FACTOR, type CurvePoint, SUPPLY_CURVE_FLOW_FACTOR, sampleFlows } from "../engine/curve";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { ZERO_ALLOWED, quantityArg, unitsArg } from "../functions/args";
+import { ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
 import { decisionArgs, pumpRatingArgs } from "../functions/common";
 import { type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
 
@@ -92,24 +92,29 @@ const ARGUMENT_NAMES: Record<string, Exclude<InputName, "Units">> = {
   Demand_HoseFlow: "Demand_HoseFlow",
 };
 
+/** The argument of the shared checks that reads a named cell (the name itself for the pane's own Demand_HoseFlow). */
+function argumentOf(name: Exclude<InputName, "Units">): string {
+  return Object.keys(ARGUMENT_NAMES).find((a) => ARGUMENT_NAMES[a] === name) ?? name;
+}
+
 function where(r: Reading): string {
   return "address" in r && r.address ? ` (${r.address})` : "";
 }
 
-/** Why a reading is not a usable number, or null when it is one. `optional` names may be missing or empty. */
-function numberProblem(name: Exclude<InputName, "Units">, r: Reading, units: UnitSystem): string | null {
+/**
+ * Why a reading cannot be read at all (a missing name, an error in the cell, a name on several cells), or null: text
+ * and empty cells go through the cell functions' own reader instead.
+ */
+function numberProblem(name: Exclude<InputName, "Units">, r: Reading): string | null {
   const m = NAME_MEANINGS[name];
-  const unit = unitName(m.quantity, units);
-  const type = `type ${m.what} in ${unit}`;
   switch (r.kind) {
     case "number":
       return null;
     case "missing":
       return `${name} is not defined. Select the cell that holds ${m.what}, type ${name} in the Name Box and press Enter, or use New estimate sheet.`;
     case "empty":
-      return `${name}${where(r)} is empty: ${type}.`;
     case "text":
-      return `${name}${where(r)} holds "${r.value}", not a number: ${type}.`;
+      return null; // read by the cell functions' own reader (toNumber)
     case "error":
       return `${name}${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: fix the cells it is calculated from (Excel shows the message when you point at the cell).`;
     case "invalid":
@@ -153,19 +158,32 @@ export function buildModel(readings: Readings): PaneModel {
     problems.push({ name: "Units", message: u });
   }
   const units = typeof u === "string" ? "US" : u.units;
-  const value = (n: Exclude<InputName, "Units">) => (readings[n] as { value: number }).value;
+  const numbers = new Map<InputName, number>();
+  const value = (n: Exclude<InputName, "Units">) => numbers.get(n) as number;
 
-  for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) {
-    const p = numberProblem(n, readings[n], units);
-    if (p) problems.push({ name: n, message: p });
-  }
+  // A cell that holds text or nothing is read as the cell functions read that argument (toNumber), so the pane says
+  // what the sheet's cells say; a name that is missing, points at several cells or shows an error is the pane's own.
+  const read = (n: Exclude<InputName, "Units">) => {
+    const r = readings[n];
+    if (r.kind === "number") return numbers.set(n, r.value);
+    if (r.kind === "text" || r.kind === "empty") {
+      try {
+        numbers.set(n, toNumber(r.kind === "text" ? r.value : null, argumentOf(n)));
+      } catch (e) {
+        if (!(e instanceof HeadroomError)) throw e;
+        problems.push({ name: n, message: `${n}${where(r)}: ${e.messageIn(units)}` });
+      }
+      return;
+    }
+    problems.push({ name: n, message: numberProblem(n, r) ?? `${n} cannot be read.` });
+  };
+  for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
   const optional: Exclude<InputName, "Units">[] = ["Demand_HoseFlow", "Required_Margin", "Pump_RatedFlow", "Pump_RatedPressure"];
   const given = new Set<InputName>();
   for (const n of optional) {
     if (isBlank(readings[n])) continue;
-    const p = numberProblem(n, readings[n], units);
-    if (p) problems.push({ name: n, message: p });
-    else given.add(n);
+    read(n);
+    if (numbers.has(n)) given.add(n);
   }
   if (problems.length > 0) return { kind: "problems", problems };
 

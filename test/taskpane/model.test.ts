@@ -106,10 +106,22 @@ describe("pane model: what is wrong with the names", () => {
   });
 
   it("says a name holds text, is empty or shows an error, with its cell", () => {
+    const sheet = (e: () => unknown) => {
+      try {
+        e();
+      } catch (err) {
+        return (err as Error).message;
+      }
+      return "";
+    };
+    // the sheet's own messages for the same inputs
+    expect(sheet(() => verdictCell(562, 48, "seventy", 58, 1100))).toBe('static_pressure: got "seventy"; must be a number');
+    expect(sheet(() => verdictCell(null, 48, 72, 58, 1100))).toBe("demand_flow is empty: type a number");
     const msgs = problems({ ...BASE, Supply_Static: "seventy", Demand_Flow: null, Demand_Pressure: { kind: "error", code: "#VALUE!", address: "Estimate!B57" } });
     expect(msgs).toEqual([
-      'Supply_Static (Estimate!B3) holds "seventy", not a number: type the static pressure of the flow test in psi.',
-      "Demand_Flow (Estimate!B6) is empty: type the demand flow at the supply, sprinklers plus hose in gpm.",
+      // text and empty cells: the very messages VERDICT gives for those arguments
+      'Supply_Static (Estimate!B3): static_pressure: got "seventy"; must be a number',
+      "Demand_Flow (Estimate!B6): demand_flow is empty: type a number",
       "Demand_Pressure (Estimate!B57) shows #VALUE!: fix the cells it is calculated from (Excel shows the message when you point at the cell).",
     ]);
   });
