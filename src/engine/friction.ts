@@ -98,22 +98,34 @@ export interface HeadLoss {
 export const HW_CONSTANT_SI_AS_US =
   (HW_CONSTANT_SI * Math.pow(L_PER_GAL, HW_FLOW_EXPONENT)) / Math.pow(MM_PER_IN, HW_DIAMETER_EXPONENT) / BARM_PER_PSIFT;
 
-function hazenWilliams(units: UnitSystem, constant: number): HeadLoss {
-  const rate = (flow: number, diameter: number, cFactor: number) =>
-    (constant * Math.pow(flow, HW_FLOW_EXPONENT)) /
-    (Math.pow(cFactor, HW_FLOW_EXPONENT) * Math.pow(diameter, HW_DIAMETER_EXPONENT));
-  return Object.freeze({
-    units,
-    rate,
-    loss: (flow: number, diameter: number, cFactor: number, length: number) => rate(flow, diameter, cFactor) * length,
-    slope: (flow: number, diameter: number, cFactor: number, length: number) =>
-      flow > 0 ? (HW_FLOW_EXPONENT * rate(flow, diameter, cFactor) * length) / flow : 0,
-  });
+/**
+ * Hazen-Williams with one constant. A class, not an object of closures: both unit systems' objects share one shape
+ * and one set of methods, so that a call site seeing either stays monomorphic and the optimiser inlines it (these
+ * run on every recalculation of every friction cell and inside every solve).
+ */
+class HazenWilliams implements HeadLoss {
+  readonly units: UnitSystem;
+  private readonly constant: number;
+  constructor(units: UnitSystem, constant: number) {
+    this.units = units;
+    this.constant = constant;
+    Object.freeze(this);
+  }
+  rate(flow: number, diameter: number, cFactor: number): number {
+    return (this.constant * Math.pow(flow, HW_FLOW_EXPONENT)) /
+      (Math.pow(cFactor, HW_FLOW_EXPONENT) * Math.pow(diameter, HW_DIAMETER_EXPONENT));
+  }
+  loss(flow: number, diameter: number, cFactor: number, length: number): number {
+    return this.rate(flow, diameter, cFactor) * length;
+  }
+  slope(flow: number, diameter: number, cFactor: number, length: number): number {
+    return flow > 0 ? (HW_FLOW_EXPONENT * this.rate(flow, diameter, cFactor) * length) / flow : 0;
+  }
 }
 
 const HEAD_LOSS: Record<UnitSystem, HeadLoss> = {
-  US: hazenWilliams("US", HW_CONSTANT_US),
-  SI: hazenWilliams("SI", HW_CONSTANT_SI_AS_US),
+  US: new HazenWilliams("US", HW_CONSTANT_US),
+  SI: new HazenWilliams("SI", HW_CONSTANT_SI_AS_US),
 };
 
 /**

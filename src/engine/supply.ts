@@ -26,12 +26,18 @@ export interface FlowTest {
  * // throws "residual: got 80 psi; must be below the static pressure 70 psi"
  */
 export function checkFlowTest(t: FlowTest): void {
+  // the comparisons alone on the way through (NaN fails them); the wording only when one fails
+  if (!(t.static > 0 && t.residual >= 0 && t.residual < t.static && t.testFlow > 0)) flowTestProblem(t);
+}
+
+/** The first rule of checkFlowTest that `t` breaks, thrown. */
+function flowTestProblem(t: FlowTest): never {
   if (!(t.static > 0)) fail("static_pressure", q("pressure", t.static), "must be greater than 0");
   if (!(t.residual >= 0)) fail("residual", q("pressure", t.residual), "must be 0 or more");
   if (!(t.residual < t.static)) {
     fail("residual", q("pressure", t.residual), "must be below the static pressure {0}", q("pressure", t.static));
   }
-  if (!(t.testFlow > 0)) fail("test_flow", q("flow", t.testFlow), "must be greater than 0");
+  fail("test_flow", q("flow", t.testFlow), "must be greater than 0");
 }
 
 /**
@@ -90,12 +96,15 @@ export function supplyCurve(flow: number, t: FlowTest): number {
  */
 export function supplyAt(flow: number, t: FlowTest): number {
   checkFlowTest(t);
-  if (!(flow >= 0)) fail("flow", q("flow", flow), "must be 0 or more");
-  const p = supplyCurve(flow, t);
-  if (!(p > 0)) {
-    fail("flow", q("flow", flow), "this supply reaches {0} at {1}", q("pressure", 0), q("flow", exhaustionFlow(t)));
-  }
+  const p = flow >= 0 ? supplyCurve(flow, t) : NaN;
+  if (!(p > 0)) supplyAtProblem(flow, t);
   return p;
+}
+
+/** Why supplyAt has no pressure at `flow`: a flow below 0, or one where the supply is exhausted. */
+function supplyAtProblem(flow: number, t: FlowTest): never {
+  if (!(flow >= 0)) fail("flow", q("flow", flow), "must be 0 or more");
+  fail("flow", q("flow", flow), "this supply reaches {0} at {1}", q("pressure", 0), q("flow", exhaustionFlow(t)));
 }
 
 /**
