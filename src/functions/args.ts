@@ -13,7 +13,7 @@ import { type Quantity, type UnitSystem, QUANTITIES, toUS } from "../engine/unit
  * The largest value each quantity may take, in US units. These are plausibility bounds of the trade, not design
  * limits: they catch a mistyped 1e308 or a diameter typed in mm while the sheet is in US units. (common practice)
  */
-export const LIMITS_US: Record<Quantity, number> = {
+export const LIMITS_US: Readonly<Record<Quantity, number>> = Object.freeze({
   flow: 100_000, // gpm: far above any single fire-protection supply
   pressure: 1_000, // psi
   diameter: 120, // in
@@ -23,16 +23,16 @@ export const LIMITS_US: Record<Quantity, number> = {
   kfactor: 100, // gpm/psi^0.5
   frictionRate: 1_000, // psi/ft (output only)
   velocity: 1_000, // ft/s (output only)
-};
+});
 
 /**
  * The smallest value a quantity that must be greater than 0 may take, in US units, where a smaller one could only be
  * a slip and would make a result overflow (d^4.87 or K² in a divisor). (common practice)
  */
-export const FLOORS_US: Partial<Record<Quantity, number>> = {
+export const FLOORS_US: Readonly<Partial<Record<Quantity, number>>> = Object.freeze({
   diameter: 0.1, // in: below every pipe and outlet bore of the trade
   kfactor: 0.1, // gpm/psi^0.5: below every sprinkler K-factor
-};
+});
 
 /**
  * The basic value of a data-typed cell value, or the value itself. Excel hands a data-typed cell to an `any`
@@ -109,13 +109,26 @@ function describeRule(rule: NumberRule): string {
 
 /** A plain number (no unit conversion) checked against `rule`. */
 export function numberArg(value: unknown, name: string, rule: NumberRule = NO_NUMBER_RULE): number {
+  // The everyday call, a finite number that keeps the rule, in a few comparisons; everything else, and every
+  // problem, takes the full reading below. Kept small so that it inlines.
+  if (typeof value === "number" && value - value === 0 && keepsRule(value, rule)) return value + 0; // never −0
+  return readNumber(value, name, rule);
+}
+
+/** True when the number `x` keeps `rule`. */
+function keepsRule(x: number, rule: NumberRule): boolean {
+  return (
+    (rule.gt === undefined || x > rule.gt) &&
+    (rule.min === undefined || x >= rule.min) &&
+    (rule.max === undefined || x <= rule.max) &&
+    (rule.integer !== true || Number.isInteger(x))
+  );
+}
+
+/** numberArg in full: any cell value, every problem worded. */
+function readNumber(value: unknown, name: string, rule: NumberRule): number {
   const x = toNumber(value, name);
-  const bad =
-    (rule.gt !== undefined && !(x > rule.gt)) ||
-    (rule.min !== undefined && !(x >= rule.min)) ||
-    (rule.max !== undefined && !(x <= rule.max)) ||
-    (rule.integer === true && !Number.isInteger(x));
-  if (bad) fail(name, n(x, rule.unit), `must be ${describeRule(rule)}`);
+  if (!keepsRule(x, rule)) fail(name, n(x, rule.unit), `must be ${describeRule(rule)}`);
   return x === 0 ? 0 : x; // never −0
 }
 
@@ -124,26 +137,55 @@ export function optionalNumberArg(value: unknown, name: string, fallback: number
   return isBlank(value) ? fallback : numberArg(value, name, rule);
 }
 
+/** How a quantity may range: build one with quantityRule, once, and share it (ZERO_ALLOWED, SIGNED). */
 export interface QuantityRule {
   /** zero is allowed (a flow of 0, a length of 0); otherwise the value must be greater than zero */
-  zero?: boolean;
+  readonly zero: boolean;
   /** negative values are allowed (a rise may be a drop) */
-  signed?: boolean;
+  readonly signed: boolean;
   /** the smallest value allowed, US units, where it is not 0 (overrides FLOORS_US) */
-  min?: number;
+  readonly min: number | undefined;
+  /** the smallest value allowed of each quantity, US units, worked out once: quantityArg's everyday path compares */
+  readonly lowestUS: Readonly<Record<Quantity, number>>;
+}
+
+/**
+ * A rule with its lowest value of each quantity worked out once: from −limit (`signed`), from 0 (`zero`), else at
+ * least `min` or the quantity's floor (FLOORS_US) and greater than 0 ("greater than 0" is "at least the smallest
+ * positive number", so that every span is one closed interval).
+ */
+export function quantityRule(rule: { zero?: boolean; signed?: boolean; min?: number }): QuantityRule {
+  const zero = rule.zero === true, signed = rule.signed === true;
+  const lowestUS = {} as Record<Quantity, number>;
+  for (const quantity of Object.keys(LIMITS_US) as Quantity[]) {
+    lowestUS[quantity] = signed
+      ? -LIMITS_US[quantity]
+      : zero ? 0 : Math.max(Number.MIN_VALUE, rule.min ?? FLOORS_US[quantity] ?? 0);
+  }
+  // every rule has every field, so that the checks see one object shape
+  return Object.freeze({ zero, signed, min: rule.min, lowestUS: Object.freeze(lowestUS) });
 }
 
 /** Rules shared by many calls (one object, not one per call: these checks run on every recalculation). */
-// All three have every field, so that the checks below see one object shape.
-const NO_RULE: QuantityRule = Object.freeze({ zero: false, signed: false, min: undefined });
-export const ZERO_ALLOWED: QuantityRule = Object.freeze({ zero: true, signed: false, min: undefined });
-export const SIGNED: QuantityRule = Object.freeze({ zero: false, signed: true, min: undefined });
+const NO_RULE = quantityRule({});
+export const ZERO_ALLOWED = quantityRule({ zero: true });
+export const SIGNED = quantityRule({ signed: true });
 
 /**
  * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with
  * `zero`, or either sign with `signed`) up to the plausibility bound of LIMITS_US, stated in the user's units.
  */
 export function quantityArg(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule = NO_RULE): number {
+  // The everyday call, a plain number in US units within its span, in two comparisons (NaN and ±Infinity fail
+  // them); everything else, and every problem, takes the full reading below. Kept small so that it inlines.
+  if (typeof value === "number" && units === "US" && value <= LIMITS_US[quantity] && value >= rule.lowestUS[quantity]) {
+    return value + 0; // never −0
+  }
+  return readQuantity(value, name, quantity, units, rule);
+}
+
+/** quantityArg in full: any cell value, either unit system, every problem worded. */
+function readQuantity(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule): number {
   const given = typeof value === "number" && Number.isFinite(value) ? value : toNumber(value, name);
   const us = units === "SI" ? toUS(quantity, given, units) : given;
   const limitUS = LIMITS_US[quantity];
