@@ -36,18 +36,37 @@ export function toCellError(e: unknown, units: UnitSystem = "US"): CustomFunctio
   return new CustomFunctions.Error(code, messageOf(e, units));
 }
 
+/** What `cell` hands through to a body besides the unit system: up to six of the cell function's own arguments. */
+type Passed = [] | [unknown] | [unknown, unknown] | [unknown, unknown, unknown] | [unknown, unknown, unknown, unknown]
+  | [unknown, unknown, unknown, unknown, unknown] | [unknown, unknown, unknown, unknown, unknown, unknown];
+
 /**
  * Run a cell function's body with its `[units]` argument read first; any problem leaves as a CustomFunctions.Error
  * whose message speaks those units (a problem with `units` itself is said in US terms).
+ *
+ * The body gets the unit system and then `args`, the cell function's own arguments handed through, so that it can
+ * be a function of the module rather than a closure made on every call: `cell(units, frictionOf, flow, diameter)`
+ * allocates nothing on the way through (this runs on every recalculation of every cell). A closure
+ * `cell(units, (u) => …)` works too, where a call's cost does not matter.
  */
-export function cell<T>(units: unknown, body: (u: UnitSystem) => T): T {
+export function cell<T, A extends Passed>(units: unknown, body: (u: UnitSystem, ...args: A) => T, ...args: A): T;
+export function cell(
+  units: unknown,
+  body: (u: UnitSystem, ...args: unknown[]) => unknown,
+  a?: unknown,
+  b?: unknown,
+  c?: unknown,
+  d?: unknown,
+  e?: unknown,
+  f?: unknown,
+): unknown {
   let u: UnitSystem = "US";
   try {
     u = unitsArg(units);
-    const result = body(u);
-    return (result === 0 ? 0 : result) as T; // never −0
-  } catch (e) {
-    throw toCellError(e, u);
+    const result = body(u, a, b, c, d, e, f);
+    return result === 0 ? 0 : result; // never −0
+  } catch (problem) {
+    throw toCellError(problem, u);
   }
 }
 

@@ -38,16 +38,8 @@ const C_FACTOR_RULE = Object.freeze({ min: MIN_C_FACTOR, max: MAX_C_FACTOR });
 
 /** The C factor of a pipe: from MIN_C_FACTOR to MAX_C_FACTOR. */
 export function cFactorArg(value: unknown, name = "c_factor"): number {
-  return numberArg(value, name, C_FACTOR_RULE);
-}
-
-/** flow (0 allowed), internal diameter, C factor of a pipe. */
-export function pipeArgs(flow: unknown, diameter: unknown, cFactor: unknown, u: UnitSystem): [number, number, number] {
-  return [
-    quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED),
-    quantityArg(diameter, "diameter", "diameter", u),
-    cFactorArg(cFactor),
-  ];
+  // the rule's two comparisons on the way through (NaN and ±Infinity fail them); numberArg words any problem
+  return typeof value === "number" && value >= MIN_C_FACTOR && value <= MAX_C_FACTOR ? value + 0 : numberArg(value, name, C_FACTOR_RULE);
 }
 
 /** A sprinkler's minimum operating pressure: default 7 psi in US work, 0.5 bar in SI work [NFPA 13]. */

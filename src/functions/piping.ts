@@ -13,7 +13,7 @@ import { type RunInput, type RunStep, type Segment, segmentLosses, walkRun } fro
 import { type UnitSystem, fromUS } from "../engine/units";
 import { SIGNED, ZERO_ALLOWED, isBlank, isBlankRow, optionalQuantityArg, quantityArg, rangeArg } from "./args";
 import { cell, cellRow } from "./bridge";
-import { cFactorArg, pipeArgs } from "./common";
+import { cFactorArg } from "./common";
 import { fittingArg, fittingListArg } from "./fittingList";
 import { nominalArg } from "./nominal";
 import type { SpillShape } from "./shapes";
@@ -32,12 +32,17 @@ import { materialArg, scheduleArg, systemArg } from "./tableCodes";
  * @returns Friction loss (psi; SI: bar).
  */
 export function friction(flow: any, diameter: any, c_factor: any, length: any, units?: any): number {
-  return cell(units, (u) => {
-    const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
-    const l = quantityArg(length, "length", "length", u, ZERO_ALLOWED);
-    return fromUS("pressure", finiteOr(headLoss(u).loss(q, d, c, l), "diameter", qty("diameter", d)), u);
-  });
+  return cell(units, frictionLoss, flow, diameter, c_factor, length);
 }
+
+/** FRICTION's body (a function of the module, so that a recalculation makes no closure). */
+const frictionLoss = (u: UnitSystem, flow: unknown, diameter: unknown, cFactor: unknown, length: unknown): number => {
+  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
+  const d = quantityArg(diameter, "diameter", "diameter", u);
+  const c = cFactorArg(cFactor);
+  const l = quantityArg(length, "length", "length", u, ZERO_ALLOWED);
+  return fromUS("pressure", frictionResult(headLoss(u).loss(q, d, c, l), d), u);
+};
 
 /**
  * Friction loss per unit length of pipe, Hazen-Williams (NFPA 13; SI: EN 12845).
@@ -49,10 +54,24 @@ export function friction(flow: any, diameter: any, c_factor: any, length: any, u
  * @returns Loss per length (psi/ft; SI: bar/m).
  */
 export function frictionrate(flow: any, diameter: any, c_factor: any, units?: any): number {
-  return cell(units, (u) => {
-    const [q, d, c] = pipeArgs(flow, diameter, c_factor, u);
-    return fromUS("frictionRate", finiteOr(headLoss(u).rate(q, d, c), "diameter", qty("diameter", d)), u);
-  });
+  return cell(units, frictionRateOf, flow, diameter, c_factor);
+}
+
+/** FRICTIONRATE's body. */
+function frictionRateOf(u: UnitSystem, flow: unknown, diameter: unknown, cFactor: unknown): number {
+  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
+  const d = quantityArg(diameter, "diameter", "diameter", u);
+  const c = cFactorArg(cFactor);
+  return fromUS("frictionRate", frictionResult(headLoss(u).rate(q, d, c), d), u);
+}
+
+/**
+ * A friction result as a cell may show it, 0 or more and finite; otherwise the problem, named on the diameter (the
+ * input whose smallness drives a loss past any number). The comparisons first: the problem is built only when one
+ * fails.
+ */
+function frictionResult(x: number, d: number): number {
+  return x >= 0 && x <= Number.MAX_VALUE ? x : finiteOr(x, "diameter", qty("diameter", d));
 }
 
 /**

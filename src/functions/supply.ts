@@ -24,12 +24,15 @@ import type { SpillShape } from "./shapes";
  * @returns Supply pressure at the flow (psi; SI: bar).
  */
 export function supplyat(flow: any, static_pressure: any, residual: any, test_flow: any, units?: any): number {
-  return cell(units, (u) => {
-    const t = flowTestArgs(static_pressure, residual, test_flow, u);
-    const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
-    return fromUS("pressure", supplyAt(q, t), u); // finite: every input is bounded and the engine checks p > 0
-  });
+  return cell(units, supplyPressure, flow, static_pressure, residual, test_flow);
 }
+
+/** SUPPLYAT's body. */
+const supplyPressure = (u: UnitSystem, flow: unknown, staticP: unknown, residual: unknown, testFlow: unknown): number => {
+  const t = flowTestArgs(staticP, residual, testFlow, u);
+  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
+  return fromUS("pressure", supplyAt(q, t), u); // finite: every input is bounded and the engine checks p > 0
+};
 
 /**
  * Flow the water supply delivers at a pressure, along the supply curve: FLOWAT(20, ...) is the fire flow at 20 psi
