@@ -105,6 +105,29 @@ function fromResultMatrix(v: unknown, fname: string, shape: { rows: number; colu
   return SimpleRangeValue.onlyValues(rows.map((r) => r.map((x) => fromResultScalar(x, fname))));
 }
 
+/**
+ * The arguments of a call whose parameters are all scalars handed over untouched (HyperFormula's NOERROR), evaluated
+ * and turned into what Excel hands a function, `total` of them (a missing optional argument is null): what
+ * HyperFormula's own argument handling gives in that case, without its per-call lists. The first error among them
+ * is returned instead, as HyperFormula would return it. Undefined when an argument is a range: HyperFormula's own
+ * path then takes the call (it broadcasts a range over a scalar parameter, or intersects it), evaluating afresh.
+ */
+function scalarArguments(plugin: FunctionPlugin, asts: AstNode[], state: unknown, total: number): unknown[] | CellError | undefined {
+  const evaluate = (plugin as unknown as { evaluateAst(a: AstNode, s: unknown): unknown }).evaluateAst;
+  const values: unknown[] = [];
+  let error: CellError | undefined;
+  for (const ast of asts) {
+    const v = evaluate.call(plugin, ast, state);
+    if (v instanceof SimpleRangeValue) return undefined;
+    if (error === undefined && v instanceof CellError) error = v;
+    values.push(v);
+  }
+  if (error) return error;
+  const args: unknown[] = [];
+  for (let i = 0; i < total; i++) args.push(i < values.length ? toExcelScalar(values[i]) : null);
+  return args;
+}
+
 /** The generator's parameter → HyperFormula's argument metadata. */
 function argumentFor(p: BoundFunction["meta"]["parameters"][number]): FunctionArgument {
   let argumentType: FunctionArgumentType;
@@ -166,6 +189,20 @@ export function buildHeadroomPlugin(
     const required = f.meta.parameters.filter((p) => !p.optional).length;
     const total = f.meta.parameters.length;
     const signature = f.meta.parameters.map((p) => (p.optional ? `[${p.name}]` : p.name)).join(", ");
+    // HyperFormula's metadata of this function, looked up once (not by `this.metadata(name)` on every call)
+    const metadata = HeadroomFunctions.implementedFunctions[f.formulaName];
+    // every parameter a scalar handed over untouched and a scalar result: such a call may take the direct path
+    const scalarOnly = !shape && metadata.parameters!.every((p) => p.argumentType === FunctionArgumentType.NOERROR);
+    /** The function on Excel's values → a HyperFormula value: its result (spilled into `reserved`) or its problem. */
+    const callWith = (args: unknown[], reserved?: { rows: number; columns: number }): unknown => {
+      let result: unknown;
+      try {
+        result = f.impl(...args);
+      } catch (e) {
+        return toCellError(e, f.formulaName);
+      }
+      return reserved ? fromResultMatrix(result, f.formulaName, reserved) : fromResultScalar(result, f.formulaName);
+    };
     proto[method] = function (this: FunctionPlugin, ast: { args: AstNode[] }, state: unknown) {
       if (ast.args.length < required || ast.args.length > total) {
         const count = required === total ? `${total}` : `${required} to ${total}`;
@@ -173,6 +210,10 @@ export function buildHeadroomPlugin(
           ErrorType.NA,
           `${f.formulaName} takes ${count} arguments (${signature}); ${ast.args.length} given`,
         );
+      }
+      if (scalarOnly) {
+        const args = scalarArguments(this, ast.args, state, total);
+        if (args !== undefined) return args instanceof CellError ? args : callWith(args);
       }
       const predicted = predict(this, ast, state);
       if (predicted && "error" in predicted) return new CellError(ErrorType.VALUE, predicted.error);
@@ -182,17 +223,14 @@ export function buildHeadroomPlugin(
         meta: unknown,
         fn: (...a: unknown[]) => unknown,
       ) => unknown;
-      return run(ast.args, state, this.metadata(f.formulaName), (...values: unknown[]) => {
-        const args = values.map(toExcelArg);
-        const bad = args.find((a) => a instanceof CellError);
-        if (bad) return bad;
-        let result: unknown;
-        try {
-          result = f.impl(...args);
-        } catch (e) {
-          return toCellError(e, f.formulaName);
+      return run(ast.args, state, metadata, (...values: unknown[]) => {
+        const args: unknown[] = [];
+        for (const v of values) {
+          const a = toExcelArg(v);
+          if (a instanceof CellError) return a; // the first error an argument holds is the result
+          args.push(a);
         }
-        return predicted ? fromResultMatrix(result, f.formulaName, predicted) : fromResultScalar(result, f.formulaName);
+        return callWith(args, predicted);
       });
     };
     if (shape) {

@@ -92,6 +92,33 @@ describe("with the real functions module and its generated metadata", () => {
     expect((at(hf, "E1") as DetailedCellError).value).toBe("#DIV/0!");
   });
 
+  test("the first error among the arguments is the result, before the function reads any of them", () => {
+    // "x" would be refused by SUPPLYAT itself; the #DIV/0! of the second argument comes first, as in Excel
+    const hf = sheet([[100, 80, 1000, "=HEADROOM.SUPPLYAT(\"x\",1/0,B1,C1)", "=HEADROOM.SUPPLYAT(A1,B1,C1,1/0)"]]);
+    expect((at(hf, "D1") as DetailedCellError).value).toBe("#DIV/0!");
+    expect((at(hf, "E1") as DetailedCellError).value).toBe("#DIV/0!");
+  });
+
+  test("a date or other formatted number arrives as its plain number", () => {
+    const hf = sheet([["=DATE(1901,5,1)", "=HEADROOM.SUPPLYAT(DATE(1901,5,1),100,80,1000)"]]);
+    const serial = at(hf, "A1") as number;
+    expect(typeof serial).toBe("number");
+    expect(at(hf, "B1")).toBe(functions.supplyat(serial, 100, 80, 1000));
+  });
+
+  test("a range given for a scalar argument: broadcast over its cells with array arithmetic, else its row's cell", () => {
+    const rows = [
+      [500, 100, 80, 1000, "=HEADROOM.SUPPLYAT(A1:A2,B1,C1,D1)"],
+      [600, null, null, null, null, "=HEADROOM.SUPPLYAT(A1:A2,B1,C1,D1)"],
+    ];
+    const arrays = HyperFormula.buildFromArray(rows as never, { ...LICENCE, useArrayArithmetic: true });
+    expect(at(arrays, "E1")).toBe(functions.supplyat(500, 100, 80, 1000));
+    expect(at(arrays, "E2")).toBe(functions.supplyat(600, 100, 80, 1000));
+    const plain = sheet(rows);
+    expect(at(plain, "E1")).toBe(functions.supplyat(500, 100, 80, 1000));
+    expect(at(plain, "F2")).toBe(functions.supplyat(600, 100, 80, 1000));
+  });
+
   test("a wrong number of arguments names the function and its parameters", () => {
     const hf = sheet([["=HEADROOM.SUPPLYAT(1,2,3)", "=HEADROOM.SUPPLYAT(1,2,3,4,\"US\",6)"]]);
     for (const a of ["A1", "B1"]) {
