@@ -56,19 +56,24 @@ function compare(a: (i: number) => unknown, b: (i: number) => unknown, n = 200_0
   return { a: median(as), b: median(bs), ratio: median(ratios) };
 }
 
-// Inputs vary per call, every one of them, so that neither side gets constants folded or hoisted out of the loop.
+// Inputs vary per call, every one of them, so that neither side gets constants folded or hoisted out of the loop
+// (a constant argument would also let the cell layer's checks of it fold away). The "inline math" is the formula
+// the cell computes in US units (whose conversions are the identity), with no checks.
 const flows = Float64Array.from({ length: 1024 }, (_, i) => 50 + (i % 400));
 const diameters = Float64Array.from({ length: 1024 }, (_, i) => 1.049 + (i % 7) * 0.5);
 const cs = Float64Array.from({ length: 1024 }, (_, i) => 100 + (i % 6) * 10);
+const lengths = Float64Array.from({ length: 1024 }, (_, i) => 10 + (i % 13) * 15);
 const statics = Float64Array.from({ length: 1024 }, (_, i) => 60 + (i % 20));
+const residuals = Float64Array.from({ length: 1024 }, (_, i) => 20 + (i % 9) * 3); // below every static
+const testFlows = Float64Array.from({ length: 1024 }, (_, i) => 800 + (i % 11) * 50);
 
 // ── per call ─────────────────────────────────────────────────────────────────────────────────────────────────────
 {
   const { a: cell, b: inline, ratio } = compare(
-    (i) => f.friction(flows[i & 1023], diameters[i & 1023], cs[i & 1023], 100),
+    (i) => f.friction(flows[i & 1023], diameters[i & 1023], cs[i & 1023], lengths[i & 1023]),
     (i) => {
       const k = i & 1023;
-      return ((4.52 * Math.pow(flows[k], 1.85)) / (Math.pow(cs[k], 1.85) * Math.pow(diameters[k], 4.87))) * 100;
+      return ((4.52 * Math.pow(flows[k], 1.85)) / (Math.pow(cs[k], 1.85) * Math.pow(diameters[k], 4.87))) * lengths[k];
     },
   );
   record({ name: "FRICTION ns/call (cell layer)", value: cell, unit: "ns" });
@@ -77,8 +82,11 @@ const statics = Float64Array.from({ length: 1024 }, (_, i) => 60 + (i % 20));
 }
 {
   const { a: cell, b: inline, ratio } = compare(
-    (i) => f.supplyat(flows[i & 1023], statics[i & 1023], 50, 1100),
-    (i) => statics[i & 1023] - (statics[i & 1023] - 50) * Math.pow(flows[i & 1023] / 1100, 1.85),
+    (i) => f.supplyat(flows[i & 1023], statics[i & 1023], residuals[i & 1023], testFlows[i & 1023]),
+    (i) => {
+      const k = i & 1023;
+      return statics[k] - (statics[k] - residuals[k]) * Math.pow(flows[k] / testFlows[k], 1.85);
+    },
   );
   record({ name: "SUPPLYAT ns/call (cell layer)", value: cell, unit: "ns" });
   record({ name: "SUPPLYAT ns/call (inline math)", value: inline, unit: "ns" });
