@@ -96,8 +96,9 @@ export function supplyCurve(flow: number, t: FlowTest): number {
  */
 export function supplyAt(flow: number, t: FlowTest): number {
   checkFlowTest(t);
-  const p = flow >= 0 ? supplyCurve(flow, t) : NaN;
-  if (!(p > 0)) supplyAtProblem(flow, t);
+  // NaN below 0; no NaN written here: a global read on a branch never taken kept the flow test object on the heap
+  const p = supplyCurve(flow, t);
+  if (!(flow >= 0 && p > 0)) supplyAtProblem(flow, t);
   return p;
 }
 
