@@ -145,25 +145,38 @@ export interface QuantityRule {
   readonly signed: boolean;
   /** the smallest value allowed, US units, where it is not 0 (overrides FLOORS_US) */
   readonly min: number | undefined;
-  /** the smallest value allowed of each quantity, US units, worked out once: quantityArg's everyday path compares */
-  readonly lowestUS: Readonly<Record<Quantity, number>>;
+  /** what the rule allows of each quantity, worked out once */
+  readonly spans: Readonly<Record<Quantity, QuantitySpan>>;
 }
 
 /**
- * A rule with its lowest value of each quantity worked out once: from −limit (`signed`), from 0 (`zero`), else at
- * least `min` or the quantity's floor (FLOORS_US) and greater than 0 ("greater than 0" is "at least the smallest
- * positive number", so that every span is one closed interval).
+ * What a rule allows of one quantity, in US units, worked out once: from `lowestUS` to `highestUS`, both included
+ * ("greater than 0" is "at least the smallest positive number", so that every span is one closed interval).
+ */
+export interface QuantitySpan {
+  readonly quantity: Quantity;
+  readonly rule: QuantityRule;
+  readonly lowestUS: number;
+  readonly highestUS: number;
+}
+
+/**
+ * A rule with its span of each quantity: from −limit to the limit (`signed`), from 0 (`zero`), else from `min` or
+ * the quantity's floor (FLOORS_US) and greater than 0; never above the quantity's limit (LIMITS_US).
  */
 export function quantityRule(rule: { zero?: boolean; signed?: boolean; min?: number }): QuantityRule {
   const zero = rule.zero === true, signed = rule.signed === true;
-  const lowestUS = {} as Record<Quantity, number>;
+  const spans = {} as Record<Quantity, QuantitySpan>;
+  // every rule has every field, and every span too, so that the checks see one object shape of each
+  const made: QuantityRule = Object.freeze({ zero, signed, min: rule.min, spans });
   for (const quantity of Object.keys(LIMITS_US) as Quantity[]) {
-    lowestUS[quantity] = signed
+    const lowestUS = signed
       ? -LIMITS_US[quantity]
       : zero ? 0 : Math.max(Number.MIN_VALUE, rule.min ?? FLOORS_US[quantity] ?? 0);
+    spans[quantity] = Object.freeze({ quantity, rule: made, lowestUS, highestUS: LIMITS_US[quantity] });
   }
-  // every rule has every field, so that the checks see one object shape
-  return Object.freeze({ zero, signed, min: rule.min, lowestUS: Object.freeze(lowestUS) });
+  Object.freeze(spans);
+  return made;
 }
 
 /** Rules shared by many calls (one object, not one per call: these checks run on every recalculation). */
@@ -171,17 +184,31 @@ const NO_RULE = quantityRule({});
 export const ZERO_ALLOWED = quantityRule({ zero: true });
 export const SIGNED = quantityRule({ signed: true });
 
+/** The span `rule` allows of `quantity`: for quantityIn, looked up once by a module rather than on every call. */
+export function quantitySpan(quantity: Quantity, rule: QuantityRule = NO_RULE): QuantitySpan {
+  return rule.spans[quantity];
+}
+
 /**
  * A physical quantity given in `units`, checked and returned in US units. Allowed: greater than 0 (or from 0 with
  * `zero`, or either sign with `signed`) up to the plausibility bound of LIMITS_US, stated in the user's units.
  */
 export function quantityArg(value: unknown, name: string, quantity: Quantity, units: UnitSystem, rule: QuantityRule = NO_RULE): number {
+  return quantityIn(value, name, rule.spans[quantity], units);
+}
+
+/**
+ * quantityArg with the quantity and its rule given as their span (quantitySpan). A function called on every
+ * recalculation keeps its spans as constants and calls this: quantityArg's look-up by the quantity's name is one
+ * the optimiser cannot specialise once many quantities pass through it.
+ */
+export function quantityIn(value: unknown, name: string, span: QuantitySpan, units: UnitSystem): number {
   // The everyday call, a plain number in US units within its span, in two comparisons (NaN and ±Infinity fail
   // them); everything else, and every problem, takes the full reading below. Kept small so that it inlines.
-  if (typeof value === "number" && units === "US" && value <= LIMITS_US[quantity] && value >= rule.lowestUS[quantity]) {
+  if (typeof value === "number" && units === "US" && value <= span.highestUS && value >= span.lowestUS) {
     return value + 0; // never −0
   }
-  return readQuantity(value, name, quantity, units, rule);
+  return readQuantity(value, name, span.quantity, units, span.rule);
 }
 
 /** quantityArg in full: any cell value, either unit system, every problem worded. */

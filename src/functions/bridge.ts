@@ -45,9 +45,11 @@ type Passed = [] | [unknown] | [unknown, unknown] | [unknown, unknown, unknown] 
  * whose message speaks those units (a problem with `units` itself is said in US terms).
  *
  * The body gets the unit system and then `args`, the cell function's own arguments handed through, so that it can
- * be a function of the module rather than a closure made on every call: `cell(units, frictionOf, flow, diameter)`
- * allocates nothing on the way through (this runs on every recalculation of every cell). A closure
- * `cell(units, (u) => …)` works too, where a call's cost does not matter.
+ * be a constant of the module rather than a closure made on every call: `cell(units, frictionLoss, flow, diameter)`
+ * allocates nothing on the way through (this runs on every recalculation of every cell). Declare such a body as a
+ * `const` arrow function: the optimiser then knows it at the call inside cell() and inlines it, which it cannot do
+ * from that call's own record once several cell functions pass through it. A closure `cell(units, (u) => …)` works
+ * too, where a call's cost does not matter.
  */
 export function cell<T, A extends Passed>(units: unknown, body: (u: UnitSystem, ...args: A) => T, ...args: A): T;
 export function cell(

@@ -11,7 +11,7 @@ import { elevationPressure, headLoss, velocity as pipeVelocity } from "../engine
 import { internalDiameter, scheduleInfo, scheduleSizes } from "../engine/pipes";
 import { type RunInput, type RunStep, type Segment, segmentLosses, walkRun } from "../engine/run";
 import { type UnitSystem, fromUS } from "../engine/units";
-import { SIGNED, ZERO_ALLOWED, isBlank, isBlankRow, optionalQuantityArg, quantityArg, rangeArg } from "./args";
+import { SIGNED, ZERO_ALLOWED, isBlank, isBlankRow, optionalQuantityArg, quantityArg, quantityIn, quantitySpan, rangeArg } from "./args";
 import { cell, cellRow } from "./bridge";
 import { cFactorArg } from "./common";
 import { fittingArg, fittingListArg } from "./fittingList";
@@ -35,12 +35,17 @@ export function friction(flow: any, diameter: any, c_factor: any, length: any, u
   return cell(units, frictionLoss, flow, diameter, c_factor, length);
 }
 
-/** FRICTION's body (a function of the module, so that a recalculation makes no closure). */
+/** The spans of a pipe's flow (0 allowed), internal diameter and length (0 allowed). */
+const PIPE_FLOW = quantitySpan("flow", ZERO_ALLOWED);
+const PIPE_DIAMETER = quantitySpan("diameter");
+const PIPE_LENGTH = quantitySpan("length", ZERO_ALLOWED);
+
+/** FRICTION's body (a constant of the module, so that a recalculation makes no closure and it inlines). */
 const frictionLoss = (u: UnitSystem, flow: unknown, diameter: unknown, cFactor: unknown, length: unknown): number => {
-  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
-  const d = quantityArg(diameter, "diameter", "diameter", u);
+  const q = quantityIn(flow, "flow", PIPE_FLOW, u);
+  const d = quantityIn(diameter, "diameter", PIPE_DIAMETER, u);
   const c = cFactorArg(cFactor);
-  const l = quantityArg(length, "length", "length", u, ZERO_ALLOWED);
+  const l = quantityIn(length, "length", PIPE_LENGTH, u);
   return fromUS("pressure", frictionResult(headLoss(u).loss(q, d, c, l), d), u);
 };
 
@@ -57,13 +62,13 @@ export function frictionrate(flow: any, diameter: any, c_factor: any, units?: an
   return cell(units, frictionRateOf, flow, diameter, c_factor);
 }
 
-/** FRICTIONRATE's body. */
-function frictionRateOf(u: UnitSystem, flow: unknown, diameter: unknown, cFactor: unknown): number {
-  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
-  const d = quantityArg(diameter, "diameter", "diameter", u);
+/** FRICTIONRATE's body (a constant of the module, as FRICTION's). */
+const frictionRateOf = (u: UnitSystem, flow: unknown, diameter: unknown, cFactor: unknown): number => {
+  const q = quantityIn(flow, "flow", PIPE_FLOW, u);
+  const d = quantityIn(diameter, "diameter", PIPE_DIAMETER, u);
   const c = cFactorArg(cFactor);
   return fromUS("frictionRate", frictionResult(headLoss(u).rate(q, d, c), d), u);
-}
+};
 
 /**
  * A friction result as a cell may show it, 0 or more and finite; otherwise the problem, named on the diameter (the

@@ -7,7 +7,7 @@
 import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_MAX_POINTS, SUPPLY_CURVE_POINTS, supplyCurvePoints } from "../engine/curve";
 import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, supplyAt } from "../engine/supply";
 import { type UnitSystem, fromUS } from "../engine/units";
-import { ZERO_ALLOWED, optionalNumberArg, optionalQuantityArg, quantityArg } from "./args";
+import { ZERO_ALLOWED, optionalNumberArg, optionalQuantityArg, quantityArg, quantityIn, quantitySpan } from "./args";
 import { cell } from "./bridge";
 import { flowTestArgs } from "./common";
 import type { SpillShape } from "./shapes";
@@ -27,10 +27,13 @@ export function supplyat(flow: any, static_pressure: any, residual: any, test_fl
   return cell(units, supplyPressure, flow, static_pressure, residual, test_flow);
 }
 
-/** SUPPLYAT's body. */
+/** The span of a flow drawn from the supply: from 0. */
+const DRAWN_FLOW = quantitySpan("flow", ZERO_ALLOWED);
+
+/** SUPPLYAT's body (a constant of the module, so that a recalculation makes no closure and it inlines). */
 const supplyPressure = (u: UnitSystem, flow: unknown, staticP: unknown, residual: unknown, testFlow: unknown): number => {
   const t = flowTestArgs(staticP, residual, testFlow, u);
-  const q = quantityArg(flow, "flow", "flow", u, ZERO_ALLOWED);
+  const q = quantityIn(flow, "flow", DRAWN_FLOW, u);
   return fromUS("pressure", supplyAt(q, t), u); // finite: every input is bounded and the engine checks p > 0
 };
 
