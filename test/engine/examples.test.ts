@@ -25,8 +25,8 @@
  *     TypeScript's parser and interpreted here node by node, never run as code: it may hold number literals (a minus
  *     sign before one), strings, true, false, null, undefined, array literals, object literals with plain keys,
  *     the names the module exports (a constant, or a function called with such arguments), and on a value `.name`,
- *     `[0]` and a call of a function that value holds as its own property (headLoss("US").loss(...)). Nothing else:
- *     no operators, no other names, no inherited properties.
+ *     `[0]` and a call of a function that value holds as its own property, or as a method of its own class
+ *     (headLoss("US").loss(...)). Nothing else: no operators, no other names, no properties inherited beyond that.
  *   - Its checks: a `//` comment after its last line, and any further lines that begin with `//`. A check is
  *
  *       [path] ≈ value [text]     numbers within half a unit of the last decimal written (1968 means ±0.5, 0.0718
@@ -51,6 +51,16 @@ const ENGINE = fileURLToPath(new URL("../../src/engine/", import.meta.url));
 
 /** Whether `target` holds `key` itself, not through its prototype (Object.hasOwn, which lib ES2021 lacks). */
 const hasOwn = (target: object, key: PropertyKey): boolean => Object.prototype.hasOwnProperty.call(target, key);
+
+/**
+ * Whether `key` is a method of the class `target` is an instance of (an engine class such as the head loss): found on
+ * its own prototype, which is not a built-in one, and not the constructor. Nothing further up the chain.
+ */
+function classMethod(target: object, key: PropertyKey): boolean {
+  const proto: unknown = Object.getPrototypeOf(target);
+  if (proto === null || proto === Object.prototype || proto === Function.prototype || proto === Array.prototype) return false;
+  return key !== "constructor" && hasOwn(proto as object, key) && typeof (proto as Record<PropertyKey, unknown>)[key] === "function";
+}
 
 /** Exported functions with no @example, and why. */
 const NO_EXAMPLE: Readonly<Record<string, string>> = {};
@@ -248,7 +258,7 @@ function interpret(node: ts.Node, exports: Exports | null, approx: boolean, sf: 
     throw new Error(`the example grammar does not allow ${ts.SyntaxKind[node.kind]}: ${node.getText(sf)}`);
   };
   const own = (target: unknown, key: string | number): unknown => {
-    if (target === null || (typeof target !== "object" && typeof target !== "function") || !hasOwn(target, key)) {
+    if (target === null || (typeof target !== "object" && typeof target !== "function") || !(hasOwn(target, key) || classMethod(target, key))) {
       throw new Error(`${node.getText(sf)}: ${String(key)} is not an own property of the value`);
     }
     return (target as Record<string | number, unknown>)[key];
