@@ -2,8 +2,7 @@
  * Points of the water supply curve, ready for a chart. US units: gpm, psi.
  */
 import { fail, n, q } from "./errors";
-import { HW_FLOW_EXPONENT } from "./friction";
-import { type FlowTest, checkFlowTest, exhaustionFlow } from "./supply";
+import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
 
 /** Rows of a supply curve by default: enough for a smooth native chart line. */
 export const SUPPLY_CURVE_POINTS = 16;
@@ -84,7 +83,7 @@ export function supplyCurvePoints(t: FlowTest, maxFlow: number, points: number):
   const qe = exhaustionFlow(t);
   const exhausted: CurvePoint = [qe, 0];
   return sampleFlows(maxFlow, points - 1).map((q): CurvePoint => {
-    const p = t.static - (t.static - t.residual) * Math.pow(q / t.testFlow, HW_FLOW_EXPONENT);
+    const p = supplyCurve(q, t);
     return q >= qe || !(p > 0) ? exhausted : [q, p];
   });
 }

@@ -224,7 +224,7 @@ export function buildModel(readings: Readings): PaneModel {
     }
     if (given.has("Pump_RatedFlow") && given.has("Pump_RatedPressure")) {
       const rating = check(() => pumpRatingArgs(value("Pump_RatedFlow"), value("Pump_RatedPressure"), units));
-      if (rating) pump = { ratedFlow: rating.ratedFlow, ratedPressure: rating.ratedPressure };
+      pump = rating ?? null;
     }
   }
   if (problems.length > 0 || !decision) return { kind: "problems", problems };
