@@ -73,7 +73,7 @@ export function ratedCapacity(demandFlow: number): number {
 }
 
 /**
- * Round a value up to a whole number of steps; an exact multiple stays as it is.
+ * Round a value up to a whole number of steps; an exact multiple stays as it is, a positive value takes at least one.
  *
  *   rounded = step × ceil(value / step)
  *
@@ -84,11 +84,14 @@ export function ratedCapacity(demandFlow: number): number {
  * roundUpToStep(22.0, 5) // → 25 psi
  * roundUpToStep(25, 5) // → 25 psi
  * roundUpToStep(1.52, 0.5) // → 2 bar
+ * roundUpToStep(1e-10, 5) // → 5 psi
  */
 export function roundUpToStep(value: number, step: number): number {
   if (!(step > 0)) fail("step", n(step), "must be greater than 0");
   if (!(value >= 0) || !Number.isFinite(value)) fail("value", n(value), "must be 0 or more");
-  return step * ceilCount(value / step);
+  // a positive value takes at least one step: ceilCount forgives noise of 1e-9 steps, which would round a tiny boost
+  // down to a 0 rating
+  return value > 0 ? step * Math.max(1, ceilCount(value / step)) : 0;
 }
 
 /**

@@ -47,9 +47,12 @@ describe("rounding the boost", () => {
     expect(roundUpToStep(1.52, 0.5)).toBe(2);
     expect(roundUpToStep(1.5, 0.5)).toBe(1.5);
   });
-  it("a boost within the noise allowance of 0 rounds to 0 steps, never to -0", () => {
-    // 1e-10 psi is 2e-11 steps of 5 psi, within the noise allowance: 0 steps, as +0 (it was -0)
-    expect(Object.is(roundUpToStep(1e-10, 5), 0)).toBe(true);
+  it("a positive boost, however small, takes at least one step; 0 stays 0, never -0", () => {
+    // 1e-10 psi is 2e-11 steps of 5 psi: a pump rated at 0 psi for a positive boost would be no rating at all,
+    // so it is one step, 5 psi (the vocabulary's steps, common practice)
+    expect(roundUpToStep(1e-10, 5)).toBe(5);
+    expect(roundUpToStep(1e-12, 0.5)).toBe(0.5);
+    expect(Object.is(roundUpToStep(0, 5), 0)).toBe(true);
   });
 });
 

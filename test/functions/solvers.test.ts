@@ -326,6 +326,8 @@ describe("PUMPSIZE", () => {
     expect(pumpsize(500, 25)).toEqual([[500, 25]]); // exact values stay
     expect(pumpsize(1001, 40.1)).toEqual([[1250, 45]]);
     expect(pumpsize(20, 3)).toEqual([[25, 5]]);
+    // a boost of 1e-10 psi is still a boost: one 5 psi step, never a 0 psi rating (common practice: 5 psi steps)
+    expect(pumpsize(500, 1e-10)).toEqual([[500, 5]]);
   });
 
   it("chains with PUMPBOOST [NFPA 291] [NFPA 20] (from memory)", () => {
