@@ -3,7 +3,7 @@
  * US units inside (gpm, psi); the sentence is written in the user's units.
  */
 import { fail, q } from "./errors";
-import { type FlowTest, checkFlowTest, exhaustionFlow, supplyAt } from "./supply";
+import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
 import { type UnitSystem, fromUS, unitName } from "./units";
 
 /** The comparison of one demand point with the supply curve. */
@@ -51,10 +51,11 @@ export function assess(demandFlow: number, demandPressure: number, t: FlowTest, 
   if (!(demandPressure >= 0)) fail("demand_pressure", q("pressure", demandPressure), "must be 0 or more");
   if (!(requiredMargin >= 0)) fail("required_margin", q("pressure", requiredMargin), "must be 0 or more");
   const exhaustedAt = exhaustionFlow(t);
-  if (demandFlow >= exhaustedAt) {
+  const supplyPressure = supplyCurve(demandFlow, t);
+  // a pressure that rounds to 0 short of the exhaustion flow (a static of a few denormals) is exhausted too
+  if (!(demandFlow < exhaustedAt && supplyPressure > 0)) {
     return { demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure: null, margin: null, pumpNeeded: true };
   }
-  const supplyPressure = supplyAt(demandFlow, t);
   const margin = supplyPressure - demandPressure;
   return { demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure, margin, pumpNeeded: margin < requiredMargin };
 }

@@ -377,8 +377,9 @@ describe("the adversarial check itself, on made-up results", () => {
 
 /**
  * Calls known to have failed, tried first on every run (then the random calls): a design area that looped area ÷
- * coverage times, counts that reached Infinity or −0, −0 from a −0 argument, and messages that named no argument
- * or did not state the value given.
+ * coverage times, counts that reached Infinity or −0, −0 from a −0 argument, messages that named no argument or
+ * did not state the value given, and a static pressure of a denormal whose supply rounded to 0 psi short of the
+ * flow where it reaches 0 (the error named `flow`, no argument of VERDICT).
  */
 const KNOWN: Readonly<Record<string, unknown[][]>> = {
   AREADEMAND: [
@@ -389,8 +390,9 @@ const KNOWN: Readonly<Record<string, unknown[][]>> = {
   ],
   ELEVATION: [[-0], [-2.5e-323, "SI"]],
   PIPERUN: [[[[500, 4.026, 120, 100, 0, -0, 0]]]],
-  MARGIN: [[3000, 40, 72, 58, 1100]],
-  PUMPBOOST: [[3000, 40, 72, 58, 1100]],
+  MARGIN: [[3000, 40, 72, 58, 1100], [68.7542, 10, 5e-324, 0, 100]],
+  PUMPBOOST: [[3000, 40, 72, 58, 1100], [68.7542, 10, 5e-324, 0, 100]],
+  VERDICT: [[68.7542, 10, 5e-324, 0, 100]],
   HEADCOUNT: [[1_000_000, 1e-303], [1e-10, 130]],
   HEADSPERLINE: [[1_000_000, 1e-305, 10]],
   PUMPSIZE: [[500, 1e-10]],
