@@ -2,8 +2,8 @@
  * The water supply: the supply curve through a hydrant flow test, and hydrant outlet flow from a pitot reading.
  * US units: gpm, psi, in. All pressures are gauge.
  */
-import { fail, q } from "./errors";
-import { HW_FLOW_EXPONENT } from "./friction";
+import { fail, n, q } from "./errors";
+import { HW_FLOW_EXPONENT, elevationPressure } from "./friction";
 
 /** A hydrant flow test: static pressure, residual pressure at the test flow. */
 export interface FlowTest {
@@ -32,12 +32,58 @@ export function checkFlowTest(t: FlowTest): void {
 
 /** The first rule of checkFlowTest that `t` breaks, thrown. */
 function flowTestProblem(t: FlowTest): never {
+  checkTestPressures(t);
+  fail("test_flow", q("flow", t.testFlow), "must be greater than 0");
+}
+
+/** The gauge readings of a flow test: static > 0, 0 ≤ residual < static; an error names the first one at fault. */
+function checkTestPressures(t: TestPressures): void {
   if (!(t.static > 0)) fail("static_pressure", q("pressure", t.static), "must be greater than 0");
   if (!(t.residual >= 0)) fail("residual", q("pressure", t.residual), "must be 0 or more");
   if (!(t.residual < t.static)) {
     fail("residual", q("pressure", t.residual), "must be below the static pressure {0}", q("pressure", t.static));
   }
-  fail("test_flow", q("flow", t.testFlow), "must be greater than 0");
+}
+
+/** The two gauge readings of a flow test, psi: what SITETEST carries to the site. */
+export type TestPressures = Pick<FlowTest, "static" | "residual">;
+
+/**
+ * The flow test carried to the site: both readings derated, then lowered by the elevation pressure of the rise.
+ *
+ *   P_site = P × (1 − derate) − 0.433 × rise
+ *
+ * The derate allows for seasonal and future loss (common practice; 10 % is typical, 0 takes the test as read); the
+ * rise is the height of the point where the demand is computed above the test gauge (negative when it is lower).
+ * Static 72, residual 58 psi, site 20 ft above the gauge, 10 % derate: 72 × 0.9 − 0.433 × 20 = 64.8 − 8.66 = 56.14
+ * psi; 58 × 0.9 − 8.66 = 52.2 − 8.66 = 43.54 psi. An error where the residual at the site is not above 0 (it names
+ * the rise, or the residual where the rise is not to blame), for a derate outside 0 ≤ derate < 1, and for readings
+ * a flow test may not have (a residual at or above static).
+ *
+ * @param t the test's readings: static and residual pressure at the gauge, psi
+ * @param rise the height of the site above the test gauge, ft (negative when lower)
+ * @param derate the fraction taken off both readings, dimensionless (0 ≤ derate < 1)
+ * @returns the readings at the site: static and residual pressure, psi (residual > 0)
+ * @see [NFPA 13] 0.433 psi per ft; [NFPA 291] the flow test; the derate (common practice)
+ * @example
+ * siteTest({ static: 72, residual: 58 }, 20, 0.1) // ≈ { static: 56.14, residual: 43.54 } psi
+ * siteTest({ static: 72, residual: 58 }, 140, 0)
+ * // throws "rise: got 140 ft; leaves the residual at the site at -2.62 psi; it must stay above 0 psi"
+ */
+export function siteTest(t: TestPressures, rise: number, derate: number): TestPressures {
+  checkTestPressures(t);
+  if (!(derate >= 0 && derate < 1)) fail("derate", n(derate), "must be from 0 to less than 1 (a fraction: 0.1 for 10 %)");
+  if (!Number.isFinite(rise)) fail("rise", q("length", rise), "must be a finite number");
+  const lift = elevationPressure(rise);
+  const site = { static: t.static * (1 - derate) - lift, residual: t.residual * (1 - derate) - lift };
+  if (!(site.residual > 0)) {
+    // a rise of 0 or below can leave no residual only where there was none at the gauge
+    if (!(rise > 0)) {
+      fail("residual", q("pressure", t.residual), "must be greater than 0 to carry the test to the site (or the site lower than the gauge)");
+    }
+    fail("rise", q("length", rise), "leaves the residual at the site at {0}; it must stay above {1}", q("pressure", site.residual), q("pressure", 0));
+  }
+  return site;
 }
 
 /**

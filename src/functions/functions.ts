@@ -11,7 +11,7 @@ import { AREADEMAND_SPILL } from "./demand";
 import { PIPERUN_SPILL } from "./piping";
 import { PUMPSIZE_SPILL } from "./pump";
 import type { SpillShape } from "./shapes";
-import { SUPPLYCURVE_SPILL } from "./supply";
+import { SITETEST_SPILL, SUPPLYCURVE_SPILL } from "./supply";
 
 export * from "./supply";
 export * from "./demand";
@@ -29,4 +29,5 @@ export const SPILL_SHAPES: Readonly<Record<string, SpillShape>> = {
   SUPPLYCURVE: SUPPLYCURVE_SPILL,
   AREADEMAND: AREADEMAND_SPILL,
   PUMPSIZE: PUMPSIZE_SPILL,
+  SITETEST: SITETEST_SPILL,
 };

@@ -1,13 +1,13 @@
 /**
- * Cell functions of the water supply: the supply curve through a hydrant flow test (SUPPLYAT, FLOWAT, SUPPLYCURVE)
- * and a hydrant outlet's flow from a pitot reading (PITOTFLOW). Each wrapper reads its arguments (./args, ./common),
+ * Cell functions of the water supply: the supply curve through a hydrant flow test (SUPPLYAT, FLOWAT, SUPPLYCURVE),
+ * a hydrant outlet's flow from a pitot reading (PITOTFLOW) and the flow test carried to the site (SITETEST). Each wrapper reads its arguments (./args, ./common),
  * calls the engine (src/engine/supply.ts, curve.ts) and converts the result to the user's units; a spilling
  * function's output columns and spill shape are declared beside it.
  */
 import { SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_MAX_POINTS, SUPPLY_CURVE_POINTS, supplyCurvePoints } from "../engine/curve";
-import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, supplyAt } from "../engine/supply";
+import { PITOT_COEFFICIENT_SMOOTH, flowAt, pitotFlow, siteTest, supplyAt } from "../engine/supply";
 import { type UnitSystem, fromUS } from "../engine/units";
-import { ZERO_ALLOWED, optionalNumberArg, optionalQuantityArg, quantityArg, quantityIn, quantitySpan } from "./args";
+import { SIGNED, ZERO_ALLOWED, optionalNumberArg, optionalQuantityArg, quantityArg, quantityIn, quantitySpan } from "./args";
 import { cell } from "./bridge";
 import { flowTestArgs } from "./common";
 import type { SpillShape } from "./shapes";
@@ -120,4 +120,39 @@ function supplyCurveRows(
   const qMax = optionalQuantityArg(maxFlow, "max_flow", "flow", u, SUPPLY_CURVE_FLOW_FACTOR * t.testFlow);
   const n = optionalNumberArg(points, "points", SUPPLY_CURVE_POINTS, { integer: true, min: 2, max: SUPPLY_CURVE_MAX_POINTS });
   return supplyCurvePoints(t, qMax, n).map((pt) => [fromUS("flow", pt[0], u), fromUS("pressure", pt[1], u)]);
+}
+
+// ─── SITETEST ────────────────────────────────────────────────────────────────────────────────────────────────────────────
+/** SITETEST's output columns (one row): the flow test's two readings at the site. */
+export const SITETEST_COLUMNS = ["static", "residual"] as const;
+/** SITETEST spills one row of its columns. */
+export const SITETEST_SPILL: SpillShape = { rows: 1, columns: SITETEST_COLUMNS.length };
+
+/**
+ * The hydrant flow test carried to the point where the demand is computed: each reading is reduced by derate (seasonal
+ * and future loss, e.g. 0.1 for 10 %), then by the elevation pressure of rise, P_site = P × (1 − derate) − 0.433 ×
+ * rise (NFPA 13). Feed the result to SUPPLYAT, FLOWAT, MARGIN and VERDICT. An error where no residual pressure is
+ * left at the site.
+ * @customfunction
+ * @param static_pressure Static pressure at the test gauge, no flow (psi; SI: bar).
+ * @param residual Residual pressure at the test gauge while the test flow runs (psi; SI: bar).
+ * @param rise Height of the site above the test gauge (ft; SI: m); below 0 where the site is lower.
+ * @param derate Fraction taken off both readings, from 0 to less than 1 (0.1 for 10 %); default 0.
+ * @param units "US" (default) or "SI".
+ * @returns One row: [static, residual] at the site (psi; SI: bar).
+ */
+export function sitetest(static_pressure: any, residual: any, rise: any, derate?: any, units?: any): any[][] {
+  return cell(units, (u) => siteTestRow(static_pressure, residual, rise, derate, u));
+}
+
+/** SITETEST: one row [static, residual] at the site, in the user's units. */
+function siteTestRow(staticP: unknown, residual: unknown, rise: unknown, derate: unknown, u: UnitSystem): unknown[][] {
+  const t = {
+    static: quantityArg(staticP, "static_pressure", "pressure", u),
+    residual: quantityArg(residual, "residual", "pressure", u, ZERO_ALLOWED),
+  };
+  const h = quantityArg(rise, "rise", "length", u, SIGNED);
+  const d = optionalNumberArg(derate, "derate", 0); // the engine holds it to 0 ≤ derate < 1
+  const site = siteTest(t, h, d); // the residual at the site is above 0, the static above it
+  return [[fromUS("pressure", site.static, u), fromUS("pressure", site.residual, u)]];
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { HeadroomError } from "../../src/engine/errors";
-import { exhaustionFlow, flowAt, pitotFlow, supplyAt } from "../../src/engine/supply";
+import { exhaustionFlow, flowAt, pitotFlow, siteTest, supplyAt } from "../../src/engine/supply";
+import { errorOf } from "./engineError";
 
 const test70 = { static: 70, residual: 50, testFlow: 1000 };
 
@@ -48,5 +49,57 @@ describe("pitot flow [NFPA 291]", () => {
     expect(pitotFlow(16, 2.5, 0.9)).toBeCloseTo(671.175, 9);
     // 4.5 in pumper outlet, c 0.80 (square and sharp), 9 psi: 29.83 × 0.80 × 20.25 × 3 = 1449.74 gpm
     expect(pitotFlow(9, 4.5, 0.8)).toBeCloseTo(1449.738, 3);
+  });
+});
+
+describe("the flow test carried to the site (SITETEST)", () => {
+  // P_site = P × (1 − derate) − 0.433 × rise: the derate (common practice), 0.433 psi per ft of rise [NFPA 13]
+  it("derates both readings, then takes off the elevation pressure of the rise (by hand)", () => {
+    // static 72 × 0.9 − 0.433 × 20 = 64.8 − 8.66 = 56.14; residual 58 × 0.9 − 8.66 = 52.2 − 8.66 = 43.54
+    const s = siteTest({ static: 72, residual: 58 }, 20, 0.1);
+    expect(s.static).toBeCloseTo(56.14, 10);
+    expect(s.residual).toBeCloseTo(43.54, 10);
+  });
+
+  it("adds the elevation pressure where the site is below the gauge (by hand)", () => {
+    // 10 ft lower, no derate: 72 + 0.433 × 10 = 76.33; 58 + 4.33 = 62.33
+    expect(siteTest({ static: 72, residual: 58 }, -10, 0)).toEqual({ static: expect.closeTo(76.33, 10), residual: expect.closeTo(62.33, 10) });
+    // and lets a test with no residual at the gauge be carried down to a positive one: 0 + 4.33
+    expect(siteTest({ static: 72, residual: 0 }, -10, 0).residual).toBeCloseTo(4.33, 10);
+  });
+
+  it("leaves the test unchanged with no rise and no derate", () => {
+    expect(siteTest({ static: 86, residual: 42 }, 0, 0)).toEqual({ static: 86, residual: 42 });
+  });
+
+  it("refuses a rise that leaves no residual at the site, saying the residual there and the rise", () => {
+    // 58 − 0.433 × 140 = 58 − 60.62 = −2.62 psi
+    const e = errorOf(() => siteTest({ static: 72, residual: 58 }, 140, 0));
+    expect(e.message).toBe("rise: got 140 ft; leaves the residual at the site at -2.62 psi; it must stay above 0 psi");
+    // the last rise that leaves some: 58 − 0.433 × 133 = 58 − 57.589 = 0.411 psi
+    expect(siteTest({ static: 72, residual: 58 }, 133, 0).residual).toBeCloseTo(0.411, 10);
+    // with a derate the derated residual is what is left: 58 × 0.5 − 0.433 × 70 = 29 − 30.31 = −1.31 psi
+    expect(errorOf(() => siteTest({ static: 72, residual: 58 }, 70, 0.5)).message).toMatch(/^rise: got 70 ft; leaves the residual at the site at -1\.31 psi/);
+  });
+
+  it("refuses a residual of 0 that no rise carries above 0, naming the residual", () => {
+    expect(errorOf(() => siteTest({ static: 72, residual: 0 }, 0, 0)).message).toBe(
+      "residual: got 0 psi; must be greater than 0 to carry the test to the site (or the site lower than the gauge)",
+    );
+  });
+
+  it("refuses a derate outside 0 ≤ derate < 1", () => {
+    for (const derate of [-0.1, 1, 10, NaN]) {
+      expect(errorOf(() => siteTest({ static: 72, residual: 58 }, 0, derate)).message).toMatch(
+        /^derate: got \S+; must be from 0 to less than 1 \(a fraction: 0\.1 for 10 %\)$/,
+      );
+    }
+    expect(siteTest({ static: 72, residual: 58 }, 0, 0.99).residual).toBeCloseTo(0.58, 10); // 58 × 0.01
+  });
+
+  it("refuses a residual above static, as a flow test does", () => {
+    expect(errorOf(() => siteTest({ static: 50, residual: 60 }, 0, 0)).message).toBe("residual: got 60 psi; must be below the static pressure 50 psi");
+    expect(errorOf(() => siteTest({ static: 0, residual: 0 }, 0, 0)).message).toBe("static_pressure: got 0 psi; must be greater than 0");
+    expect(errorOf(() => siteTest({ static: 72, residual: 58 }, Infinity, 0)).message).toMatch(/^rise: got Infinity ft; must be a finite number/);
   });
 });

@@ -71,6 +71,40 @@ describe("water supply functions [NFPA 291]", () => {
   });
 });
 
+describe("SITETEST: the flow test carried to the site", () => {
+  // P_site = P × (1 − derate) − 0.433 × rise: 0.433 psi per ft [NFPA 13]; the derate (common practice)
+  it("spills one row [static, residual], derated then lowered by the rise (by hand)", () => {
+    // 72 × 0.9 − 0.433 × 20 = 64.8 − 8.66 = 56.14; 58 × 0.9 − 8.66 = 52.2 − 8.66 = 43.54
+    const [[s, r], ...more] = f.sitetest(72, 58, 20, 0.1);
+    expect(more).toEqual([]);
+    expect(s).toBeCloseTo(56.14, 10);
+    expect(r).toBeCloseTo(43.54, 10);
+    // derate omitted is 0; a site 10 ft below the gauge gains 4.33 psi
+    expect(f.sitetest(72, 58, -10)).toEqual([[expect.closeTo(76.33, 10), expect.closeTo(62.33, 10)]]);
+    expect(f.sitetest(72, 58, 0, null)).toEqual([[72, 58]]);
+  });
+
+  it("in SI takes bar and m and gives bar: the converted US result", () => {
+    const b = BAR_PER_PSI;
+    const [[s, r]] = f.sitetest(72 * b, 58 * b, 20 * M_PER_FT, 0.1, "SI");
+    expect(rel(s, 56.14 * b)).toBeLessThan(1e-9);
+    expect(rel(r, 43.54 * b)).toBeLessThan(1e-9);
+  });
+
+  it("refuses a derate outside 0 ≤ derate < 1, a rise that leaves no residual, and a residual above static", () => {
+    const d = errorOf(() => f.sitetest(72, 58, 20, 1));
+    expect(d.code).toBe("#VALUE!");
+    expect(d.message).toBe("derate: got 1; must be from 0 to less than 1 (a fraction: 0.1 for 10 %)");
+    expect(errorOf(() => f.sitetest(72, 58, 20, 10)).message).toMatch(/^derate: got 10; /);
+    // 58 − 0.433 × 140 = −2.62 psi
+    expect(errorOf(() => f.sitetest(72, 58, 140)).message).toBe("rise: got 140 ft; leaves the residual at the site at -2.62 psi; it must stay above 0 psi");
+    expect(errorOf(() => f.sitetest(72 * BAR_PER_PSI, 58 * BAR_PER_PSI, 140 * M_PER_FT, null, "SI")).message).toMatch(/^rise: got 42\.672 m; leaves the residual at the site at -0\.18\d* bar; it must stay above 0 bar$/);
+    expect(errorOf(() => f.sitetest(50, 60, 0)).message).toBe("residual: got 60 psi; must be below the static pressure 50 psi");
+    expect(errorOf(() => f.sitetest(72, 58, null)).message).toBe("rise is empty: type a number");
+    expect(errorOf(() => f.sitetest(72, 58, 0, "10%")).message).toBe('derate: got "10%"; must be a number');
+  });
+});
+
 describe("demand functions [NFPA 13]", () => {
   it("HEADFLOW is the larger of density × coverage and K √7 [NFPA 13]", () => {
     expect(f.headflow(0.15, 130, 5.6)).toBeCloseTo(19.5, 10);

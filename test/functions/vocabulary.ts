@@ -9,6 +9,7 @@ export const VOCABULARY: string[] = [
   "SUPPLYAT",
   "FLOWAT",
   "PITOTFLOW",
+  "SITETEST",
   // Demand
   "HEADFLOW",
   "HEADPRESSURE",

@@ -121,6 +121,7 @@ const PLAUSIBLE: Readonly<Record<string, Plausible>> = {
   c_factor: { value: orBlank(lin(80, 150)) },
   length: q("length", 0, 600),
   rise: q("length", -100, 100),
+  derate: { value: orBlank(lin(0, 0.3)) },
   start_pressure: q("pressure", 0, 80, true),
   allowed_loss: q("pressure", 0.5, 50),
   demand_flow: q("flow", 50, 3500),
