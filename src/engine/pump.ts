@@ -1,9 +1,10 @@
 /**
- * Fire pumps: picking a standard rating for a demand, and the pressure a pump gives along its curve.
- * US units: gpm, psi.
+ * Fire pumps: picking a standard rating for a demand, the pressure a pump gives along its curve, and the pressure it
+ * leaves in the public main it draws from. US units: gpm, psi.
  */
 import { fail, n, notInTable, outsideEnvelope, q } from "./errors";
 import { ceilCount } from "./sprinkler";
+import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
 import { type UnitSystem, fromUS } from "./units";
 
 /**
@@ -207,4 +208,54 @@ export function pumpCurveShape(shutoffRatio: number, overloadRatio: number): [nu
   // Through (1, 1) and (1.5, o): (s − 1) 1.5^n = s − o. With o < 1 < s the ratio is above 1, so n > 0.
   const exponent = Math.log((shutoffRatio - overloadRatio) / (shutoffRatio - 1)) / Math.log(OVERLOAD_FLOW_RATIO);
   return [shutoffRatio, exponent];
+}
+
+/**
+ * Pressure many water purveyors want left in the main while a fire pump draws from it, psi.
+ *
+ * The visible default that PUMPSUCTION's result is compared with.
+ * @see (common practice)
+ */
+export const MIN_SUCTION_PRESSURE_PSI = 20;
+
+/**
+ * Pressure left in the public main while a pump draws 150 % of its rated flow plus other flow from it.
+ *
+ *   Q = 1.5 Qr + Q_other,   P = Ps − (Ps − Pr) (Q / Qt)^1.85
+ *
+ * The other flow is what is drawn from the same main at the same time (hose streams from hydrants upstream of the
+ * pump). Where Q is at or beyond the flow where the main reaches 0 psi, an error naming both flows: a pump alone
+ * cannot serve, a suction tank or a stronger main is needed. Rated 500 gpm, 250 gpm other, against static 72,
+ * residual 58 psi at 1100 gpm: Q = 750 + 250 = 1000 gpm; P = 72 − 14 × (1000 / 1100)^1.85 = 72 − 14 × 0.838346 =
+ * 60.26 psi.
+ *
+ * @param ratedFlow Qr, the pump's rated flow, gpm (> 0)
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm
+ * @param otherFlow Q_other, other flow drawn from the main at the same time, gpm (≥ 0)
+ * @returns P, the pressure left in the main, psi (> 0)
+ * @see [NFPA 291] water supply curve; [NFPA 20] the 150 % point of a fire pump; the purveyor's minimum (common
+ *   practice)
+ * @example
+ * pumpSuction(500, { static: 72, residual: 58, testFlow: 1100 }, 250) // ≈ 60.26 psi
+ * pumpSuction(1500, { static: 72, residual: 58, testFlow: 1100 }, 500)
+ * // throws "rated_flow: got 1500 gpm; 150 % of it plus other_flow is 2750 gpm, at or beyond 2665.8 gpm, where this supply reaches 0 psi"
+ */
+export function pumpSuction(ratedFlow: number, t: FlowTest, otherFlow: number): number {
+  checkFlowTest(t);
+  if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail("rated_flow", q("flow", ratedFlow), "must be greater than 0");
+  if (!(otherFlow >= 0) || !Number.isFinite(otherFlow)) fail("other_flow", q("flow", otherFlow), "must be 0 or more");
+  const drawn = OVERLOAD_FLOW_RATIO * ratedFlow + otherFlow;
+  const exhaustedAt = exhaustionFlow(t);
+  const p = supplyCurve(drawn, t);
+  if (!(drawn < exhaustedAt && p > 0)) {
+    fail(
+      "rated_flow",
+      q("flow", ratedFlow),
+      "150 % of it plus other_flow is {0}, at or beyond {1}, where this supply reaches {2}",
+      q("flow", drawn),
+      q("flow", exhaustedAt),
+      q("pressure", 0),
+    );
+  }
+  return p;
 }

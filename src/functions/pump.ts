@@ -1,13 +1,13 @@
 /**
- * Cell functions of the fire pump: a standard rating for a demand (PUMPSIZE) and the pressure a pump gives along its
- * curve (PUMPCURVE). Engine: src/engine/pump.ts.
+ * Cell functions of the fire pump: a standard rating for a demand (PUMPSIZE), the pressure a pump gives along its
+ * curve (PUMPCURVE) and the pressure it leaves in the main it draws from (PUMPSUCTION). Engine: src/engine/pump.ts.
  */
 import { fail, q } from "../engine/errors";
-import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, pumpPressure, pumpRating } from "../engine/pump";
+import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, pumpPressure, pumpRating, pumpSuction } from "../engine/pump";
 import { type UnitSystem, fromUS } from "../engine/units";
-import { ZERO_ALLOWED, optionalNumberArg, quantityArg } from "./args";
+import { ZERO_ALLOWED, optionalNumberArg, optionalQuantityArg, quantityArg } from "./args";
 import { cell } from "./bridge";
-import { pumpRatingArgs } from "./common";
+import { flowTestArgs, pumpRatingArgs } from "./common";
 import type { SpillShape } from "./shapes";
 
 // ─── PUMPSIZE ────────────────────────────────────────────────────────────────────────────────────────────────────────────
@@ -82,4 +82,35 @@ function pumpCurvePressure(
   const s = optionalNumberArg(shutoffRatio, "shutoff_ratio", DEFAULT_SHUTOFF_RATIO);
   const o = optionalNumberArg(overloadRatio, "overload_ratio", DEFAULT_OVERLOAD_RATIO);
   return fromUS("pressure", pumpPressure(q, qr, pr, s, o), u); // outside the envelope: a "number" problem, #NUM!
+}
+
+// ─── PUMPSUCTION ─────────────────────────────────────────────────────────────────────────────────────────────────────────
+/**
+ * Pressure left in the public main while a fire pump draws 150 % of its rated flow plus other_flow (hose streams
+ * from the same main), on the supply curve through the flow test (NFPA 291). Compare it with the water purveyor's
+ * minimum (often 20 psi): below it, a pump alone cannot serve and a suction tank or a stronger main is needed. An
+ * error, naming the flow where the main reaches 0, when that flow is drawn or more.
+ * @customfunction
+ * @param rated_flow Rated flow of the pump (gpm; SI: L/min).
+ * @param static_pressure Static pressure of the flow test (psi; SI: bar).
+ * @param residual Residual pressure while the test flow runs (psi; SI: bar).
+ * @param test_flow Flow during the test (gpm; SI: L/min).
+ * @param other_flow Other flow drawn from the same main at the same time, e.g. outside hose (gpm; SI: L/min); default 0.
+ * @param units "US" (default) or "SI".
+ * @returns Pressure left in the main (psi; SI: bar).
+ */
+export function pumpsuction(
+  rated_flow: any,
+  static_pressure: any,
+  residual: any,
+  test_flow: any,
+  other_flow?: any,
+  units?: any,
+): number {
+  return cell(units, (u) => {
+    const qr = quantityArg(rated_flow, "rated_flow", "flow", u);
+    const t = flowTestArgs(static_pressure, residual, test_flow, u);
+    const other = optionalQuantityArg(other_flow, "other_flow", "flow", u, 0, ZERO_ALLOWED);
+    return fromUS("pressure", pumpSuction(qr, t, other), u); // above 0: the engine refuses an exhausted main
+  });
 }

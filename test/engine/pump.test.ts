@@ -5,6 +5,7 @@ import {
   STANDARD_RATED_CAPACITIES_GPM,
   pumpCurveShape,
   pumpPressure,
+  pumpSuction,
   ratedCapacity,
   roundUpToStep,
 } from "../../src/engine/pump";
@@ -107,5 +108,31 @@ describe("pump curve: P = shutoff − k Q^n through shutoff, rated and 150 % poi
     expect(errorOf(() => pumpPressure(-1, 500, 100, 1.2, 0.7)).kind).toBe("value");
     expect(() => pumpPressure(100, 0, 100, 1.2, 0.7)).toThrow(/rated_flow/);
     expect(() => pumpPressure(100, 500, 0, 1.2, 0.7)).toThrow(/rated_pressure/);
+  });
+});
+
+describe("pressure left in the main while the pump draws 150 % of its rating (PUMPSUCTION)", () => {
+  // the [NFPA 291] supply curve static 72, residual 58 psi at 1100 gpm, P(Q) = 72 − 14 (Q / 1100)^1.85
+  const t = { static: 72, residual: 58, testFlow: 1100 };
+  it("is the supply at 1.5 × rated flow plus the other flow (by hand)", () => {
+    // 500 gpm rated draws 750 gpm: 750/1100 = 0.681818, ^1.85 = 0.492352, × 14 = 6.8929; 72 − 6.8929 = 65.107 psi
+    expect(pumpSuction(500, t, 0)).toBeCloseTo(65.107, 3);
+    // plus 250 gpm of hose from the same main, 1000 gpm: (1000/1100)^1.85 = 0.838346, × 14 = 11.7368; 60.263 psi
+    expect(pumpSuction(500, t, 250)).toBeCloseTo(60.263, 3);
+  });
+  it("is an error naming the flow drawn and the flow where the main reaches 0, at or beyond it", () => {
+    // the main reaches 0 at 1100 × (72/14)^(1/1.85) = 1100 × 2.42345 = 2665.8 gpm; 1.5 × 1500 + 500 = 2750 gpm
+    const e = errorOf(() => pumpSuction(1500, t, 500));
+    expect(e.kind).toBe("value");
+    expect(e.message).toBe(
+      "rated_flow: got 1500 gpm; 150 % of it plus other_flow is 2750 gpm, at or beyond 2665.8 gpm, where this supply reaches 0 psi",
+    );
+    // 1.5 × 1777.2 = 2665.8: at the flow where it reaches 0 there is no pressure left either
+    expect(() => pumpSuction(2665.799786291329 / 1.5, t, 0)).toThrow(/at or beyond 2665\.8 gpm/);
+  });
+  it("refuses a rated flow that is not positive, a negative other flow and a bad flow test", () => {
+    expect(errorOf(() => pumpSuction(0, t, 0)).message).toBe("rated_flow: got 0 gpm; must be greater than 0");
+    expect(errorOf(() => pumpSuction(500, t, -1)).message).toBe("other_flow: got -1 gpm; must be 0 or more");
+    expect(errorOf(() => pumpSuction(500, { static: 50, residual: 60, testFlow: 1000 }, 0)).message).toMatch(/^residual: got 60 psi; must be below/);
   });
 });

@@ -1,6 +1,6 @@
 /**
- * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE, in US
- * and SI units, with their spill shapes and every error path.
+ * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE (and
+ * PUMPSUCTION beside them), in US and SI units, with their spill shapes and every error path.
  */
 import { describe, expect, it } from "vitest";
 import {
@@ -13,6 +13,7 @@ import {
   pumpboost,
   pumpcurve,
   pumpsize,
+  pumpsuction,
   sizefor,
   supplyat,
   supplycurve,
@@ -389,5 +390,42 @@ describe("PUMPCURVE", () => {
     expect(errorOf(() => pumpcurve(500, 750, 25, "high"))).toEqual({ code: "#VALUE!", message: 'shutoff_ratio: got "high"; must be a number' });
     expect(errorOf(() => pumpcurve(-1, 750, 25)).code).toBe("#VALUE!");
     expect(errorOf(() => pumpcurve(500, null, 25)).message).toBe("rated_flow is empty: type a number");
+  });
+});
+
+// ─── PUMPSUCTION ─────────────────────────────────────────────────────────────────────────────────────────────────
+describe("PUMPSUCTION", () => {
+  // [NFPA 291] supply curve static 72, residual 58 psi at 1100 gpm; the pump draws 150 % of its rating [NFPA 20]
+  it("is the supply pressure at 1.5 × rated flow plus other_flow (by hand)", () => {
+    // 750 gpm: 72 − 14 × (750/1100)^1.85 = 72 − 14 × 0.492352 = 65.107 psi
+    expect(pumpsuction(500, 72, 58, 1100)).toBeCloseTo(65.107, 3);
+    expect(pumpsuction(500, 72, 58, 1100, null)).toBeCloseTo(65.107, 3);
+    // 750 + 250 = 1000 gpm: 72 − 14 × (1000/1100)^1.85 = 72 − 14 × 0.838346 = 60.263 psi
+    expect(pumpsuction(500, 72, 58, 1100, 250)).toBeCloseTo(60.263, 3);
+    // the same as SUPPLYAT at that flow
+    expect(pumpsuction(500, 72, 58, 1100, 250)).toBe(supplyat(1000, 72, 58, 1100));
+  });
+
+  it("works in SI", () => {
+    const l = L_PER_GAL, b = BAR_PER_PSI;
+    expect(pumpsuction(500 * l, 72 * b, 58 * b, 1100 * l, 250 * l, "SI")).toBeCloseTo(60.263 * b, 4);
+  });
+
+  it("is #VALUE! naming the flow drawn and the flow where the main reaches 0", () => {
+    // 1.5 × 1500 + 500 = 2750 gpm; the main reaches 0 at 1100 × (72/14)^(1/1.85) = 2665.8 gpm
+    expect(errorOf(() => pumpsuction(1500, 72, 58, 1100, 500))).toEqual({
+      code: "#VALUE!",
+      message: "rated_flow: got 1500 gpm; 150 % of it plus other_flow is 2750 gpm, at or beyond 2665.8 gpm, where this supply reaches 0 psi",
+    });
+    const l = L_PER_GAL, b = BAR_PER_PSI;
+    expect(errorOf(() => pumpsuction(1500 * l, 72 * b, 58 * b, 1100 * l, 500 * l, "SI")).message).toMatch(
+      /^rated_flow: got 5678\.\d+ L\/min; 150 % of it plus other_flow is 1040\d\.\d+ L\/min, at or beyond 1009\d\.\d+ L\/min, where this supply reaches 0 bar$/,
+    );
+  });
+
+  it("is #VALUE! with a message for a bad rated flow, other flow or flow test", () => {
+    expect(errorOf(() => pumpsuction(null, 72, 58, 1100)).message).toBe("rated_flow is empty: type a number");
+    expect(errorOf(() => pumpsuction(500, 72, 58, 1100, -1)).message).toMatch(/^other_flow: got -1 gpm; must be from 0/);
+    expect(errorOf(() => pumpsuction(500, 50, 60, 1000)).message).toBe("residual: got 60 psi; must be below the static pressure 50 psi");
   });
 });

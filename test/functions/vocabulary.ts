@@ -42,4 +42,5 @@ export const VOCABULARY: string[] = [
   "SIZEFOR",
   "PUMPSIZE",
   "PUMPCURVE",
+  "PUMPSUCTION",
 ];

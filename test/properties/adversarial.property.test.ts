@@ -129,6 +129,7 @@ const PLAUSIBLE: Readonly<Record<string, Plausible>> = {
   required_margin: q("pressure", 0, 20, true),
   boost: q("pressure", 0, 150),
   rated_flow: q("flow", 100, 3000),
+  other_flow: q("flow", 0, 1000, true),
   rated_pressure: q("pressure", 40, 150),
   shutoff_ratio: { value: orBlank(lin(1.01, 1.4)) },
   overload_ratio: { value: orBlank(lin(0.65, 0.99)) },

@@ -44,3 +44,24 @@ describe("SITETEST", () => {
     expect(rel(rSI, r * BAR_PER_PSI)).toBeLessThan(1e-9);
   });
 });
+
+describe("PUMPSUCTION", () => {
+  const frac = fc.double({ min: 0, max: 1, noNaN: true });
+  test.prop([arb.flowTest, fc.double({ min: 0.01, max: 1, noNaN: true }), frac, frac], RUNS)(
+    "falls as other_flow grows, and stays below the static pressure",
+    (t, rated, a, b) => {
+      const qr = (rated * t.testFlow) / 1.5;
+      const [lo, hi] = (a <= b ? [a, b] : [b, a]).map((x) => x * t.testFlow);
+      let pHi: number;
+      try {
+        pHi = f.pumpsuction(qr, t.static, t.residual, t.testFlow, hi);
+      } catch {
+        return; // the main reaches 0 before that flow: an error, tested by hand in test/functions/solvers.test.ts
+      }
+      const pLo = f.pumpsuction(qr, t.static, t.residual, t.testFlow, lo); // less flow: never an error where more was none
+      expect(pHi).toBeLessThanOrEqual(pLo);
+      expect(pLo).toBeLessThan(t.static);
+      expect(pHi).toBeGreaterThan(0);
+    },
+  );
+});
