@@ -6,6 +6,28 @@ import { fail, q } from "./errors";
 import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
 import { type UnitSystem, fromUS, unitName } from "./units";
 
+/**
+ * Share of static pressure a flow test should drop the residual by to be extrapolated, dimensionless.
+ *
+ * Below it, a curve read beyond the test flow is uncertain (the verdict's caveat).
+ * @see [NFPA 291] a test should drop the residual at least 25 % or flow the full demand (from memory)
+ */
+export const MIN_TEST_DROP_SHARE = 0.25;
+
+/**
+ * The verdict's state: "enough" (margin ≥ required), "marginal" (0 ≤ margin < required), "short" (margin < 0) or
+ * "exhausted" (the supply reaches 0 psi before the demand flow).
+ */
+export type SupplyState = "enough" | "marginal" | "short" | "exhausted";
+
+/** A flow test too weak to extrapolate to the demand flow: its drop, psi, and that drop's share of static. */
+export interface FlowTestCaveat {
+  /** static − residual, psi */
+  drop: number;
+  /** (static − residual) / static, a fraction under MIN_TEST_DROP_SHARE */
+  dropShare: number;
+}
+
 /** The comparison of one demand point with the supply curve. */
 export interface Assessment {
   demandFlow: number;
@@ -17,33 +39,66 @@ export interface Assessment {
   supplyPressure: number | null;
   /** supplyPressure − demandPressure; null where the supply is exhausted */
   margin: number | null;
-  /** true when the margin is below the required margin, or the supply is exhausted */
+  /** the verdict's state (VERDICT's three states, and the supply exhausted) */
+  state: SupplyState;
+  /** true when the margin is below the required margin, or the supply is exhausted: state is not "enough" */
   pumpNeeded: boolean;
+  /** where the flow test dropped under 25 % of static and the demand flow is above the test flow; else null */
+  caveat: FlowTestCaveat | null;
+}
+
+/**
+ * The flow-test caveat: a test whose drop is under 25 % of static, extrapolated beyond its flow.
+ *
+ *   caveat where (Ps − Pr) / Ps < 0.25 and Q > Qt
+ *
+ * Static 72, residual 58 psi at 1100 gpm: the drop is 14 psi, 14 / 72 = 0.194444 of static, under 0.25; a demand of
+ * 1200 gpm lies beyond the test flow, so the caveat holds; at 1100 gpm or less it does not.
+ *
+ * @param demandFlow Q, the demand flow, gpm
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm (checked by the caller)
+ * @returns the drop, psi, and its share of static, a fraction; null where the test is fit to read at that flow
+ * @see [NFPA 291] a test should drop the residual at least 25 % or flow the full demand (from memory)
+ * @example
+ * flowTestCaveat(1200, { static: 72, residual: 58, testFlow: 1100 }) // ≈ { drop: 14, dropShare: 0.194444 }
+ * flowTestCaveat(1100, { static: 72, residual: 58, testFlow: 1100 }) // → null
+ */
+export function flowTestCaveat(demandFlow: number, t: FlowTest): FlowTestCaveat | null {
+  const drop = t.static - t.residual;
+  const dropShare = drop / t.static;
+  return dropShare < MIN_TEST_DROP_SHARE && demandFlow > t.testFlow ? { drop, dropShare } : null;
 }
 
 /**
  * Compare a demand point with the supply curve.
  *
- *   supply = Ps − (Ps − Pr) (Q / Qt)^1.85,   margin = supply − demand pressure,   pump needed: margin < required
+ *   supply = Ps − (Ps − Pr) (Q / Qt)^1.85,   margin = supply − demand pressure
+ *   state: enough where margin ≥ required; marginal where 0 ≤ margin < required; short where margin < 0;
+ *   exhausted where the supply reaches 0 psi at or before Q
  *
  * The required margin is a visible input (common practice: often 10 psi or 10 %). 562 gpm at 48 psi against static
  * 72, residual 58 psi at 1100 gpm: supply = 72 − 14 × (562 / 1100)^1.85 = 72 − 14 × 0.28868 = 68.0 psi; margin
- * = 68.0 − 48 = 20.0 psi; the supply reaches 0 at 1100 × (72 / 14)^(1/1.85) = 1100 × 2.42345 = 2665.8 gpm.
+ * = 68.0 − 48 = 20.0 psi; the supply reaches 0 at 1100 × (72 / 14)^(1/1.85) = 1100 × 2.42345 = 2665.8 gpm. The
+ * caveat is flowTestCaveat's.
  *
  * @param demandFlow the demand flow, gpm (> 0)
  * @param demandPressure the demand pressure, psi (≥ 0)
  * @param t the flow test: static and residual pressure, psi; test flow, gpm
  * @param requiredMargin the margin required, psi (≥ 0)
- * @returns the assessment: flows in gpm, pressures and margins in psi (null where the supply is exhausted)
- * @see [NFPA 291] water supply curve; the required margin (common practice)
+ * @returns the assessment: flows in gpm, pressures and margins in psi (null where the supply is exhausted), the
+ *   state, and the caveat (drop in psi, its share of static a fraction) or null
+ * @see [NFPA 291] water supply curve and the 25 % drop (from memory); the required margin (common practice)
  * @example
  * assess(562, 48, { static: 72, residual: 58, testFlow: 1100 }, 10)
  * // .supplyPressure ≈ 68.0 psi
  * // .margin ≈ 20.0 psi
  * // .exhaustedAt ≈ 2665.8 gpm
+ * // .state → "enough"
  * // .pumpNeeded → false
+ * // .caveat → null
+ * assess(562, 62, { static: 72, residual: 58, testFlow: 1100 }, 10) // .state → "marginal"
  * assess(3000, 48, { static: 72, residual: 58, testFlow: 1100 }, 10)
- * // ≈ { supplyPressure: null, margin: null, pumpNeeded: true }
+ * // ≈ { supplyPressure: null, margin: null, state: "exhausted", pumpNeeded: true, caveat: { drop: 14, dropShare: 0.194444 } }
  */
 export function assess(demandFlow: number, demandPressure: number, t: FlowTest, requiredMargin: number): Assessment {
   checkFlowTest(t);
@@ -51,18 +106,21 @@ export function assess(demandFlow: number, demandPressure: number, t: FlowTest, 
   if (!(demandPressure >= 0)) fail("demand_pressure", q("pressure", demandPressure), "must be 0 or more");
   if (!(requiredMargin >= 0)) fail("required_margin", q("pressure", requiredMargin), "must be 0 or more");
   const exhaustedAt = exhaustionFlow(t);
+  const caveat = flowTestCaveat(demandFlow, t);
   const supplyPressure = supplyCurve(demandFlow, t);
   // a pressure that rounds to 0 short of the exhaustion flow (a static of a few denormals) is exhausted too
   if (!(demandFlow < exhaustedAt && supplyPressure > 0)) {
-    return { demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure: null, margin: null, pumpNeeded: true };
+    return {
+      demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure: null, margin: null,
+      state: "exhausted", pumpNeeded: true, caveat,
+    };
   }
   const margin = supplyPressure - demandPressure;
-  return { demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure, margin, pumpNeeded: margin < requiredMargin };
-}
-
-/** The sentence of an exhausted supply, for VERDICT (flows rounded to whole units). */
-function exhaustedMessage(a: Assessment, units: UnitSystem): string {
-  return `the supply reaches 0 at ${formatFlow(a.exhaustedAt, units)}, below the demand flow of ${formatFlow(a.demandFlow, units)}`;
+  const state: SupplyState = margin < 0 ? "short" : margin < requiredMargin ? "marginal" : "enough";
+  return {
+    demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure, margin,
+    state, pumpNeeded: state !== "enough", caveat,
+  };
 }
 
 /** The problem of a demand flow beyond the flow where the supply reaches 0, with what it prevents. */
@@ -151,35 +209,93 @@ export function formatFlow(gpm: number, units: UnitSystem): string {
 }
 
 /**
- * One plain sentence for a project manager, in the user's units.
+ * The verdict's state as one sentence for a project manager, in the user's units.
  *
- *   "No pump needed: 12.4 psi to spare at 562 gpm."
- *   "Pump needed: the supply is 10.7 psi short at 562 gpm."
- *   "Pump needed: 6.2 psi to spare at 562 gpm, less than the 10.0 psi margin required."
- *   "Pump needed: the supply reaches 0 at 950 gpm, below the demand flow of 1200 gpm."
+ * One of VERDICT's three states, or a supply that runs out before the demand flow:
  *
- * With a required margin, a passing sentence says which margin it met.
+ *   enough:    "No pump needed: 12.4 psi to spare at 562 gpm (10.0 psi margin required)."
+ *              "No pump needed: 0.3 psi to spare at 562 gpm (no margin required)."
+ *   marginal:  "Marginal: 6.3 psi to spare at 562 gpm, less than the 10.0 psi margin required."
+ *   short:     "Pump needed: the supply is 10.7 psi short at 562 gpm."
+ *   exhausted: "A pump alone cannot serve: the supply reaches 0 psi at 2666 gpm, below the demand flow of 3000 gpm;
+ *              a suction tank or a stronger main is needed."
+ *
+ * The flow-test caveat is a sentence of its own (caveatSentence); verdictSentence joins the two as VERDICT writes
+ * them. A pane that shows the caveat on a line of its own shows this sentence above it.
  *
  * @param a the assessment (assess), US units
  * @param units the unit system of the sentence, "US" or "SI"
  * @returns the sentence
  * @example
- * verdictSentence(assess(562, 48, { static: 72, residual: 58, testFlow: 1100 }, 10), "US")
+ * stateSentence(assess(562, 48, { static: 72, residual: 58, testFlow: 1100 }, 10), "US")
  * // → "No pump needed: 20.0 psi to spare at 562 gpm (10.0 psi margin required)."
- * verdictSentence(assess(562, 60, { static: 72, residual: 58, testFlow: 1100 }, 10), "US")
- * // → "Pump needed: 8.0 psi to spare at 562 gpm, less than the 10.0 psi margin required."
- * verdictSentence(assess(562, 80, { static: 72, residual: 58, testFlow: 1100 }, 10), "SI")
+ * stateSentence(assess(562, 48, { static: 72, residual: 58, testFlow: 1100 }, 0), "US")
+ * // → "No pump needed: 20.0 psi to spare at 562 gpm (no margin required)."
+ * stateSentence(assess(562, 60, { static: 72, residual: 58, testFlow: 1100 }, 10), "US")
+ * // → "Marginal: 8.0 psi to spare at 562 gpm, less than the 10.0 psi margin required."
+ * stateSentence(assess(562, 80, { static: 72, residual: 58, testFlow: 1100 }, 10), "SI")
  * // → "Pump needed: the supply is 0.83 bar short at 2127 L/min."
- * verdictSentence(assess(3000, 60, { static: 72, residual: 58, testFlow: 1100 }, 10), "US")
- * // → "Pump needed: the supply reaches 0 at 2666 gpm, below the demand flow of 3000 gpm."
+ * stateSentence(assess(3000, 60, { static: 72, residual: 58, testFlow: 1100 }, 10), "US")
+ * // → "A pump alone cannot serve: the supply reaches 0 psi at 2666 gpm, below the demand flow of 3000 gpm; a suction tank or a stronger main is needed."
  */
-export function verdictSentence(a: Assessment, units: UnitSystem): string {
+export function stateSentence(a: Assessment, units: UnitSystem): string {
   const at = formatFlow(a.demandFlow, units);
-  if (a.margin === null) return `Pump needed: ${exhaustedMessage(a, units)}.`;
+  if (a.state === "exhausted" || a.margin === null) {
+    const zero = `0 ${unitName("pressure", units)}`;
+    return (
+      `A pump alone cannot serve: the supply reaches ${zero} at ${formatFlow(a.exhaustedAt, units)}, below the demand flow ` +
+      `of ${at}; a suction tank or a stronger main is needed.`
+    );
+  }
   const m = formatPressure(a.margin, units);
   const required = formatPressure(a.requiredMargin, units);
-  if (a.margin < 0) return `Pump needed: the supply is ${m} short at ${at}.`;
-  if (a.pumpNeeded) return `Pump needed: ${m} to spare at ${at}, less than the ${required} margin required.`;
-  const met = a.requiredMargin > 0 ? ` (${required} margin required)` : "";
-  return `No pump needed: ${m} to spare at ${at}${met}.`;
+  if (a.state === "short") return `Pump needed: the supply is ${m} short at ${at}.`;
+  if (a.state === "marginal") return `Marginal: ${m} to spare at ${at}, less than the ${required} margin required.`;
+  const met = a.requiredMargin > 0 ? `${required} margin required` : "no margin required";
+  return `No pump needed: ${m} to spare at ${at} (${met}).`;
+}
+
+/**
+ * The flow-test caveat as a sentence, or null where there is none (see flowTestCaveat).
+ *
+ *   "The flow test dropped only 2.0 psi (3 % of static), so the supply beyond its flow is uncertain."
+ *
+ * The share is said in whole percent; a share that rounds to 25 % is said as "less than 25 %", one that rounds to 0
+ * as "less than 1 %". Static 72, residual 58 psi at 1100 gpm, demand 1200 gpm: 14.0 psi, 14 / 72 = 19.4 % → 19 %.
+ *
+ * @param a the assessment (assess), US units
+ * @param units the unit system of the sentence, "US" or "SI"
+ * @returns the sentence, or null
+ * @see [NFPA 291] a test should drop the residual at least 25 % or flow the full demand (from memory)
+ * @example
+ * caveatSentence(assess(1200, 30, { static: 72, residual: 58, testFlow: 1100 }, 0), "US")
+ * // → "The flow test dropped only 14.0 psi (19 % of static), so the supply beyond its flow is uncertain."
+ * caveatSentence(assess(562, 30, { static: 72, residual: 58, testFlow: 1100 }, 0), "US") // → null
+ */
+export function caveatSentence(a: Assessment, units: UnitSystem): string | null {
+  if (a.caveat === null) return null;
+  const percent = Math.round(a.caveat.dropShare * 100);
+  const limit = Math.round(MIN_TEST_DROP_SHARE * 100);
+  const share = percent < 1 ? "less than 1 %" : percent >= limit ? `less than ${limit} %` : `${percent} %`;
+  return `The flow test dropped only ${formatPressure(a.caveat.drop, units)} (${share} of static), so the supply beyond its flow is uncertain.`;
+}
+
+/**
+ * What VERDICT writes: the state's sentence, then the flow-test caveat where there is one.
+ *
+ *   verdict = stateSentence + " " + caveatSentence (where the caveat holds)
+ *
+ * Static 72, residual 58 psi at 1100 gpm; 1200 gpm at 30 psi: supply 72 − 14 × (1200 / 1100)^1.85 = 72 − 14 ×
+ * 1.174651 = 55.6 psi, 25.6 psi to spare; the test's 14 psi drop is 19 % of static and 1200 gpm is beyond its flow.
+ *
+ * @param a the assessment (assess), US units
+ * @param units the unit system of the text, "US" or "SI"
+ * @returns one or two sentences
+ * @example
+ * verdictSentence(assess(1200, 30, { static: 72, residual: 58, testFlow: 1100 }, 0), "US")
+ * // → "No pump needed: 25.6 psi to spare at 1200 gpm (no margin required). The flow test dropped only 14.0 psi (19 % of static), so the supply beyond its flow is uncertain."
+ */
+export function verdictSentence(a: Assessment, units: UnitSystem): string {
+  const caveat = caveatSentence(a, units);
+  return caveat === null ? stateSentence(a, units) : `${stateSentence(a, units)} ${caveat}`;
 }

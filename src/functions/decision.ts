@@ -1,5 +1,5 @@
 /**
- * Cell functions of the decision: the margin of the supply over the demand (MARGIN), the verdict sentence (VERDICT)
+ * Cell functions of the decision: the margin of the supply over the demand (MARGIN), the verdict (VERDICT)
  * and the pressure a pump must add (PUMPBOOST). They read their arguments through `decisionArgs` (./common), the
  * very reader the task pane uses, so the pane and the sheet say the same about the same inputs.
  */
@@ -28,9 +28,12 @@ export function margin(demand_flow: any, demand_pressure: any, static_pressure: 
 }
 
 /**
- * A plain sentence for a project manager, e.g. "No pump needed: 12.4 psi to spare at 562 gpm." or "Pump needed: the
- * supply is 10.7 psi short at 562 gpm." A preliminary estimate: the adopted codes, the authority having
- * jurisdiction and a licensed fire-protection professional decide.
+ * A plain sentence for a project manager, in one of three states: "No pump needed: 12.4 psi to spare at 562 gpm (10.0
+ * psi margin required).", "Marginal: 6.3 psi to spare at 562 gpm, less than the 10.0 psi margin required." or "Pump
+ * needed: the supply is 10.7 psi short at 562 gpm."; where the supply reaches 0 psi before the demand flow, a pump
+ * alone cannot serve. A second sentence follows when the flow test dropped under 25 % of static and the demand flow
+ * is above the test flow (NFPA 291). A preliminary estimate: the adopted codes, the authority having jurisdiction
+ * and a licensed fire-protection professional decide.
  * @customfunction
  * @param demand_flow Total demand flow at the supply connection (gpm; SI: L/min).
  * @param demand_pressure Pressure the system needs there (psi; SI: bar).
@@ -39,7 +42,7 @@ export function margin(demand_flow: any, demand_pressure: any, static_pressure: 
  * @param test_flow Flow during the test (gpm; SI: L/min).
  * @param required_margin Safety margin the supply must exceed the demand by (psi; SI: bar); default 0.
  * @param units "US" (default) or "SI".
- * @returns The verdict sentence.
+ * @returns The verdict: one sentence, or two with the flow-test caveat.
  */
 export function verdict(
   demand_flow: any,

@@ -143,10 +143,21 @@ describe("decision functions", () => {
     expect(f.margin(562, 48, 72, 58, 1100)).toBeCloseTo(19.958, 3);
     expect(f.margin(562, 78, 72, 58, 1100)).toBeCloseTo(-10.042, 3);
   });
-  it("VERDICT states the answer in a sentence, with the required margin as a visible input", () => {
-    expect(f.verdict(562, 48, 72, 58, 1100)).toBe("No pump needed: 20.0 psi to spare at 562 gpm.");
+  it("VERDICT states the answer in one of three states, with the required margin as a visible input", () => {
+    expect(f.verdict(562, 48, 72, 58, 1100)).toBe("No pump needed: 20.0 psi to spare at 562 gpm (no margin required).");
+    expect(f.verdict(562, 48, 72, 58, 1100, 10)).toBe("No pump needed: 20.0 psi to spare at 562 gpm (10.0 psi margin required).");
+    expect(f.verdict(562, 62, 72, 58, 1100, 10)).toBe("Marginal: 6.0 psi to spare at 562 gpm, less than the 10.0 psi margin required.");
     expect(f.verdict(562, 78, 72, 58, 1100)).toBe("Pump needed: the supply is 10.0 psi short at 562 gpm.");
-    expect(f.verdict(562, 62, 72, 58, 1100, 10)).toBe("Pump needed: 6.0 psi to spare at 562 gpm, less than the 10.0 psi margin required.");
+  });
+  it("VERDICT says a pump alone cannot serve where the supply reaches 0 psi first, and adds the flow-test caveat", () => {
+    // the supply reaches 0 at 1100 × (72/14)^(1/1.85) = 2665.8 gpm; the test's drop, 14 psi, is 19 % of 72 psi
+    // [NFPA 291] (from memory: a test should drop 25 % or flow the demand), and 3000 gpm is beyond its 1100 gpm
+    expect(f.verdict(3000, 40, 72, 58, 1100)).toBe(
+      "A pump alone cannot serve: the supply reaches 0 psi at 2666 gpm, below the demand flow of 3000 gpm; a suction tank or a stronger main is needed." +
+        " The flow test dropped only 14.0 psi (19 % of static), so the supply beyond its flow is uncertain.",
+    );
+    // a drop of 30 of 72 psi (42 %) is fit to extrapolate: no caveat
+    expect(f.verdict(1200, 30, 72, 42, 1100)).toMatch(/^No pump needed: [^.]*\.\d psi to spare at 1200 gpm \(no margin required\)\.$/);
   });
   it("PUMPBOOST is what a pump must add, 0 when none is needed", () => {
     expect(f.pumpboost(562, 80, 72, 58, 1100, 10)).toBeCloseTo(22.042, 3);
@@ -155,7 +166,7 @@ describe("decision functions", () => {
   it("SI decision results equal the converted US results", () => {
     const b = BAR_PER_PSI, l = L_PER_GAL;
     expect(rel(f.margin(562 * l, 48 * b, 72 * b, 58 * b, 1100 * l, "SI"), 19.958 * b)).toBeLessThan(1e-4);
-    expect(f.verdict(562 * l, 48 * b, 72 * b, 58 * b, 1100 * l, null, "SI")).toBe("No pump needed: 1.38 bar to spare at 2127 L/min.");
+    expect(f.verdict(562 * l, 48 * b, 72 * b, 58 * b, 1100 * l, null, "SI")).toBe("No pump needed: 1.38 bar to spare at 2127 L/min (no margin required).");
     expect(rel(f.pumpboost(562 * l, 80 * b, 72 * b, 58 * b, 1100 * l, 10 * b, "SI"), 22.042 * b)).toBeLessThan(1e-4);
   });
 });
