@@ -1,8 +1,10 @@
 /**
- * The decision: does the water supply meet the sprinkler demand, by how much, and what must a pump add?
+ * The decision: does the water supply meet the sprinkler demand, by how much, what must a pump add, and does the
+ * pump the user chose add enough?
  * US units inside (gpm, psi); the sentence is written in the user's units.
  */
-import { fail, q } from "./errors";
+import { fail, outsideEnvelope, q } from "./errors";
+import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, OVERLOAD_FLOW_RATIO, type PumpRating, pumpPressure } from "./pump";
 import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
 import { type UnitSystem, fromUS, unitName } from "./units";
 
@@ -298,4 +300,98 @@ export function caveatSentence(a: Assessment, units: UnitSystem): string | null 
 export function verdictSentence(a: Assessment, units: UnitSystem): string {
   const caveat = caveatSentence(a, units);
   return caveat === null ? stateSentence(a, units) : `${stateSentence(a, units)} ${caveat}`;
+}
+
+/** What the supply and the pump the user chose give at the demand flow, psi. */
+export interface ChosenPumpCheck {
+  /** supply pressure at the total flow (the main while everything flows), psi */
+  supplyPressure: number;
+  /** the pump's net pressure at the flow through it, psi */
+  pumpPressure: number;
+  /** supplyPressure + pumpPressure, psi */
+  delivered: number;
+  /** demand pressure + required margin, psi */
+  required: number;
+  /** delivered − required, psi (below 0: the pump falls short by that much) */
+  surplus: number;
+  /** surplus ≥ 0 */
+  meets: boolean;
+}
+
+/**
+ * Does the supply plus the pump the user chose meet the demand plus the required margin?
+ *
+ *   delivered = P_supply(Q_total) + P_pump(Q_pump),   surplus = delivered − (demand pressure + required margin)
+ *
+ * The supply is read at the total flow (the main delivers everything, outside hose included); the pump adds its net
+ * pressure at the flow that passes through it (sprinklers and inside hose, plus outside hose only where hydrants are
+ * downstream of the pump), on the monotone curve of pumpPressure. Where the flow through the pump is beyond 150 % of
+ * its rating the error (kind "number") names the rating it would need; where the supply reaches 0 psi at or before
+ * the total flow the error (kind "value") names that flow: the check throws, as PUMPCURVE and SUPPLYAT do in a cell,
+ * and a caller shows the message (HeadroomError.messageIn) in its units. Static 72, residual 58 psi at 1100 gpm; 750
+ * gpm in all, 600 gpm through a pump rated 500 gpm at 25 psi (shutoff 1.2, 150 % point 0.7); 80 psi demand, 10 psi
+ * margin: supply 72 − 14 × (750 / 1100)^1.85 = 72 − 14 × 0.492352 = 65.107 psi; pump 25 × (1.2 − 0.2 × 1.2^2.259851)
+ * = 25 × (1.2 − 0.2 × 1.509864) = 22.451 psi; delivered 87.558 psi; surplus 87.558 − 90 = −2.442 psi.
+ *
+ * @param totalFlow the demand flow at the supply connection, all of it, gpm (> 0)
+ * @param pumpFlow the flow through the pump, gpm (0 to totalFlow, at most 150 % of the rated flow)
+ * @param demandPressure the demand pressure, psi (≥ 0)
+ * @param requiredMargin the margin required, psi (≥ 0)
+ * @param t the flow test: static and residual pressure, psi; test flow, gpm
+ * @param rating the pump chosen: rated flow, gpm; rated net pressure, psi
+ * @param shutoffRatio shutoff pressure over rated pressure, dimensionless (1 < s ≤ 1.4)
+ * @param overloadRatio pressure at 150 % flow over rated pressure, dimensionless (0.65 ≤ o < 1)
+ * @returns the supply, pump and delivered pressures, the pressure required and the surplus, psi; whether it meets
+ * @see [NFPA 291] water supply curve; [NFPA 20] the pump's envelope and the flow it is sized for (from memory); the
+ *   curve's shape and the required margin (common practice)
+ * @example
+ * chosenPumpCheck(750, 600, 80, 10, { static: 72, residual: 58, testFlow: 1100 }, { ratedFlow: 500, ratedPressure: 25 })
+ * // ≈ { supplyPressure: 65.107, pumpPressure: 22.451, delivered: 87.558, required: 90, surplus: -2.442, meets: false }
+ * chosenPumpCheck(750, 600, 70, 10, { static: 72, residual: 58, testFlow: 1100 }, { ratedFlow: 500, ratedPressure: 25 })
+ * // ≈ { surplus: 7.558, meets: true }
+ * chosenPumpCheck(900, 800, 60, 10, { static: 72, residual: 58, testFlow: 1100 }, { ratedFlow: 500, ratedPressure: 25 })
+ * // throws "rated_flow: got 500 gpm; the flow through the pump, 800 gpm, is beyond 150 % of it: choose at least 533.333 gpm"
+ */
+export function chosenPumpCheck(
+  totalFlow: number,
+  pumpFlow: number,
+  demandPressure: number,
+  requiredMargin: number,
+  t: FlowTest,
+  rating: PumpRating,
+  shutoffRatio: number = DEFAULT_SHUTOFF_RATIO,
+  overloadRatio: number = DEFAULT_OVERLOAD_RATIO,
+): ChosenPumpCheck {
+  checkFlowTest(t);
+  if (!(totalFlow > 0) || !Number.isFinite(totalFlow)) fail("demand_flow", q("flow", totalFlow), "must be greater than 0");
+  if (!(pumpFlow >= 0)) fail("pump_flow", q("flow", pumpFlow), "must be 0 or more");
+  if (!(pumpFlow <= totalFlow)) fail("pump_flow", q("flow", pumpFlow), "must be at most the demand flow {0}", q("flow", totalFlow));
+  if (!(demandPressure >= 0) || !Number.isFinite(demandPressure)) fail("demand_pressure", q("pressure", demandPressure), "must be 0 or more");
+  if (!(requiredMargin >= 0) || !Number.isFinite(requiredMargin)) fail("required_margin", q("pressure", requiredMargin), "must be 0 or more");
+  const { ratedFlow, ratedPressure } = rating;
+  if (ratedFlow > 0 && Number.isFinite(ratedFlow) && pumpFlow > OVERLOAD_FLOW_RATIO * ratedFlow * (1 + 1e-9)) {
+    outsideEnvelope(
+      "rated_flow",
+      q("flow", ratedFlow),
+      "the flow through the pump, {0}, is beyond 150 % of it: choose at least {1}",
+      q("flow", pumpFlow),
+      q("flow", pumpFlow / OVERLOAD_FLOW_RATIO),
+    );
+  }
+  const pump = pumpPressure(pumpFlow, ratedFlow, ratedPressure, shutoffRatio, overloadRatio); // checks the rating
+  const exhaustedAt = exhaustionFlow(t);
+  const supply = supplyCurve(totalFlow, t);
+  if (!(totalFlow < exhaustedAt && supply > 0)) {
+    fail(
+      "demand_flow",
+      q("flow", totalFlow),
+      "this supply reaches {0} at {1}; a pump cannot draw more than the main delivers",
+      q("pressure", 0),
+      q("flow", exhaustedAt),
+    );
+  }
+  const delivered = supply + pump;
+  const required = demandPressure + requiredMargin;
+  const surplus = delivered - required;
+  return { supplyPressure: supply, pumpPressure: pump, delivered, required, surplus, meets: surplus >= 0 };
 }

@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import {
   MIN_TEST_DROP_SHARE,
   assess,
+  chosenPumpCheck,
   caveatSentence,
   flowTestCaveat,
   margin,
@@ -10,6 +11,7 @@ import {
   verdictSentence,
 } from "../../src/engine/decision";
 import { supplyAt } from "../../src/engine/supply";
+import { errorOf } from "./engineError";
 
 // Supply curve [NFPA 291]: static 72, residual 58 at 1100 gpm. At 562 gpm: 72 − 14 × (562/1100)^1.85 = 72 − 14 × 0.28870 = 67.958
 // Its drop, 72 − 58 = 14 psi, is 14 / 72 = 19.4 % of static: under 25 % [NFPA 291] (from memory)
@@ -134,5 +136,62 @@ describe("the flow-test caveat [NFPA 291] (from memory)", () => {
     // 100 − 99.6 = 0.4 psi, 0.4 % of static
     const trace = assess(1001, 10, { static: 100, residual: 99.6, testFlow: 1000 }, 0);
     expect(caveatSentence(trace, "US")).toBe("The flow test dropped only 0.4 psi (less than 1 % of static), so the supply beyond its flow is uncertain.");
+  });
+});
+
+describe("the pump the user chose (chosenPumpCheck)", () => {
+  // supply at the total flow [NFPA 291] plus the pump's net pressure at the flow through it, P = s·Pr − k Q^n through
+  // shutoff 1.2, rated and 0.7 at 150 % (common practice; the [NFPA 20] envelope); rated 500 gpm at 25 psi
+  const rating = { ratedFlow: 500, ratedPressure: 25 };
+  it("adds the pump's pressure at its own flow to the supply at the total flow, against demand + margin (by hand)", () => {
+    // supply at 750 gpm: 72 − 14 × (750/1100)^1.85 = 72 − 14 × 0.492352 = 65.1069 psi
+    // pump at 600 gpm: n = ln 2.5 / ln 1.5 = 2.259851; 1.2^n = 1.509864; 25 × (1.2 − 0.2 × 1.509864) = 22.4507 psi
+    // delivered 65.1069 + 22.4507 = 87.5576 psi; required 80 + 10 = 90 psi; surplus −2.4424 psi
+    const miss = chosenPumpCheck(750, 600, 80, 10, t, rating);
+    expect(miss.supplyPressure).toBeCloseTo(65.1069, 4);
+    expect(miss.pumpPressure).toBeCloseTo(22.4507, 4);
+    expect(miss.delivered).toBeCloseTo(87.5576, 4);
+    expect(miss.required).toBe(90);
+    expect(miss.surplus).toBeCloseTo(-2.4424, 4);
+    expect(miss.meets).toBe(false);
+    // demand 70 + 10 = 80 psi: surplus 87.5576 − 80 = 7.5576 psi
+    const meets = chosenPumpCheck(750, 600, 70, 10, t, rating);
+    expect(meets.surplus).toBeCloseTo(7.5576, 4);
+    expect(meets.meets).toBe(true);
+  });
+
+  it("meets with a surplus of exactly 0, and takes the curve's shape from the ratios given", () => {
+    const level = chosenPumpCheck(750, 600, 0, 0, t, rating).delivered;
+    expect(chosenPumpCheck(750, 600, level, 0, t, rating).meets).toBe(true);
+    // s 1.4, o 0.65 [NFPA 20] envelope edges: n = ln(0.75 / 0.4) / ln 1.5 = 1.550340; 1.2^n = exp(1.550340 × 0.182322)
+    // = 1.326654; 25 × (1.4 − 0.4 × 1.326654) = 25 × 0.869338 = 21.7335 psi
+    expect(chosenPumpCheck(750, 600, 80, 10, t, rating, 1.4, 0.65).pumpPressure).toBeCloseTo(21.7335, 4);
+  });
+
+  it("throws where the flow through the pump is beyond 150 % of its rating, saying the rating it would need", () => {
+    // 800 gpm through a 500 gpm pump is 160 %; a rating of 800 / 1.5 = 533.3 gpm would reach it
+    const e = errorOf(() => chosenPumpCheck(900, 800, 60, 10, t, rating));
+    expect(e.kind).toBe("number");
+    expect(e.message).toBe("rated_flow: got 500 gpm; the flow through the pump, 800 gpm, is beyond 150 % of it: choose at least 533.333 gpm");
+    expect(chosenPumpCheck(900, 750, 60, 10, t, rating).pumpPressure).toBeCloseTo(17.5, 10); // 150 % exactly: 0.7 × 25
+  });
+
+  it("throws where the supply reaches 0 psi at or before the total flow", () => {
+    // 1100 × (72/14)^(1/1.85) = 2665.8 gpm
+    const e = errorOf(() => chosenPumpCheck(3000, 1000, 60, 10, t, { ratedFlow: 1000, ratedPressure: 50 }));
+    expect(e.kind).toBe("value");
+    expect(e.message).toBe("demand_flow: got 3000 gpm; this supply reaches 0 psi at 2665.8 gpm; a pump cannot draw more than the main delivers");
+  });
+
+  it("refuses a pump flow above the total flow and bad inputs, naming them", () => {
+    expect(errorOf(() => chosenPumpCheck(600, 750, 60, 10, t, rating)).message).toBe(
+      "pump_flow: got 750 gpm; must be at most the demand flow 600 gpm",
+    );
+    expect(errorOf(() => chosenPumpCheck(0, 0, 60, 10, t, rating)).message).toBe("demand_flow: got 0 gpm; must be greater than 0");
+    expect(errorOf(() => chosenPumpCheck(600, -1, 60, 10, t, rating)).message).toBe("pump_flow: got -1 gpm; must be 0 or more");
+    expect(errorOf(() => chosenPumpCheck(600, 500, -1, 10, t, rating)).message).toBe("demand_pressure: got -1 psi; must be 0 or more");
+    expect(errorOf(() => chosenPumpCheck(600, 500, 60, -1, t, rating)).message).toBe("required_margin: got -1 psi; must be 0 or more");
+    expect(errorOf(() => chosenPumpCheck(600, 500, 60, 10, t, { ratedFlow: 0, ratedPressure: 25 })).message).toBe("rated_flow: got 0 gpm; must be greater than 0");
+    expect(errorOf(() => chosenPumpCheck(600, 500, 60, 10, t, rating, 1.5)).message).toMatch(/^shutoff_ratio: got 1.5;/);
   });
 });
