@@ -59,6 +59,36 @@ describe("water supply functions [NFPA 291]", () => {
     expect(rel(f.pitotflow(16 * BAR_PER_PSI, 2.5 * MM_PER_IN, null, "SI"), 671.175 * L_PER_GAL)).toBeLessThan(1e-9);
   });
 
+  describe(`the published worked example [NFPA 291] [course slides "WatSup", tkolb.net, slides 15–16]`, () => {
+    // static 86 psi, residual 42 psi; pitot 28 psi at a 2½ in outlet, c 0.80 (square and sharp) → 789 gpm; the fire
+    // flow at 20 psi ≈ 980 gpm read from the graph, 982 gpm by the 0.54 formula; about 67 psi at 500 gpm and 46 psi
+    // at 750 gpm. Each result is held to the digits published (half a unit of the last digit).
+    const near = (x: number, published: number, halfUnit = 0.5) => expect(Math.abs(x - published)).toBeLessThanOrEqual(halfUnit);
+    it("PITOTFLOW gives the test flow, 789 gpm", () => {
+      // 29.83 × 0.80 × 2.5² × √28 = 29.83 × 0.80 × 6.25 × 5.29150 = 789.23 gpm
+      near(f.pitotflow(28, 2.5, 0.8), 789);
+    });
+    it("FLOWAT gives the fire flow at 20 psi, 982 gpm (≈ 980 on the graph)", () => {
+      // 789 × ((86 − 20) / (86 − 42))^0.54 = 789 × 1.5^0.54 = 789 × 1.24477 = 982.1 gpm; with the exact 1/1.85,
+      // 789 × 1.24504 = 982.3 gpm
+      near(f.flowat(20, 86, 42, 789), 982);
+      near(f.flowat(20, 86, 42, 789), 980, 5); // the graph's reading, to the 10 gpm a graph is read to
+      // from the pitot reading itself (789.23 gpm): 982.6 gpm, still 982 within 0.1 %
+      expect(rel(f.flowat(20, 86, 42, f.pitotflow(28, 2.5, 0.8)), 982)).toBeLessThan(0.001);
+    });
+    it("SUPPLYAT gives about 67 psi at 500 gpm and 46 psi at 750 gpm", () => {
+      // 86 − 44 × (500/789)^1.85 = 86 − 44 × 0.429959 = 67.08 psi; 86 − 44 × (750/789)^1.85 = 86 − 44 × 0.910479 = 45.94 psi
+      near(f.supplyat(500, 86, 42, 789), 67);
+      near(f.supplyat(750, 86, 42, 789), 46);
+    });
+    it("says the same in SI, in bar and L/min", () => {
+      const b = BAR_PER_PSI, l = L_PER_GAL;
+      expect(rel(f.pitotflow(28 * b, 2.5 * MM_PER_IN, 0.8, "SI"), f.pitotflow(28, 2.5, 0.8) * l)).toBeLessThan(1e-9);
+      expect(rel(f.supplyat(500 * l, 86 * b, 42 * b, 789 * l, "SI"), f.supplyat(500, 86, 42, 789) * b)).toBeLessThan(1e-9);
+      expect(rel(f.flowat(20 * b, 86 * b, 42 * b, 789 * l, "SI"), f.flowat(20, 86, 42, 789) * l)).toBeLessThan(1e-9);
+    });
+  });
+
   it("refuses flows beyond the point where the supply reaches 0", () => {
     const e = errorOf(() => f.supplyat(2500, 70, 50, 1000));
     expect(e.code).toBe("#VALUE!");
