@@ -23,15 +23,29 @@ const office: Scenario = {
   site: "Quill Street offices, three storeys (sample)",
   address: "40 Quill Street, Sampleford",
   preparedBy: "Placeholder Fire Engineering (sample)",
-  flowTest: {
-    when: "2026-04-08 09:15, hydrant H-12 at Quill Street and Fourth Avenue (sample)",
-    static: 82,
-    residual: 71,
-    flow: null,
-    pitot: 18,
-    outletDiameter: 2.5,
-    outletCoefficient: 0.9,
-  },
+  flowTests: [
+    {
+      when: "2026-04-08 09:15, hydrant H-12 at Quill Street and Fourth Avenue (sample)",
+      static: 82,
+      residual: 71,
+      flow: null,
+      pitot: 18,
+      outletDiameter: 2.5,
+      outletCoefficient: 0.9,
+      rise: 0,
+    },
+    {
+      when: "2026-04-08 10:05, hydrant H-15 on Quill Street, further along the main (sample)",
+      static: 80,
+      residual: 66,
+      flow: 1050,
+      pitot: null,
+      outletDiameter: 2.5,
+      outletCoefficient: 0.9,
+      rise: 3,
+    },
+  ],
+  derate: 0,
   hazard: "LH",
   designArea: null,
   sprinkler: { kFactor: 5.6, coverage: 196, spacing: 14, minPressure: 7 },
@@ -39,6 +53,8 @@ const office: Scenario = {
   crossMain: { nominal: 3, schedule: "40" },
   material: "steel",
   system: "wet",
+  insideHose: null,
+  hydrantsDownstream: false,
   run: [
     { label: "Cross main to the riser, third floor", nominal: 3, schedule: "40", material: "steel", fittings: "2E T", length: 48, rise: 0, fixedLoss: 0 },
     { label: "Riser down to the ground floor", nominal: 4, schedule: "40", material: "steel", fittings: "E T GV", length: 30, rise: 26, fixedLoss: 0 },
@@ -47,6 +63,8 @@ const office: Scenario = {
   ],
   requiredMargin: 10,
   pump: null,
+  suctionMinimum: 20,
+  duration: null,
 };
 
 /** An ordinary hazard group 2 light-manufacturing building at the end of a long, weak main: it needs a pump. */
@@ -55,15 +73,19 @@ const manufacturing: Scenario = {
   site: "Unit 4, Tinker Row light manufacturing (sample)",
   address: "4 Tinker Row, Exampleton Industrial Estate",
   preparedBy: "Sample Sprinkler Design Ltd. (sample)",
-  flowTest: {
-    when: "2026-02-19 14:40, hydrant at the end of Tinker Row, dead-end main (sample)",
-    static: 84,
-    residual: 69,
-    flow: 920,
-    pitot: null,
-    outletDiameter: 2.5,
-    outletCoefficient: 0.9,
-  },
+  flowTests: [
+    {
+      when: "2026-02-19 14:40, hydrant at the end of Tinker Row, dead-end main (sample)",
+      static: 84,
+      residual: 69,
+      flow: 920,
+      pitot: null,
+      outletDiameter: 2.5,
+      outletCoefficient: 0.9,
+      rise: -4,
+    },
+  ],
+  derate: 0,
   hazard: "OH2",
   designArea: null,
   sprinkler: { kFactor: 5.6, coverage: 130, spacing: 12, minPressure: 7 },
@@ -71,6 +93,8 @@ const manufacturing: Scenario = {
   crossMain: { nominal: "2-1/2", schedule: "40" },
   material: "steel",
   system: "wet",
+  insideHose: null,
+  hydrantsDownstream: false,
   run: [
     { label: "Cross main to the riser", nominal: "2-1/2", schedule: "40", material: "steel", fittings: "2E T", length: 90, rise: 0, fixedLoss: 0 },
     { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 22, rise: 18, fixedLoss: 0 },
@@ -79,6 +103,8 @@ const manufacturing: Scenario = {
   ],
   requiredMargin: 10,
   pump: null,
+  suctionMinimum: 20,
+  duration: null,
 };
 
 /** A workshop and store worked in SI units (bar, L/min, mm, DN sizes). */
@@ -87,15 +113,19 @@ const workshopSI: Scenario = {
   site: "Kiln Lane workshop and store (sample)",
   address: "9 Kiln Lane, Sampleburgh",
   preparedBy: "Example Fire Consultants (sample)",
-  flowTest: {
-    when: "2026-05-06 11:00, hydrant at the Kiln Lane junction (sample)",
-    static: 6.4,
-    residual: 5.3,
-    flow: null,
-    pitot: 1.1,
-    outletDiameter: 63.5,
-    outletCoefficient: 0.9,
-  },
+  flowTests: [
+    {
+      when: "2026-05-06 11:00, hydrant at the Kiln Lane junction (sample)",
+      static: 6.4,
+      residual: 5.3,
+      flow: null,
+      pitot: 1.1,
+      outletDiameter: 63.5,
+      outletCoefficient: 0.9,
+      rise: 0,
+    },
+  ],
+  derate: 0,
   hazard: "OH1",
   designArea: null,
   sprinkler: { kFactor: 80, coverage: 12, spacing: 3.5, minPressure: 0.5 },
@@ -103,6 +133,8 @@ const workshopSI: Scenario = {
   crossMain: { nominal: 65, schedule: "40" },
   material: "steel",
   system: "wet",
+  insideHose: null,
+  hydrantsDownstream: false,
   run: [
     { label: "Cross main to the riser", nominal: 65, schedule: "40", material: "steel", fittings: "2E T", length: 18, rise: 0, fixedLoss: 0 },
     { label: "Riser with its valves", nominal: 100, schedule: "40", material: "steel", fittings: "E GV CV", length: 7, rise: 6, fixedLoss: 0 },
@@ -111,6 +143,8 @@ const workshopSI: Scenario = {
   ],
   requiredMargin: 0.7,
   pump: null,
+  suctionMinimum: 1.4,
+  duration: null,
 };
 
 /** In the order the preview offers them; the first opens by default. */
@@ -118,19 +152,22 @@ export const SAMPLES: SampleSpec[] = [
   {
     file: "tinker-row-manufacturing-pump-needed.xlsx",
     title: "Light manufacturing, ordinary hazard 2: pump needed (US)",
-    story: "An ordinary hazard group 2 light-manufacturing unit at the end of a long dead-end main; the supply falls short and PUMPSIZE gives the pump.",
+    story:
+      "An ordinary hazard group 2 light-manufacturing unit at the end of a long dead-end main, its site 4 ft below the test hydrant's gauge; the supply falls short, PUMPSIZE suggests the pump for the flow through it and PUMPSUCTION shows the main can feed it.",
     scenario: manufacturing,
   },
   {
     file: "quill-street-office-supply-suffices.xlsx",
     title: "Office building, light hazard: no pump needed (US)",
-    story: "A light-hazard office building on a strong street main; the supply meets the demand with the required margin to spare.",
+    story:
+      "A light-hazard office building on a strong street main with two flow tests, the weaker governing; the supply meets the demand with the required margin to spare.",
     scenario: office,
   },
   {
     file: "kiln-lane-workshop-si-units.xlsx",
-    title: "Workshop and store, ordinary hazard 1: margin too thin (SI)",
-    story: "An ordinary hazard group 1 workshop worked in SI units (bar, L/min, mm, DN sizes); the supply covers the demand but with less than the required margin, so the verdict asks for a pump.",
+    title: "Workshop and store, ordinary hazard 1: marginal (SI)",
+    story:
+      "An ordinary hazard group 1 workshop worked in SI units (bar, L/min, mm, DN sizes); the supply covers the demand but with less than the required margin: the verdict reads Marginal.",
     scenario: workshopSI,
   },
 ];

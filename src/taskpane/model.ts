@@ -5,15 +5,17 @@
  * Inputs arrive in the sheet's units (Units: "US" or "SI"); they are converted to US for the engine, as the cell
  * functions do, so the pane's verdict is the very sentence VERDICT writes and its margin the number MARGIN gives.
  */
-import { type Assessment, assess, formatFlow, formatPressure, pumpBoost, verdictSentence } from "../engine/decision";
+import { type Assessment, assess, caveatSentence, chosenPumpCheck, formatFlow, formatPressure, pumpBoost, stateSentence, verdictSentence } from "../engine/decision";
 import { HeadroomError } from "../engine/errors";
 import {
   DEFAULT_OVERLOAD_RATIO,
   DEFAULT_SHUTOFF_RATIO,
+  MIN_SUCTION_PRESSURE_PSI,
   OVERLOAD_FLOW_RATIO,
   type PumpRating,
   pumpPressure,
   pumpRating,
+  pumpSuction,
 } from "../engine/pump";
 import { CURVE_DEMAND_FLOW_FACTOR, type CurvePoint, SUPPLY_CURVE_FLOW_FACTOR, sampleFlows } from "../engine/curve";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
@@ -31,8 +33,10 @@ export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; 
   Demand_Pressure: { what: "the pressure the system needs at the supply", quantity: "pressure" },
   Demand_HoseFlow: { what: "the hose stream allowance included in Demand_Flow", quantity: "flow" },
   Required_Margin: { what: "the safety margin the supply must exceed the demand by", quantity: "pressure" },
-  Pump_RatedFlow: { what: "the rated flow of the pump to plot", quantity: "flow" },
-  Pump_RatedPressure: { what: "the rated pressure of the pump to plot", quantity: "pressure" },
+  Pump_RatedFlow: { what: "the rated flow of the pump chosen", quantity: "flow" },
+  Pump_RatedPressure: { what: "the rated pressure of the pump chosen", quantity: "pressure" },
+  Pump_Flow: { what: "the flow that passes through a pump", quantity: "flow" },
+  Suction_Minimum: { what: "the least pressure the public main must keep while a pump draws from it", quantity: "pressure" },
 };
 
 export interface Problem {
@@ -61,16 +65,64 @@ export interface Estimate {
   /** the pump the sheet names, if any */
   pump: PumpRating | null;
   assessment: Assessment;
-  /** VERDICT's sentence */
+  /** VERDICT's sentence, with its flow-test caveat where there is one */
   verdict: string;
+  /** VERDICT's first sentence: the state, without the caveat */
+  headline: string;
   /** margin as a percentage of the demand pressure, or null (no margin, or demand pressure 0) */
   marginPercent: number | null;
   /** PUMPBOOST's number where a pump is needed and the supply is not exhausted, psi */
   boost: number | null;
-  /** PUMPSIZE's rating for the boost, or null */
+  /** PUMPSIZE's suggestion for the flow through a pump and the boost, where a pump is needed and none is chosen */
   pumpSize: PumpRating | null;
   /** why no pump size is given where a pump is needed */
   pumpSizeNote: string | null;
+  /** gpm: the flow that passes through a pump (Pump_Flow; the demand flow where that name is not given) */
+  pumpFlow: number;
+  pumpFlowGiven: boolean;
+  /** psi: the least pressure the main must keep while a pump draws from it (Suction_Minimum, else 20 psi) */
+  suctionMinimum: number;
+  suctionMinimumGiven: boolean;
+  /** the suction check of the pump chosen, else of the suggestion; null where no pump is needed or chosen */
+  suction: SuctionCheck | null;
+  /** the chosen pump against the demand and the required margin; null where no pump is chosen */
+  chosen: ChosenPump | null;
+  /** the state the pane shows */
+  state: PaneState;
+  /** the flow-test caveat (VERDICT's second sentence), or null */
+  caveat: string | null;
+  /** what to do next, for a marginal, caveated or unservable verdict */
+  nextSteps: string[];
+}
+
+/**
+ * What the pane shows: the supply suffices with the margin; it suffices but with less than the margin; it falls
+ * short and a pump would close the gap; or a pump alone cannot serve (the main runs dry before the demand flow, or
+ * falls below the least it must keep at the pump's 150 % point).
+ */
+export type PaneState = "enough" | "marginal" | "short" | "cannot-serve";
+
+/** PUMPSUCTION for a pump against the least pressure the main must keep. */
+export interface SuctionCheck {
+  /** gpm: the rated flow of the pump checked */
+  ratedFlow: number;
+  /** true where the pump checked is the one the user chose */
+  chosen: boolean;
+  /** psi left in the main at 150 % of the rated flow, or null where the main runs dry first */
+  pressure: number | null;
+  /** PUMPSUCTION's message where the main runs dry first */
+  problem: string | null;
+  /** true where the pressure is below the minimum, or the main runs dry */
+  below: boolean;
+}
+
+/** The chosen pump: supply at the demand flow + the pump's net pressure at the flow through it, against the demand. */
+export interface ChosenPump {
+  /** psi to spare (negative: short) over the demand pressure plus the required margin; null where it cannot be said */
+  surplus: number | null;
+  meets: boolean;
+  /** why the check cannot be made (the pump's curve ends before the flow through it, the supply runs dry) */
+  problem: string | null;
 }
 
 export type PaneModel =
@@ -90,6 +142,8 @@ const ARGUMENT_NAMES: Record<string, Exclude<InputName, "Units">> = {
   rated_flow: "Pump_RatedFlow",
   rated_pressure: "Pump_RatedPressure",
   Demand_HoseFlow: "Demand_HoseFlow",
+  Pump_Flow: "Pump_Flow",
+  Suction_Minimum: "Suction_Minimum",
 };
 
 /** The argument of the shared checks that reads a named cell (the name itself for the pane's own Demand_HoseFlow). */
@@ -178,7 +232,7 @@ export function buildModel(readings: Readings): PaneModel {
     problems.push({ name: n, message: numberProblem(n, r) ?? `${n} cannot be read.` });
   };
   for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
-  const optional: Exclude<InputName, "Units">[] = ["Demand_HoseFlow", "Required_Margin", "Pump_RatedFlow", "Pump_RatedPressure"];
+  const optional: Exclude<InputName, "Units">[] = ["Demand_HoseFlow", "Required_Margin", "Pump_RatedFlow", "Pump_RatedPressure", "Pump_Flow", "Suction_Minimum"];
   const given = new Set<InputName>();
   for (const n of optional) {
     if (isBlank(readings[n])) continue;
@@ -210,6 +264,16 @@ export function buildModel(readings: Readings): PaneModel {
       message: `Demand_HoseFlow${where(readings.Demand_HoseFlow)} is ${trim(value("Demand_HoseFlow"))} ${unitName("flow", units)}; it must be below Demand_Flow (${trim(value("Demand_Flow"))} ${unitName("flow", units)}).`,
     });
   }
+  const pumpFlowRead = given.has("Pump_Flow") ? check(() => quantityArg(value("Pump_Flow"), "Pump_Flow", "flow", units)) : null;
+  if (decision && pumpFlowRead !== undefined && pumpFlowRead !== null && pumpFlowRead > decision.demandFlow) {
+    problems.push({
+      name: "Pump_Flow",
+      message: `Pump_Flow${where(readings.Pump_Flow)} is ${trim(value("Pump_Flow"))} ${unitName("flow", units)}; it cannot exceed Demand_Flow (${trim(value("Demand_Flow"))} ${unitName("flow", units)}).`,
+    });
+  }
+  const suctionMinimumRead = given.has("Suction_Minimum")
+    ? check(() => quantityArg(value("Suction_Minimum"), "Suction_Minimum", "pressure", units, ZERO_ALLOWED))
+    : null;
   const pumpGiven = given.has("Pump_RatedFlow") || given.has("Pump_RatedPressure");
   let pump: PumpRating | null = null;
   if (pumpGiven) {
@@ -234,18 +298,29 @@ export function buildModel(readings: Readings): PaneModel {
   const verdict = verdictSentence(assessment, units);
   const marginPercent = assessment.margin !== null && demandPressure > 0 ? (assessment.margin / demandPressure) * 100 : null;
 
+  const pumpFlow = pumpFlowRead ?? demandFlow;
+  const suctionMinimum = suctionMinimumRead ?? MIN_SUCTION_PRESSURE_PSI;
+
   let boost: number | null = null;
   let pumpSize: PumpRating | null = null;
   let pumpSizeNote: string | null = null;
-  if (assessment.pumpNeeded) {
-    try {
-      boost = pumpBoost(demandFlow, demandPressure, test, requiredMargin);
-      pumpSize = pumpSizeFor(demandFlow, boost, units);
-    } catch (e) {
-      if (!(e instanceof HeadroomError)) throw e;
-      pumpSizeNote = e.messageIn(units);
+  if (assessment.pumpNeeded && assessment.supplyPressure !== null) {
+    boost = pumpBoost(demandFlow, demandPressure, test, requiredMargin);
+    if (!pump) {
+      try {
+        pumpSize = pumpSizeFor(pumpFlow, boost, units);
+      } catch (e) {
+        if (!(e instanceof HeadroomError)) throw e;
+        pumpSizeNote = e.messageIn(units);
+      }
     }
   }
+  const checked = pump ?? pumpSize;
+  const suction = checked ? suctionCheck(checked.ratedFlow, pump !== null, test, demandFlow - pumpFlow, suctionMinimum, units) : null;
+  const chosen = pump ? checkChosen(pump, demandFlow, pumpFlow, demandPressure, requiredMargin, test, units) : null;
+  const state: PaneState =
+    assessment.state === "exhausted" || (assessment.state === "short" && suction !== null && suction.below) ? "cannot-serve" : assessment.state;
+  const caveat = caveatSentence(assessment, units);
 
   return {
     kind: "ready",
@@ -261,12 +336,71 @@ export function buildModel(readings: Readings): PaneModel {
       pump,
       assessment,
       verdict,
+      headline: stateSentence(assessment, units),
       marginPercent,
       boost,
       pumpSize,
       pumpSizeNote,
+      pumpFlow,
+      pumpFlowGiven: given.has("Pump_Flow"),
+      suctionMinimum,
+      suctionMinimumGiven: given.has("Suction_Minimum"),
+      suction,
+      chosen,
+      state,
+      caveat,
+      nextSteps: nextSteps(state, caveat !== null, suction, chosen),
     },
   };
+}
+
+/** PUMPSUCTION for the pump checked, with the hose drawn beside it, against the minimum (US units). */
+function suctionCheck(ratedFlow: number, chosen: boolean, test: FlowTest, otherFlow: number, minimum: number, units: UnitSystem): SuctionCheck {
+  try {
+    const pressure = pumpSuction(ratedFlow, test, otherFlow);
+    return { ratedFlow, chosen, pressure, problem: null, below: pressure < minimum };
+  } catch (e) {
+    if (!(e instanceof HeadroomError)) throw e;
+    return { ratedFlow, chosen, pressure: null, problem: e.messageIn(units), below: true };
+  }
+}
+
+/**
+ * The chosen pump against the demand (the engine's chosenPumpCheck, US units): the sheet's "Chosen pump: pressure to
+ * spare", SUPPLYAT at the demand flow + PUMPCURVE at the flow through the pump − demand pressure − required margin.
+ */
+function checkChosen(
+  pump: PumpRating,
+  demandFlow: number,
+  pumpFlow: number,
+  demandPressure: number,
+  requiredMargin: number,
+  test: FlowTest,
+  units: UnitSystem,
+): ChosenPump {
+  try {
+    const c = chosenPumpCheck(demandFlow, pumpFlow, demandPressure, requiredMargin, test, pump);
+    return { surplus: c.surplus, meets: c.meets, problem: null };
+  } catch (e) {
+    if (!(e instanceof HeadroomError)) throw e;
+    return { surplus: null, meets: false, problem: e.messageIn(units) };
+  }
+}
+
+/** What to do next where the verdict is not a plain yes or no. */
+function nextSteps(state: PaneState, caveat: boolean, suction: SuctionCheck | null, chosen: ChosenPump | null): string[] {
+  const steps: string[] = [];
+  if (caveat) steps.push("Confirm the flow test: ask for one that drops the residual at least 25 % below static or flows the full demand.");
+  if (state === "marginal") {
+    steps.push("Upsize the pipe that loses the most pressure in the run on the estimate sheet, or budget the pump.");
+  }
+  if (state === "cannot-serve") {
+    steps.push("Budget a suction tank (the estimate sheet gives its volume) or ask the water purveyor about a stronger main.");
+  } else if (suction && suction.below && state === "marginal") {
+    steps.push("A pump here would draw the main below the least it must keep: a suction tank or a stronger main would be needed with it.");
+  }
+  if (chosen && !chosen.meets && state !== "cannot-serve") steps.push("Choose a pump with a higher rated pressure, or clear the pump to see the suggestion.");
+  return steps;
 }
 
 function trim(x: number): string {
@@ -332,8 +466,12 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
   const f = (gpm: number) => fromUS("flow", gpm, u);
   const p = (psi: number) => fromUS("pressure", psi, u);
   const qe = exhaustionFlow(e.test);
-  const pumpReach = e.pump ? OVERLOAD_FLOW_RATIO * e.pump.ratedFlow : 0;
-  const qMaxUS = Math.max(PLOT_TEST_FLOW_FACTOR * e.test.testFlow, PLOT_DEMAND_FLOW_FACTOR * e.demandFlow, e.pump ? Math.min(pumpReach, qe) : 0);
+  // the pump drawn: the one chosen, else the suggestion; along the flow at the supply, the hose drawn beside the
+  // pump (demand flow − flow through the pump) does not pass through it
+  const shown = e.pump ?? e.pumpSize;
+  const beside = e.demandFlow - e.pumpFlow;
+  const pumpReach = shown ? beside + OVERLOAD_FLOW_RATIO * shown.ratedFlow : 0;
+  const qMaxUS = Math.max(PLOT_TEST_FLOW_FACTOR * e.test.testFlow, PLOT_DEMAND_FLOW_FACTOR * e.demandFlow, shown ? Math.min(pumpReach, qe) : 0);
   const qMax = niceMax(f(qMaxUS));
   const qEndUS = Math.min(qe, toUS("flow", qMax, u));
 
@@ -348,14 +486,14 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
 
   let pump: Pt[] | null = null;
   let pumpLabel: string | null = null;
-  if (e.pump) {
-    const { ratedFlow, ratedPressure } = e.pump;
+  if (shown) {
+    const { ratedFlow, ratedPressure } = shown;
     const end = Math.min(pumpReach, qe, toUS("flow", qMax, u));
-    pump = sampleFlows(end, CURVE_SAMPLES, [Math.min(ratedFlow, end)]).map((q) => [
+    pump = sampleFlows(end, CURVE_SAMPLES, [Math.min(beside + ratedFlow, end), Math.min(e.demandFlow, end)]).map((q) => [
       f(q),
-      p(supplyP(q) + pumpPressure(q, ratedFlow, ratedPressure, DEFAULT_SHUTOFF_RATIO, DEFAULT_OVERLOAD_RATIO)),
+      p(supplyP(q) + pumpPressure(Math.max(0, q - beside), ratedFlow, ratedPressure, DEFAULT_SHUTOFF_RATIO, DEFAULT_OVERLOAD_RATIO)),
     ]);
-    pumpLabel = `Supply + pump ${formatFlow(ratedFlow, u)} at ${formatPressure(ratedPressure, u)}`;
+    pumpLabel = `Supply + ${e.pump ? "chosen" : "suggested"} pump ${formatFlow(ratedFlow, u)} at ${formatPressure(ratedPressure, u)}`;
   }
 
   const demand: DemandPoint[] = [];

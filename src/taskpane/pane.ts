@@ -3,8 +3,9 @@
  * axis toggle; the inputs it read; "New estimate sheet" and "Share copy". It talks only to a Workbook port, so the
  * Excel add-in (taskpane.ts) and the preview host mount the same pane: mountPane(root, port).
  *
- * Stable hooks: data-role="verdict", "margin", "pump", "problems", "caution", "plot" (the svg), "supply-curve",
- * "demand-point", "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
+ * Stable hooks: data-role="verdict" (its box carries data-state: pass, marginal, fail, cannot-serve), "margin",
+ * "caveat", "pump", "suction", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
+ * "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
  */
 import { formatFlow, formatPressure } from "../engine/decision";
 import type { UnitSystem } from "../engine/units";
@@ -92,19 +93,47 @@ export function marginLine(e: Estimate): string {
   return `Margin ${signed(a.margin, e.units)}${pct}; ${required}.`;
 }
 
-/** The pump line where a pump is needed: PUMPSIZE's rating for PUMPBOOST's boost. */
+/**
+ * The pump line: the chosen pump against the demand, else, where a pump is needed, the suggested rating for the flow
+ * through it and the boost needed.
+ */
 export function pumpLine(e: Estimate): string | null {
-  if (!e.assessment.pumpNeeded) return null;
+  const u = e.units;
+  if (e.pump && e.chosen) {
+    const pump = `Chosen pump ${formatFlow(e.pump.ratedFlow, u)} at ${formatPressure(e.pump.ratedPressure, u)}`;
+    if (e.chosen.surplus === null) return `${pump} cannot be checked: ${e.chosen.problem}.`;
+    return e.chosen.meets
+      ? `${pump}: meets the demand and the required margin, ${formatPressure(e.chosen.surplus, u)} to spare.`
+      : `${pump}: falls ${formatPressure(e.chosen.surplus, u)} short of the demand and the required margin.`;
+  }
+  if (!e.assessment.pumpNeeded || e.state === "cannot-serve") return null;
   if (e.pumpSize && e.boost !== null) {
     // the standard ratings are whole gpm (NFPA 20); in SI work, say which one the L/min figure is
-    const rating = e.units === "SI" ? ` (the ${formatFlow(e.pumpSize.ratedFlow, "US")} standard rating)` : "";
+    const rating = u === "SI" ? ` (the ${formatFlow(e.pumpSize.ratedFlow, "US")} standard rating)` : "";
     return (
-      `Pump: ${formatFlow(e.pumpSize.ratedFlow, e.units)}${rating} rated at ${formatPressure(e.pumpSize.ratedPressure, e.units)} ` +
-      `(PUMPSIZE), for a boost of ${formatPressure(e.boost, e.units)} (PUMPBOOST).`
+      `Suggested pump: ${formatFlow(e.pumpSize.ratedFlow, u)}${rating} rated at ${formatPressure(e.pumpSize.ratedPressure, u)}, ` +
+      `the smallest standard rating for ${formatFlow(e.pumpFlow, u)} through it and a boost of ${formatPressure(e.boost, u)}.`
     );
   }
   return e.pumpSizeNote ? `No pump size: ${e.pumpSizeNote}.` : null;
 }
+
+/** The suction line: what the main keeps at 150 % of the pump's rated flow, against the least it must keep. */
+export function suctionLine(e: Estimate): string | null {
+  const s = e.suction;
+  if (!s) return null;
+  const u = e.units;
+  const which = s.chosen ? "the chosen pump's" : "the suggested pump's";
+  const minimum = `${formatPressure(e.suctionMinimum, u)}${e.suctionMinimumGiven ? "" : " (common practice; set Suction_Minimum)"}`;
+  if (s.pressure === null) return `Main at 150 % of ${which} rated flow: ${s.problem}. A pump alone cannot serve: a suction tank or a stronger main is needed.`;
+  const at = `Main at 150 % of ${which} rated flow: ${formatPressure(s.pressure, u)}`;
+  return s.below
+    ? `${at}, below the ${minimum} it must keep. A pump alone cannot serve: a suction tank or a stronger main is needed.`
+    : `${at}, above the ${minimum} it must keep.`;
+}
+
+/** The verdict box's state for the stylesheet and for tests. */
+const BOX_STATE: Record<Estimate["state"], string> = { enough: "pass", marginal: "marginal", short: "fail", "cannot-serve": "cannot-serve" };
 
 export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOptions = {}): PaneHandle {
   const doc = root.ownerDocument;
@@ -118,9 +147,12 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   const style = h(doc, "style", {}, PANE_CSS);
   const verdict = h(doc, "p", { class: "hr-verdict", "data-role": "verdict", "aria-live": "polite" }, "Reading the workbook…");
   const margin = h(doc, "p", { class: "hr-margin", "data-role": "margin" });
+  const caveat = h(doc, "p", { class: "hr-caveat", "data-role": "caveat" });
   const pump = h(doc, "p", { class: "hr-pump", "data-role": "pump" });
+  const suction = h(doc, "p", { class: "hr-pump", "data-role": "suction" });
+  const steps = h(doc, "ul", { class: "hr-steps", "data-role": "next-steps", "aria-label": "What to do next" });
   const problems = h(doc, "ul", { class: "hr-problems", "data-role": "problems" });
-  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, verdict, margin, pump, problems);
+  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, verdict, margin, caveat, pump, suction, steps, problems);
   const caution = h(doc, "p", { class: "hr-caution", "data-role": "caution" }, CAUTION);
   const calcNote = h(doc, "p", { class: "hr-calc-note", "data-role": "calc-note" });
   calcNote.hidden = true;
@@ -151,6 +183,16 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   };
 
   // ── drawing ──
+  function show(p: HTMLElement, text: string | null): void {
+    p.textContent = text ?? "";
+    p.hidden = text === null;
+  }
+  function clearLines(): void {
+    margin.textContent = "";
+    for (const p of [caveat, pump, suction]) show(p, null);
+    steps.replaceChildren();
+    steps.hidden = true;
+  }
   function drawPlot(e: Estimate): void {
     const data = plotData(e, niceMax);
     holder.replaceChildren(renderPlot(doc, data, axis, width()));
@@ -174,9 +216,12 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       ["Demand flow", formatFlow(e.demandFlow, u)],
       ["of which hose", e.hoseFlow === null ? "not given" : formatFlow(e.hoseFlow, u)],
       ["Demand pressure", formatPressure(e.demandPressure, u)],
+      ["Flow through a pump", e.pumpFlowGiven ? formatFlow(e.pumpFlow, u) : `${formatFlow(e.pumpFlow, u)} (no Pump_Flow: the demand flow)`],
       ["Required margin", e.requiredMarginGiven ? formatPressure(e.requiredMargin, u) : "not given (0)"],
-      ["Pump plotted", e.pump ? `${formatFlow(e.pump.ratedFlow, u)} at ${formatPressure(e.pump.ratedPressure, u)}` : "none"],
+      ["Least pressure the main keeps", e.suctionMinimumGiven ? formatPressure(e.suctionMinimum, u) : `${formatPressure(e.suctionMinimum, u)} (common practice; no Suction_Minimum)`],
+      ["Pump chosen", e.pump ? `${formatFlow(e.pump.ratedFlow, u)} at ${formatPressure(e.pump.ratedPressure, u)}` : "none"],
     ];
+    if (u === "SI") rows.push(["Hazard classes", "NFPA 13's, with values converted to SI"]);
     if (e.assessment.supplyPressure !== null) rows.splice(7, 0, ["Supply at demand flow", formatPressure(e.assessment.supplyPressure, u)]);
     readingsList.replaceChildren(...rows.flatMap(([k, v]) => [h(doc, "dt", {}, k), h(doc, "dd", {}, v)]));
     readingsBox.hidden = false;
@@ -190,8 +235,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       if (!lastReady) {
         box.dataset.state = "waiting";
         verdict.textContent = "Waiting for Excel to finish calculating…";
-        margin.textContent = "";
-        pump.textContent = "";
+        clearLines();
         problems.replaceChildren();
       }
       return;
@@ -201,8 +245,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       lastReady = null;
       box.dataset.state = "problems";
       verdict.textContent = m.problems.length === 1 ? "One input needs attention" : `${m.problems.length} inputs need attention`;
-      margin.textContent = "";
-      pump.textContent = "";
+      clearLines();
       problems.replaceChildren(...m.problems.map((p) => h(doc, "li", { "data-name": p.name }, p.message)));
       plotBox.hidden = true;
       readingsBox.hidden = true;
@@ -210,12 +253,15 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     }
     const e = m.estimate;
     lastReady = e;
-    box.dataset.state = e.assessment.pumpNeeded ? "fail" : "pass";
-    verdict.textContent = e.verdict;
+    box.dataset.state = BOX_STATE[e.state];
+    // VERDICT's sentence; its flow-test caveat stands on its own line below
+    verdict.textContent = e.headline;
     margin.textContent = marginLine(e);
-    const p = pumpLine(e);
-    pump.textContent = p ?? "";
-    pump.hidden = p === null;
+    show(caveat, e.caveat);
+    show(pump, pumpLine(e));
+    show(suction, suctionLine(e));
+    steps.replaceChildren(...e.nextSteps.map((t) => h(doc, "li", {}, t)));
+    steps.hidden = e.nextSteps.length === 0;
     problems.replaceChildren();
     if (!unitsTouched) unitsSelect.value = e.units;
     drawPlot(e);

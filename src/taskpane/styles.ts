@@ -15,9 +15,15 @@ export const PANE_CSS = `
   box-shadow: 0 1px 2px rgba(27, 42, 58, 0.12); }
 .hr-verdict-box[data-state="pass"] { border-left-color: ${PALETTE.pump}; }
 .hr-verdict-box[data-state="fail"] { border-left-color: ${PALETTE.demand}; }
+.hr-verdict-box[data-state="marginal"] { border-left-color: ${PALETTE.sprinklers}; border-left-style: dashed; }
+.hr-verdict-box[data-state="cannot-serve"] { border-left-color: ${PALETTE.demand}; border-left-width: 10px; }
 .hr-verdict-box[data-state="problems"] { border-left-color: #8A5A00; }
 .hr-verdict { font-size: 20px; font-weight: 700; line-height: 1.25; margin: 0; }
-.hr-margin, .hr-pump { margin: 6px 0 0; font-size: 13px; }
+.hr-margin, .hr-pump, .hr-caveat { margin: 6px 0 0; font-size: 13px; }
+.hr-caveat { color: #6B2C00; }
+.hr-pump[hidden], .hr-caveat[hidden], .hr-steps[hidden] { display: none; }
+.hr-steps { margin: 6px 0 0; padding-left: 18px; font-size: 13px; }
+.hr-steps li { margin: 3px 0; }
 .hr-problems { margin: 6px 0 0; padding-left: 18px; }
 .hr-problems li { margin: 4px 0; }
 .hr-problems code { font-weight: 600; }

@@ -23,6 +23,8 @@ export const INPUT_NAMES = [
   "Required_Margin",
   "Pump_RatedFlow",
   "Pump_RatedPressure",
+  "Pump_Flow",
+  "Suction_Minimum",
 ] as const;
 
 export type InputName = (typeof INPUT_NAMES)[number];

@@ -24,28 +24,45 @@ export interface RunSegmentInput {
   fixedLoss: number;
 }
 
+/** One hydrant flow test, in the scenario's units. */
+export interface FlowTestInput {
+  /** when and where the test was made (text) */
+  when: string;
+  /** psi or bar */
+  static: number;
+  /** psi or bar */
+  residual: number;
+  /** flow measured directly, gpm or L/min; null to use the pitot reading */
+  flow: number | null;
+  /** pitot pressure, psi or bar; null when the flow was measured directly */
+  pitot: number | null;
+  /** hydrant outlet internal diameter, in or mm */
+  outletDiameter: number;
+  /** outlet coefficient: 0.90 smooth rounded, 0.80 square and sharp, 0.70 projecting [NFPA 291] */
+  outletCoefficient: number;
+  /**
+   * height of the point where the run meets the main (where the demand is computed) above the test gauge, ft or m;
+   * negative when it lies lower
+   */
+  rise: number;
+}
+
 /** Everything an estimate sheet is filled with. All numbers are in `units`. */
 export interface Scenario {
   units: UnitSystem;
   site: string;
   address: string;
   preparedBy: string;
-  flowTest: {
-    /** when and where the test was made (text) */
-    when: string;
-    /** psi or bar */
-    static: number;
-    /** psi or bar */
-    residual: number;
-    /** flow measured directly, gpm or L/min; null to use the pitot reading */
-    flow: number | null;
-    /** pitot pressure, psi or bar; null when the flow was measured directly */
-    pitot: number | null;
-    /** hydrant outlet internal diameter, in or mm */
-    outletDiameter: number;
-    /** outlet coefficient: 0.90 smooth rounded, 0.80 square and sharp, 0.70 projecting [NFPA 291] */
-    outletCoefficient: number;
-  };
+  /**
+   * One to three hydrant flow tests; the sheet uses the one that gives the lowest supply pressure at the demand flow,
+   * each carried to the site first (SITETEST).
+   */
+  flowTests: FlowTestInput[];
+  /**
+   * Fraction by which every gauge reading is reduced for seasonal and future loss, 0 ≤ derate < 1 (common practice:
+   * 0.1 is typical; 0 takes the tests as read)
+   */
+  derate: number;
   /** LH, OH1, OH2, EH1, EH2 */
   hazard: string;
   /** a chosen design area (ft² or m²), or null for the smallest on the hazard's curve */
@@ -66,11 +83,22 @@ export interface Scenario {
   material: string;
   /** "wet" or "dry" */
   system: string;
+  /** inside hose allowance, gpm or L/min; null for HOSEALLOWANCE(hazard, "inside") */
+  insideHose: number | null;
+  /** true where hydrants are fed downstream of the pump, so that the outside hose flows through it */
+  hydrantsDownstream: boolean;
   run: RunSegmentInput[];
   /** psi or bar: a visible input, common practice about 10 psi */
   requiredMargin: number;
-  /** a pump the user has chosen (rated flow and pressure), or null to plot the PUMPSIZE result */
+  /** a pump the user has chosen (rated flow and pressure), checked against the demand; null for PUMPSIZE's suggestion */
   pump: { ratedFlow: number; ratedPressure: number } | null;
+  /**
+   * psi or bar: the least pressure the water purveyor lets a pump leave in the public main (common practice: often
+   * 20 psi)
+   */
+  suctionMinimum: number;
+  /** minutes the supply must last, for a suction tank's volume; null for DURATION(hazard, "max") */
+  duration: number | null;
 }
 
 /**
@@ -84,15 +112,19 @@ export function demoScenario(units: UnitSystem): Scenario {
       site: "Demo distribution shed, Bay 3",
       address: "3 Example Quay, Sampleport",
       preparedBy: "Sample Fire Design Studio (demo)",
-      flowTest: {
-        when: "2026-03-14 10:30, hydrant at the Example Quay gate (demo)",
-        static: 5.0,
-        residual: 3.9,
-        flow: null,
-        pitot: 1.0,
-        outletDiameter: 63.5,
-        outletCoefficient: 0.9,
-      },
+      flowTests: [
+        {
+          when: "2026-03-14 10:30, hydrant at the Example Quay gate (demo)",
+          static: 5.0,
+          residual: 3.9,
+          flow: null,
+          pitot: 1.0,
+          outletDiameter: 63.5,
+          outletCoefficient: 0.9,
+          rise: 0,
+        },
+      ],
+      derate: 0,
       hazard: "OH2",
       designArea: null,
       sprinkler: { kFactor: 115, coverage: 11, spacing: 3.3, minPressure: 0.5 },
@@ -100,6 +132,8 @@ export function demoScenario(units: UnitSystem): Scenario {
       crossMain: { nominal: 80, schedule: "40" },
       material: "steel",
       system: "wet",
+      insideHose: null,
+      hydrantsDownstream: false,
       run: [
         { label: "Cross main to the riser", nominal: 80, schedule: "40", material: "steel", fittings: "2E T", length: 20, rise: 0, fixedLoss: 0 },
         { label: "Riser with its valves", nominal: 100, schedule: "40", material: "steel", fittings: "E GV CV", length: 6, rise: 5, fixedLoss: 0 },
@@ -108,6 +142,8 @@ export function demoScenario(units: UnitSystem): Scenario {
       ],
       requiredMargin: 0.7,
       pump: null,
+      suctionMinimum: 1.4,
+      duration: null,
     };
   }
   return {
@@ -115,15 +151,19 @@ export function demoScenario(units: UnitSystem): Scenario {
     site: "Demo warehouse, Unit 7",
     address: "7 Example Lane, Sampletown",
     preparedBy: "Sample Engineering Co. (demo)",
-    flowTest: {
-      when: "2026-03-14 10:30, hydrant at Example Lane and Second Street (demo)",
-      static: 72,
-      residual: 56,
-      flow: null,
-      pitot: 14,
-      outletDiameter: 2.5,
-      outletCoefficient: 0.9,
-    },
+    flowTests: [
+      {
+        when: "2026-03-14 10:30, hydrant at Example Lane and Second Street (demo)",
+        static: 72,
+        residual: 56,
+        flow: null,
+        pitot: 14,
+        outletDiameter: 2.5,
+        outletCoefficient: 0.9,
+        rise: 0,
+      },
+    ],
+    derate: 0,
     hazard: "OH2",
     designArea: null,
     sprinkler: { kFactor: 8, coverage: 120, spacing: 11, minPressure: 7 },
@@ -131,6 +171,8 @@ export function demoScenario(units: UnitSystem): Scenario {
     crossMain: { nominal: 3, schedule: "40" },
     material: "steel",
     system: "wet",
+    insideHose: null,
+    hydrantsDownstream: false,
     run: [
       { label: "Cross main to the riser", nominal: 3, schedule: "40", material: "steel", fittings: "2E T", length: 65, rise: 0, fixedLoss: 0 },
       { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 20, rise: 16, fixedLoss: 0 },
@@ -139,5 +181,7 @@ export function demoScenario(units: UnitSystem): Scenario {
     ],
     requiredMargin: 10,
     pump: null,
+    suctionMinimum: 20,
+    duration: null,
   };
 }

@@ -14,7 +14,7 @@
  */
 import { CURVE_DEMAND_FLOW_FACTOR, SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_POINTS } from "../engine/curve";
 import { type UnitSystem, unitName } from "../engine/units";
-import { columnLetters, parseCell } from "./a1";
+import { cellAddress, columnLetters, parseCell } from "./a1";
 import { CAUTION, type CellRole, PALETTE } from "./look";
 import type { InputName } from "./port";
 import type { Scenario } from "./scenario";
@@ -147,8 +147,25 @@ export interface UnitsRefs {
   units: string;
 }
 
-/** The flow test's cells. */
+/** One flow test's cells: its label, and the test carried to the site (SITETEST's spill). */
+export interface FlowTestRefs {
+  /** the test's header cell ("Test 1") */
+  label: string;
+  /** SITETEST's anchor: the static pressure at the site ("" while the test is not filled in) */
+  static: string;
+  /** the residual pressure at the site */
+  residual: string;
+  /** the test flow used (measured directly or from the pitot reading) */
+  testFlow: string;
+}
+
+/** The flow tests, each carried to the site. */
 export interface SupplyRefs {
+  tests: FlowTestRefs[];
+}
+
+/** The flow test the verdict uses: the one giving the lowest supply at the demand flow, carried to the site. */
+export interface UsedTestRefs {
   static: string;
   residual: string;
   testFlow: string;
@@ -161,6 +178,8 @@ export interface HazardRefs {
   density: string;
   /** hose stream allowance, inside + outside */
   hose: string;
+  /** the inside hose allowance used: the one typed, or HOSEALLOWANCE(hazard, "inside") */
+  insideHose: string;
 }
 
 /** The design area's demand where the run back to the supply starts, whichever way a section finds it. */
@@ -186,6 +205,8 @@ export interface DemandRefs {
   hoseFlow: string;
   flow: string;
   pressure: string;
+  /** the flow that passes through a pump: sprinklers, inside hose, and outside hose where hydrants are downstream */
+  pumpFlow: string;
 }
 
 /** A section that finds the design area's demand: the tree section below, or another that gives the same refs. */
@@ -213,33 +234,77 @@ export function projectSection(s: Scenario, row: number): Section<UnitsRefs> {
   return sh.done({ units: abs(unitsCell) });
 }
 
-/** The hydrant flow test: static and residual pressure, the flow measured directly or from a pitot reading. */
+/** Flow tests the sheet holds side by side, in columns B, C and D. */
+export const FLOW_TESTS = 3;
+
+/**
+ * The hydrant flow tests, one column each (up to three): static and residual pressure, the flow measured directly or
+ * from a pitot reading, the height of the site above the test gauge; then each test carried to the site (SITETEST)
+ * with one derating for them all.
+ */
 export function waterSupplySection(s: Scenario, row: number, { units: U }: UnitsRefs): Section<SupplyRefs> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
   const sh = new SectionWriter(row);
-  sh.heading("Water supply: hydrant flow test");
-  const stat = sh.line("Static pressure", "input", s.flowTest.static, u.pressure, "no flow", f.pressure);
-  const resid = sh.line("Residual pressure", "input", s.flowTest.residual, u.pressure, "while the test flow runs", f.pressure);
-  const direct = sh.line("Flow measured directly", "input", s.flowTest.flow, u.flow, "leave blank to use the pitot reading below", f.flow);
-  const pitot = sh.line("Pitot pressure at the outlet", "input", s.flowTest.pitot, u.pressure, "or measure the flow directly above", f.pressure);
-  const outlet = sh.line("Outlet internal diameter", "input", s.flowTest.outletDiameter, u.diameter, "", s.units === "SI" ? "0.0" : "0.00");
-  const coef = sh.line("Outlet coefficient", "input", s.flowTest.outletCoefficient, "", "0.90 smooth rounded, 0.80 square and sharp, 0.70 square projecting", "0.00");
-  const pitotRange = `${pitot}:${outlet}`;
-  const pitotFlowCell = sh.line(
-    "Flow from the pitot reading",
-    "computed",
-    `=IF(COUNT(${pitotRange})=2,${hr("PITOTFLOW", pitot, outlet, coef, U)},"")`,
-    u.flow,
-    "PITOTFLOW; for two outlets, add their flows and type the sum above",
-    f.flow,
+  const cols = Array.from({ length: FLOW_TESTS }, (_, i) => columnLetters(1 + i));
+  const tests = cols.map((_, i) => s.flowTests[i]);
+  sh.heading("Water supply: hydrant flow tests");
+  sh.put("A", "header", "Reading");
+  const labels = cols.map((c, i) => sh.put(c, "header", `Test ${i + 1}`));
+  sh.row++;
+  /** One reading of every test: a row of input cells; returns their addresses. */
+  const reading = (label: string, value: (t: Scenario["flowTests"][number]) => number | string | null, format?: string) => {
+    sh.put("A", "label", label);
+    const cells = cols.map((c, i) => sh.put(c, "input", tests[i] ? value(tests[i]) : null, { format }));
+    sh.row++;
+    return cells;
+  };
+  const stat = reading(`Static pressure (${u.pressure})`, (t) => t.static, f.pressure);
+  const resid = reading(`Residual pressure (${u.pressure})`, (t) => t.residual, f.pressure);
+  const direct = reading(`Flow measured directly (${u.flow})`, (t) => t.flow, f.flow);
+  const pitot = reading(`Pitot pressure at the outlet (${u.pressure})`, (t) => t.pitot, f.pressure);
+  const outlet = reading(`Outlet internal diameter (${u.diameter})`, (t) => t.outletDiameter, s.units === "SI" ? "0.0" : "0.00");
+  const coef = reading("Outlet coefficient", (t) => t.outletCoefficient, "0.00");
+  const rise = reading(`Site above the test gauge (${u.length})`, (t) => t.rise, s.units === "SI" ? "0.0" : "0");
+  reading("When and where tested", (t) => t.when);
+  sh.put("A", "label", `Flow from the pitot reading (${u.flow})`);
+  const pitotFlow = cols.map((c, i) => sh.put(c, "computed", `=IF(ISBLANK(${pitot[i]}),"",${hr("PITOTFLOW", pitot[i], outlet[i], coef[i], U)})`, { format: f.flow }));
+  sh.row++;
+  sh.put("A", "label", `Test flow used (${u.flow})`);
+  const testFlow = cols.map((c, i) => sh.put(c, "computed", `=IF(ISBLANK(${direct[i]}),${pitotFlow[i]},${direct[i]})`, { format: f.flow }));
+  sh.row++;
+  sh.put(
+    "A",
+    "note",
+    "Leave the flow measured directly blank to use the pitot reading (PITOTFLOW; for two outlets, add their flows and type the sum). " +
+      "Outlet coefficient [NFPA 291]: 0.90 smooth rounded, 0.80 square and sharp, 0.70 square projecting. " +
+      "Site above the test gauge: the height of the point where the pipe run meets the main above the hydrant's gauge, negative when lower. " +
+      "Flow tests vary with season, time of day and future development.",
   );
-  const testFlow = sh.line("Test flow used", "computed", `=IF(ISNUMBER(${direct}),${direct},${pitotFlowCell})`, u.flow, "", f.flow);
-  sh.line("When and where tested", "input", s.flowTest.when, "", "flow tests vary with season, time of day and future development");
-  sh.name("Supply_Static", stat, "Static pressure of the flow test");
-  sh.name("Supply_Residual", resid, "Residual pressure of the flow test");
-  sh.name("Supply_TestFlow", testFlow, "Flow during the flow test");
-  return sh.done({ static: stat, residual: resid, testFlow });
+  sh.row++;
+  const derate = sh.line(
+    "Derate for seasonal and future loss",
+    "input",
+    s.derate,
+    "",
+    "(common practice) 10 % is typical: every reading is reduced by it; 0 % takes the tests as read",
+    "0%",
+  );
+  sh.put("A", "header", "Carried to the site (SITETEST)");
+  sh.put("B", "header", `Static (${u.pressure})`);
+  sh.put("C", "header", `Residual (${u.pressure})`);
+  sh.row++;
+  const carried = cols.map((c, i) => {
+    sh.put("A", "label", `Test ${i + 1}`);
+    const site = sh.put("B", "computed", `=IF(AND(ISBLANK(${stat[i]}),ISBLANK(${resid[i]})),"",${hr("SITETEST", stat[i], resid[i], rise[i], derate, U)})`, {
+      format: f.pressure,
+      spill: { rows: 1, cols: 2, formats: [f.pressure, f.pressure] },
+    });
+    sh.row++;
+    const a = parseCell(site);
+    return { label: labels[i], static: site, residual: `${columnLetters(a.col + 1)}${a.row + 1}`, testFlow: testFlow[i] };
+  });
+  return sh.done({ tests: carried });
 }
 
 /** The occupancy hazard, the design area and density, the hose stream allowance. */
@@ -248,12 +313,25 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
   const f = u.fmt;
   const sh = new SectionWriter(row);
   sh.heading("Hazard and design area");
-  const hazard = sh.line("Occupancy hazard", "input", s.hazard, "", "LH, OH1, OH2, EH1 or EH2");
+  const classes =
+    s.units === "SI"
+      ? "LH, OH1, OH2, EH1 or EH2: NFPA 13's classes with their values converted to SI, not another standard's classes of the same name"
+      : "LH, OH1, OH2, EH1 or EH2: NFPA 13's occupancy classes";
+  const hazard = sh.line("Occupancy hazard", "input", s.hazard, "", classes);
   const areaChosen = sh.line("Design area chosen", "input", s.designArea, u.area, "leave blank for the smallest area on the hazard's curve", f.area);
   const area = sh.line("Design area", "computed", `=IF(ISNUMBER(${areaChosen}),${areaChosen},${hr("DESIGNAREA", hazard, U)})`, u.area, "DESIGNAREA", f.area);
   const density = sh.line("Design density", "computed", `=${hr("DESIGNDENSITY", hazard, area, U)}`, u.density, "DESIGNDENSITY", f.density);
   const hose = sh.line("Hose stream allowance, inside + outside", "computed", `=${hr("HOSEALLOWANCE", hazard, text("total"), U)}`, u.flow, "HOSEALLOWANCE", f.flow);
-  return sh.done({ hazard, area, density, hose });
+  const insideChosen = sh.line("Inside hose allowance chosen", "input", s.insideHose, u.flow, "leave blank for the hazard's largest inside allowance", f.flow);
+  const insideHose = sh.line(
+    "Inside hose allowance",
+    "computed",
+    `=IF(ISBLANK(${insideChosen}),${hr("HOSEALLOWANCE", hazard, text("inside"), U)},${insideChosen})`,
+    u.flow,
+    "HOSEALLOWANCE inside: part of the total above",
+    f.flow,
+  );
+  return sh.done({ hazard, area, density, hose, insideHose });
 }
 
 /**
@@ -357,7 +435,10 @@ export function pipeRunSection(s: Scenario, row: number, { units: U, area }: Uni
   return sh.done({ pressureAfter: `P${lastSeg}` });
 }
 
-/** The demand at the water supply: the sprinkler flow plus the hose allowance, at the pressure the run needs. */
+/**
+ * The demand at the water supply: the sprinkler flow plus the hose allowance, at the pressure the run needs; and the
+ * flow that passes through a pump, which carries the outside hose only where hydrants are downstream of it.
+ */
 export function supplyDemandSection(
   s: Scenario,
   row: number,
@@ -368,26 +449,42 @@ export function supplyDemandSection(
   const sh = new SectionWriter(row);
   sh.heading("Demand at the water supply");
   const sprinklerFlow = sh.line("Sprinkler flow", "computed", `=${area.flow}`, u.flow, `from ${area.source}`, f.flow);
-  const hoseFlow = sh.line("Hose stream allowance", "computed", `=${hazard.hose}`, u.flow, "", f.flow);
+  const inside = sh.line("Inside hose allowance", "computed", `=${hazard.insideHose}`, u.flow, "hose stations inside the building", f.flow);
+  const outside = sh.line("Outside hose allowance", "computed", `=MAX(0,${hazard.hose}-${inside})`, u.flow, "the hazard's total less the inside hose: hydrants on the public main", f.flow);
+  const hoseFlow = sh.line("Hose stream allowance, inside + outside", "computed", `=${inside}+${outside}`, u.flow, "", f.flow);
   const demandFlow = sh.line("Demand flow, sprinklers + hose", "computed", `=${sprinklerFlow}+${hoseFlow}`, u.flow, "", f.flow);
   const demandPressure = sh.line("Demand pressure at the supply", "computed", `=${run.pressureAfter}`, u.pressure, "from PIPERUN: the pressure after the last segment", f.pressure);
+  const downstream = sh.line("Hydrants downstream of the pump", "input", s.hydrantsDownstream ? "yes" : "no", "", "yes where hydrants are fed from the pump's discharge: their hose then flows through it");
+  const yes = `TRIM(${downstream})="yes"`;
+  const pumpFlow = sh.line(
+    "Flow through a pump",
+    "computed",
+    `=IF(OR(${yes},TRIM(${downstream})="no"),${sprinklerFlow}+${inside}+IF(${yes},${outside},0),"type yes or no in ${downstream}")`,
+    u.flow,
+    "[NFPA 20] sprinklers + inside hose, + outside hose only where hydrants are downstream",
+    f.flow,
+  );
   sh.name("Demand_HoseFlow", hoseFlow, "Hose stream allowance included in Demand_Flow");
   sh.name("Demand_Flow", demandFlow, "Demand flow at the supply, sprinklers plus hose");
   sh.name("Demand_Pressure", demandPressure, "Pressure the system needs at the supply");
-  return sh.done({ sprinklerFlow, hoseFlow, flow: demandFlow, pressure: demandPressure });
+  sh.name("Pump_Flow", pumpFlow, "Flow that passes through a pump: sprinklers, inside hose, and outside hose where hydrants are downstream");
+  return sh.done({ sprinklerFlow, hoseFlow, flow: demandFlow, pressure: demandPressure, pumpFlow });
 }
 
-/** The verdict: required margin, supply at the demand flow, margin, VERDICT, pump boost and size, the pump to plot. */
+/**
+ * The verdict: the flow test that governs (the lowest supply at the demand flow), the margin and VERDICT; the pump
+ * (chosen or suggested), its suction check and, where the main cannot feed a pump, a suction tank's volume.
+ */
 export function verdictSection(
   s: Scenario,
   row: number,
-  { units: U, supply, demand }: UnitsRefs & { supply: SupplyRefs; demand: DemandRefs },
-): Section<Record<string, never>> {
+  { units: U, supply, hazard, demand }: UnitsRefs & { supply: SupplyRefs; hazard: HazardRefs; demand: DemandRefs },
+): Section<{ used: UsedTestRefs }> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
   const sh = new SectionWriter(row);
-  const demandFlow = demand.flow;
-  const demandPressure = demand.pressure;
+  const Q = demand.flow;
+  const P = demand.pressure;
   sh.heading("Verdict");
   const margin = sh.line(
     "Required margin",
@@ -398,32 +495,139 @@ export function verdictSection(
     f.pressure,
   );
   sh.name("Required_Margin", margin, "Safety margin the supply must exceed the demand by");
-  const test = [supply.static, supply.residual, supply.testFlow];
-  sh.line("Supply pressure at the demand flow", "computed", `=${hr("SUPPLYAT", demandFlow, ...test, U)}`, u.pressure, "SUPPLYAT", f.pressure);
-  const marginCell = sh.line("Margin", "computed", `=${hr("MARGIN", demandFlow, demandPressure, ...test, U)}`, u.pressure, "MARGIN: supply minus demand", f.pressure);
-  sh.line("Margin, share of the demand pressure", "computed", `=IF(${demandPressure}>0,${marginCell}/${demandPressure},"")`, "", "", "0%");
-  sh.line("Verdict", "computed", `=${hr("VERDICT", demandFlow, demandPressure, ...test, margin, U)}`);
-  const boost = sh.line("Pump boost needed", "computed", `=${hr("PUMPBOOST", demandFlow, demandPressure, ...test, margin, U)}`, u.pressure, "PUMPBOOST: demand + required margin − supply", f.pressure);
+
+  // Each test carried to the site, at the demand flow; 0 where that supply reaches 0 before it.
+  const atDemand = supply.tests.map((t, i) => {
+    const test = [t.static, t.residual, t.testFlow];
+    return sh.line(
+      `Supply at the demand flow, Test ${i + 1}`,
+      "computed",
+      `=IF(${t.static}="","",IF(${Q}>=${hr("FLOWAT", "0", ...test, U)},0,${hr("SUPPLYAT", Q, ...test, U)}))`,
+      u.pressure,
+      i === 0 ? "SUPPLYAT, each test carried to the site; 0 where it runs dry first" : "",
+      f.pressure,
+    );
+  });
+  const span = `${atDemand[0]}:${atDemand[atDemand.length - 1]}`;
+  const which = `MATCH(MIN(${span}),${span},0)`;
+  const firstLabel = parseCell(supply.tests[0].label);
+  const lastLabel = parseCell(supply.tests[supply.tests.length - 1].label);
+  const labelRow = `${abs(cellAddress(firstLabel))}:${abs(cellAddress(lastLabel))}`;
+  sh.line("Flow test used", "computed", `=INDEX(${labelRow},1,${which})`, "", "the lowest supply at the demand flow governs");
+  const column = (pick: (t: FlowTestRefs) => string) => `${pick(supply.tests[0])}:${pick(supply.tests[supply.tests.length - 1])}`;
+  const usedStatic = sh.line("Static pressure at the site, test used", "computed", `=INDEX(${column((t) => t.static)},${which},1)`, u.pressure, "", f.pressure);
+  const usedResidual = sh.line("Residual pressure at the site, test used", "computed", `=INDEX(${column((t) => t.residual)},${which},1)`, u.pressure, "", f.pressure);
+  const usedFlow = sh.line("Test flow, test used", "computed", `=INDEX(${column((t) => t.testFlow)},1,${which})`, u.flow, "", f.flow);
+  sh.name("Supply_Static", usedStatic, "Static pressure of the flow test used, carried to the site");
+  sh.name("Supply_Residual", usedResidual, "Residual pressure of the flow test used, carried to the site");
+  sh.name("Supply_TestFlow", usedFlow, "Flow during the flow test used");
+  const test = [usedStatic, usedResidual, usedFlow];
+
+  const dryAt = sh.line("Flow where the supply reaches 0", "computed", `=${hr("FLOWAT", "0", ...test, U)}`, u.flow, "FLOWAT at 0", f.flow);
+  sh.line("Supply pressure at the demand flow", "computed", `=IF(${Q}>=${dryAt},0,${hr("SUPPLYAT", Q, ...test, U)})`, u.pressure, "SUPPLYAT", f.pressure);
+  const marginCell = sh.line(
+    "Margin",
+    "computed",
+    `=IF(${Q}>=${dryAt},"none: the supply runs dry first",${hr("MARGIN", Q, P, ...test, U)})`,
+    u.pressure,
+    "MARGIN: supply minus demand",
+    f.pressure,
+  );
+  sh.line("Margin, share of the demand pressure", "computed", `=IF(AND(ISNUMBER(${marginCell}),${P}>0),${marginCell}/${P},"")`, "", "", "0%");
+  sh.line("Verdict", "computed", `=${hr("VERDICT", Q, P, ...test, margin, U)}`);
+  const boost = sh.line(
+    "Pump boost needed",
+    "computed",
+    `=IF(${Q}>=${dryAt},"none: the supply runs dry first",${hr("PUMPBOOST", Q, P, ...test, margin, U)})`,
+    u.pressure,
+    "PUMPBOOST: demand + required margin − supply",
+    f.pressure,
+  );
+
   sh.put("B", "header", `Rated flow (${u.flow})`);
   sh.put("C", "header", `Rated pressure (${u.pressure})`);
   sh.row++;
-  sh.put("A", "label", "Pump size, smallest standard rating");
-  const size = sh.put("B", "computed", `=IF(${boost}>0,${hr("PUMPSIZE", demandFlow, boost, U)},"none needed")`, { format: f.flow, spill: { rows: 1, cols: 2, formats: [f.flow, f.pressure] } });
-  sh.put("D", "note", "PUMPSIZE");
-  sh.row++;
-  const sizeRow = parseCell(size).row + 1;
   sh.put("A", "label", "Pump you choose (optional)");
   const chosenFlow = sh.put("B", "input", s.pump ? s.pump.ratedFlow : null, { format: f.flow });
   const chosenPressure = sh.put("C", "input", s.pump ? s.pump.ratedPressure : null, { format: f.pressure });
-  sh.put("D", "note", "leave blank to plot the size above");
+  sh.put("D", "note", "leave blank for the suggestion below");
   sh.row++;
-  sh.put("A", "label", "Pump on the plot");
-  const pumpFlow = sh.put("B", "computed", `=IF(ISNUMBER(${chosenFlow}),${chosenFlow},IF(ISNUMBER(B${sizeRow}),B${sizeRow},""))`, { format: f.flow });
-  const pumpPressure = sh.put("C", "computed", `=IF(ISNUMBER(${chosenPressure}),${chosenPressure},IF(ISNUMBER(C${sizeRow}),C${sizeRow},""))`, { format: f.pressure });
+  sh.name("Pump_RatedFlow", chosenFlow, "Rated flow of the pump chosen");
+  sh.name("Pump_RatedPressure", chosenPressure, "Rated pressure of the pump chosen");
+  const chosen = `ISNUMBER(${chosenFlow})`;
+  sh.put("A", "label", "Suggested pump, smallest standard rating");
+  const size = sh.put(
+    "B",
+    "computed",
+    `=IF(${chosen},"a pump is chosen",IF(ISNUMBER(${boost}),IF(${boost}>0,${hr("PUMPSIZE", demand.pumpFlow, boost, U)},"none needed"),"none: a pump alone cannot serve"))`,
+    { format: f.flow, spill: { rows: 1, cols: 2, formats: [f.flow, f.pressure] } },
+  );
+  sh.put("D", "note", "PUMPSIZE for the flow through a pump");
   sh.row++;
-  sh.name("Pump_RatedFlow", pumpFlow, "Rated flow of the pump to plot");
-  sh.name("Pump_RatedPressure", pumpPressure, "Rated pressure of the pump to plot");
-  return sh.done({});
+  const sizeAt = parseCell(size);
+  const sizePressure = cellAddress({ row: sizeAt.row, col: sizeAt.col + 1 });
+  sh.put("A", "label", "Pump checked");
+  const ratedFlow = sh.put("B", "computed", `=IF(${chosen},${chosenFlow},IF(ISNUMBER(${size}),${size},""))`, { format: f.flow });
+  sh.put("C", "computed", `=IF(${chosen},${chosenPressure},IF(ISNUMBER(${sizePressure}),${sizePressure},""))`, { format: f.pressure });
+  sh.put("D", "note", "the pump chosen, else the suggestion");
+  sh.row++;
+  const pumped = `ISNUMBER(${ratedFlow})`;
+
+  const minimum = sh.line(
+    "Least pressure the main must keep",
+    "input",
+    s.suctionMinimum,
+    u.pressure,
+    "(common practice) many water purveyors want at least 20 psi left in the main while a pump draws from it",
+    f.pressure,
+  );
+  sh.name("Suction_Minimum", minimum, "Least pressure the public main must keep while a pump draws from it");
+  const suction = sh.line(
+    "Pressure left in the main at 150 % of rated flow",
+    "computed",
+    `=IF(${pumped},${hr("PUMPSUCTION", ratedFlow, ...test, `${Q}-${demand.pumpFlow}`, U)},"no pump")`,
+    u.pressure,
+    "PUMPSUCTION, with the hose drawn from the main beside the pump",
+    f.pressure,
+  );
+  const suctionShort = `AND(ISNUMBER(${suction}),${suction}<${minimum})`;
+  sh.line(
+    "Suction check",
+    "computed",
+    `=IF(ISNUMBER(${suction}),IF(${suction}>=${minimum},"Enough left in the main for the pump","Below the least the main must keep: a pump alone cannot serve; a suction tank or a stronger main is needed"),"")`,
+  );
+  const spare = sh.line(
+    "Chosen pump: pressure to spare at the demand",
+    "computed",
+    `=IF(${chosen},IF(${Q}>=${dryAt},"none: the supply runs dry first",${hr("SUPPLYAT", Q, ...test, U)}+${hr("PUMPCURVE", demand.pumpFlow, chosenFlow, chosenPressure, "", "", U)}-${P}-${margin}),"")`,
+    u.pressure,
+    "SUPPLYAT + PUMPCURVE − demand − required margin",
+    f.pressure,
+  );
+  sh.line(
+    "Chosen pump check",
+    "computed",
+    `=IF(ISNUMBER(${spare}),IF(${spare}>=0,"The chosen pump meets the demand and the required margin","The chosen pump falls short of the demand and the required margin"),"")`,
+  );
+  const durationChosen = sh.line("Supply duration chosen", "input", s.duration, "min", "leave blank for the upper end of the hazard's range", "0");
+  const duration = sh.line(
+    "Supply duration",
+    "computed",
+    `=IF(ISBLANK(${durationChosen}),${hr("DURATION", hazard.hazard, text("max"))},${durationChosen})`,
+    "min",
+    "DURATION [NFPA 13]",
+    "0",
+  );
+  const volume = s.units === "SI" ? `${Q}*${duration}/1000` : `${Q}*${duration}`;
+  sh.line(
+    "Suction tank, estimated volume",
+    "computed",
+    `=IF(OR(${Q}>=${dryAt},${suctionShort}),${volume},"not needed")`,
+    s.units === "SI" ? "m³" : "gal",
+    "where the main cannot feed a pump: demand flow (sprinklers + hose) × duration",
+    s.units === "SI" ? "0.0" : "#,##0",
+  );
+  return sh.done({ used: { static: usedStatic, residual: usedResidual, testFlow: usedFlow } });
 }
 
 /** The chart a section gives: titles and series (where it stands on the sheet is the sheet's business). */
@@ -435,7 +639,7 @@ export interface ChartRefs {
 export function supplyCurveSection(
   s: Scenario,
   row: number,
-  { units: U, supply, demand }: UnitsRefs & { supply: SupplyRefs; demand: DemandRefs },
+  { units: U, supply, demand }: UnitsRefs & { supply: UsedTestRefs; demand: DemandRefs },
 ): Section<ChartRefs> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;

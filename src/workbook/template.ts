@@ -4,10 +4,12 @@
  * it into its formula engine, and the sample workbooks are built from it. What it is made of: ./sheet.ts.
  *
  * Sections, top to bottom:
- *   caution, project and units · water supply (flow test, or a pitot reading through PITOTFLOW) · hazard and design
- *   area (DESIGNAREA, DESIGNDENSITY, HOSEALLOWANCE) · sprinklers and the design area's pipes (HEADFLOW, PIPEID,
- *   CFACTOR, AREADEMAND) · the pipe run back to the supply (PIPEID, CFACTOR, FITTINGS helper columns into PIPERUN) ·
- *   demand at the supply · verdict (MARGIN, VERDICT, PUMPBOOST, PUMPSIZE) · supply curve for the chart (SUPPLYCURVE).
+ *   caution, project and units · water supply (up to three flow tests, a pitot reading through PITOTFLOW, each test
+ *   carried to the site by SITETEST) · hazard and design area (DESIGNAREA, DESIGNDENSITY, HOSEALLOWANCE) · sprinklers
+ *   and the design area's pipes (HEADFLOW, PIPEID, CFACTOR, AREADEMAND) · the pipe run back to the supply (PIPEID,
+ *   CFACTOR, FITTINGS helper columns into PIPERUN) · demand at the supply and the flow through a pump · verdict (the
+ *   governing flow test, MARGIN, VERDICT, PUMPBOOST, PUMPSIZE, PUMPSUCTION, the chosen pump through PUMPCURVE, a
+ *   suction tank's volume) · supply curve for the chart (SUPPLYCURVE).
  */
 import type { Scenario } from "./scenario";
 import {
@@ -58,8 +60,8 @@ export function estimateTemplate(s: Scenario, { areaDemand = treeDemandSection }
   const area = lay(areaDemand(s, row, { units, hazard }));
   const run = lay(pipeRunSection(s, row, { units, area }));
   const demand = lay(supplyDemandSection(s, row, { area, hazard, run }));
-  lay(verdictSection(s, row, { units, supply, demand }));
-  const { chart } = lay(supplyCurveSection(s, row, { units, supply, demand }));
+  const { used } = lay(verdictSection(s, row, { units, supply, hazard, demand }));
+  const { chart } = lay(supplyCurveSection(s, row, { units, supply: used, demand }));
 
   const sheet: Omit<SheetTemplate, "print"> = {
     sheetName: "Estimate",

@@ -221,6 +221,109 @@ describe("the preview of the sample that needs a pump", () => {
   });
 });
 
+describe("the pane's states at 320 px", () => {
+  /** Type into the cell a workbook name points at, as the user would type into that cell. */
+  async function setNamed(name: string, typed: string): Promise<void> {
+    await page.evaluate(
+      ({ name, typed }) => {
+        type Wb = { nameTarget(n: string): { kind: string; sheet: string; address: string } | null; setTyped(s: string, a: string, t: string): void };
+        const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
+        const t = wb.nameTarget(name);
+        if (!t || t.kind !== "cell") throw new Error(`${name} is not one cell`);
+        wb.setTyped(t.sheet, t.address, typed);
+      },
+      { name, typed },
+    );
+    await settle();
+  }
+  /** The B cell beside a label, typed into. */
+  async function setLabelled(label: string, typed: string, col = "B"): Promise<void> {
+    const row = (await labelAddress(label)).slice(1);
+    await page.evaluate(
+      ({ address, typed }) => {
+        type Wb = { activeSheet: string; setTyped(s: string, a: string, t: string): void };
+        const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
+        wb.setTyped(wb.activeSheet, address, typed);
+      },
+      { address: `${col}${row}`, typed },
+    );
+    await settle();
+  }
+  const boxState = () => page.getAttribute('[data-role="verdict"] >> xpath=..', "data-state");
+  async function shoot(name: string): Promise<void> {
+    await page.evaluate(async () => {
+      document.documentElement.style.setProperty("--pane-width", "320px");
+      const w = window as unknown as { headroomPreview: { pane: { refresh(): Promise<void> } } };
+      await w.headroomPreview.pane.refresh();
+    });
+    await page.setViewportSize({ width: 1280, height: 1400 });
+    await page.locator('[data-role="pane-host"] .hr-pane').screenshot({ path: `${RESULTS}/pane-320-${name}.png` });
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await page.evaluate(() => document.documentElement.style.removeProperty("--pane-width"));
+  }
+
+  test("no pump needed", async () => {
+    await open(OFFICE_SAMPLE);
+    expect(await verdict()).toMatch(/^No pump needed: .* \(10\.0 psi margin required\)\.$/);
+    expect(await boxState()).toBe("pass");
+    await shoot("no-pump");
+  });
+
+  test("marginal: drawn as marginal, with what to do next", async () => {
+    await open(OFFICE_SAMPLE);
+    const margin = await page.evaluate(() => {
+      type Pane = { model(): { kind: string; estimate: { assessment: { margin: number } } } };
+      const m = (window as unknown as { headroomPreview: { pane: Pane } }).headroomPreview.pane.model();
+      return m.kind === "ready" ? m.estimate.assessment.margin : NaN;
+    });
+    expect(margin).toBeGreaterThan(0);
+    // a required margin above what the supply leaves: some to spare, less than required
+    await setNamed("Required_Margin", String(Math.ceil(margin) + 2));
+    expect(await verdict()).toMatch(/^Marginal: .* to spare at .*, less than the .* margin required\.$/);
+    expect(await boxState()).toBe("marginal");
+    await expect(page.locator('[data-role="next-steps"]').textContent()).resolves.toMatch(/or budget the pump/);
+    await shoot("marginal");
+  });
+
+  test("pump needed, the suggested pump and its suction", async () => {
+    await open(PUMP_SAMPLE);
+    expect(await verdict()).toMatch(/^Pump needed: the supply is .* short at/);
+    expect(await boxState()).toBe("fail");
+    await expect(page.locator('[data-role="pump"]').textContent()).resolves.toMatch(/^Suggested pump: /);
+    await expect(page.locator('[data-role="suction"]').textContent()).resolves.toMatch(/above the 20\.0 psi it must keep\.$/);
+    await shoot("pump");
+  });
+
+  test("a pump alone cannot serve: the main falls below the least it must keep", async () => {
+    await open(PUMP_SAMPLE);
+    await setNamed("Suction_Minimum", "75");
+    expect(await boxState()).toBe("cannot-serve");
+    await expect(page.locator('[data-role="suction"]').textContent()).resolves.toMatch(/a suction tank or a stronger main is needed\.$/);
+    await expect(page.locator('[data-role="next-steps"]').textContent()).resolves.toMatch(/suction tank/);
+    await shoot("cannot-serve");
+  });
+
+  test("a chosen pump that meets the demand, and one that misses", async () => {
+    await open(PUMP_SAMPLE);
+    await setNamed("Pump_RatedFlow", "750");
+    await setNamed("Pump_RatedPressure", "60");
+    await expect(page.locator('[data-role="pump"]').textContent()).resolves.toMatch(/^Chosen pump 750 gpm at 60\.0 psi: meets the demand and the required margin/);
+    await shoot("chosen-meets");
+    await setNamed("Pump_RatedPressure", "5");
+    await expect(page.locator('[data-role="pump"]').textContent()).resolves.toMatch(/^Chosen pump 750 gpm at 5\.0 psi: falls .* short/);
+    await shoot("chosen-misses");
+  });
+
+  test("the flow-test caveat, on its own line", async () => {
+    await open(PUMP_SAMPLE);
+    // a test that flowed little: the demand flow lies beyond it, and the residual dropped under 25 % of static
+    await setLabelled("Flow measured directly (gpm)", "300");
+    await expect(page.locator('[data-role="caveat"]').textContent()).resolves.toMatch(/^The flow test dropped only .* so the supply beyond its flow is uncertain\.$/);
+    await expect(page.locator('[data-role="next-steps"]').textContent()).resolves.toMatch(/Confirm the flow test/);
+    await shoot("caveat");
+  });
+});
+
 describe(".xlsx in and out", () => {
   test("Save .xlsx writes formulas (the add-in's spelling) with their values, and the edit", async () => {
     await open(PUMP_SAMPLE);

@@ -12,6 +12,7 @@ import type { CachedValue, WorkbookData } from "../../src/preview/model";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { readXlsx } from "../../src/preview/xlsx";
 import { REQUIRED_NAMES } from "../../src/workbook/port";
+import { buildModel } from "../../src/taskpane/model";
 import { PreviewPort } from "../../src/preview/port";
 import { CAUTION } from "../../src/workbook/look";
 import { estimateTemplate } from "../../src/workbook/template";
@@ -94,13 +95,19 @@ describe("each sample tells its story", () => {
     return { verdict: String(cell!.value), engine };
   }
 
-  test("the light-manufacturing unit needs a pump, and PUMPSIZE rates it", async () => {
+  test("the light-manufacturing unit needs a pump, PUMPSIZE suggests one, and the main can feed it", async () => {
     const { verdict, engine } = await verdictOf(SAMPLES[0].file);
     expect(verdict).toMatch(/^Pump needed: /);
-    const r = await new PreviewPort(engine).readInputs();
-    expect(r.Pump_RatedFlow.kind).toBe("number");
-    expect(r.Pump_RatedPressure.kind).toBe("number");
-    expect(engine.cells("Estimate").some((c) => typeof c.content === "string" && c.content.includes("HEADROOM.PUMPSIZE("))).toBe(true);
+    const m = buildModel(await new PreviewPort(engine).readInputs());
+    expect(m.kind).toBe("ready");
+    if (m.kind !== "ready") return;
+    // no pump chosen: the suggestion, as the sheet's PUMPSIZE cell shows it, and PUMPSUCTION above the minimum
+    expect(m.estimate.pump).toBeNull();
+    const size = engine.cells("Estimate").find((c) => typeof c.content === "string" && c.content.includes("HEADROOM.PUMPSIZE("))!;
+    expect(m.estimate.pumpSize?.ratedFlow).toBe(engine.value("Estimate", size.address));
+    expect(m.estimate.state).toBe("short");
+    expect(m.estimate.suction).toMatchObject({ chosen: false, below: false });
+    expect(engine.cells("Estimate").some((c) => c.value === "Enough left in the main for the pump")).toBe(true);
   });
 
   test("in the light-manufacturing unit a 4 in cross main to the riser removes the need for a pump", async () => {
@@ -117,8 +124,9 @@ describe("each sample tells its story", () => {
     expect((await verdictOf(SAMPLES[1].file)).verdict).toMatch(/^No pump needed: /);
   });
 
-  test("the SI workshop speaks bar and L/min", async () => {
+  test("the SI workshop speaks bar and L/min, and its supply is marginal", async () => {
     const { verdict } = await verdictOf(SAMPLES[2].file);
+    expect(verdict).toMatch(/^Marginal: /);
     expect(verdict).toMatch(/bar/);
     expect(verdict).toMatch(/L\/min/);
   });

@@ -94,7 +94,8 @@ describe("round trip", () => {
       expect(v.ref).toBe(runAnchor![1].spill);
     }
     // an input keeps its shade: the template's input fill
-    const fill = ws.getCell("B12").fill as { fgColor?: { argb?: string } };
+    const fill = ws.getCell("B9").fill as { fgColor?: { argb?: string } }; // the Units cell
+    expect(x.definedNames.model.find((n: { name: string }) => n.name === "Units")?.ranges).toEqual(["Estimate!$B$9"]);
     expect(fill.fgColor?.argb).toBe("FFFFF2B3");
   });
 

@@ -84,10 +84,11 @@ describe("pane model: the verdict is VERDICT's, the margin MARGIN's", () => {
     expect(r.ratedPressure * 0.0689475729316836).toBeCloseTo(2.0, 9);
   });
 
-  it("explains why no pump size is given where the supply runs out", () => {
+  it("suggests no pump where the supply runs out before the demand flow: a pump alone cannot serve", () => {
     const e = ready({ ...BASE, Demand_Flow: 3000, Demand_Pressure: 40 });
     expect(e.pumpSize).toBeNull();
-    expect(e.pumpSizeNote).toMatch(/cannot draw more than the main delivers/);
+    expect(e.boost).toBeNull();
+    expect(e.state).toBe("cannot-serve");
   });
 });
 
@@ -235,7 +236,7 @@ describe("pane model: the picture's points", () => {
     // at rated flow: supply 72 − 14 × (750/1100)^1.85 = 72 − 14 × 0.49204 = 65.111 psi, plus 25
     const rated = d.pump!.find(([q]) => q === 750)!;
     expect(rated[1]).toBeCloseTo(72 - 14 * Math.pow(750 / 1100, 1.85) + 25, 6);
-    expect(d.pumpLabel).toBe("Supply + pump 750 gpm at 25.0 psi");
+    expect(d.pumpLabel).toBe("Supply + chosen pump 750 gpm at 25.0 psi");
   });
 
   it("converts every point to SI for an SI sheet", () => {

@@ -135,7 +135,7 @@ describe("the plot", () => {
     expect(full.$("margin-band")).not.toBeNull();
     expect(full.$("pump-curve")).not.toBeNull();
     const legend = [...full.root.querySelectorAll('[data-role="legend"] li')].map((l) => l.textContent);
-    expect(legend).toEqual(["Water supply (flow test)", "Required margin 10.0 psi", "Demand", "Supply + pump 750 gpm at 25.0 psi"]);
+    expect(legend).toEqual(["Water supply (flow test)", "Required margin 10.0 psi", "Demand", "Supply + chosen pump 750 gpm at 25.0 psi"]);
   });
 
   it("stays readable at 320 px: full width, no text under 10.5 px", async () => {
@@ -173,7 +173,7 @@ describe("the verdict and the caution", () => {
     expect($("verdict")!.textContent).toBe("Pump needed: the supply is 10.0 psi short at 562 gpm.");
     expect(translate($("demand-point")!)[1]).toBeLessThan(y0);
     // boost 78 + 10 − 67.958 = 20.0 psi → 25 psi; 562 gpm → 750 gpm [NFPA 20] (from memory)
-    expect($("pump")!.textContent).toBe("Pump: 750 gpm rated at 25.0 psi (PUMPSIZE), for a boost of 20.0 psi (PUMPBOOST).");
+    expect($("pump")!.textContent).toBe("Suggested pump: 750 gpm rated at 25.0 psi, the smallest standard rating for 562 gpm through it and a boost of 20.0 psi.");
     // margin 67.958 − 78 = −10.04 psi; −10.04 / 78 = −12.9 % → −13 %
     expect($("margin")!.textContent).toBe("Margin −10.0 psi, −13 % of the 78.0 psi demand pressure; required 10.0 psi.");
   });

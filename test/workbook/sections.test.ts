@@ -31,11 +31,18 @@ beforeAll(async () => {
 
 /** Addresses of other sections, far below any section's own rows. */
 const units = "$Z$999";
-const supply = { static: "B901", residual: "B902", testFlow: "B903" };
-const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907" };
+const supply = {
+  tests: [
+    { label: "B950", static: "B951", residual: "C951", testFlow: "B953" },
+    { label: "C950", static: "B952", residual: "C952", testFlow: "C953" },
+    { label: "D950", static: "B953", residual: "C953", testFlow: "D953" },
+  ],
+};
+const used = { static: "B901", residual: "B902", testFlow: "B903" };
+const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907", insideHose: "B915" };
 const area = { flow: "B908", pressure: "C908", system: "B909", source: "AREADEMAND" };
 const run = { pressureAfter: "P910" };
-const demand = { sprinklerFlow: "B911", hoseFlow: "B912", flow: "B913", pressure: "B914" };
+const demand = { sprinklerFlow: "B911", hoseFlow: "B912", flow: "B913", pressure: "B914", pumpFlow: "B916" };
 
 const SHIFT = 100;
 
@@ -56,8 +63,8 @@ describe.each(["US", "SI"] as const)("the sections, %s", (u) => {
     ["tree demand", (row) => treeDemandSection(s, row, { units, hazard })],
     ["pipe run", (row) => pipeRunSection(s, row, { units, area })],
     ["demand at the supply", (row) => supplyDemandSection(s, row, { area, hazard, run })],
-    ["verdict", (row) => verdictSection(s, row, { units, supply, demand })],
-    ["supply curve", (row) => supplyCurveSection(s, row, { units, supply, demand })],
+    ["verdict", (row) => verdictSection(s, row, { units, supply, hazard, demand })],
+    ["supply curve", (row) => supplyCurveSection(s, row, { units, supply: used, demand })],
   ];
 
   it.each(builders)("%s: its cells lie in the rows it reports, and move with its first row", (_, build) => {
@@ -104,7 +111,7 @@ describe("another design-area demand section in place of the tree", () => {
   function calculated(t: ReturnType<typeof estimateTemplate>) {
     return new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
   }
-  const formulaCell = (t: ReturnType<typeof estimateTemplate>, prefix: string) => t.cells.find((c) => c.formula?.startsWith(prefix))!.address;
+  const formulaCell = (t: ReturnType<typeof estimateTemplate>, call: string) => t.cells.find((c) => c.formula?.includes(call.slice(1)))!.address;
 
   it("gives the same verdict as the tree when it gives the same demand, and the other sections follow it", () => {
     const s = demoScenario("US");

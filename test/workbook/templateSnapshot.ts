@@ -28,10 +28,23 @@ export function snapshotScenarios(): Record<string, Scenario> {
   out["US variant: direct flow, chosen area and pump, one segment"] = {
     ...us,
     site: 'Bay "North"',
-    flowTest: { ...us.flowTest, flow: 1100, pitot: null },
+    flowTests: [{ ...us.flowTests[0], flow: 1100, pitot: null }],
     designArea: 2000,
     pump: { ratedFlow: 750, ratedPressure: 50 },
     run: [us.run[0]],
+  };
+  // three flow tests carried to the site with a derating, hydrants downstream of the pump, chosen hose and duration
+  out["US variant: three flow tests, derated, hydrants downstream"] = {
+    ...us,
+    flowTests: [
+      { ...us.flowTests[0], rise: 12 },
+      { ...us.flowTests[0], when: "second hydrant (demo)", static: 70, residual: 60, flow: 900, pitot: null, rise: -4 },
+      { ...us.flowTests[0], when: "third hydrant (demo)", static: 75, residual: 50, rise: 0 },
+    ],
+    derate: 0.1,
+    hydrantsDownstream: true,
+    insideHose: 50,
+    duration: 75,
   };
   // a longer run, the rows after it move down
   out["SI variant: six segments"] = { ...si, run: [...si.run, ...si.run.slice(0, 2)] };
