@@ -1,12 +1,12 @@
 /**
- * The density/area method's design criteria by occupancy hazard: the density/area curves, hose stream allowances
- * and water supply durations.
+ * The density/area method's design criteria by occupancy hazard: the density/area curves, the design-area adjustment
+ * by system type, hose stream allowances and water supply durations.
  *
  * Pure data and arithmetic, US units (density gpm/ft², area ft², flow gpm, time min). Hazard codes are the
  * vocabulary's (LH, OH1, OH2, EH1, EH2); plain-word aliases are matched in the cell layer
  * (src/functions/tableCodes.ts). HAZARDS is the metadata the task pane and the preview read.
  */
-import { fail, q } from "./errors";
+import { fail, n, q } from "./errors";
 
 /** Occupancy hazard codes: light, ordinary group 1 and 2, extra group 1 and 2. */
 export type Hazard = "LH" | "OH1" | "OH2" | "EH1" | "EH2";
@@ -197,6 +197,54 @@ export function designDensity(hazard: Hazard, area?: number): number {
  */
 export function designArea(hazard: Hazard): number {
   return hazardInfo(hazard).upper.area;
+}
+
+/**
+ * System types of the design-area adjustment: "preaction" is single interlock, "double interlock" the double-interlock
+ * preaction system. A deluge system is adjusted as a wet one (the cell layer reads "deluge" as "wet").
+ */
+export type AreaSystem = "wet" | "preaction" | "dry" | "double interlock";
+
+/** Every system type of the design-area adjustment, those flowed over the area as read first. */
+export const AREA_SYSTEM_CODES: readonly AreaSystem[] = ["wet", "preaction", "dry", "double interlock"];
+
+/**
+ * Design-area multiplier of dry-pipe and double-interlock preaction systems, dimensionless.
+ *
+ * 30 % more area at the same density: the water reaches the fire later, so more sprinklers open.
+ * @see [NFPA 13] design-area adjustment by system type (from memory)
+ */
+export const DRY_AREA_FACTOR = 1.3;
+
+/** The design-area multiplier of each system type, dimensionless [NFPA 13] (from memory). */
+const AREA_FACTOR: Readonly<Record<AreaSystem, number>> = {
+  wet: 1,
+  preaction: 1,
+  dry: DRY_AREA_FACTOR,
+  "double interlock": DRY_AREA_FACTOR,
+};
+
+/**
+ * The design area adjusted for the system type: the area to flow, at the density read at the unadjusted area.
+ *
+ *   A' = f A,   f = 1.3 for dry-pipe and double-interlock preaction systems, 1 for wet and single-interlock preaction
+ *
+ * A dry system over OH2's 1500 ft²: 1.3 × 1500 = 1950 ft², still at 0.20 gpm/ft². The area keeps its unit (m² in, m²
+ * out).
+ *
+ * @param area A, the design area read from the curve, ft² (or any unit of area: the result has the same unit)
+ * @param system "wet", "preaction" (single interlock), "dry" or "double interlock"
+ * @returns A', the design area to flow, in the unit of `area`
+ * @see [NFPA 13] design-area adjustment by system type (from memory)
+ * @example
+ * adjustedArea(1500, "dry") // ≈ 1950 ft²
+ * adjustedArea(1500, "preaction") // → 1500 ft²
+ * adjustedArea(1500, "foam") // throws "system: got \"foam\"; must be one of \"wet\", \"preaction\", \"dry\", \"double interlock\""
+ */
+export function adjustedArea(area: number, system: AreaSystem): number {
+  if (!AREA_SYSTEM_CODES.includes(system)) fail("system", { cell: system }, `must be one of ${AREA_SYSTEM_CODES.map((s) => `"${s}"`).join(", ")}`);
+  if (!(area > 0 && area < Infinity)) fail("area", n(area), "must be greater than 0");
+  return AREA_FACTOR[system] * area;
 }
 
 /** Parts of the hose stream allowance: the total, the inside hose part, the outside hose part. */

@@ -1,9 +1,10 @@
 /**
  * Cell functions of the sprinkler demand: one sprinkler (HEADFLOW, HEADPRESSURE), the design area's counts
- * (HEADCOUNT, HEADSPERLINE), the tree design-area solve (AREADEMAND) and the density/area, hose and duration tables
- * (DESIGNDENSITY, DESIGNAREA, HOSEALLOWANCE, DURATION). Engine: src/engine/sprinkler.ts, tree.ts, design.ts.
+ * (HEADCOUNT, HEADSPERLINE), the tree design-area solve (AREADEMAND) and the density/area, system adjustment, hose and
+ * duration tables (DESIGNDENSITY, DESIGNAREA, ADJUSTAREA, HOSEALLOWANCE, DURATION). Engine: src/engine/sprinkler.ts,
+ * tree.ts, design.ts.
  */
-import { designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
+import { adjustedArea, designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
 import { finiteOr, q as qty } from "../engine/errors";
 import { headLoss } from "../engine/friction";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
@@ -13,7 +14,7 @@ import { LIMITS_US, isBlank, numberArg, optionalNumberArg, quantityArg } from ".
 import { cell } from "./bridge";
 import { cFactorArg, minPressureArg } from "./common";
 import type { SpillShape } from "./shapes";
-import { boundArg, hazardArg, hosePartArg } from "./tableCodes";
+import { areaSystemArg, boundArg, hazardArg, hosePartArg } from "./tableCodes";
 
 // ─── One sprinkler and the design area's counts ──────────────────────────────────────────────────────────────────────────
 /**
@@ -194,6 +195,22 @@ export function designdensity(hazard: any, area?: any, units?: any): number {
 export function designarea(hazard: any, units?: any): number {
   return cell(units, (u) => {
     return fromUS("area", designArea(hazardArg(hazard)), u);
+  });
+}
+
+/**
+ * The design area adjusted for the system type (NFPA 13): dry-pipe and double-interlock preaction systems flow 1.3 ×
+ * the area, wet and single-interlock preaction (and deluge) the area itself. Take the density from the unadjusted area,
+ * then flow it over the adjusted one.
+ * @customfunction
+ * @param area Design area read from the curve, in any unit of area (ft² or m²): the result has the same unit.
+ * @param system "wet", "preaction" (single interlock), "dry" or "double interlock" (or "wet pipe", "deluge", "single interlock", "dry pipe", "double interlock preaction").
+ * @returns Design area to flow (the unit of area).
+ */
+export function adjustarea(area: any, system: any): number {
+  return cell(null, () => {
+    const a = numberArg(area, "area", { gt: 0, max: LIMITS_US.area });
+    return adjustedArea(a, areaSystemArg(system));
   });
 }
 

@@ -286,7 +286,7 @@ export function pipeid(nominal: any, schedule?: any, units?: any): number {
  * Hazen-Williams C of new pipe from the NFPA 13 C table, by material and system type.
  * @customfunction
  * @param material "steel" (black), "galvanized", "plastic", "cpvc", "copper", "stainless", "brass", "ductile" or "cast" (unlined), "lined ductile" (cement-lined), "asbestos cement", "concrete".
- * @param system "wet" (default; deluge reads as wet) or "dry" (preaction reads as dry).
+ * @param system "wet" (default; deluge reads as wet) or "dry" (preaction, single or double interlock, reads as dry).
  * @returns C factor.
  */
 export function cfactor(material: any, system?: any): number {

@@ -1,11 +1,12 @@
 /**
  * The text codes of the trade-table functions and the plain-word spellings accepted for each: schedules, materials,
- * system types, hazards, hose allowance parts and duration bounds, matched by the one code matcher (args.codeArg):
- * case-insensitive, inner white space folded, hyphens, dots and underscores counting as spaces, so "OH-1",
- * "Sch. 40" and "cement-lined" all match. An unknown code is #VALUE! listing the accepted codes.
+ * system types (of the C table and of the design-area adjustment), hazards, hose allowance parts and duration
+ * bounds, matched by the one code matcher (args.codeArg): case-insensitive, inner white space folded, hyphens, dots
+ * and underscores counting as spaces, so "OH-1", "Sch. 40" and "cement-lined" all match. An unknown code is #VALUE!
+ * listing the accepted codes.
  */
 import type { Material, SystemType } from "../engine/cfactor";
-import type { DurationBound, Hazard, HosePart } from "../engine/design";
+import type { AreaSystem, DurationBound, Hazard, HosePart } from "../engine/design";
 import type { Schedule } from "../engine/pipes";
 import { codeArg, isBlank } from "./args";
 
@@ -46,10 +47,31 @@ export const MATERIAL_ALIASES: Readonly<Record<Material, readonly string[]>> = {
   concrete: [],
 };
 
-/** System types: deluge reads the wet column and preaction the dry one, as the C table says. */
-export const SYSTEM_ALIASES: Readonly<Record<SystemType, readonly string[]>> = {
+/**
+ * System types of the design-area adjustment: "preaction" is the single-interlock system, adjusted as a wet one;
+ * deluge is adjusted as wet [NFPA 13] (from memory).
+ */
+export const AREA_SYSTEM_ALIASES: Readonly<Record<AreaSystem, readonly string[]>> = {
   wet: ["wet pipe", "deluge"],
-  dry: ["dry pipe", "preaction", "pre action"],
+  preaction: ["pre action", "single interlock", "single interlock preaction", "preaction single interlock"],
+  dry: ["dry pipe"],
+  "double interlock": ["double interlock preaction", "preaction double interlock", "double interlocked"],
+};
+
+/**
+ * System types of the C table: deluge reads the wet column and preaction (single or double interlock) the dry one, as
+ * the table says. Every spelling of the design-area adjustment reads here too, so that one system cell feeds both
+ * CFACTOR and ADJUSTAREA.
+ */
+export const SYSTEM_ALIASES: Readonly<Record<SystemType, readonly string[]>> = {
+  wet: AREA_SYSTEM_ALIASES.wet,
+  dry: [
+    ...AREA_SYSTEM_ALIASES.dry,
+    "preaction",
+    ...AREA_SYSTEM_ALIASES.preaction,
+    "double interlock",
+    ...AREA_SYSTEM_ALIASES["double interlock"],
+  ],
 };
 
 /** Hazard codes and their names ("ordinary 1", "ordinary group 1", "OH-1", ...). */
@@ -87,6 +109,11 @@ export function materialArg(value: unknown, name = "material"): Material {
 /** The `system` argument, default "wet". */
 export function systemArg(value: unknown, name = "system"): SystemType {
   return isBlank(value) ? "wet" : codeArg(value, name, SYSTEM_ALIASES);
+}
+
+/** The `system` argument of ADJUSTAREA (required): the four systems, listed with their plain words when unknown. */
+export function areaSystemArg(value: unknown, name = "system"): AreaSystem {
+  return codeArg(value, name, AREA_SYSTEM_ALIASES, ' (or "wet pipe", "deluge", "single interlock", "dry pipe", "double interlock preaction")');
 }
 
 /** The `hazard` argument (required). */

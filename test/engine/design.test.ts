@@ -2,9 +2,12 @@ import { describe, expect, it } from "vitest";
 import { errorOf } from "./engineError";
 import {
   AREA_SPAN_SLACK,
+  AREA_SYSTEM_CODES,
+  DRY_AREA_FACTOR,
   HAZARDS,
   HAZARD_CODES,
   areaOnCurve,
+  adjustedArea,
   areaSpan,
   designArea,
   designDensity,
@@ -84,5 +87,34 @@ describe("hose allowance and duration", () => {
     expect(supplyDuration("OH2", "max")).toBe(90);
     expect(supplyDuration("EH1", "max")).toBe(120);
     expect(() => supplyDuration("LH", "mid" as never)).toThrow('bound: got "mid"; must be "min" or "max"');
+  });
+});
+
+describe("design-area adjustment by system type", () => {
+  it("dry-pipe and double-interlock preaction systems flow 30 % more area; wet and single-interlock preaction do not", () => {
+    expect(DRY_AREA_FACTOR).toBe(1.3); // [NFPA 13] (from memory)
+    expect(AREA_SYSTEM_CODES).toEqual(["wet", "preaction", "dry", "double interlock"]);
+    // 1.3 × 1500 = 1950 ft² [NFPA 13] (from memory)
+    expect(adjustedArea(1500, "dry")).toBeCloseTo(1950, 9);
+    expect(adjustedArea(1500, "double interlock")).toBeCloseTo(1950, 9);
+    // × 1 [NFPA 13] (from memory)
+    expect(adjustedArea(1500, "wet")).toBe(1500);
+    expect(adjustedArea(1500, "preaction")).toBe(1500);
+    // EH1's 2500 ft² dry: 1.3 × 2500 = 3250 ft²
+    expect(adjustedArea(2500, "dry")).toBeCloseTo(3250, 9);
+  });
+
+  it("keeps the unit of the area it is given", () => {
+    // 139.355 m² (1500 ft²) dry: 1.3 × 139.355 = 181.1615 m², which is 1950 ft² × 0.09290304
+    expect(adjustedArea(139.355, "dry")).toBeCloseTo(181.1615, 9);
+  });
+
+  it("an unknown system lists the systems; an area that is not positive is an error", () => {
+    expect(errorOf(() => adjustedArea(1500, "foam" as never)).message).toBe(
+      'system: got "foam"; must be one of "wet", "preaction", "dry", "double interlock"',
+    );
+    expect(errorOf(() => adjustedArea(0, "dry")).message).toBe("area: got 0; must be greater than 0");
+    expect(errorOf(() => adjustedArea(Number.NaN, "dry")).message).toBe("area: got NaN; must be greater than 0");
+    expect(errorOf(() => adjustedArea(Infinity, "wet")).message).toBe("area: got Infinity; must be greater than 0");
   });
 });

@@ -89,6 +89,7 @@ const NO_SOURCE: Readonly<Record<string, string>> = {
 const OWN_VALUES: Readonly<Record<string, string>> = {
   "cfactor.ts MATERIAL_CODES": "the vocabulary's codes",
   "design.ts HAZARD_CODES": "the vocabulary's codes",
+  "design.ts AREA_SYSTEM_CODES": "the vocabulary's codes",
   "fittings.ts FITTING_CODES": "the vocabulary's codes",
   "pipes.ts SCHEDULE_CODES": "the vocabulary's codes",
   "design.ts AREA_SPAN_SLACK": "Headroom's tolerance for an area typed in rounded metric",

@@ -4,7 +4,9 @@
  */
 import { describe, expect, it } from "vitest";
 import {
+  adjustarea,
   areademand,
+  cfactor,
   elevation,
   friction,
   headpressure,
@@ -260,6 +262,36 @@ describe("AREADEMAND", () => {
     // the SI default minimum pressure is 0.5 bar [NFPA 13]
     const low = areademand(0.01 * 40.746, 100, 10, 80, 3, 25, 50, null, null, "SI")[0];
     expect(low[4]).toBeCloseTo(0.5, 12);
+  });
+
+  it("a dry system flows 30 % more area: the walk-through's geometry, galvanized and dry [NFPA 13]", () => {
+    // The README walk-through's design area (OH2 0.20 gpm/ft², 120 ft² per sprinkler, K 8.0, 12 ft spacing, 1¼ and
+    // 2½ Schedule 40 [ASME B36.10M]) in galvanized steel in a dry system: C 100 [NFPA 13]. The density stays the one
+    // read at 1500 ft²; the area grows to 1.3 × 1500 = 1950 ft² [NFPA 13] (from memory).
+    const c = cfactor("galvanized", "dry");
+    expect(c).toBe(100); // [NFPA 13]
+    const dryArea = adjustarea(1500, "dry");
+    expect(dryArea).toBeCloseTo(1950, 9);
+    const [wetFlow, wetPressure, wetHeads, wetLines, wetEnd] = areademand(0.2, 1500, 120, 8, 12, 1.38, 2.469, c)[0];
+    const [dryFlow, dryPressure, dryHeads, dryLines, dryEnd] = areademand(0.2, dryArea, 120, 8, 12, 1.38, 2.469, c)[0];
+    // 1500 ft²: n = ceil(1500 / 120) = ceil(12.5) = 13; m = ceil(1.2 √1500 / 12) = ceil(1.2 × 38.730 / 12) = ceil(3.873)
+    //   = 4; L = ceil(13 / 4) = 4 lines (4 + 4 + 4 + 1) [NFPA 13]
+    expect([wetHeads, wetLines]).toEqual([13, 4]);
+    // 1950 ft²: n = ceil(1950 / 120) = ceil(16.25) = 17; m = ceil(1.2 √1950 / 12) = ceil(1.2 × 44.159 / 12) = ceil(4.416)
+    //   = 5; L = ceil(17 / 5) = 4 lines (5 + 5 + 5 + 2) [NFPA 13]
+    expect([dryHeads, dryLines]).toEqual([17, 4]);
+    // the end sprinkler is the same in both: 0.20 × 120 = 24 gpm at (24 / 8)² = 9 psi [NFPA 13]
+    expect(wetEnd).toBeCloseTo(9, 12);
+    expect(dryEnd).toBeCloseTo(9, 12);
+    // The whole-number figures issue 12 gives for this area, 397 gpm at 43 psi and 611 gpm at 78 psi, are the solve
+    // test/engine/tree.test.ts works through by hand, here on 4 lines: reproduced to the precision stated.
+    expect(Math.round(wetFlow)).toBe(397);
+    expect(Math.round(wetPressure)).toBe(43);
+    expect(Math.round(dryFlow)).toBe(611);
+    expect(Math.round(dryPressure)).toBe(78);
+    // never below density × area: 0.20 × 1500 = 300 gpm, 0.20 × 1950 = 390 gpm [NFPA 13]
+    expect(wetFlow).toBeGreaterThanOrEqual(300);
+    expect(dryFlow).toBeGreaterThanOrEqual(390);
   });
 
   it("refuses bad input with messages", () => {

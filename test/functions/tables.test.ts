@@ -1,5 +1,5 @@
 /**
- * The trade-table cell functions: PIPEID, CFACTOR, FITTINGLENGTH, FITTINGS, DESIGNDENSITY, DESIGNAREA,
+ * The trade-table cell functions: PIPEID, CFACTOR, FITTINGLENGTH, FITTINGS, DESIGNDENSITY, DESIGNAREA, ADJUSTAREA,
  * HOSEALLOWANCE, DURATION. Every table value of the engine is read here through a cell function and checked against
  * the value written out below, with its source mark beside it (the sources: docs/references.md).
  */
@@ -439,6 +439,53 @@ describe("DESIGNDENSITY and DESIGNAREA", () => {
     );
     expect(errorOf(() => f.designarea("OH3")).message).toMatch(/^hazard: got "OH3"; must be one of "LH"/);
     expect(errorOf(() => f.designarea(null)).message).toMatch(/^hazard is empty: type one of "LH"/);
+  });
+});
+
+// ─── ADJUSTAREA ──────────────────────────────────────────────────────────────────────────────────────────────────
+
+describe("ADJUSTAREA", () => {
+  it("dry and double interlock × 1.3, wet and preaction (single interlock) × 1 [NFPA 13] (from memory)", () => {
+    // 1.3 × 1500 = 1950 ft² [NFPA 13] (from memory)
+    for (const s of ["dry", "DRY", "dry pipe", "Dry-pipe", "double interlock", "Double-Interlock", "double interlock preaction"]) {
+      expect(f.adjustarea(1500, s), s).toBeCloseTo(1950, 9);
+    }
+    for (const s of ["wet", "wet pipe", "deluge", "preaction", "Pre-action", "single interlock", "single interlock preaction"]) {
+      expect(f.adjustarea(1500, s), s).toBe(1500);
+    }
+  });
+
+  it("gives the area in the unit it was given: no units argument", () => {
+    // OH2's 1500 ft² in m²: 139.355 m²; dry: 1.3 × 139.355 = 181.16 m² [NFPA 13] (from memory)
+    expect(f.adjustarea(f.designarea("OH2", "SI"), "dry")).toBeCloseTo(1.3 * 1500 * M2_PER_FT2, 9);
+    expect(f.adjustarea(f.designarea("OH2", "SI"), "dry")).toBeCloseTo(181.16, 2);
+  });
+
+  it("takes every system CFACTOR takes, so one system cell can feed both", () => {
+    // galvanized steel: C 120 wet, 100 dry (preaction, single or double interlock, reads the dry column) [NFPA 13]
+    const spellings: [string, number, number][] = [
+      ["wet", 1500, 120], ["deluge", 1500, 120], ["wet pipe", 1500, 120],
+      ["preaction", 1500, 100], ["single interlock", 1500, 100],
+      ["dry", 1950, 100], ["dry pipe", 1950, 100], ["double interlock", 1950, 100], ["double interlock preaction", 1950, 100],
+    ];
+    for (const [s, area, c] of spellings) {
+      expect(f.adjustarea(1500, s), s).toBeCloseTo(area, 9);
+      expect(f.cfactor("galvanized", s), s).toBe(c);
+    }
+  });
+
+  it("an unknown system lists the systems; a bad area says what is allowed", () => {
+    const e = errorOf(() => f.adjustarea(1500, "foam"));
+    expect(e.code).toBe("#VALUE!");
+    expect(e.message).toBe(
+      'system: got "foam"; must be one of "wet", "preaction", "dry", "double interlock" ' +
+        '(or "wet pipe", "deluge", "single interlock", "dry pipe", "double interlock preaction")',
+    );
+    expect(errorOf(() => f.adjustarea(1500, null)).message).toMatch(/^system is empty: type one of "wet", "preaction", "dry"/);
+    expect(errorOf(() => f.adjustarea(0, "dry")).message).toBe("area: got 0; must be greater than 0 and at most 1000000");
+    expect(errorOf(() => f.adjustarea(2e6, "dry")).message).toBe("area: got 2000000; must be greater than 0 and at most 1000000");
+    expect(errorOf(() => f.adjustarea("big", "dry")).message).toBe('area: got "big"; must be a number');
+    expect(errorOf(() => f.adjustarea(null, "dry")).message).toBe("area is empty: type a number");
   });
 });
 

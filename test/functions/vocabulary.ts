@@ -33,6 +33,7 @@ export const VOCABULARY: string[] = [
   "FITTINGS",
   "DESIGNDENSITY",
   "DESIGNAREA",
+  "ADJUSTAREA",
   "HOSEALLOWANCE",
   "DURATION",
   // Range functions and solvers

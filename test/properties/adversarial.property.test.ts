@@ -140,7 +140,7 @@ const PLAUSIBLE: Readonly<Record<string, Plausible>> = {
   nominal: { value: fc.constantFrom(0.75, 1, 1.25, 1.5, 2, 2.5, 3, 4, 6, 8, 10, 12, ...NPS_TEXT, "DN65"), si: fc.constantFrom(...DN, "DN50") },
   schedule: codes(null, ...SCHEDULE_CODES, "Sch 40", "type L"),
   material: codes(...MATERIAL_CODES, "black", "cement lined"),
-  system: codes(null, "wet", "dry", "deluge", "preaction"),
+  system: codes(null, "wet", "dry", "deluge", "preaction", "double interlock", "single interlock"),
   fitting: codes(...FITTING_CODES, ...FITTING_WORDS),
   list: {
     value: fc

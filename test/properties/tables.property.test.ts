@@ -1,14 +1,15 @@
 /**
  * Properties of the trade-table functions: every size of every schedule reads back a positive diameter; unknown
  * codes, sizes and nonsense give an error with a message; FITTINGS is the sum of its FITTINGLENGTHs; equivalent
- * lengths move with C as (C/120)^1.85 [NFPA 13]; density falls along each curve [NFPA 13]; SI equals converted US.
+ * lengths move with C as (C/120)^1.85 [NFPA 13]; density falls along each curve [NFPA 13]; the adjusted design area is
+ * the area or 1.3 × it [NFPA 13] (from memory); SI equals converted US.
  */
 import { describe, expect } from "vitest";
 import { fc, test } from "@fast-check/vitest";
 import * as f from "../../src/functions/functions";
 import { SCHEDULE_CODES, scheduleSizes } from "../../src/engine/pipes";
 import { FITTING_CODES, fittingSizes } from "../../src/engine/fittings";
-import { HAZARD_CODES, areaSpan } from "../../src/engine/design";
+import { AREA_SYSTEM_CODES, DRY_AREA_FACTOR, HAZARD_CODES, areaSpan } from "../../src/engine/design";
 import { MATERIAL_CODES } from "../../src/engine/cfactor";
 import { M2_PER_FT2, MMMIN_PER_GPMFT2, MM_PER_IN, M_PER_FT } from "../../src/engine/units";
 import { BLANKS, NOT_NUMBERS, givesError } from "./arbitraries";
@@ -52,6 +53,16 @@ describe("trade tables: valid inputs", () => {
       expect(f.designdensity(h, lo * M2_PER_FT2, "SI")).toBeCloseTo(f.designdensity(h, lo) * MMMIN_PER_GPMFT2, 9);
     },
   );
+  test.prop([fc.double({ min: 1, max: 1_000_000, noNaN: true }), fc.constantFrom(...AREA_SYSTEM_CODES)], RUNS)(
+    "ADJUSTAREA is the area × 1 or × 1.3, whatever the unit of area [NFPA 13] (from memory)",
+    (a, s) => {
+      const adjusted = f.adjustarea(a, s);
+      const factor = s === "dry" || s === "double interlock" ? DRY_AREA_FACTOR : 1;
+      expect(adjusted).toBeCloseTo(a * factor, 6);
+      expect(f.adjustarea(a * M2_PER_FT2, s) / M2_PER_FT2).toBeCloseTo(adjusted, 6); // m² in, m² out
+      expect(typeof f.cfactor("steel", s)).toBe("number"); // one system cell can feed both
+    },
+  );
   test.prop([fc.constantFrom(...MATERIAL_CODES), fc.constantFrom("wet", "dry", null)], RUNS)("CFACTOR is 100 to 150 [NFPA 13]", (m, s) => {
     const c = f.cfactor(m, s);
     expect(c >= 100 && c <= 150).toBe(true);
@@ -70,6 +81,12 @@ describe("trade tables: invalid inputs give an error with a message, never a num
   });
   test.prop([fc.constantFrom(...NOT_NUMBERS, "damp", "foam")], RUNS)("CFACTOR system", (bad) => {
     expect(givesError(() => f.cfactor("steel", bad))).toBe(true);
+  });
+  test.prop([fc.constantFrom(...NOT_NUMBERS, ...BLANKS, "damp", "foam", "interlock", "triple interlock", 1.3)], RUNS)("ADJUSTAREA system", (bad) => {
+    expect(givesError(() => f.adjustarea(1500, bad))).toBe(true);
+  });
+  test.prop([fc.constantFrom(...NOT_NUMBERS, ...BLANKS, 0, -1500, 2e6)], RUNS)("ADJUSTAREA area", (bad) => {
+    expect(givesError(() => f.adjustarea(bad, "dry"))).toBe(true);
   });
   test.prop([fc.constantFrom(...NOT_NUMBERS, ...BLANKS, "elbw", "3X", "E E Q", "0E", "-1T", "2E, -1T")], RUNS)("FITTINGS list", (bad) => {
     expect(givesError(() => f.fittings(bad, 4))).toBe(true);
