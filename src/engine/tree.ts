@@ -62,14 +62,8 @@ export const MIN_COVERAGE_FT2 = MIN_HEAD_SPACING_FT * MIN_LINE_SPACING_FT;
  */
 export const DEFAULT_C_FACTOR = 120;
 
-/** The inputs of a design-area solve, US units. */
-export interface AreaDemandInput {
-  /** design density, gpm/ft² */
-  density: number;
-  /** design area, ft² */
-  area: number;
-  /** floor area per sprinkler, ft² */
-  coverage: number;
+/** The sprinklers and pipes of a tree system's design area, US units: what every walk of its lines needs. */
+export interface TreePipes {
   /** sprinkler K-factor, gpm/psi^0.5 */
   kFactor: number;
   /** distance between sprinklers along a branch line, ft */
@@ -80,6 +74,16 @@ export interface AreaDemandInput {
   mainDiameter: number;
   /** Hazen-Williams C of both */
   cFactor: number;
+}
+
+/** The inputs of a design-area solve, US units. */
+export interface AreaDemandInput extends TreePipes {
+  /** design density, gpm/ft² */
+  density: number;
+  /** design area, ft² */
+  area: number;
+  /** floor area per sprinkler, ft² */
+  coverage: number;
   /** minimum sprinkler operating pressure, psi */
   minPressure: number;
 }
@@ -134,7 +138,7 @@ interface SolvedLine {
  * Walk one branch line of `count` sprinklers from the end sprinkler (q1 at p1) to the cross main.
  * @see [NFPA 13] hydraulic calculation, Q = K √P and Hazen-Williams between sprinklers
  */
-function solveLine(count: number, q1: number, p1: number, inp: AreaDemandInput, hl: HeadLoss): SolvedLine {
+function solveLine(count: number, q1: number, p1: number, inp: TreePipes, hl: HeadLoss): SolvedLine {
   const flows = [q1];
   const pressures = [p1];
   let carried = q1;
@@ -228,19 +232,41 @@ export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("U
   checkInput(inp);
   const n = headCount(inp.area, inp.coverage);
   const m = Math.min(headsPerLine(inp.area, inp.headSpacing, DESIGN_AREA_LENGTH_FACTOR), n);
-  const lines = Math.ceil(n / m);
-  const last = n - (lines - 1) * m;
-  const lineSpacing = inp.coverage / inp.headSpacing;
-
   const q1 = headFlow(inp.density, inp.coverage, inp.kFactor, inp.minPressure);
   const p1 = headPressure(q1, inp.kFactor, inp.minPressure);
   if (!Number.isFinite(p1)) {
     fail("k_factor", q("kfactor", inp.kFactor), "must be larger: the end sprinkler would need more than any pressure to flow {0}", q("flow", q1));
   }
-  const full = solveLine(m, q1, p1, inp, hl);
-  const partial = last === m ? full : solveLine(last, q1, p1, inp, hl);
+  return solveLayout({ heads: n, headsPerLine: m, lineSpacing: inp.coverage / inp.headSpacing, endFlow: q1, endPressure: p1 }, inp, hl, detail);
+}
+
+/** Where the sprinklers of a tree design area are and how the most remote one flows (checked by its caller). */
+interface TreeLayout {
+  /** sprinklers flowing, n (1 to MAX_DESIGN_AREA_SPRINKLERS) */
+  heads: number;
+  /** sprinklers on each full line, m (1 to n) */
+  headsPerLine: number;
+  /** distance between branch lines along the cross main, ft */
+  lineSpacing: number;
+  /** flow of the most remote sprinkler, q1, gpm */
+  endFlow: number;
+  /** its pressure, p1, psi */
+  endPressure: number;
+}
+
+/**
+ * The walk both design-area solves share (steps 3 to 5 of the file comment): L = ceil(n / m) lines, the most remote
+ * ones full and the line nearest the feed flowing the remainder, each solved sprinkler by sprinkler from q1 at p1,
+ * then the cross main line by line.
+ */
+function solveLayout(layout: TreeLayout, pipes: TreePipes, hl: HeadLoss, detail: boolean): AreaDemand {
+  const { heads: n, headsPerLine: m, lineSpacing, endFlow: q1, endPressure: p1 } = layout;
+  const lines = Math.ceil(n / m);
+  const last = n - (lines - 1) * m;
+  const full = solveLine(m, q1, p1, pipes, hl);
+  const partial = last === m ? full : solveLine(last, q1, p1, pipes, hl);
   if (!Number.isFinite(full.inletPressure) || !Number.isFinite(partial.inletPressure)) {
-    fail("branch_diameter", q("diameter", inp.branchDiameter), "must be larger: the friction loss along a branch line has no finite value");
+    fail("branch_diameter", q("diameter", pipes.branchDiameter), "must be larger: the friction loss along a branch line has no finite value");
   }
 
   const lineFlows: number[] = [];
@@ -249,7 +275,7 @@ export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("U
   let flow = 0;
   let pressure = full.inletPressure;
   for (let j = 1; j <= lines; j++) {
-    if (j > 1) pressure += hl.loss(flow, inp.mainDiameter, inp.cFactor, lineSpacing);
+    if (j > 1) pressure += hl.loss(flow, pipes.mainDiameter, pipes.cFactor, lineSpacing);
     const solved = j === lines ? partial : full;
     const scale = pressure / solved.inletPressure; // pressure ratio; flows scale by its square root
     const lineFlow = j === 1 ? solved.inletFlow : (solved.inletFlow / Math.sqrt(solved.inletPressure)) * Math.sqrt(pressure);
@@ -264,7 +290,7 @@ export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("U
     flow += lineFlow;
   }
   if (!Number.isFinite(flow) || !Number.isFinite(pressure)) {
-    fail("main_diameter", q("diameter", inp.mainDiameter), "must be larger: the friction loss in the cross main has no finite value");
+    fail("main_diameter", q("diameter", pipes.mainDiameter), "must be larger: the friction loss in the cross main has no finite value");
   }
   const result: AreaDemand = { flow, pressure, heads: n, lines, endPressure: p1, headsPerLine: m, lineSpacing, lineFlows, linePressures };
   if (detail) result.sprinklers = sprinklers;
