@@ -21,6 +21,10 @@
  *
  * A line fed at P instead of P_line flows as the solved line scaled by √(P / P_line): every sprinkler's pressure is
  * multiplied by P / P_line and its flow by √(P / P_line), so each still flows K √p and the line totals K_line √P.
+ *
+ * A design by number of sprinklers (HEADSDEMAND: storage, high-K and early-suppression sprinklers) walks the same lines
+ * (steps 3 to 5) with step 1 given instead of derived: n sprinklers, m on each full line, the line spacing; and the
+ * end sprinkler of step 2 at the minimum pressure, q1 = K √Pmin at p1 = Pmin.
  */
 import { fail, n, q } from "./errors";
 import { type HeadLoss, headLoss } from "./friction";
@@ -86,6 +90,18 @@ export interface AreaDemandInput extends TreePipes {
   coverage: number;
   /** minimum sprinkler operating pressure, psi */
   minPressure: number;
+}
+
+/** The inputs of a design by number of sprinklers, US units. */
+export interface HeadsDemandInput extends TreePipes {
+  /** sprinklers flowing, a whole number from 1 to MAX_DESIGN_AREA_SPRINKLERS */
+  heads: number;
+  /** sprinklers on each full line, a whole number from 1 to heads */
+  headsPerLine: number;
+  /** pressure of the most remote sprinkler, psi */
+  minPressure: number;
+  /** distance between branch lines along the cross main, ft */
+  lineSpacing: number;
 }
 
 /** One flowing sprinkler of the solved area. */
@@ -238,6 +254,78 @@ export function solveAreaDemand(inp: AreaDemandInput, hl: HeadLoss = headLoss("U
     fail("k_factor", q("kfactor", inp.kFactor), "must be larger: the end sprinkler would need more than any pressure to flow {0}", q("flow", q1));
   }
   return solveLayout({ heads: n, headsPerLine: m, lineSpacing: inp.coverage / inp.headSpacing, endFlow: q1, endPressure: p1 }, inp, hl, detail);
+}
+
+/** Refuse a design by number of sprinklers that no sprinkler layout could be, naming the argument. */
+function checkHeadsInput(inp: HeadsDemandInput): void {
+  const positive: Array<[keyof HeadsDemandInput, string, Quantity | null]> = [
+    ["kFactor", "k_factor", "kfactor"],
+    ["minPressure", "min_pressure", "pressure"],
+    ["headSpacing", "head_spacing", "length"],
+    ["lineSpacing", "line_spacing", "length"],
+    ["branchDiameter", "branch_diameter", "diameter"],
+    ["mainDiameter", "main_diameter", "diameter"],
+    ["cFactor", "c_factor", null],
+  ];
+  for (const [key, name, quantity] of positive) {
+    const v = inp[key];
+    if (!(v > 0) || !Number.isFinite(v)) fail(name, quantity ? q(quantity, v) : n(v), "must be greater than 0");
+  }
+  for (const [count, name] of [[inp.heads, "heads"], [inp.headsPerLine, "heads_per_line"]] as const) {
+    if (!(Number.isInteger(count) && count >= 1)) fail(name, n(count), "must be a whole number of sprinklers, at least 1");
+  }
+  // The plausible-count bound: every loop of the walk runs at most MAX_DESIGN_AREA_SPRINKLERS times.
+  if (inp.heads > MAX_DESIGN_AREA_SPRINKLERS) {
+    fail(
+      "heads",
+      n(inp.heads),
+      `must be at most ${MAX_DESIGN_AREA_SPRINKLERS}: a design of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
+    );
+  }
+  if (inp.headsPerLine > inp.heads) fail("heads_per_line", n(inp.headsPerLine), "must be at most heads, {0}", n(inp.heads));
+  if (inp.headSpacing < MIN_HEAD_SPACING_FT) {
+    fail("head_spacing", q("length", inp.headSpacing), "must be at least {0}: sprinklers closer than that on a line are an input error", q("length", MIN_HEAD_SPACING_FT));
+  }
+  if (inp.lineSpacing < MIN_LINE_SPACING_FT) {
+    fail("line_spacing", q("length", inp.lineSpacing), "must be at least {0}: branch lines closer than that are an input error", q("length", MIN_LINE_SPACING_FT));
+  }
+}
+
+/**
+ * Solve a design by number of sprinklers on a tree system, sprinkler by sprinkler (AREADEMAND's walk, layout given).
+ *
+ *   L = ceil(n / m),   the line nearest the feed flowing n − (L − 1) m,   q1 = K √Pmin at p1 = Pmin
+ *
+ * The layout is given rather than derived from an area, as storage, high-K and early-suppression sprinklers are
+ * designed: a number of sprinklers at the listing's minimum pressure. 12 sprinklers K 16.8 at 52 psi, 4 on each of 3 lines, 10 ft × 10 ft, 3 in branch lines (3.068 in) and a
+ * 6 in cross main (6.065 in), Schedule 40, C 120: q1 = 16.8 × √52 = 121.15 gpm; the most remote line reaches the
+ * cross main with 488.63 gpm at 56.99 psi; → 1468.1 gpm at 57.42 psi at the last line. Worked through sprinkler by
+ * sprinkler in test/engine/tree.test.ts.
+ *
+ * @param inp the sprinklers, their layout and the pipes, US units (gpm/psi^0.5, psi, ft, in)
+ * @param hl the head loss of the user's unit system (headLoss(units)); default the [NFPA 13] US form
+ * @param detail also list every flowing sprinkler
+ * @returns the cross-main flow (gpm) and pressure (psi) at the last line, counts, and the end-sprinkler pressure (psi)
+ * @see [NFPA 13] design by number of sprinklers (storage and early-suppression sprinklers) and hydraulic calculation procedure
+ * @example
+ * solveHeadsDemand({ heads: 12, headsPerLine: 4, kFactor: 16.8, minPressure: 52, headSpacing: 10, lineSpacing: 10,
+ *   branchDiameter: 3.068, mainDiameter: 6.065, cFactor: 120 })
+ * // .lines → 3
+ * // .endPressure → 52 psi
+ * // .lineFlows[0] ≈ 488.63 gpm
+ * // .flow ≈ 1468.1 gpm
+ * // .pressure ≈ 57.42 psi
+ */
+export function solveHeadsDemand(inp: HeadsDemandInput, hl: HeadLoss = headLoss("US"), detail = false): AreaDemand {
+  checkHeadsInput(inp);
+  const layout = {
+    heads: inp.heads,
+    headsPerLine: inp.headsPerLine,
+    lineSpacing: inp.lineSpacing,
+    endFlow: headDischarge(inp.kFactor, inp.minPressure),
+    endPressure: inp.minPressure,
+  };
+  return solveLayout(layout, inp, hl, detail);
 }
 
 /** Where the sprinklers of a tree design area are and how the most remote one flows (checked by its caller). */

@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { headLoss } from "../../src/engine/friction";
 import { headPressure } from "../../src/engine/sprinkler";
-import { type AreaDemandInput, solveAreaDemand } from "../../src/engine/tree";
+import { MAX_DESIGN_AREA_SPRINKLERS } from "../../src/engine/sprinkler";
+import { type AreaDemandInput, type HeadsDemandInput, solveAreaDemand, solveHeadsDemand } from "../../src/engine/tree";
 import { errorOf } from "./engineError";
 
 // Hazen-Williams, US form [NFPA 13]: psi/ft = 4.52 Q^1.85 / (C^1.85 d^4.87), written out here so the test does not
@@ -199,5 +200,171 @@ describe("AREADEMAND solve: a result beyond any number names the argument behind
     expect(errorOf(() => solveAreaDemand({ ...base, kFactor: 1e-300 })).message).toBe(
       "k_factor: got 1e-300 gpm/psi^0.5; must be larger: the end sprinkler would need more than any pressure to flow 19.5 gpm",
     );
+  });
+});
+
+// ─── HEADSDEMAND ─────────────────────────────────────────────────────────────────────────────────────────────────
+
+/** 12 sprinklers K 16.8 at 52 psi, 4 on each line, 10 ft × 10 ft; 3 in branch lines, 6 in cross main. */
+const storage: HeadsDemandInput = {
+  heads: 12,
+  headsPerLine: 4,
+  kFactor: 16.8,
+  minPressure: 52,
+  headSpacing: 10,
+  lineSpacing: 10,
+  branchDiameter: 3.068, // 3 Schedule 40 [ASME B36.10M]
+  mainDiameter: 6.065, // 6 Schedule 40 [ASME B36.10M]
+  cFactor: 120, // black steel, wet [NFPA 13]
+};
+
+describe("HEADSDEMAND solve: 12 sprinklers K 16.8 at 52 psi, 4 a line, 10 ft × 10 ft, worked by hand [NFPA 13]", () => {
+  // Hazen-Williams [NFPA 13] over 10 ft: loss = 4.52 Q^1.85 / (C^1.85 d^4.87) × 10, C^1.85 = 120^1.85 = 7022.40;
+  //   branch line 3.068^4.87 = 234.955, so C^1.85 d^4.87 = 1 649 950; cross main 6.065^4.87 = 6492.11, 45 590 182.
+  const r = solveHeadsDemand(storage, headLoss("US"), true);
+  const s = r.sprinklers!;
+
+  it("puts 4 sprinklers on each of 3 lines, 10 ft apart, the end sprinkler at 52 psi", () => {
+    // L = ceil(12 / 4) = 3 lines, all full (12 − 2 × 4 = 4)
+    expect([r.heads, r.headsPerLine, r.lines, r.lineSpacing]).toEqual([12, 4, 3, 10]);
+    expect(r.endPressure).toBe(52);
+    expect(s.map((h) => h.line)).toEqual([1, 1, 1, 1, 2, 2, 2, 2, 3, 3, 3, 3]);
+  });
+
+  it("walks the most remote line sprinkler by sprinkler [NFPA 13]", () => {
+    // sprinkler 1 (the end): q1 = 16.8 √52 = 16.8 × 7.21110 = 121.1465 gpm at 52 psi
+    expect(s[0].pressure).toBe(52);
+    expect(s[0].flow).toBeCloseTo(121.1465, 4);
+    expect(hw(121.1465, 3.068) * 10).toBeCloseTo(0.19579, 5);
+    // 1→2 carries 121.1465 gpm: 4.52 × 121.1465^1.85 / 1 649 950 = 4.52 × 7147.0 / 1 649 950 = 0.019579 psi/ft;
+    //   × 10 ft = 0.19579 psi. Sprinkler 2: 52 + 0.19579 = 52.1958 psi; 16.8 √52.1958 = 16.8 × 7.22467 = 121.3744 gpm
+    expect(s[1].pressure).toBeCloseTo(52.1958, 4);
+    expect(s[1].flow).toBeCloseTo(121.3744, 4);
+    // 2→3 carries 121.1465 + 121.3744 = 242.5209 gpm: 4.52 × 25 809.9 / 1 649 950 = 0.070706 psi/ft; × 10 = 0.70706 psi.
+    //   Sprinkler 3: 52.1958 + 0.70706 = 52.9028 psi; 16.8 × 7.27343 = 122.1937 gpm
+    expect(hw(242.5209, 3.068) * 10).toBeCloseTo(0.70706, 5);
+    expect(s[2].pressure).toBeCloseTo(52.9028, 4);
+    expect(s[2].flow).toBeCloseTo(122.1937, 4);
+    // 3→4 carries 242.5209 + 122.1937 = 364.7146 gpm: 4.52 × 54 905.2 / 1 649 950 = 0.150411 psi/ft; × 10 = 1.50411 psi.
+    //   Sprinkler 4: 52.9028 + 1.50411 = 54.4070 psi; 16.8 × 7.37611 = 123.9186 gpm
+    expect(hw(364.7146, 3.068) * 10).toBeCloseTo(1.50411, 5);
+    expect(s[3].pressure).toBeCloseTo(54.407, 4);
+    expect(s[3].flow).toBeCloseTo(123.9186, 4);
+    // 4→cross main carries 364.7146 + 123.9186 = 488.6332 gpm: 4.52 × 94 323.2 / 1 649 950 = 0.258396 psi/ft;
+    //   × 10 = 2.58396 psi. Line 1 at the cross main: 488.6332 gpm at 54.4070 + 2.58396 = 56.9909 psi
+    expect(hw(488.6332, 3.068) * 10).toBeCloseTo(2.58396, 5);
+    expect(r.lineFlows[0]).toBeCloseTo(488.6332, 4);
+    expect(r.linePressures[0]).toBeCloseTo(56.9909, 4);
+  });
+
+  it("feeds the further lines by their line K through the cross main [NFPA 13]", () => {
+    // line K = 488.6332 / √56.9909 = 488.6332 / 7.549233 = 64.7262 gpm/psi^0.5
+    // cross main, line 1 → 2, carries 488.6332 gpm: 4.52 × 94 323.2 / 45 590 182 = 0.0093516 psi/ft; × 10 = 0.09352 psi.
+    //   Line 2: 56.9909 + 0.09352 = 57.0844 psi; 64.7262 × √57.0844 = 64.7262 × 7.555424 = 489.0339 gpm
+    expect(hw(488.6332, 6.065) * 10).toBeCloseTo(0.09352, 5);
+    expect(r.linePressures[1]).toBeCloseTo(57.0844, 4);
+    expect(r.lineFlows[1]).toBeCloseTo(489.0339, 4);
+    // line 2 → 3 carries 488.6332 + 489.0339 = 977.6671 gpm: 4.52 × 340 293.3 / 45 590 182 = 0.0337381 psi/ft;
+    //   × 10 = 0.33738 psi. Line 3: 57.0844 + 0.33738 = 57.4218 psi; 64.7262 × 7.577719 = 490.4770 gpm
+    expect(hw(977.6671, 6.065) * 10).toBeCloseTo(0.33738, 5);
+    expect(r.linePressures[2]).toBeCloseTo(57.4218, 4);
+    expect(r.lineFlows[2]).toBeCloseTo(490.477, 4);
+    // at the last line: 488.6332 + 489.0339 + 490.4770 = 1468.1441 gpm at 57.4218 psi
+    expect(r.flow).toBeCloseTo(1468.1441, 4);
+    expect(r.pressure).toBeCloseTo(57.4218, 4);
+    // line 2's end sprinkler: its line fed at 57.0844 instead of 56.9909 psi, every pressure × 57.0844 / 56.9909 =
+    //   1.001641: 52 × 1.001641 = 52.0853 psi, flowing 16.8 √52.0853 = 16.8 × 7.217017 = 121.2459 gpm
+    expect(s[4].pressure).toBeCloseTo(52.0853, 4);
+    expect(s[4].flow).toBeCloseTo(121.2459, 4);
+  });
+
+  it("flow is the sum of the sprinklers' flows, each K √p, each at least K √min_pressure [NFPA 13]", () => {
+    for (const h of s) {
+      expect(h.flow).toBeCloseTo(16.8 * Math.sqrt(h.pressure), 9);
+      expect(h.pressure).toBeGreaterThanOrEqual(52);
+    }
+    expect(s.reduce((a, h) => a + h.flow, 0) / r.flow).toBeCloseTo(1, 12);
+    expect(r.flow).toBeGreaterThanOrEqual(12 * 16.8 * Math.sqrt(52)); // 12 × 121.1465 = 1453.76 gpm
+  });
+});
+
+describe("HEADSDEMAND solve: the line nearest the feed flows the remainder [NFPA 13]", () => {
+  // 10 sprinklers, 4 a line: L = ceil(10 / 4) = 3 lines, the last flowing 10 − 2 × 4 = 2
+  const r = solveHeadsDemand({ ...storage, heads: 10 }, headLoss("US"), true);
+
+  it("solves the two-sprinkler line on its own, then feeds it from the cross main", () => {
+    expect([r.heads, r.headsPerLine, r.lines]).toEqual([10, 4, 3]);
+    expect(r.sprinklers!.map((h) => h.line)).toEqual([1, 1, 1, 1, 2, 2, 2, 2, 3, 3]);
+    // lines 1 and 2 as in the 12-sprinkler case above: 488.6332 gpm at 56.9909 psi, 489.0339 gpm at 57.0844 psi, and
+    //   line 3 fed at 57.4218 psi (the cross main carries the same 977.6671 gpm to it)
+    expect(r.lineFlows[0]).toBeCloseTo(488.6332, 4);
+    expect(r.lineFlows[1]).toBeCloseTo(489.0339, 4);
+    expect(r.linePressures[2]).toBeCloseTo(57.4218, 4);
+    // the two-sprinkler line from 52 psi: 121.1465 gpm; + 0.19579 psi → 52.1958 psi, 121.3744 gpm; to the cross main
+    //   242.5209 gpm, + 0.70706 psi → 52.9028 psi. Its K = 242.5209 / √52.9028 = 242.5209 / 7.273431 = 33.3434;
+    //   fed at 57.4218 psi: 33.3434 × 7.577719 = 252.6668 gpm
+    expect(r.lineFlows[2]).toBeCloseTo(252.6668, 4);
+    // 488.6332 + 489.0339 + 252.6668 = 1230.3339 gpm at 57.4218 psi
+    expect(r.flow).toBeCloseTo(1230.3339, 4);
+    expect(r.pressure).toBeCloseTo(57.4218, 4);
+  });
+
+  it("walks the same lines AREADEMAND walks for the same layout", () => {
+    // AREADEMAND over 1200 ft² at 100 ft² a sprinkler, 10 ft along the lines: n = 12, m = ceil(1.2 √1200 / 10) =
+    //   ceil(4.157) = 5 (5 + 5 + 2), lines 100 / 10 = 10 ft apart; 0.05 gpm/ft² × 100 = 5 gpm < 16.8 √52, so the end
+    //   sprinkler sits at 52 psi: the very layout of 12 sprinklers 5 a line
+    const area = solveAreaDemand(
+      { density: 0.05, area: 1200, coverage: 100, kFactor: 16.8, headSpacing: 10, branchDiameter: 3.068, mainDiameter: 6.065, cFactor: 120, minPressure: 52 },
+      headLoss("US"),
+      true,
+    );
+    const heads = solveHeadsDemand({ ...storage, headsPerLine: 5 }, headLoss("US"), true);
+    expect([area.heads, area.headsPerLine, area.lines]).toEqual([12, 5, 3]);
+    expect(heads).toEqual(area);
+  });
+
+  it("one line of every sprinkler, and one sprinkler: HEADPRESSURE plus one Hazen-Williams step", () => {
+    const line = solveHeadsDemand({ ...storage, heads: 4 });
+    expect([line.lines, line.flow, line.pressure]).toEqual([1, r.lineFlows[0], r.linePressures[0]]);
+    // one sprinkler: 121.1465 gpm at 52 + 0.19579 = 52.1958 psi
+    const one = solveHeadsDemand({ ...storage, heads: 1, headsPerLine: 1 });
+    expect([one.heads, one.lines]).toEqual([1, 1]);
+    expect(one.flow).toBeCloseTo(121.1465, 4);
+    expect(one.pressure).toBeCloseTo(52.1958, 4);
+  });
+});
+
+describe("HEADSDEMAND solve: bad input is an error naming the argument, the value and what is allowed", () => {
+  const message = (inp: Partial<HeadsDemandInput>) => errorOf(() => solveHeadsDemand({ ...storage, ...inp })).message;
+
+  it("heads: a whole number from 1 to the most sprinklers a design may hold", () => {
+    expect(message({ heads: 0 })).toBe("heads: got 0; must be a whole number of sprinklers, at least 1");
+    expect(message({ heads: 12.5 })).toBe("heads: got 12.5; must be a whole number of sprinklers, at least 1");
+    expect(message({ heads: -3 })).toBe("heads: got -3; must be a whole number of sprinklers, at least 1");
+    expect(message({ heads: Number.NaN })).toBe("heads: got NaN; must be a whole number of sprinklers, at least 1");
+    expect(MAX_DESIGN_AREA_SPRINKLERS).toBe(5000);
+    expect(message({ heads: 5001 })).toBe("heads: got 5001; must be at most 5000: a design of more than 5000 sprinklers is an input error");
+    expect(message({ heads: 1e300, headsPerLine: 1 })).toMatch(/^heads: got 1e\+300; must be at most 5000/);
+    expect(solveHeadsDemand({ ...storage, heads: 5000, headsPerLine: 100, branchDiameter: 12, mainDiameter: 24 }).heads).toBe(5000);
+  });
+
+  it("heads_per_line: a whole number from 1 to heads", () => {
+    expect(message({ headsPerLine: 0 })).toBe("heads_per_line: got 0; must be a whole number of sprinklers, at least 1");
+    expect(message({ headsPerLine: 2.5 })).toBe("heads_per_line: got 2.5; must be a whole number of sprinklers, at least 1");
+    expect(message({ headsPerLine: 13 })).toBe("heads_per_line: got 13; must be at most heads, 12");
+  });
+
+  it("spacings: no closer than 3 ft along a line or between lines", () => {
+    expect(message({ headSpacing: 2 })).toBe("head_spacing: got 2 ft; must be at least 3 ft: sprinklers closer than that on a line are an input error");
+    expect(message({ lineSpacing: 1e-10 })).toBe("line_spacing: got 1e-10 ft; must be at least 3 ft: branch lines closer than that are an input error");
+    expect(message({ lineSpacing: 0 })).toBe("line_spacing: got 0 ft; must be greater than 0");
+  });
+
+  it("quantities that are not positive, and pipes too small for any finite loss", () => {
+    expect(message({ kFactor: 0 })).toBe("k_factor: got 0 gpm/psi^0.5; must be greater than 0");
+    expect(message({ minPressure: -1 })).toBe("min_pressure: got -1 psi; must be greater than 0");
+    expect(message({ cFactor: Infinity })).toBe("c_factor: got Infinity; must be greater than 0");
+    expect(message({ branchDiameter: 1e-70 })).toBe("branch_diameter: got 1e-70 in; must be larger: the friction loss along a branch line has no finite value");
+    expect(message({ mainDiameter: 1e-70 })).toBe("main_diameter: got 1e-70 in; must be larger: the friction loss in the cross main has no finite value");
   });
 });
