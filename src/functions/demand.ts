@@ -1,14 +1,14 @@
 /**
  * Cell functions of the sprinkler demand: one sprinkler (HEADFLOW, HEADPRESSURE), the design area's counts
- * (HEADCOUNT, HEADSPERLINE), the tree design-area solve (AREADEMAND) and the density/area, system adjustment, hose and
- * duration tables (DESIGNDENSITY, DESIGNAREA, ADJUSTAREA, HOSEALLOWANCE, DURATION). Engine: src/engine/sprinkler.ts,
- * tree.ts, design.ts.
+ * (HEADCOUNT, HEADSPERLINE), the tree design-area solves (AREADEMAND, HEADSDEMAND) and the density/area, system
+ * adjustment, hose and duration tables (DESIGNDENSITY, DESIGNAREA, ADJUSTAREA, HOSEALLOWANCE, DURATION). Engine:
+ * src/engine/sprinkler.ts, tree.ts, design.ts.
  */
 import { adjustedArea, designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
 import { finiteOr, q as qty } from "../engine/errors";
 import { headLoss } from "../engine/friction";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
-import { DEFAULT_C_FACTOR, solveAreaDemand } from "../engine/tree";
+import { type AreaDemand, DEFAULT_C_FACTOR, solveAreaDemand, solveHeadsDemand } from "../engine/tree";
 import { type UnitSystem, fromUS } from "../engine/units";
 import { LIMITS_US, isBlank, numberArg, optionalNumberArg, quantityArg } from "./args";
 import { cell } from "./bridge";
@@ -154,7 +154,11 @@ function areaDemandRow(
     cFactor: isBlank(cFactor) ? DEFAULT_C_FACTOR : cFactorArg(cFactor),
     minPressure: minPressureArg(minPressure, u),
   };
-  const r = solveAreaDemand(inp, headLoss(u));
+  return demandRow(solveAreaDemand(inp, headLoss(u)), u);
+}
+
+/** A solved tree design area as AREADEMAND and HEADSDEMAND spill it: [flow, pressure, heads, lines, end_pressure]. */
+function demandRow(r: AreaDemand, u: UnitSystem): unknown[][] {
   return [
     [
       fromUS("flow", r.flow, u),
@@ -164,6 +168,58 @@ function areaDemandRow(
       fromUS("pressure", r.endPressure, u),
     ],
   ];
+}
+
+// ─── HEADSDEMAND ─────────────────────────────────────────────────────────────────────────────────────────────────────────
+/** HEADSDEMAND's output columns (one row): AREADEMAND's. */
+export const HEADSDEMAND_COLUMNS = AREADEMAND_COLUMNS;
+/** HEADSDEMAND spills one row of its columns. */
+export const HEADSDEMAND_SPILL: SpillShape = { rows: 1, columns: HEADSDEMAND_COLUMNS.length };
+
+/**
+ * Demand of a design by number of sprinklers on a tree system (NFPA 13: storage, high-K and early-suppression
+ * sprinklers): heads sprinklers, heads_per_line on each full line and the remainder on the line nearest the feed, the
+ * most remote at min_pressure (flow K √min_pressure), solved sprinkler by sprinkler as AREADEMAND is. No elevation: add
+ * ELEVATION.
+ * @customfunction
+ * @param heads Sprinklers flowing (a whole number).
+ * @param heads_per_line Sprinklers on each full branch line (a whole number, at most heads).
+ * @param k_factor Sprinkler K-factor (gpm/psi^0.5; SI: L/min/bar^0.5).
+ * @param min_pressure Pressure of the most remote sprinkler, the listing's minimum (psi; SI: bar).
+ * @param head_spacing Distance between sprinklers along a branch line (ft; SI: m).
+ * @param line_spacing Distance between branch lines along the cross main (ft; SI: m).
+ * @param branch_diameter Internal diameter of the branch lines (in; SI: mm).
+ * @param main_diameter Internal diameter of the cross main (in; SI: mm).
+ * @param c_factor Hazen-Williams C of both; default 120.
+ * @param units "US" (default) or "SI".
+ * @returns One row: [flow (gpm; SI: L/min), pressure (psi; SI: bar) in the cross main at the last line, sprinklers flowing, lines, end-sprinkler pressure].
+ */
+export function headsdemand(
+  heads: any,
+  heads_per_line: any,
+  k_factor: any,
+  min_pressure: any,
+  head_spacing: any,
+  line_spacing: any,
+  branch_diameter: any,
+  main_diameter: any,
+  c_factor?: any,
+  units?: any,
+): any[][] {
+  return cell(units, (u) => {
+    const inp = {
+      heads: numberArg(heads, "heads"), // the engine says what counts of sprinklers are allowed
+      headsPerLine: numberArg(heads_per_line, "heads_per_line"),
+      kFactor: quantityArg(k_factor, "k_factor", "kfactor", u),
+      minPressure: quantityArg(min_pressure, "min_pressure", "pressure", u),
+      headSpacing: quantityArg(head_spacing, "head_spacing", "length", u),
+      lineSpacing: quantityArg(line_spacing, "line_spacing", "length", u),
+      branchDiameter: quantityArg(branch_diameter, "branch_diameter", "diameter", u),
+      mainDiameter: quantityArg(main_diameter, "main_diameter", "diameter", u),
+      cFactor: isBlank(c_factor) ? DEFAULT_C_FACTOR : cFactorArg(c_factor),
+    };
+    return demandRow(solveHeadsDemand(inp, headLoss(u)), u);
+  });
 }
 
 // ─── Density/area, hose and duration tables ──────────────────────────────────────────────────────────────────────────────

@@ -1,12 +1,13 @@
 /**
- * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, SIZEFOR, PUMPSIZE, PUMPCURVE (and
- * PUMPSUCTION beside them), in US and SI units, with their spill shapes and every error path.
+ * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, HEADSDEMAND, SIZEFOR, PUMPSIZE,
+ * PUMPCURVE (and PUMPSUCTION beside them), in US and SI units, with their spill shapes and every error path.
  */
 import { describe, expect, it } from "vitest";
 import {
   adjustarea,
   areademand,
   cfactor,
+  headsdemand,
   elevation,
   friction,
   headpressure,
@@ -21,7 +22,7 @@ import {
   supplycurve,
 } from "../../src/functions/functions";
 import { ShimCellError } from "../../src/preview/customFunctionsShim";
-import { BAR_PER_PSI, L_PER_GAL, M_PER_FT, MM_PER_IN } from "../../src/engine/units";
+import { BAR_PER_PSI, KSI_PER_KUS, L_PER_GAL, M_PER_FT, MM_PER_IN } from "../../src/engine/units";
 import { errorOf } from "./errors";
 
 /** A cell value that is an error: its code and message. */
@@ -304,6 +305,99 @@ describe("AREADEMAND", () => {
     );
     expect(errorOf(() => areademand(...args, 0)).message).toMatch(/^c_factor: got 0; must be from 10 to 200/);
     expect(errorOf(() => areademand(...args, 120, 7, "imperial units")).message).toMatch(/^units/);
+  });
+});
+
+// ─── HEADSDEMAND ─────────────────────────────────────────────────────────────────────────────────────────────────
+describe("HEADSDEMAND", () => {
+  // 12 sprinklers K 16.8 at 52 psi, 4 a line, 10 ft × 10 ft; 3 in branch lines (3.068 in) and a 6 in cross main
+  // (6.065 in), Schedule 40 [ASME B36.10M]
+  const rest = [16.8, 52, 10, 10, 3.068, 6.065] as const;
+  const args = [12, 4, ...rest] as const;
+
+  it("spills one row: flow, pressure, heads, lines, end pressure [NFPA 13]", () => {
+    const out = headsdemand(...args);
+    expect(out).toHaveLength(1);
+    expect(out[0]).toHaveLength(5);
+    const [flow, pressure, heads, lines, end] = out[0];
+    // 3 lines of 4 (ceil(12 / 4)); the end sprinkler at 52 psi
+    expect([heads, lines, end]).toEqual([12, 3, 52]);
+    // worked sprinkler by sprinkler in test/engine/tree.test.ts: 488.6332 + 489.0339 + 490.4770 = 1468.1441 gpm at
+    // 57.4218 psi in the cross main at the last line [NFPA 13]
+    expect(flow).toBeCloseTo(1468.1441, 4);
+    expect(pressure).toBeCloseTo(57.4218, 4);
+    // never below 12 × 16.8 √52 = 12 × 121.1465 = 1453.76 gpm [NFPA 13]
+    expect(flow).toBeGreaterThanOrEqual(1453.76);
+  });
+
+  it("flows the remainder on the line nearest the feed [NFPA 13]", () => {
+    // 10 sprinklers 4 a line: 4 + 4 + 2; 488.6332 + 489.0339 + 252.6668 = 1230.3339 gpm at 57.4218 psi
+    // (test/engine/tree.test.ts works the two-sprinkler line by hand)
+    const [flow, pressure, heads, lines, end] = headsdemand(10, 4, ...rest)[0];
+    expect([heads, lines, end]).toEqual([10, 3, 52]);
+    expect(flow).toBeCloseTo(1230.3339, 4);
+    expect(pressure).toBeCloseTo(57.4218, 4);
+  });
+
+  it("defaults C to 120 [NFPA 13], reads whole numbers typed as text, and gives AREADEMAND's result on its layout", () => {
+    expect(headsdemand(...args, null)).toEqual(headsdemand(...args, 120));
+    expect(headsdemand("12", "4", ...rest)).toEqual(headsdemand(...args));
+    // AREADEMAND over 1200 ft² at 100 ft² a sprinkler, 10 ft along the lines, puts the same 12 sprinklers 5 + 5 + 2
+    // (ceil(1.2 √1200 / 10) = ceil(4.157) = 5), lines 100 / 10 = 10 ft apart, the end sprinkler at 52 psi
+    // (0.05 × 100 = 5 gpm < 16.8 √52): HEADSDEMAND with heads_per_line 5 walks the very same lines
+    expect(headsdemand(12, 5, ...rest)).toEqual(areademand(0.05, 1200, 100, 16.8, 10, 3.068, 6.065, 120, 52));
+  });
+
+  it("works in SI: the same design in L/min/bar^0.5, bar, m and mm [NFPA 13] [EN 12845]", () => {
+    const us = headsdemand(...args)[0];
+    const si = headsdemand(
+      12,
+      4,
+      16.8 * KSI_PER_KUS, // K 16.8 US = K 242 metric (common practice)
+      52 * BAR_PER_PSI,
+      10 * M_PER_FT,
+      10 * M_PER_FT,
+      3.068 * MM_PER_IN,
+      6.065 * MM_PER_IN,
+      null,
+      "SI",
+    )[0];
+    expect([si[2], si[3]]).toEqual([us[2], us[3]]);
+    expect(Number(si[4])).toBeCloseTo(52 * BAR_PER_PSI, 12);
+    // within 0.2 %: the SI friction form differs by that much [NFPA 13] [EN 12845]
+    expect(Math.abs(Number(si[0]) / L_PER_GAL / Number(us[0]) - 1)).toBeLessThan(0.002);
+    expect(Math.abs(Number(si[1]) / BAR_PER_PSI / Number(us[1]) - 1)).toBeLessThan(0.002);
+  });
+
+  it("refuses bad input with messages naming the argument, the value and what is allowed", () => {
+    expect(errorOf(() => headsdemand(0, 4, ...rest)).message).toBe("heads: got 0; must be a whole number of sprinklers, at least 1");
+    expect(errorOf(() => headsdemand(12.5, 4, ...rest)).message).toBe("heads: got 12.5; must be a whole number of sprinklers, at least 1");
+    expect(errorOf(() => headsdemand(6000, 4, ...rest)).message).toBe(
+      "heads: got 6000; must be at most 5000: a design of more than 5000 sprinklers is an input error",
+    );
+    expect(errorOf(() => headsdemand("twelve", 4, ...rest)).message).toBe('heads: got "twelve"; must be a number');
+    expect(errorOf(() => headsdemand(null, 4, ...rest)).message).toBe("heads is empty: type a number");
+    expect(errorOf(() => headsdemand(4, 5, ...rest)).message).toBe("heads_per_line: got 5; must be at most heads, 4");
+    expect(errorOf(() => headsdemand(12, 0, ...rest)).message).toBe("heads_per_line: got 0; must be a whole number of sprinklers, at least 1");
+    expect(errorOf(() => headsdemand(12, 1.5, ...rest)).message).toBe(
+      "heads_per_line: got 1.5; must be a whole number of sprinklers, at least 1",
+    );
+    expect(errorOf(() => headsdemand(12, 4, 16.8, null, 10, 10, 3.068, 6.065)).message).toBe("min_pressure is empty: type a number");
+    expect(errorOf(() => headsdemand(12, 4, 16.8, 52, 2, 10, 3.068, 6.065)).message).toBe(
+      "head_spacing: got 2 ft; must be at least 3 ft: sprinklers closer than that on a line are an input error",
+    );
+    expect(errorOf(() => headsdemand(12, 4, 16.8, 52, 10, 2, 3.068, 6.065)).message).toBe(
+      "line_spacing: got 2 ft; must be at least 3 ft: branch lines closer than that are an input error",
+    );
+    // 3 ft = 0.9144 m
+    expect(errorOf(() => headsdemand(12, 4, 240, 3.5, 3, 0.5, 80, 150, null, "SI")).message).toBe(
+      "line_spacing: got 0.5 m; must be at least 0.9144 m: branch lines closer than that are an input error",
+    );
+    expect(errorOf(() => headsdemand(12, 4, 16.8, 52, 10, 1e6, 3.068, 6.065)).message).toBe(
+      "line_spacing: got 1000000 ft; must be greater than 0 and at most 100000 ft",
+    );
+    expect(errorOf(() => headsdemand(...args, 0)).message).toMatch(/^c_factor: got 0; must be from 10 to 200/);
+    expect(errorOf(() => headsdemand(...args, 120, "imperial units")).message).toMatch(/^units/);
   });
 });
 

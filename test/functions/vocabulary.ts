@@ -40,6 +40,7 @@ export const VOCABULARY: string[] = [
   "PIPERUN",
   "SUPPLYCURVE",
   "AREADEMAND",
+  "HEADSDEMAND",
   "SIZEFOR",
   "PUMPSIZE",
   "PUMPCURVE",

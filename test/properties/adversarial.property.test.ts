@@ -114,6 +114,9 @@ const PLAUSIBLE: Readonly<Record<string, Plausible>> = {
   k_factor: q("kfactor", 2.8, 25.2),
   min_pressure: q("pressure", 5, 30, true),
   head_spacing: q("length", 6, 15),
+  line_spacing: q("length", 6, 15),
+  heads: { value: fc.integer({ min: 1, max: 40 }) },
+  heads_per_line: { value: fc.integer({ min: 1, max: 8 }) },
   factor: { value: orBlank(lin(1, 1.4)) },
   diameter: q("diameter", 0.75, 12),
   branch_diameter: q("diameter", 1.049, 2.5),
@@ -207,7 +210,7 @@ const SPECIAL: unknown[] = [
 const NUMERIC_TEXT = ["12.5", "1e3", "1E3", " 7 ", "-3", "0", "-0", "1E-300", "1e999", "0x10", "1,000", "Infinity", "NaN", ".5", "5.", "+4", "1e-320"];
 const UNIT_TEXT_UNITS = ["gpm", "psi", "in", "ft", "ft²", "L/min", "bar", "mm", "m", "%"];
 const CODES = [
-  "OH2", "LH", "EH2", "light", "wet", "dry", "40", "10", "CPVC", "K", "DR18", "2E T", "E", "T GV", "US", "SI", "steel",
+  "OH2", "LH", "EH2", "light", "wet", "dry", "double interlock", "40", "10", "CPVC", "K", "DR18", "2E T", "E", "T GV", "US", "SI", "steel",
   "min", "max", "inside", "outside", "total", "DN65", "2-1/2", "2½", "gpm", "L/min", "psi", "bar", "K-US",
 ];
 
@@ -390,6 +393,14 @@ const KNOWN: Readonly<Record<string, unknown[][]>> = {
     [0.2, 1500, 130, 5.6, 12, 1e-10, 2.469],
     [0.15, 1500, 130, 5.6, 13, 1.38, 1e-70],
   ],
+  HEADSDEMAND: [
+    [1e300, 1, 16.8, 52, 10, 10, 3.068, 6.065],
+    [12, 4, 16.8, 52, 10, 1e-300, 3.068, 6.065],
+    [5000, 1, 100, 1000, 100_000, 100_000, 0.1, 0.1],
+    [5000, 5000, 100, 1000, 100_000, 100_000, 0.1, 0.1],
+    [-0, -0, 16.8, 52, 10, 10, 3.068, 6.065],
+  ],
+  ADJUSTAREA: [[-0, "dry"], [5e-324, "double interlock"], [1_000_000, "dry"], [1500, "constructor"]],
   ELEVATION: [[-0], [-2.5e-323, "SI"]],
   PIPERUN: [[[[500, 4.026, 120, 100, 0, -0, 0]]]],
   MARGIN: [[3000, 40, 72, 58, 1100], [68.7542, 10, 5e-324, 0, 100]],
