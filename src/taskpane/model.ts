@@ -108,6 +108,8 @@ export interface SuctionCheck {
   ratedFlow: number;
   /** true where the pump checked is the one the user chose */
   chosen: boolean;
+  /** gpm drawn from the main: 150 % of the rated flow plus the hose drawn beside the pump */
+  drawn: number;
   /** psi left in the main at 150 % of the rated flow, or null where the main runs dry first */
   pressure: number | null;
   /** PUMPSUCTION's message where the main runs dry first */
@@ -356,12 +358,13 @@ export function buildModel(readings: Readings): PaneModel {
 
 /** PUMPSUCTION for the pump checked, with the hose drawn beside it, against the minimum (US units). */
 function suctionCheck(ratedFlow: number, chosen: boolean, test: FlowTest, otherFlow: number, minimum: number, units: UnitSystem): SuctionCheck {
+  const drawn = OVERLOAD_FLOW_RATIO * ratedFlow + otherFlow;
   try {
     const pressure = pumpSuction(ratedFlow, test, otherFlow);
-    return { ratedFlow, chosen, pressure, problem: null, below: pressure < minimum };
+    return { ratedFlow, chosen, drawn, pressure, problem: null, below: pressure < minimum };
   } catch (e) {
     if (!(e instanceof HeadroomError)) throw e;
-    return { ratedFlow, chosen, pressure: null, problem: e.messageIn(units), below: true };
+    return { ratedFlow, chosen, drawn, pressure: null, problem: e.messageIn(units), below: true };
   }
 }
 

@@ -3,7 +3,8 @@
  * axis toggle; the inputs it read; "New estimate sheet" and "Share copy". It talks only to a Workbook port, so the
  * Excel add-in (taskpane.ts) and the preview host mount the same pane: mountPane(root, port).
  *
- * Stable hooks: data-role="verdict" (its box carries data-state: pass, marginal, fail, cannot-serve), "margin",
+ * Stable hooks: data-role="state" (the state in words), "verdict" (its box carries data-state: pass, marginal, fail,
+ * cannot-serve), "margin",
  * "caveat", "pump", "suction", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
  * "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
  */
@@ -125,7 +126,12 @@ export function suctionLine(e: Estimate): string | null {
   const u = e.units;
   const which = s.chosen ? "the chosen pump's" : "the suggested pump's";
   const minimum = `${formatPressure(e.suctionMinimum, u)}${e.suctionMinimumGiven ? "" : " (common practice; set Suction_Minimum)"}`;
-  if (s.pressure === null) return `Main at 150 % of ${which} rated flow: ${s.problem}. A pump alone cannot serve: a suction tank or a stronger main is needed.`;
+  if (s.pressure === null) {
+    return (
+      `Main at 150 % of ${which} rated flow (${formatFlow(s.drawn, u)} with the hose beside it): it runs dry at ` +
+      `${formatFlow(e.assessment.exhaustedAt, u)}. A pump alone cannot serve: a suction tank or a stronger main is needed.`
+    );
+  }
   const at = `Main at 150 % of ${which} rated flow: ${formatPressure(s.pressure, u)}`;
   return s.below
     ? `${at}, below the ${minimum} it must keep. A pump alone cannot serve: a suction tank or a stronger main is needed.`
@@ -134,6 +140,14 @@ export function suctionLine(e: Estimate): string | null {
 
 /** The verdict box's state for the stylesheet and for tests. */
 const BOX_STATE: Record<Estimate["state"], string> = { enough: "pass", marginal: "marginal", short: "fail", "cannot-serve": "cannot-serve" };
+
+/** The state in a few words, above the verdict sentence. */
+export const STATE_WORDS: Record<Estimate["state"], string> = {
+  enough: "No pump needed",
+  marginal: "Marginal",
+  short: "Pump needed",
+  "cannot-serve": "A pump alone cannot serve",
+};
 
 export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOptions = {}): PaneHandle {
   const doc = root.ownerDocument;
@@ -145,6 +159,8 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
 
   // ── skeleton ──
   const style = h(doc, "style", {}, PANE_CSS);
+  const stateTag = h(doc, "p", { class: "hr-state", "data-role": "state" });
+  stateTag.hidden = true;
   const verdict = h(doc, "p", { class: "hr-verdict", "data-role": "verdict", "aria-live": "polite" }, "Reading the workbook…");
   const margin = h(doc, "p", { class: "hr-margin", "data-role": "margin" });
   const caveat = h(doc, "p", { class: "hr-caveat", "data-role": "caveat" });
@@ -152,7 +168,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   const suction = h(doc, "p", { class: "hr-pump", "data-role": "suction" });
   const steps = h(doc, "ul", { class: "hr-steps", "data-role": "next-steps", "aria-label": "What to do next" });
   const problems = h(doc, "ul", { class: "hr-problems", "data-role": "problems" });
-  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, verdict, margin, caveat, pump, suction, steps, problems);
+  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, verdict, margin, caveat, pump, suction, steps, problems);
   const caution = h(doc, "p", { class: "hr-caution", "data-role": "caution" }, CAUTION);
   const calcNote = h(doc, "p", { class: "hr-calc-note", "data-role": "calc-note" });
   calcNote.hidden = true;
@@ -188,6 +204,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     p.hidden = text === null;
   }
   function clearLines(): void {
+    show(stateTag, null);
     margin.textContent = "";
     for (const p of [caveat, pump, suction]) show(p, null);
     steps.replaceChildren();
@@ -254,6 +271,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     const e = m.estimate;
     lastReady = e;
     box.dataset.state = BOX_STATE[e.state];
+    show(stateTag, STATE_WORDS[e.state]);
     // VERDICT's sentence; its flow-test caveat stands on its own line below
     verdict.textContent = e.headline;
     margin.textContent = marginLine(e);

@@ -18,6 +18,8 @@ export const PANE_CSS = `
 .hr-verdict-box[data-state="marginal"] { border-left-color: ${PALETTE.sprinklers}; border-left-style: dashed; }
 .hr-verdict-box[data-state="cannot-serve"] { border-left-color: ${PALETTE.demand}; border-left-width: 10px; }
 .hr-verdict-box[data-state="problems"] { border-left-color: #8A5A00; }
+.hr-state { margin: 0 0 4px; font-size: 12px; font-weight: 700; letter-spacing: 0.04em; text-transform: uppercase; color: #3A4A5A; }
+.hr-state[hidden] { display: none; }
 .hr-verdict { font-size: 20px; font-weight: 700; line-height: 1.25; margin: 0; }
 .hr-margin, .hr-pump, .hr-caveat { margin: 6px 0 0; font-size: 13px; }
 .hr-caveat { color: #6B2C00; }

@@ -89,7 +89,7 @@ async function typeInto(address: string, text: string): Promise<void> {
 
 /** The address of the label cell in column A reading exactly `label`. */
 async function labelAddress(label: string): Promise<string> {
-  const td = page.locator('[data-role="grid"] td[data-address^="A"]').filter({ hasText: new RegExp(`^${label}$`) });
+  const td = page.locator('[data-role="grid"] td[data-address^="A"]').filter({ hasText: new RegExp(`^${label.replace(/[.*+?^${}()|[\]\\]/g, "\\$&")}$`) });
   await expect(td.count()).resolves.toBe(1);
   return (await td.getAttribute("data-address"))!;
 }
@@ -138,7 +138,7 @@ describe("the preview of the sample that needs a pump", () => {
     // the grid's own VERDICT cell says what the pane says
     const verdictCell = await formulaCell("=HEADROOM.VERDICT(");
     expect((await cell(verdictCell).textContent())?.trim()).toBe(await verdict());
-    expect(await cell("B12").getAttribute("class")).toMatch(/role-input/);
+    expect(await cell("B13").getAttribute("class")).toMatch(/role-input/); // test 1's static pressure
     expect(await page.locator('[data-role="grid"] td.spilled').count()).toBeGreaterThan(10);
     await page.screenshot({ path: `${RESULTS}/preview.png` });
   });
@@ -173,7 +173,7 @@ describe("the preview of the sample that needs a pump", () => {
   });
 
   test("nonsense in an input gives a clear error where it is used, and no other value is lost", async () => {
-    const staticCell = await valueCellOf("Static pressure");
+    const staticCell = await valueCellOf("Static pressure (psi)");
     const before = await inputs();
     expect(Object.keys(before).length).toBeGreaterThan(20);
     await typeInto(staticCell, "abc");
@@ -298,6 +298,7 @@ describe("the pane's states at 320 px", () => {
     await open(PUMP_SAMPLE);
     await setNamed("Suction_Minimum", "75");
     expect(await boxState()).toBe("cannot-serve");
+    await expect(page.locator('[data-role="state"]').textContent()).resolves.toBe("A pump alone cannot serve");
     await expect(page.locator('[data-role="suction"]').textContent()).resolves.toMatch(/a suction tank or a stronger main is needed\.$/);
     await expect(page.locator('[data-role="next-steps"]').textContent()).resolves.toMatch(/suction tank/);
     await shoot("cannot-serve");
@@ -415,7 +416,7 @@ describe("the pane's actions on the preview's workbook", () => {
     expect(formulas).toBe(0);
 
     await open(OFFICE_SAMPLE);
-    await typeInto(await valueCellOf("Static pressure"), "abc");
+    await typeInto(await valueCellOf("Static pressure (psi)"), "abc");
     const tabs = await page.locator('[data-role="sheet-tabs"] [data-sheet]').count();
     await page.click('[data-role="share-copy"]');
     await expect.poll(async () => page.locator('[data-role="pane-host"] [data-role="status"]').textContent()).toMatch(/No share copy made: B\d+ shows #VALUE!/);

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { type Estimate, buildModel } from "../../src/taskpane/model";
-import { pumpLine, suctionLine } from "../../src/taskpane/pane";
+import { STATE_WORDS, pumpLine, suctionLine } from "../../src/taskpane/pane";
 import { BASE, FakePort, type Values } from "./fakePort";
 
 function ready(v: Values): Estimate {
@@ -73,6 +73,17 @@ describe("pane states", () => {
     expect(suctionLine(e)).toMatch(/below the 60\.0 psi it must keep\. A pump alone cannot serve: a suction tank or a stronger main is needed\.$/);
     expect(e.nextSteps.join(" ")).toMatch(/suction tank/);
     expect(pumpLine(e)).toBeNull();
+    expect(STATE_WORDS[e.state]).toBe("A pump alone cannot serve");
+  });
+
+  it("says in plain flows where the main runs dry at the pump's 150 % point", () => {
+    // a 1500 gpm pump draws 2250 gpm + 500 gpm of hose beside it = 2750 gpm, beyond the 2665.8 gpm where the base
+    // test reaches 0 psi [NFPA 291]: the pump at 1500 gpm comes from a chosen rating
+    const e = ready({ ...BASE, Demand_Flow: 1000, Pump_Flow: 500, Demand_Pressure: 80, Pump_RatedFlow: 1500, Pump_RatedPressure: 40 });
+    expect(e.suction).toMatchObject({ pressure: null, below: true, drawn: 2750 });
+    expect(suctionLine(e)).toBe(
+      "Main at 150 % of the chosen pump's rated flow (2750 gpm with the hose beside it): it runs dry at 2666 gpm. A pump alone cannot serve: a suction tank or a stronger main is needed.",
+    );
   });
 
   it("a pump alone cannot serve where the supply runs dry before the demand flow, and never says 'Pump needed: the supply reaches 0'", () => {
