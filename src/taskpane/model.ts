@@ -37,6 +37,15 @@ export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; 
   Pump_RatedPressure: { what: "the rated pressure of the pump chosen", quantity: "pressure" },
   Pump_Flow: { what: "the flow that passes through a pump", quantity: "flow" },
   Suction_Minimum: { what: "the least pressure the public main must keep while a pump draws from it", quantity: "pressure" },
+  Pressure_EndSprinkler: { what: "the most remote sprinkler's pressure", quantity: "pressure" },
+  Pressure_AreaFriction: { what: "the friction inside the design area", quantity: "pressure" },
+  Pressure_RunFriction: { what: "the friction in the pipe run", quantity: "pressure" },
+  Pressure_Elevation: { what: "the elevation pressure of the pipe run", quantity: "pressure" },
+  Pressure_Devices: { what: "the fixed losses of the pipe run", quantity: "pressure" },
+  Run_WorstSegment: { what: "the run segment losing the most", quantity: "pressure" },
+  Run_WorstLoss: { what: "the friction of the run segment losing the most", quantity: "pressure" },
+  Run_WorstVelocity: { what: "the velocity in the run segment losing the most", quantity: "pressure" },
+  Velocity_Limit: { what: "the velocity limit of the run", quantity: "pressure" },
 };
 
 export interface Problem {

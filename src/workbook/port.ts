@@ -25,6 +25,15 @@ export const INPUT_NAMES = [
   "Pump_RatedPressure",
   "Pump_Flow",
   "Suction_Minimum",
+  "Pressure_EndSprinkler",
+  "Pressure_AreaFriction",
+  "Pressure_RunFriction",
+  "Pressure_Elevation",
+  "Pressure_Devices",
+  "Run_WorstSegment",
+  "Run_WorstLoss",
+  "Run_WorstVelocity",
+  "Velocity_Limit",
 ] as const;
 
 export type InputName = (typeof INPUT_NAMES)[number];

@@ -22,7 +22,32 @@ export interface RunSegmentInput {
   rise: number;
   /** a fixed loss in the segment (backflow preventer, meter), psi or bar */
   fixedLoss: number;
+  /** true where the segment carries the inside hose too (from where the hose stations connect: the riser and upstream) */
+  insideHose: boolean;
 }
+
+/**
+ * How the design area's demand is found: by the density/area method over a tree of branch lines (AREADEMAND, the
+ * hazard's curve), or by a number of sprinklers at a minimum pressure (HEADSDEMAND: storage, high-K and
+ * early-suppression sprinklers), whose hose allowance and duration are inputs of their own.
+ */
+export type DemandDesign =
+  | { kind: "area" }
+  | {
+      kind: "heads";
+      /** what is stored and how, in words, e.g. "rack storage of cartoned goods to 20 ft" (text) */
+      storage: string;
+      /** sprinklers flowing */
+      heads: number;
+      /** sprinklers on each full branch line */
+      headsPerLine: number;
+      /** between branch lines, ft or m */
+      lineSpacing: number;
+      /** hose stream allowance, inside + outside, gpm or L/min */
+      hose: number;
+      /** minutes */
+      duration: number;
+    };
 
 /** One hydrant flow test, in the scenario's units. */
 export interface FlowTestInput {
@@ -81,8 +106,14 @@ export interface Scenario {
   crossMain: { nominal: number | string; schedule: string };
   /** CFACTOR material of the design area's pipes */
   material: string;
-  /** "wet" or "dry" */
+  /** "wet", "dry", "preaction" (single interlock) or "double interlock": the C factor and the design area both read it */
   system: string;
+  /** the density/area method (the default), or a number of sprinklers */
+  design: DemandDesign;
+  /** fittings inside the design area not in the branch-line walk, at the branch-line size, e.g. "T" (FITTINGS list) */
+  areaFittings: string;
+  /** ft/s or m/s: a run segment faster than this is flagged (common practice: 20 ft/s) */
+  velocityLimit: number;
   /** inside hose allowance, gpm or L/min; null for HOSEALLOWANCE(hazard, "inside") */
   insideHose: number | null;
   /** true where hydrants are fed downstream of the pump, so that the outside hose flows through it */
@@ -102,14 +133,15 @@ export interface Scenario {
 }
 
 /**
- * The demo scenario every new estimate sheet starts from: an invented warehouse, an invented firm and an invented
- * flow test, for the user to overwrite. The SI demo is its own metric scenario, not a conversion.
+ * The demo scenario every new estimate sheet starts from: an invented ordinary hazard group 2 building (a print
+ * works; a joinery workshop in SI work, not storage, which the storage chapters design), an invented firm and an
+ * invented flow test, for the user to overwrite. The SI demo is its own metric scenario, not a conversion.
  */
 export function demoScenario(units: UnitSystem): Scenario {
   if (units === "SI") {
     return {
       units: "SI",
-      site: "Demo distribution shed, Bay 3",
+      site: "Demo joinery workshop, Bay 3",
       address: "3 Example Quay, Sampleport",
       preparedBy: "Sample Fire Design Studio (demo)",
       flowTests: [
@@ -132,13 +164,16 @@ export function demoScenario(units: UnitSystem): Scenario {
       crossMain: { nominal: 80, schedule: "40" },
       material: "steel",
       system: "wet",
+      design: { kind: "area" },
+      areaFittings: "T",
+      velocityLimit: 6,
       insideHose: null,
       hydrantsDownstream: false,
       run: [
-        { label: "Cross main to the riser", nominal: 80, schedule: "40", material: "steel", fittings: "2E T", length: 20, rise: 0, fixedLoss: 0 },
-        { label: "Riser with its valves", nominal: 100, schedule: "40", material: "steel", fittings: "E GV CV", length: 6, rise: 5, fixedLoss: 0 },
-        { label: "Backflow preventer", nominal: 100, schedule: "40", material: "steel", fittings: "2GV", length: 1.5, rise: 0, fixedLoss: 0.55 },
-        { label: "Underground to the street main", nominal: 150, schedule: "DR14", material: "plastic", fittings: "E GV", length: 55, rise: 1.2, fixedLoss: 0 },
+        { label: "Cross main to the riser", nominal: 80, schedule: "40", material: "steel", fittings: "2E T", length: 20, rise: 0, fixedLoss: 0, insideHose: false },
+        { label: "Riser with its valves", nominal: 100, schedule: "40", material: "steel", fittings: "E GV CV", length: 6, rise: 5, fixedLoss: 0, insideHose: true },
+        { label: "Backflow preventer", nominal: 100, schedule: "40", material: "steel", fittings: "2GV", length: 1.5, rise: 0, fixedLoss: 0.55, insideHose: true },
+        { label: "Underground to the street main", nominal: 150, schedule: "DR14", material: "plastic", fittings: "E GV", length: 55, rise: 1.2, fixedLoss: 0, insideHose: true },
       ],
       requiredMargin: 0.7,
       pump: null,
@@ -148,7 +183,7 @@ export function demoScenario(units: UnitSystem): Scenario {
   }
   return {
     units: "US",
-    site: "Demo warehouse, Unit 7",
+    site: "Demo print works, Unit 7",
     address: "7 Example Lane, Sampletown",
     preparedBy: "Sample Engineering Co. (demo)",
     flowTests: [
@@ -171,13 +206,16 @@ export function demoScenario(units: UnitSystem): Scenario {
     crossMain: { nominal: 3, schedule: "40" },
     material: "steel",
     system: "wet",
+    design: { kind: "area" },
+    areaFittings: "T",
+    velocityLimit: 20,
     insideHose: null,
     hydrantsDownstream: false,
     run: [
-      { label: "Cross main to the riser", nominal: 3, schedule: "40", material: "steel", fittings: "2E T", length: 65, rise: 0, fixedLoss: 0 },
-      { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 20, rise: 16, fixedLoss: 0 },
-      { label: "Backflow preventer", nominal: 4, schedule: "40", material: "steel", fittings: "2GV", length: 5, rise: 0, fixedLoss: 8 },
-      { label: "Underground to the street main", nominal: 6, schedule: "DR14", material: "plastic", fittings: "E GV", length: 180, rise: 4, fixedLoss: 0 },
+      { label: "Cross main to the riser", nominal: 3, schedule: "40", material: "steel", fittings: "2E T", length: 65, rise: 0, fixedLoss: 0, insideHose: false },
+      { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 20, rise: 16, fixedLoss: 0, insideHose: true },
+      { label: "Backflow preventer", nominal: 4, schedule: "40", material: "steel", fittings: "2GV", length: 5, rise: 0, fixedLoss: 8, insideHose: true },
+      { label: "Underground to the street main", nominal: 6, schedule: "DR14", material: "plastic", fittings: "E GV", length: 180, rise: 4, fixedLoss: 0, insideHose: true },
     ],
     requiredMargin: 10,
     pump: null,

@@ -171,32 +171,47 @@ export interface UsedTestRefs {
   testFlow: string;
 }
 
-/** The hazard and the design criteria it gives. */
+/** The design criteria: the hose allowance and the duration; by the density/area method, the hazard, area and density. */
 export interface HazardRefs {
-  hazard: string;
-  area: string;
-  density: string;
+  /** the hazard code cell, for the density/area method; null for a design by number of sprinklers */
+  hazard: string | null;
+  /** the design area before any adjustment for the system type (density/area method) */
+  area: string | null;
+  /** the density read at that area (density/area method) */
+  density: string | null;
   /** hose stream allowance, inside + outside */
   hose: string;
   /** the inside hose allowance used: the one typed, or HOSEALLOWANCE(hazard, "inside") */
   insideHose: string;
+  /** minutes the supply must last */
+  duration: string;
 }
 
 /** The design area's demand where the run back to the supply starts, whichever way a section finds it. */
 export interface AreaDemandRefs {
   /** sprinkler flow of the design area */
   flow: string;
-  /** pressure needed where the run starts */
+  /** pressure needed where the run starts: the design area's inlet, its fittings included */
   pressure: string;
-  /** the system type cell ("wet" or "dry") the run's C factors read */
+  /** the most remote sprinkler's pressure */
+  endPressure: string;
+  /** the system type cell the run's C factors read */
   system: string;
   /** the cell function that finds the demand, for the notes that quote it ("AREADEMAND") */
   source: string;
 }
 
-/** The run's result: the pressure needed at the supply end. */
+/** The run's result: the pressure needed at the supply end, and the columns the breakdown sums. */
 export interface RunRefs {
   pressureAfter: string;
+  /** the segments' labels, friction, elevation and fixed losses and velocities: one range each */
+  labels: string;
+  friction: string;
+  elevation: string;
+  fixed: string;
+  velocity: string;
+  /** the velocity limit cell */
+  velocityLimit: string;
 }
 
 /** The demand at the supply. */
@@ -307,7 +322,7 @@ export function waterSupplySection(s: Scenario, row: number, { units: U }: Units
   return sh.done({ tests: carried });
 }
 
-/** The occupancy hazard, the design area and density, the hose stream allowance. */
+/** The occupancy hazard, the design area and density, the hose stream allowance and the duration. */
 export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs): Section<HazardRefs> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
@@ -316,11 +331,11 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
   const classes =
     s.units === "SI"
       ? "LH, OH1, OH2, EH1 or EH2: NFPA 13's classes with their values converted to SI, not another standard's classes of the same name"
-      : "LH, OH1, OH2, EH1 or EH2: NFPA 13's occupancy classes";
+      : "LH, OH1, OH2, EH1 or EH2: NFPA 13's occupancy classes (not storage: design storage by number of sprinklers)";
   const hazard = sh.line("Occupancy hazard", "input", s.hazard, "", classes);
   const areaChosen = sh.line("Design area chosen", "input", s.designArea, u.area, "leave blank for the smallest area on the hazard's curve", f.area);
   const area = sh.line("Design area", "computed", `=IF(ISNUMBER(${areaChosen}),${areaChosen},${hr("DESIGNAREA", hazard, U)})`, u.area, "DESIGNAREA", f.area);
-  const density = sh.line("Design density", "computed", `=${hr("DESIGNDENSITY", hazard, area, U)}`, u.density, "DESIGNDENSITY", f.density);
+  const density = sh.line("Design density", "computed", `=${hr("DESIGNDENSITY", hazard, area, U)}`, u.density, "DESIGNDENSITY, read at the design area", f.density);
   const hose = sh.line("Hose stream allowance, inside + outside", "computed", `=${hr("HOSEALLOWANCE", hazard, text("total"), U)}`, u.flow, "HOSEALLOWANCE", f.flow);
   const insideChosen = sh.line("Inside hose allowance chosen", "input", s.insideHose, u.flow, "leave blank for the hazard's largest inside allowance", f.flow);
   const insideHose = sh.line(
@@ -331,23 +346,40 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
     "HOSEALLOWANCE inside: part of the total above",
     f.flow,
   );
-  return sh.done({ hazard, area, density, hose, insideHose });
+  const durationChosen = sh.line("Supply duration chosen", "input", s.duration, "min", "leave blank for the upper end of the hazard's range", "0");
+  const duration = sh.line(
+    "Supply duration",
+    "computed",
+    `=IF(ISBLANK(${durationChosen}),${hr("DURATION", hazard, text("max"))},${durationChosen})`,
+    "min",
+    "DURATION [NFPA 13]",
+    "0",
+  );
+  return sh.done({ hazard, area, density, hose, insideHose, duration });
 }
 
 /**
- * The design area as a tree: sprinklers on branch lines fed by a cross main, their pipes and C factor, and
- * AREADEMAND's flow and pressure at the cross main.
+ * The design criteria of a design by number of sprinklers (storage, high-K and early-suppression sprinklers): what is
+ * stored, and the hose allowance and duration the storage chapter gives, typed in (no hidden storage table).
  */
-export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard: { area, density } }) => {
+export function storageCriteriaSection(s: Scenario, row: number): Section<HazardRefs> {
+  if (s.design.kind !== "heads") throw new Error("storageCriteriaSection needs a design by number of sprinklers");
+  const d = s.design;
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
   const sh = new SectionWriter(row);
-  sh.heading("Sprinklers and the design area's pipes");
-  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
-  const coverage = sh.line("Coverage per sprinkler", "input", s.sprinkler.coverage, u.area, "", f.area);
-  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, "", s.units === "SI" ? "0.00" : "0.0");
-  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, s.units === "SI" ? "0.5 bar unless the listing says more" : "7 psi unless the listing says more", f.pressure);
-  sh.line("Most remote sprinkler flow", "computed", `=${hr("HEADFLOW", density, coverage, k, minP, U)}`, u.flow, "HEADFLOW", "0.0");
+  sh.heading("Storage design criteria");
+  sh.line("Storage", "input", d.storage, "", "what is stored, how and how high: the storage chapter of NFPA 13 that applies gives the criteria below");
+  const hose = sh.line("Hose stream allowance, inside + outside", "input", d.hose, u.flow, "from the storage chapter (often 250 to 500 gpm)", f.flow);
+  const insideChosen = sh.line("Inside hose allowance chosen", "input", s.insideHose, u.flow, "part of the total above; leave blank for none", f.flow);
+  const insideHose = sh.line("Inside hose allowance", "computed", `=IF(ISBLANK(${insideChosen}),0,${insideChosen})`, u.flow, "", f.flow);
+  const duration = sh.line("Supply duration", "input", d.duration, "min", "from the storage chapter (often 60 to 150 min)", "0");
+  return sh.done({ hazard: null, area: null, density: null, hose, insideHose, duration });
+}
+
+/** The pipes of the design area (branch lines, cross main), their material, the system and C: rows both demand sections share. */
+function areaPipes(s: Scenario, sh: SectionWriter, U: string) {
+  const u = SHEET_UNITS[s.units];
   sh.put("A", "header", "Pipe");
   sh.put("B", "header", `Nominal (${u.nominal})`);
   sh.put("C", "header", "Schedule");
@@ -357,43 +389,150 @@ export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard:
     sh.put("A", "label", label);
     const nominal = sh.put("B", "input", p.nominal);
     const schedule = sh.put("C", "input", p.schedule);
-    const id = sh.put("D", "computed", `=${hr("PIPEID", nominal, schedule, U)}`, { format: f.diameter });
+    const id = sh.put("D", "computed", `=${hr("PIPEID", nominal, schedule, U)}`, { format: u.fmt.diameter });
     sh.row++;
-    return id;
+    return { nominal, schedule, id };
   };
-  const branchId = pipeRow("Branch lines", s.branch);
-  const mainId = pipeRow("Cross main", s.crossMain);
+  const branch = pipeRow("Branch lines", s.branch);
+  const main = pipeRow("Cross main", s.crossMain);
   const material = sh.line("Pipe material", "input", s.material, "", "steel, galvanized, plastic, cpvc, copper, ductile...");
-  const system = sh.line("System", "input", s.system, "", "wet or dry");
-  const cAddr = sh.line("Hazen-Williams C", "computed", `=${hr("CFACTOR", material, system)}`, "", "CFACTOR", "0");
+  const system = sh.line("System", "input", s.system, "", "wet, dry, preaction (single interlock) or double interlock: C and the design area read it");
+  const c = sh.line("Hazen-Williams C", "computed", `=${hr("CFACTOR", material, system)}`, "", "CFACTOR", "0");
+  return { branch, main, system, c };
+}
+
+/**
+ * The solve's row (AREADEMAND or HEADSDEMAND: [flow, pressure, sprinklers, lines, end sprinkler]), then the fittings
+ * in the design area that the line-by-line walk leaves out (the tee where a line joins the cross main, riser nipples):
+ * their loss at an average line's flow is added where the run starts.
+ */
+function areaSolve(s: Scenario, sh: SectionWriter, U: string, fn: string, formula: string, pipes: ReturnType<typeof areaPipes>): AreaDemandRefs {
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
   sh.put("A", "header", "Design area demand at the cross main");
   const demandHeaders = [`Flow (${u.flow})`, `Pressure (${u.pressure})`, "Sprinklers", "Lines", `End sprinkler (${u.pressure})`];
   demandHeaders.forEach((h, i) => sh.put(columnLetters(1 + i), "header", h));
   sh.row++;
-  sh.put("A", "label", "AREADEMAND");
-  const areaDemand = sh.put("B", "computed", `=${hr("AREADEMAND", density, area, coverage, k, spacing, branchId, mainId, cAddr, minP, U)}`, {
-    format: f.flow,
-    spill: { rows: 1, cols: 5, formats: [f.flow, f.pressure, "0", "0", f.pressure] },
-  });
+  sh.put("A", "label", fn);
+  const solved = sh.put("B", "computed", formula, { format: f.flow, spill: { rows: 1, cols: 5, formats: [f.flow, f.pressure, "0", "0", f.pressure] } });
   sh.row++;
-  const areaRow = parseCell(areaDemand).row + 1;
-  return sh.done({ flow: `B${areaRow}`, pressure: `C${areaRow}`, system, source: "AREADEMAND" });
+  const r = parseCell(solved).row + 1;
+  const [flow, pressure, lines, end] = [`B${r}`, `C${r}`, `E${r}`, `F${r}`];
+  const fittings = sh.line(
+    "Fittings in the design area",
+    "input",
+    s.areaFittings,
+    "",
+    "left out of the line-by-line walk, at the branch-line size: by default the tee where a line joins the cross main",
+  );
+  const length = sh.line(
+    "Their equivalent length",
+    "computed",
+    `=IF(TRIM(${fittings})="",0,${hr("FITTINGS", fittings, pipes.branch.nominal, pipes.c, pipes.branch.schedule, U)})`,
+    u.length,
+    "FITTINGS",
+    "0.0",
+  );
+  const loss = sh.line(
+    "Their loss",
+    "computed",
+    `=${hr("FRICTION", `${flow}/${lines}`, pipes.branch.id, pipes.c, length, U)}`,
+    u.pressure,
+    "FRICTION at an average line's flow (flow ÷ lines) in the branch-line pipe",
+    f.pressure,
+  );
+  const start = sh.line("Pressure where the run starts", "computed", `=${pressure}+${loss}`, u.pressure, `${fn}'s pressure + the fittings' loss`, f.pressure);
+  return { flow, pressure: start, endPressure: end, system: pipes.system, source: fn };
+}
+
+/**
+ * The design area as a tree by the density/area method: sprinklers on branch lines fed by a cross main, their pipes
+ * and C, the area adjusted for the system type (ADJUSTAREA), and AREADEMAND's flow and pressure at the cross main.
+ */
+export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard: { area, density } }) => {
+  if (area === null || density === null) throw new Error("the tree demand section needs the hazard's design area and density");
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
+  const sh = new SectionWriter(row);
+  sh.heading("Sprinklers and the design area's pipes");
+  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
+  const coverage = sh.line("Coverage per sprinkler", "input", s.sprinkler.coverage, u.area, "", f.area);
+  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, "", s.units === "SI" ? "0.00" : "0.0");
+  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, s.units === "SI" ? "0.5 bar unless the listing says more" : "7 psi unless the listing says more", f.pressure);
+  sh.line("Most remote sprinkler flow", "computed", `=${hr("HEADFLOW", density, coverage, k, minP, U)}`, u.flow, "HEADFLOW", "0.0");
+  const pipes = areaPipes(s, sh, U);
+  const flowed = sh.line(
+    "Design area flowed",
+    "computed",
+    `=${hr("ADJUSTAREA", area, pipes.system)}`,
+    u.area,
+    "ADJUSTAREA: dry and double-interlock systems flow 30 % more area [NFPA 13], at the density read above",
+    f.area,
+  );
+  const formula = `=${hr("AREADEMAND", density, flowed, coverage, k, spacing, pipes.branch.id, pipes.main.id, pipes.c, minP, U)}`;
+  return sh.done(areaSolve(s, sh, U, "AREADEMAND", formula, pipes));
 };
 
-/** The pipe run from the design area back to the supply, one row a segment, into PIPERUN. */
-export function pipeRunSection(s: Scenario, row: number, { units: U, area }: UnitsRefs & { area: AreaDemandRefs }): Section<RunRefs> {
+/**
+ * The design area by number of sprinklers (HEADSDEMAND): so many sprinklers at a minimum pressure, so many on each
+ * branch line, the lines a given spacing apart on the cross main.
+ */
+export const headsDemandSection: AreaDemandSection = (s, row, { units: U }) => {
+  if (s.design.kind !== "heads") throw new Error("the heads demand section needs a design by number of sprinklers");
+  const d = s.design;
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
+  const len = s.units === "SI" ? "0.00" : "0.0";
+  const sh = new SectionWriter(row);
+  sh.heading("Sprinklers by number and the design area's pipes");
+  const heads = sh.line("Sprinklers flowing", "input", d.heads, "", "from the storage chapter, e.g. 12 early-suppression sprinklers", "0");
+  const perLine = sh.line("Sprinklers on each branch line", "input", d.headsPerLine, "", "the line nearest the feed flows the remainder", "0");
+  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
+  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, "the pressure the storage chapter or the listing gives", f.pressure);
+  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, "", len);
+  const lineSpacing = sh.line("Spacing between branch lines", "input", d.lineSpacing, u.length, "", len);
+  const pipes = areaPipes(s, sh, U);
+  const formula = `=${hr("HEADSDEMAND", heads, perLine, k, minP, spacing, lineSpacing, pipes.branch.id, pipes.main.id, pipes.c, U)}`;
+  return sh.done(areaSolve(s, sh, U, "HEADSDEMAND", formula, pipes));
+};
+
+/**
+ * The pipe run from the design area back to the supply, one row a segment, into PIPERUN: each segment carries the
+ * design area's flow, plus the inside hose where it says so; beside PIPERUN's results, each segment's velocity and
+ * friction per 100 ft (m), flagged above the velocity limit.
+ */
+export function pipeRunSection(
+  s: Scenario,
+  row: number,
+  { units: U, area, hazard }: UnitsRefs & { area: AreaDemandRefs; hazard: HazardRefs },
+): Section<RunRefs> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
   const sh = new SectionWriter(row);
   sh.heading("Pipe run from the design area back to the water supply");
-  sh.put("A", "note", "One row a segment, from the design area towards the supply. Rise: the height the water climbs in the segment on its way to the sprinklers. To add a segment, insert a row inside the table.");
+  sh.put(
+    "A",
+    "note",
+    "One row a segment, from the design area towards the supply. Rise: the height the water climbs in the segment on its way to the sprinklers. Inside hose: yes where the segment carries the inside hose too (from where the hose stations connect: the riser and everything upstream). To add a segment, insert a row inside the table.",
+  );
   sh.row++;
+  const limit = sh.line(
+    "Velocity limit",
+    "input",
+    s.velocityLimit,
+    `${u.length}/s`,
+    "(common practice) a segment faster than this is flagged: a larger pipe there is often the cheapest fix",
+    s.units === "SI" ? "0.0" : "0",
+  );
+  sh.name("Velocity_Limit", limit, "Velocity above which a run segment is flagged");
+  const per = s.units === "SI" ? "100 m" : "100 ft";
   const runHeaders: Array<[string, string]> = [
     ["Segment", ""],
     ["Nominal", u.nominal],
     ["Schedule", ""],
     ["Material", ""],
     ["Fittings", "e.g. 2E T GV"],
+    ["Inside hose", "yes or no"],
     ["Flow", u.flow],
     ["Internal diameter", u.diameter],
     ["C", ""],
@@ -405,6 +544,9 @@ export function pipeRunSection(s: Scenario, row: number, { units: U, area }: Uni
     ["Elevation", u.pressure],
     ["Fixed", u.pressure],
     ["Pressure after", u.pressure],
+    ["Velocity", `${u.length}/s`],
+    [`Friction per ${per}`, u.pressure],
+    ["Check", ""],
   ];
   runHeaders.forEach(([h], i) => sh.put(columnLetters(i), "header", h));
   sh.row++;
@@ -419,20 +561,64 @@ export function pipeRunSection(s: Scenario, row: number, { units: U, area }: Uni
     sh.put("C", "input", seg.schedule);
     sh.put("D", "input", seg.material);
     sh.put("E", "input", seg.fittings);
-    sh.put("F", "computed", `=${abs(area.flow)}`, { format: f.flow });
-    sh.put("G", "computed", `=${hr("PIPEID", `B${r}`, `C${r}`, U)}`, { format: f.diameter });
-    sh.put("H", "computed", `=${hr("CFACTOR", `D${r}`, abs(area.system))}`, { format: "0" });
-    sh.put("I", "input", seg.length, { format: f.length });
-    sh.put("J", "computed", `=IF(E${r}="",0,${hr("FITTINGS", `E${r}`, `B${r}`, `H${r}`, `C${r}`, U)})`, { format: f.length });
-    sh.put("K", "input", seg.rise, { format: s.units === "SI" ? "0.0" : "0" });
-    sh.put("L", "input", seg.fixedLoss, { format: f.pressure });
+    sh.put("F", "input", seg.insideHose ? "yes" : "no");
+    const yes = `TRIM(F${r})="yes"`;
+    sh.put("G", "computed", `=IF(OR(${yes},TRIM(F${r})="no"),${abs(area.flow)}+IF(${yes},${abs(hazard.insideHose)},0),"type yes or no in F${r}")`, { format: f.flow });
+    sh.put("H", "computed", `=${hr("PIPEID", `B${r}`, `C${r}`, U)}`, { format: f.diameter });
+    sh.put("I", "computed", `=${hr("CFACTOR", `D${r}`, abs(area.system))}`, { format: "0" });
+    sh.put("J", "input", seg.length, { format: f.length });
+    sh.put("K", "computed", `=IF(E${r}="",0,${hr("FITTINGS", `E${r}`, `B${r}`, `I${r}`, `C${r}`, U)})`, { format: f.length });
+    sh.put("L", "input", seg.rise, { format: s.units === "SI" ? "0.0" : "0" });
+    sh.put("M", "input", seg.fixedLoss, { format: f.pressure });
     if (i === 0) {
-      sh.put("M", "computed", `=${hr("PIPERUN", `F${r}:L${r + n - 1}`, area.pressure, U)}`, { format: f.pressure, spill: { rows: n, cols: 4, formats: [f.pressure, f.pressure, f.pressure, f.pressure] } });
+      sh.put("N", "computed", `=${hr("PIPERUN", `G${r}:M${r + n - 1}`, area.pressure, U)}`, { format: f.pressure, spill: { rows: n, cols: 4, formats: [f.pressure, f.pressure, f.pressure, f.pressure] } });
     }
+    sh.put("R", "computed", `=${hr("VELOCITY", `G${r}`, `H${r}`, U)}`, { format: "0.0" });
+    sh.put("S", "computed", `=100*${hr("FRICTIONRATE", `G${r}`, `H${r}`, `I${r}`, U)}`, { format: f.pressure });
+    sh.put("T", "computed", `=IF(R${r}>${abs(limit)},"faster than the limit","")`);
     sh.row++;
   });
   const lastSeg = firstSeg + n - 1;
-  return sh.done({ pressureAfter: `P${lastSeg}` });
+  const col = (c: string) => `${c}${firstSeg}:${c}${lastSeg}`;
+  return sh.done({
+    pressureAfter: `Q${lastSeg}`,
+    labels: col("A"),
+    friction: col("N"),
+    elevation: col("O"),
+    fixed: col("P"),
+    velocity: col("R"),
+    velocityLimit: limit,
+  });
+}
+
+/**
+ * Where the demand pressure goes: the end sprinkler, friction in the design area and in the run, elevation and the
+ * devices (they add up to the demand pressure at the supply), and the segment losing the most.
+ */
+export function breakdownSection(s: Scenario, row: number, { area, run }: { area: AreaDemandRefs; run: RunRefs }): Section<Record<string, never>> {
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
+  const sh = new SectionWriter(row);
+  sh.heading("Where the pressure goes");
+  const end = sh.line("End sprinkler", "computed", `=${area.endPressure}`, u.pressure, "the most remote sprinkler's pressure", f.pressure);
+  const inArea = sh.line("Friction in the design area", "computed", `=${area.pressure}-${area.endPressure}`, u.pressure, "its fittings included", f.pressure);
+  const friction = sh.line("Friction in the pipe run", "computed", `=SUM(${run.friction})`, u.pressure, "", f.pressure);
+  const elevation = sh.line("Elevation", "computed", `=SUM(${run.elevation})`, u.pressure, "", f.pressure);
+  const devices = sh.line("Devices (backflow preventer, meter)", "computed", `=SUM(${run.fixed})`, u.pressure, "", f.pressure);
+  sh.line("Total: the demand pressure at the supply", "computed", `=${end}+${inArea}+${friction}+${elevation}+${devices}`, u.pressure, "", f.pressure);
+  const which = `MATCH(MAX(${run.friction}),${run.friction},0)`;
+  const worst = sh.line("Segment losing the most", "computed", `=INDEX(${run.labels},${which},1)`, "", "the first to upsize where the supply is short or marginal");
+  const worstLoss = sh.line("Its friction", "computed", `=MAX(${run.friction})`, u.pressure, "", f.pressure);
+  const worstVelocity = sh.line("Its velocity", "computed", `=INDEX(${run.velocity},${which},1)`, `${u.length}/s`, "", "0.0");
+  sh.name("Pressure_EndSprinkler", end, "Pressure of the most remote sprinkler");
+  sh.name("Pressure_AreaFriction", inArea, "Friction inside the design area, its fittings included");
+  sh.name("Pressure_RunFriction", friction, "Friction in the pipe run back to the supply");
+  sh.name("Pressure_Elevation", elevation, "Elevation pressure of the pipe run");
+  sh.name("Pressure_Devices", devices, "Fixed losses in the pipe run (backflow preventer, meter)");
+  sh.name("Run_WorstSegment", worst, "The run segment losing the most friction");
+  sh.name("Run_WorstLoss", worstLoss, "Friction of the run segment losing the most");
+  sh.name("Run_WorstVelocity", worstVelocity, "Water velocity in the run segment losing the most");
+  return sh.done({});
 }
 
 /**
@@ -609,15 +795,7 @@ export function verdictSection(
     "computed",
     `=IF(ISNUMBER(${spare}),IF(${spare}>=0,"The chosen pump meets the demand and the required margin","The chosen pump falls short of the demand and the required margin"),"")`,
   );
-  const durationChosen = sh.line("Supply duration chosen", "input", s.duration, "min", "leave blank for the upper end of the hazard's range", "0");
-  const duration = sh.line(
-    "Supply duration",
-    "computed",
-    `=IF(ISBLANK(${durationChosen}),${hr("DURATION", hazard.hazard, text("max"))},${durationChosen})`,
-    "min",
-    "DURATION [NFPA 13]",
-    "0",
-  );
+  const duration = hazard.duration;
   const volume = s.units === "SI" ? `${Q}*${duration}/1000` : `${Q}*${duration}`;
   sh.line(
     "Suction tank, estimated volume",

@@ -5,18 +5,24 @@
  *
  * Sections, top to bottom:
  *   caution, project and units · water supply (up to three flow tests, a pitot reading through PITOTFLOW, each test
- *   carried to the site by SITETEST) · hazard and design area (DESIGNAREA, DESIGNDENSITY, HOSEALLOWANCE) · sprinklers
- *   and the design area's pipes (HEADFLOW, PIPEID, CFACTOR, AREADEMAND) · the pipe run back to the supply (PIPEID,
- *   CFACTOR, FITTINGS helper columns into PIPERUN) · demand at the supply and the flow through a pump · verdict (the
+ *   carried to the site by SITETEST) · hazard and design area (DESIGNAREA, DESIGNDENSITY, HOSEALLOWANCE, DURATION), or
+ *   for a design by number of sprinklers the storage criteria typed in · sprinklers and the design area's pipes
+ *   (HEADFLOW, PIPEID, CFACTOR, ADJUSTAREA, AREADEMAND; or HEADSDEMAND), the fittings inside the area (FITTINGS,
+ *   FRICTION) · the pipe run back to the supply (PIPEID, CFACTOR, FITTINGS helper columns into PIPERUN; the inside hose
+ *   where a segment carries it; VELOCITY and FRICTIONRATE beside it) · where the pressure goes · demand at the supply
+ *   and the flow through a pump · verdict (the
  *   governing flow test, MARGIN, VERDICT, PUMPBOOST, PUMPSIZE, PUMPSUCTION, the chosen pump through PUMPCURVE, a
  *   suction tank's volume) · supply curve for the chart (SUPPLYCURVE).
  */
 import type { Scenario } from "./scenario";
 import {
   type AreaDemandSection,
+  breakdownSection,
   hazardSection,
+  headsDemandSection,
   pipeRunSection,
   projectSection,
+  storageCriteriaSection,
   supplyCurveSection,
   supplyDemandSection,
   treeDemandSection,
@@ -33,11 +39,16 @@ const GAP = 1;
 const CHART_FROM = "F5";
 const CHART_TO = "N24";
 
-/** Column widths in points: A labels, B values, C units, D notes; the run table's columns E to P. */
-const COLUMN_WIDTHS: Readonly<Record<string, number>> = { A: 230, B: 95, C: 80, D: 95, E: 70, F: 60, G: 70, H: 40, I: 55, J: 70, K: 50, L: 60, M: 60, N: 60, O: 50, P: 70 };
+/** Column widths in points: A labels, B values, C units, D notes; the run table's columns E to T. */
+const COLUMN_WIDTHS: Readonly<Record<string, number>> = {
+  A: 230, B: 95, C: 80, D: 95, E: 70, F: 60, G: 60, H: 70, I: 40, J: 55, K: 70, L: 50, M: 60, N: 60, O: 60, P: 50, Q: 70, R: 55, S: 70, T: 90,
+};
 
 export interface TemplateOptions {
-  /** the section that finds the design area's demand; by default the tree of branch lines and a cross main */
+  /**
+   * the section that finds the design area's demand; by default the scenario's: the tree of branch lines and a cross
+   * main by the density/area method, or a number of sprinklers
+   */
   areaDemand?: AreaDemandSection;
 }
 
@@ -45,7 +56,7 @@ export interface TemplateOptions {
  * The estimate worksheet for a scenario. Every formula passes the sheet's Units cell as its `units` argument, so the
  * same layout serves US and SI work.
  */
-export function estimateTemplate(s: Scenario, { areaDemand = treeDemandSection }: TemplateOptions = {}): SheetTemplate {
+export function estimateTemplate(s: Scenario, { areaDemand = s.design.kind === "heads" ? headsDemandSection : treeDemandSection }: TemplateOptions = {}): SheetTemplate {
   const built: Array<Section<unknown>> = [];
   let row = 1;
   /** Lay a section down at the current row; its refs, for the sections after it. */
@@ -56,9 +67,10 @@ export function estimateTemplate(s: Scenario, { areaDemand = treeDemandSection }
   };
   const { units } = lay(projectSection(s, row));
   const supply = lay(waterSupplySection(s, row, { units }));
-  const hazard = lay(hazardSection(s, row, { units }));
+  const hazard = lay(s.design.kind === "heads" ? storageCriteriaSection(s, row) : hazardSection(s, row, { units }));
   const area = lay(areaDemand(s, row, { units, hazard }));
-  const run = lay(pipeRunSection(s, row, { units, area }));
+  const run = lay(pipeRunSection(s, row, { units, area, hazard }));
+  lay(breakdownSection(s, row, { area, run }));
   const demand = lay(supplyDemandSection(s, row, { area, hazard, run }));
   const { used } = lay(verdictSection(s, row, { units, supply, hazard, demand }));
   const { chart } = lay(supplyCurveSection(s, row, { units, supply: used, demand }));

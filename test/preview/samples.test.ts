@@ -87,6 +87,11 @@ describe.each(SAMPLES.map((s) => [s.file, s] as const))("%s", (file, spec) => {
   });
 });
 
+/** The sample whose file name starts so. */
+function sample(start: string) {
+  return SAMPLES.find((x) => x.file.startsWith(start))!;
+}
+
 describe("each sample tells its story", () => {
   async function verdictOf(file: string): Promise<{ verdict: string; engine: PreviewWorkbook }> {
     const engine = new PreviewWorkbook(await committed(file));
@@ -96,7 +101,7 @@ describe("each sample tells its story", () => {
   }
 
   test("the light-manufacturing unit needs a pump, PUMPSIZE suggests one, and the main can feed it", async () => {
-    const { verdict, engine } = await verdictOf(SAMPLES[0].file);
+    const { verdict, engine } = await verdictOf(sample("tinker-row").file);
     expect(verdict).toMatch(/^Pump needed: /);
     const m = buildModel(await new PreviewPort(engine).readInputs());
     expect(m.kind).toBe("ready");
@@ -111,7 +116,7 @@ describe("each sample tells its story", () => {
   });
 
   test("in the light-manufacturing unit a 4 in cross main to the riser removes the need for a pump", async () => {
-    const { engine } = await verdictOf(SAMPLES[0].file);
+    const { engine } = await verdictOf(sample("tinker-row").file);
     const seg = engine.cells("Estimate").find((c) => c.value === "Cross main to the riser");
     expect(seg).toBeDefined();
     const row = seg!.address.slice(1);
@@ -120,15 +125,44 @@ describe("each sample tells its story", () => {
     expect(String(engine.value("Estimate", verdictCell.address))).toMatch(/^No pump needed: /);
   });
 
+  /** The value beside a label in column A. */
+  function beside(engine: PreviewWorkbook, label: string, col = "B") {
+    const c = engine.cells("Estimate").find((x) => x.value === label && x.address.startsWith("A"))!;
+    return engine.value("Estimate", `${col}${c.address.slice(1)}`);
+  }
+
+  test("the dry parking deck flows a design area 30 % larger at the density of the unadjusted area, in galvanized pipe at C 100", async () => {
+    const { verdict, engine } = await verdictOf(sample("linden-yard").file);
+    expect(verdict).toMatch(/^(No pump needed|Marginal|Pump needed): /);
+    // OH1: 1500 ft² at 0.15 gpm/ft² [NFPA 13] (from memory); dry: × 1.3 = 1950 ft² [NFPA 13] (from memory)
+    expect(beside(engine, "Design area")).toBe(1500);
+    expect(beside(engine, "Design density")).toBeCloseTo(0.15, 9);
+    expect(beside(engine, "Design area flowed")).toBeCloseTo(1950, 9);
+    expect(beside(engine, "Hazen-Williams C")).toBe(100); // galvanized, dry [NFPA 13]
+    // the sprinklers flow at least density × flowed area: 0.15 × 1950 = 292.5 gpm
+    expect(beside(engine, "AREADEMAND") as number).toBeGreaterThanOrEqual(292.5);
+  });
+
+  test("the rack storage is designed by number of sprinklers, its hose and duration typed in", async () => {
+    const { verdict, engine } = await verdictOf(sample("harrow-row").file);
+    expect(verdict).toMatch(/^Pump needed: /);
+    expect(beside(engine, "HEADSDEMAND", "D")).toBe(12); // sprinklers flowing
+    expect(beside(engine, "HEADSDEMAND", "E")).toBe(3); // lines of four
+    expect(beside(engine, "HEADSDEMAND", "F")).toBe(52); // the end sprinkler at the minimum pressure
+    expect(beside(engine, "Hose stream allowance, inside + outside")).toBe(250);
+    expect(beside(engine, "Supply duration")).toBe(60);
+    expect(engine.cells("Estimate").some((c) => typeof c.content === "string" && c.content.includes("HEADROOM.AREADEMAND("))).toBe(false);
+  });
+
   test("the office building needs no pump, on the weaker of its two flow tests", async () => {
-    const { verdict, engine } = await verdictOf(SAMPLES[1].file);
+    const { verdict, engine } = await verdictOf(sample("quill-street").file);
     expect(verdict).toMatch(/^No pump needed: /);
     const label = engine.cells("Estimate").find((c) => c.value === "Flow test used")!;
     expect(engine.value("Estimate", `B${label.address.slice(1)}`)).toBe("Test 2");
   });
 
   test("the SI workshop speaks bar and L/min, and its supply is marginal", async () => {
-    const { verdict } = await verdictOf(SAMPLES[2].file);
+    const { verdict } = await verdictOf(sample("kiln-lane").file);
     expect(verdict).toMatch(/^Marginal: /);
     expect(verdict).toMatch(/bar/);
     expect(verdict).toMatch(/L\/min/);

@@ -10,11 +10,15 @@ import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { parseCell } from "../../src/workbook/a1";
 import { demoScenario } from "../../src/workbook/scenario";
+import { SAMPLES } from "../../samples/scenarios";
 import {
   type AreaDemandSection,
+  breakdownSection,
   hazardSection,
+  headsDemandSection,
   pipeRunSection,
   projectSection,
+  storageCriteriaSection,
   supplyCurveSection,
   supplyDemandSection,
   treeDemandSection,
@@ -39,9 +43,17 @@ const supply = {
   ],
 };
 const used = { static: "B901", residual: "B902", testFlow: "B903" };
-const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907", insideHose: "B915" };
-const area = { flow: "B908", pressure: "C908", system: "B909", source: "AREADEMAND" };
-const run = { pressureAfter: "P910" };
+const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907", insideHose: "B915", duration: "B917" };
+const area = { flow: "B908", pressure: "C908", endPressure: "F908", system: "B909", source: "AREADEMAND" };
+const run = {
+  pressureAfter: "Q910",
+  labels: "A920:A923",
+  friction: "N920:N923",
+  elevation: "O920:O923",
+  fixed: "P920:P923",
+  velocity: "R920:R923",
+  velocityLimit: "B919",
+};
 const demand = { sprinklerFlow: "B911", hoseFlow: "B912", flow: "B913", pressure: "B914", pumpFlow: "B916" };
 
 const SHIFT = 100;
@@ -54,6 +66,9 @@ function shifted(text: string, first: number, rows: number, by: number): string 
   });
 }
 
+/** The storage sample: a design by number of sprinklers. */
+const storage = SAMPLES.find((x) => x.scenario.design.kind === "heads")!.scenario;
+
 describe.each(["US", "SI"] as const)("the sections, %s", (u) => {
   const s = demoScenario(u);
   const builders: Array<[string, (row: number) => Section<unknown>]> = [
@@ -61,7 +76,10 @@ describe.each(["US", "SI"] as const)("the sections, %s", (u) => {
     ["water supply", (row) => waterSupplySection(s, row, { units })],
     ["hazard", (row) => hazardSection(s, row, { units })],
     ["tree demand", (row) => treeDemandSection(s, row, { units, hazard })],
-    ["pipe run", (row) => pipeRunSection(s, row, { units, area })],
+    ["pipe run", (row) => pipeRunSection(s, row, { units, area, hazard })],
+    ["where the pressure goes", (row) => breakdownSection(s, row, { area, run })],
+    ["storage criteria", (row) => storageCriteriaSection(storage, row)],
+    ["sprinklers by number", (row) => headsDemandSection(storage, row, { units, hazard })],
     ["demand at the supply", (row) => supplyDemandSection(s, row, { area, hazard, run })],
     ["verdict", (row) => verdictSection(s, row, { units, supply, hazard, demand })],
     ["supply curve", (row) => supplyCurveSection(s, row, { units, supply: used, demand })],
@@ -89,7 +107,7 @@ describe.each(["US", "SI"] as const)("the sections, %s", (u) => {
 describe("another design-area demand section in place of the tree", () => {
   /** A stand-in: the design area's flow and pressure typed in, as a demand from elsewhere would be. */
   const typed =
-    (flow: number, pressure: number): AreaDemandSection =>
+    (flow: number, pressure: number, end: number): AreaDemandSection =>
     (s, row) => {
       const r = (k: number) => row + k;
       return {
@@ -101,10 +119,12 @@ describe("another design-area demand section in place of the tree", () => {
           { address: `B${r(2)}`, role: "input", value: pressure },
           { address: `A${r(3)}`, role: "label", value: "System" },
           { address: `B${r(3)}`, role: "input", value: s.system },
+          { address: `A${r(4)}`, role: "label", value: "End sprinkler" },
+          { address: `B${r(4)}`, role: "input", value: end },
         ],
         names: [],
-        rows: 4,
-        refs: { flow: `B${r(1)}`, pressure: `B${r(2)}`, system: `B${r(3)}`, source: "the typed demand" },
+        rows: 5,
+        refs: { flow: `B${r(1)}`, pressure: `B${r(2)}`, endPressure: `B${r(4)}`, system: `B${r(3)}`, source: "the typed demand" },
       };
     };
 
@@ -120,9 +140,11 @@ describe("another design-area demand section in place of the tree", () => {
     const areaDemand = tree.cells.find((c) => c.formula?.includes("HEADROOM.AREADEMAND("))!.address;
     const a = parseCell(areaDemand);
     const flow = treeBook.value("Estimate", areaDemand) as number;
-    const pressure = treeBook.value("Estimate", `C${a.row + 1}`) as number;
+    const startLabel = tree.cells.find((c) => c.value === "Pressure where the run starts")!.address;
+    const pressure = treeBook.value("Estimate", `B${startLabel.slice(1)}`) as number;
+    const end = treeBook.value("Estimate", `F${a.row + 1}`) as number;
 
-    const other = estimateTemplate(s, { areaDemand: typed(flow, pressure) });
+    const other = estimateTemplate(s, { areaDemand: typed(flow, pressure, end) });
     const otherBook = calculated(other);
     const errors = otherBook.cells("Estimate").filter((c) => c.value !== null && typeof c.value === "object");
     expect(errors.map((c) => `${c.address} ${c.content}`)).toEqual([]);
@@ -131,9 +153,10 @@ describe("another design-area demand section in place of the tree", () => {
     expect(other.cells.find((c) => c.value === "from the typed demand")).toBeDefined();
     expect(otherBook.value("Estimate", formulaCell(other, "=HEADROOM.VERDICT("))).toBe(treeBook.value("Estimate", formulaCell(tree, "=HEADROOM.VERDICT(")));
     expect(otherBook.value("Estimate", formulaCell(other, "=HEADROOM.MARGIN("))).toBeCloseTo(treeBook.value("Estimate", formulaCell(tree, "=HEADROOM.MARGIN(")) as number, 9);
-    // the tree section takes 14 rows (heading, four sprinkler inputs, HEADFLOW, the pipe table's header and two rows,
-    // material, system, C, AREADEMAND's header and row), the stand-in 4: everything after it moves up 10 rows
+    // the tree section takes 19 rows (heading, four sprinkler inputs, HEADFLOW, the pipe table's header and two rows,
+    // material, system, C, the area flowed, AREADEMAND's header and row, the area's fittings, their length and loss,
+    // the pressure where the run starts), the stand-in 5: everything after it moves up 14 rows
     const verdictRow = (t: ReturnType<typeof estimateTemplate>) => parseCell(formulaCell(t, "=HEADROOM.VERDICT(")).row;
-    expect(verdictRow(tree) - verdictRow(other)).toBe(14 - 4);
+    expect(verdictRow(tree) - verdictRow(other)).toBe(19 - 5);
   });
 });

@@ -66,7 +66,7 @@ describe.each(["US", "SI"] as const)("estimate template, %s", (units) => {
 
   it("defines every name the pane reads, once, on a cell of the right role", () => {
     expect(t.names.map((n) => n.name).sort()).toEqual([...INPUT_NAMES].sort());
-    const inputs = { Units: s.units, Required_Margin: s.requiredMargin, Suction_Minimum: s.suctionMinimum };
+    const inputs = { Units: s.units, Required_Margin: s.requiredMargin, Suction_Minimum: s.suctionMinimum, Velocity_Limit: s.velocityLimit };
     const chosen = ["Pump_RatedFlow", "Pump_RatedPressure"]; // blank inputs: no pump chosen in the demo
     for (const n of t.names) {
       const c = cellAt(t, n.address);
