@@ -5,43 +5,16 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import * as functions from "../../src/functions/functions";
-import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
-import { PreviewPort } from "../../src/preview/port";
-import { PreviewWorkbook } from "../../src/preview/workbook";
-import { parseCell } from "../../src/workbook/a1";
-import type { Readings } from "../../src/workbook/port";
-import { type Scenario, demoScenario } from "../../src/workbook/scenario";
-import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
+import { calculatedSheet, usDemo } from "./calculatedSheet";
 
 beforeAll(async () => {
   registerHeadroomFunctions(await generatedMetadata(), functions);
 });
 
-async function sheet(s: Scenario) {
-  const t = estimateTemplate(s);
-  const wb = new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
-  const row = (label: string) => {
-    const c = t.cells.find((x) => (x.role === "label" || x.role === "input") && x.value === label && x.address.startsWith("A"));
-    if (!c) throw new Error(`no label "${label}"`);
-    return parseCell(c.address).row + 1;
-  };
-  const at = (label: string, col = "B") => wb.value("Estimate", `${col}${row(label)}`);
-  const readings: Readings = await new PreviewPort(wb).readInputs();
-  const num = (name: keyof Readings) => {
-    const r = readings[name];
-    if (r.kind !== "number") throw new Error(`${name} is ${JSON.stringify(r)}`);
-    return r.value;
-  };
-  return { t, wb, at, row, readings, num };
-}
-
-function us(change: (s: Scenario) => void = () => {}): Scenario {
-  const s = demoScenario("US");
-  change(s);
-  return s;
-}
+const sheet = calculatedSheet;
+const us = usDemo;
 
 describe("the system type, read once", () => {
   it("flows a dry system's design area 30 % larger at the density of the unadjusted area, and takes the dry C [NFPA 13] (from memory)", async () => {

@@ -5,45 +5,17 @@
  */
 import { beforeAll, describe, expect, it } from "vitest";
 import * as functions from "../../src/functions/functions";
-import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
-import { PreviewPort } from "../../src/preview/port";
-import { PreviewWorkbook } from "../../src/preview/workbook";
-import { parseCell } from "../../src/workbook/a1";
-import type { Readings } from "../../src/workbook/port";
-import { type Scenario, demoScenario } from "../../src/workbook/scenario";
-import { estimateTemplate } from "../../src/workbook/template";
+import { demoScenario } from "../../src/workbook/scenario";
 import { generatedMetadata } from "../preview/metadataFixture";
+import { calculatedSheet, usDemo } from "./calculatedSheet";
 
 beforeAll(async () => {
   registerHeadroomFunctions(await generatedMetadata(), functions);
 });
 
-/** The sheet of a scenario, calculated; `at(label)` is the value beside a label in column A. */
-async function sheet(s: Scenario) {
-  const t = estimateTemplate(s);
-  const wb = new PreviewWorkbook({ sheets: [templateSheet(t)], names: templateNames(t) });
-  const row = (label: string) => {
-    const c = t.cells.find((x) => x.role === "label" && x.value === label && x.address.startsWith("A"));
-    if (!c) throw new Error(`no label "${label}"`);
-    return parseCell(c.address).row + 1;
-  };
-  const at = (label: string, col = "B") => wb.value("Estimate", `${col}${row(label)}`);
-  const readings: Readings = await new PreviewPort(wb).readInputs();
-  const num = (name: keyof Readings) => {
-    const r = readings[name];
-    if (r.kind !== "number") throw new Error(`${name} is ${JSON.stringify(r)}`);
-    return r.value;
-  };
-  return { t, wb, at, row, readings, num };
-}
-
-/** The US demo with its test changed and more tests added. */
-function us(change: (s: Scenario) => void): Scenario {
-  const s = demoScenario("US");
-  change(s);
-  return s;
-}
+const sheet = calculatedSheet;
+const us = usDemo;
 
 const ELEVATION_PSI_PER_FT = 0.433; // [NFPA 13]
 
