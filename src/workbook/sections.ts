@@ -696,11 +696,9 @@ export function verdictSection(
   });
   const span = `${atDemand[0]}:${atDemand[atDemand.length - 1]}`;
   const which = `MATCH(MIN(${span}),${span},0)`;
-  const firstLabel = parseCell(supply.tests[0].label);
-  const lastLabel = parseCell(supply.tests[supply.tests.length - 1].label);
-  const labelRow = `${abs(cellAddress(firstLabel))}:${abs(cellAddress(lastLabel))}`;
-  sh.line("Flow test used", "computed", `=INDEX(${labelRow},1,${which})`, "", "the lowest supply at the demand flow governs");
+  // the tests' cells side by side (labels, test flows: one row) or one above the other (SITETEST's rows)
   const column = (pick: (t: FlowTestRefs) => string) => `${pick(supply.tests[0])}:${pick(supply.tests[supply.tests.length - 1])}`;
+  sh.line("Flow test used", "computed", `=INDEX(${column((t) => abs(t.label))},1,${which})`, "", "the lowest supply at the demand flow governs");
   const usedStatic = sh.line("Static pressure at the site, test used", "computed", `=INDEX(${column((t) => t.static)},${which},1)`, u.pressure, "", f.pressure);
   const usedResidual = sh.line("Residual pressure at the site, test used", "computed", `=INDEX(${column((t) => t.residual)},${which},1)`, u.pressure, "", f.pressure);
   const usedFlow = sh.line("Test flow, test used", "computed", `=INDEX(${column((t) => t.testFlow)},1,${which})`, u.flow, "", f.flow);
