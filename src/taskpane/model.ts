@@ -20,12 +20,12 @@ import {
 import { CURVE_DEMAND_FLOW_FACTOR, type CurvePoint, SUPPLY_CURVE_FLOW_FACTOR, sampleFlows } from "../engine/curve";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
-import { ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
+import { type QuantityRule, SIGNED, ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
 import { decisionArgs, pumpRatingArgs } from "../functions/common";
 import { type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
 
-/** What each name should hold, for messages: a description and its quantity. */
-export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; quantity: Quantity }> = {
+/** What each name should hold, for messages: a description and its quantity ("text" for a label). */
+export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; quantity: Quantity | "text" }> = {
   Supply_Static: { what: "the static pressure of the flow test", quantity: "pressure" },
   Supply_Residual: { what: "the residual pressure of the flow test", quantity: "pressure" },
   Supply_TestFlow: { what: "the flow during the flow test", quantity: "flow" },
@@ -37,16 +37,37 @@ export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; 
   Pump_RatedPressure: { what: "the rated pressure of the pump chosen", quantity: "pressure" },
   Pump_Flow: { what: "the flow that passes through a pump", quantity: "flow" },
   Suction_Minimum: { what: "the least pressure the public main must keep while a pump draws from it", quantity: "pressure" },
-  Pressure_EndSprinkler: { what: "the most remote sprinkler's pressure", quantity: "pressure" },
-  Pressure_AreaFriction: { what: "the friction inside the design area", quantity: "pressure" },
-  Pressure_RunFriction: { what: "the friction in the pipe run", quantity: "pressure" },
-  Pressure_Elevation: { what: "the elevation pressure of the pipe run", quantity: "pressure" },
-  Pressure_Devices: { what: "the fixed losses of the pipe run", quantity: "pressure" },
-  Run_WorstSegment: { what: "the run segment losing the most", quantity: "pressure" },
-  Run_WorstLoss: { what: "the friction of the run segment losing the most", quantity: "pressure" },
-  Run_WorstVelocity: { what: "the velocity in the run segment losing the most", quantity: "pressure" },
-  Velocity_Limit: { what: "the velocity limit of the run", quantity: "pressure" },
+  Pressure_EndSprinkler: { what: "the pressure at the most remote sprinkler", quantity: "pressure" },
+  Pressure_AreaFriction: { what: "the friction inside the design area, its fittings included", quantity: "pressure" },
+  Pressure_RunFriction: { what: "the friction in the pipe run back to the supply", quantity: "pressure" },
+  Pressure_Elevation: { what: "the elevation pressure of the pipe run (negative where the sprinklers are below the supply)", quantity: "pressure" },
+  Pressure_Devices: { what: "the fixed losses of the run: backflow preventer, meter", quantity: "pressure" },
+  Run_WorstSegment: { what: "the label of the run segment that loses the most friction", quantity: "text" },
+  Run_WorstLoss: { what: "the friction loss of the run segment that loses the most", quantity: "pressure" },
+  Run_WorstVelocity: { what: "the water velocity in the run segment that loses the most", quantity: "velocity" },
+  Velocity_Limit: { what: "the velocity above which the estimate sheet flags a segment", quantity: "velocity" },
 };
+
+/** The parts of the demand pressure, in the order the pane shows them; they add up to Demand_Pressure. */
+export const BREAKDOWN_PARTS = [
+  { id: "end-sprinkler", name: "Pressure_EndSprinkler", label: "End sprinkler" },
+  { id: "area-friction", name: "Pressure_AreaFriction", label: "Friction in the design area" },
+  { id: "run-friction", name: "Pressure_RunFriction", label: "Friction in the pipe run" },
+  { id: "elevation", name: "Pressure_Elevation", label: "Elevation" },
+  { id: "devices", name: "Pressure_Devices", label: "Devices (backflow preventer, meter)" },
+] as const;
+
+/**
+ * The velocity above which a segment is flagged where the workbook gives no Velocity_Limit, in the sheet's units:
+ * 20 ft/s, 6 m/s in SI work. (common practice)
+ */
+export const DEFAULT_VELOCITY_LIMIT: Readonly<Record<UnitSystem, number>> = { US: 20, SI: 6 };
+
+/**
+ * How far the parts may be from Demand_Pressure, for the rounding of a sheet: 0.5 % of it, and at least 0.05 psi.
+ * Beyond that the sheet is inconsistent. (common practice)
+ */
+export const BREAKDOWN_TOLERANCE = { ratio: 0.005, psi: 0.05 } as const;
 
 export interface Problem {
   name: InputName;
@@ -54,6 +75,38 @@ export interface Problem {
 }
 
 export type { PumpRating };
+
+/** One part of the demand pressure. */
+export interface BreakdownPart {
+  id: (typeof BREAKDOWN_PARTS)[number]["id"];
+  /** the named cell it is read from */
+  name: (typeof BREAKDOWN_PARTS)[number]["name"];
+  label: string;
+  /** psi; the elevation may be negative */
+  pressure: number;
+}
+
+/** The run segment that loses the most friction, as the estimate sheet names it. */
+export interface WorstSegment {
+  /** its label on the sheet */
+  segment: string;
+  /** psi */
+  loss: number;
+  /** ft/s */
+  velocity: number;
+  /** true where the velocity is above the limit */
+  overLimit: boolean;
+  /** ft/s: Velocity_Limit, else DEFAULT_VELOCITY_LIMIT of the sheet's units */
+  limit: number;
+  limitGiven: boolean;
+}
+
+/** Where the demand pressure goes: its parts, which add up to it, and the segment that loses the most. */
+export interface Breakdown {
+  parts: BreakdownPart[];
+  /** null where the sheet does not name the segment, its loss and its velocity */
+  worst: WorstSegment | null;
+}
 
 /** A readable estimate, US units inside; `units` is how the sheet speaks. */
 export interface Estimate {
@@ -102,6 +155,10 @@ export interface Estimate {
   caveat: string | null;
   /** what to do next, for a marginal, caveated or unservable verdict */
   nextSteps: string[];
+  /** where the demand pressure goes, or null where the workbook does not name all five parts */
+  breakdown: Breakdown | null;
+  /** the parts the workbook does not name (empty where there is a breakdown) */
+  breakdownMissing: InputName[];
 }
 
 /**
@@ -155,6 +212,14 @@ const ARGUMENT_NAMES: Record<string, Exclude<InputName, "Units">> = {
   Demand_HoseFlow: "Demand_HoseFlow",
   Pump_Flow: "Pump_Flow",
   Suction_Minimum: "Suction_Minimum",
+  Pressure_EndSprinkler: "Pressure_EndSprinkler",
+  Pressure_AreaFriction: "Pressure_AreaFriction",
+  Pressure_RunFriction: "Pressure_RunFriction",
+  Pressure_Elevation: "Pressure_Elevation",
+  Pressure_Devices: "Pressure_Devices",
+  Run_WorstLoss: "Run_WorstLoss",
+  Run_WorstVelocity: "Run_WorstVelocity",
+  Velocity_Limit: "Velocity_Limit",
 };
 
 /** The argument of the shared checks that reads a named cell (the name itself for the pane's own Demand_HoseFlow). */
@@ -243,13 +308,26 @@ export function buildModel(readings: Readings): PaneModel {
     problems.push({ name: n, message: numberProblem(n, r) ?? `${n} cannot be read.` });
   };
   for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
-  const optional: Exclude<InputName, "Units">[] = ["Demand_HoseFlow", "Required_Margin", "Pump_RatedFlow", "Pump_RatedPressure", "Pump_Flow", "Suction_Minimum"];
+  const optional: Exclude<InputName, "Units">[] = [
+    "Demand_HoseFlow",
+    "Required_Margin",
+    "Pump_RatedFlow",
+    "Pump_RatedPressure",
+    "Pump_Flow",
+    "Suction_Minimum",
+    ...BREAKDOWN_PARTS.map((p) => p.name),
+    "Run_WorstLoss",
+    "Run_WorstVelocity",
+    "Velocity_Limit",
+  ];
   const given = new Set<InputName>();
   for (const n of optional) {
     if (isBlank(readings[n])) continue;
     read(n);
     if (numbers.has(n)) given.add(n);
   }
+  const segment = readLabel(readings.Run_WorstSegment);
+  if (segment !== null && typeof segment === "object") problems.push({ name: "Run_WorstSegment", message: segment.problem });
   if (problems.length > 0) return { kind: "problems", problems };
 
   // Magnitudes: read by the very argument checks the cell functions use (VERDICT, PUMPBOOST, PUMPCURVE), so that
@@ -293,7 +371,7 @@ export function buildModel(readings: Readings): PaneModel {
       ["Pump_RatedPressure", "Pump_RatedFlow"],
     ] as const) {
       if (!given.has(n)) {
-        const unit = unitName(NAME_MEANINGS[other].quantity, units);
+        const unit = unitName(other === "Pump_RatedFlow" ? "flow" : "pressure", units);
         problems.push({ name: n, message: `${n} is empty while ${other} holds ${trim(value(other))} ${unit}: give both or neither.` });
       }
     }
@@ -302,6 +380,11 @@ export function buildModel(readings: Readings): PaneModel {
       pump = rating ?? null;
     }
   }
+  const breakdownMissing = BREAKDOWN_PARTS.filter((p) => !given.has(p.name)).map((p) => p.name);
+  const breakdown =
+    decision && breakdownMissing.length === 0
+      ? readBreakdown(decision.demandPressure, typeof segment === "string" ? segment : null)
+      : null;
   if (problems.length > 0 || !decision) return { kind: "problems", problems };
 
   const { demandFlow, demandPressure, test, requiredMargin } = decision;
@@ -360,9 +443,96 @@ export function buildModel(readings: Readings): PaneModel {
       chosen,
       state,
       caveat,
-      nextSteps: nextSteps(state, caveat !== null, suction, chosen),
+      nextSteps: nextSteps(state, caveat !== null, suction, chosen, upsizeStep(state, assessment.margin, requiredMargin, boost, breakdown?.worst ?? null, units)),
+      breakdown: breakdown ?? null,
+      breakdownMissing,
     },
   };
+
+  /**
+   * The breakdown, read through the same checks as the other names (a cell out of its bounds is a problem with the
+   * cell's message), or undefined where something is wrong: parts that do not add up to the demand pressure, or a
+   * worst segment that loses more than the whole run, mean an inconsistent sheet, never a picture.
+   */
+  function readBreakdown(demandPsi: number, label: string | null): Breakdown | undefined {
+    const pressure = (n: Exclude<InputName, "Units">, rule?: QuantityRule) => check(() => quantityArg(value(n), n, "pressure", units, rule));
+    const parts: BreakdownPart[] = [];
+    for (const p of BREAKDOWN_PARTS) {
+      // a sprinkler needs a pressure; losses may be 0; the elevation may be a gain
+      const rule = p.name === "Pressure_EndSprinkler" ? undefined : p.name === "Pressure_Elevation" ? SIGNED : ZERO_ALLOWED;
+      const psi = pressure(p.name, rule);
+      if (psi !== undefined) parts.push({ id: p.id, name: p.name, label: p.label, pressure: psi });
+    }
+    if (parts.length < BREAKDOWN_PARTS.length) return undefined;
+    const sum = parts.reduce((a, p) => a + p.pressure, 0);
+    if (Math.abs(sum - demandPsi) > Math.max(BREAKDOWN_TOLERANCE.ratio * demandPsi, BREAKDOWN_TOLERANCE.psi)) {
+      const names = BREAKDOWN_PARTS.map((p) => p.name);
+      const sheetSum = BREAKDOWN_PARTS.reduce((a, p) => a + value(p.name), 0);
+      const unit = unitName("pressure", units);
+      problems.push({
+        name: "Demand_Pressure",
+        message:
+          `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]} add up to ${trim(sheetSum)} ${unit}, not the ${trim(value("Demand_Pressure"))} ${unit} ` +
+          `of Demand_Pressure${where(readings.Demand_Pressure)}: the estimate sheet is inconsistent. Recalculate it, or point these names at the parts of that demand pressure.`,
+      });
+      return undefined;
+    }
+
+    if (label === null || !given.has("Run_WorstLoss") || !given.has("Run_WorstVelocity")) {
+      if (given.has("Velocity_Limit")) check(() => quantityArg(value("Velocity_Limit"), "Velocity_Limit", "velocity", units));
+      return { parts, worst: null };
+    }
+    const loss = pressure("Run_WorstLoss", ZERO_ALLOWED);
+    const velocity = check(() => quantityArg(value("Run_WorstVelocity"), "Run_WorstVelocity", "velocity", units, ZERO_ALLOWED));
+    const limitGiven = given.has("Velocity_Limit");
+    const limit = limitGiven
+      ? check(() => quantityArg(value("Velocity_Limit"), "Velocity_Limit", "velocity", units))
+      : toUS("velocity", DEFAULT_VELOCITY_LIMIT[units], units);
+    if (loss === undefined || velocity === undefined || limit === undefined) return undefined;
+    const run = parts.find((p) => p.id === "run-friction")!.pressure;
+    if (loss > run + Math.max(BREAKDOWN_TOLERANCE.ratio * run, BREAKDOWN_TOLERANCE.psi)) {
+      const unit = unitName("pressure", units);
+      problems.push({
+        name: "Run_WorstLoss",
+        message:
+          `Run_WorstLoss${where(readings.Run_WorstLoss)} is ${trim(value("Run_WorstLoss"))} ${unit}, more than the ${trim(value("Pressure_RunFriction"))} ${unit} ` +
+          "of Pressure_RunFriction, the friction of the whole run: the estimate sheet is inconsistent.",
+      });
+      return undefined;
+    }
+    return { parts, worst: { segment: label, loss, velocity, overLimit: velocity > limit, limit, limitGiven } };
+  }
+}
+
+/**
+ * The label of the worst segment: text (trimmed) or a number as its text; null where blank; a problem where the cell
+ * shows an error or the name is not one cell.
+ */
+function readLabel(r: Reading): string | null | { problem: string } {
+  if (r.kind === "text") return r.value.trim() === "" ? null : r.value.trim();
+  if (r.kind === "number") return String(r.value);
+  if (r.kind === "missing" || r.kind === "empty") return null;
+  return { problem: numberProblem("Run_WorstSegment", r) ?? "Run_WorstSegment cannot be read." };
+}
+
+/**
+ * Upsizing the segment that loses the most, where the sheet names it and there is pressure to make up (a marginal
+ * verdict: the required margin less the margin; pump needed: the boost). Said plainly where that segment alone loses
+ * less than the pressure to make up.
+ */
+function upsizeStep(
+  state: PaneState,
+  margin: number | null,
+  requiredMargin: number,
+  boost: number | null,
+  worst: WorstSegment | null,
+  units: UnitSystem,
+): string | null {
+  if (!worst) return null;
+  const gap = state === "marginal" && margin !== null ? requiredMargin - margin : state === "short" ? boost : null;
+  if (gap === null) return null;
+  const short = worst.loss < gap ? `, less than the ${formatPressure(gap, units)} to make up` : "";
+  return `Upsize ${worst.segment} (loses ${formatPressure(worst.loss, units)}${short}), or budget the pump.`;
 }
 
 /** PUMPSUCTION for the pump checked, with the hose drawn beside it, against the minimum (US units). */
@@ -399,11 +569,15 @@ function checkChosen(
   }
 }
 
-/** What to do next where the verdict is not a plain yes or no. */
-function nextSteps(state: PaneState, caveat: boolean, suction: SuctionCheck | null, chosen: ChosenPump | null): string[] {
+/**
+ * What to do next where the verdict is not a plain yes or no. `upsize` names the segment to upsize where the sheet
+ * names it (upsizeStep).
+ */
+function nextSteps(state: PaneState, caveat: boolean, suction: SuctionCheck | null, chosen: ChosenPump | null, upsize: string | null): string[] {
   const steps: string[] = [];
   if (caveat) steps.push("Confirm the flow test: ask for one that drops the residual at least 25 % below static or flows the full demand.");
-  if (state === "marginal") {
+  if (upsize) steps.push(upsize);
+  else if (state === "marginal") {
     steps.push("Upsize the pipe that loses the most pressure in the run on the estimate sheet, or budget the pump.");
   }
   if (state === "cannot-serve") {

@@ -11,7 +11,11 @@
 import type { UnitSystem } from "../engine/units";
 import type { Scenario } from "./scenario";
 
-/** The named cells the pane reads. Units holds "US" or "SI"; every other name holds a number in those units. */
+/**
+ * The named cells the pane reads. Units holds "US" or "SI", Run_WorstSegment a segment's label; every other name
+ * holds a number in those units. The pressure breakdown (Pressure_*, Run_*, Velocity_Limit) is optional: a workbook
+ * without it gets no breakdown.
+ */
 export const INPUT_NAMES = [
   "Units",
   "Supply_Static",
