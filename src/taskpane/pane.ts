@@ -5,14 +5,15 @@
  *
  * Stable hooks: data-role="state" (the state in words), "verdict" (its box carries data-state: pass, marginal, fail,
  * cannot-serve), "margin",
- * "caveat", "pump", "suction", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
+ * "caveat", "pump", "suction", "breakdown" (where the pressure goes; its rows "breakdown-row" carry data-id, the
+ * part), "worst", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
  * "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
  */
 import { formatFlow, formatPressure } from "../engine/decision";
-import type { UnitSystem } from "../engine/units";
+import { type UnitSystem, fromUS, unitName } from "../engine/units";
 import type { WorkbookPort } from "../workbook/port";
 import { CAUTION, PALETTE } from "../workbook/look";
-import { type Estimate, type PaneModel, buildModel, plotData } from "./model";
+import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, buildModel, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
 import { PANE_CSS } from "./styles";
 
@@ -138,6 +139,47 @@ export function suctionLine(e: Estimate): string | null {
     : `${at}, above the ${minimum} it must keep.`;
 }
 
+/** A velocity for a sentence: ft/s or m/s to 0.1. */
+function formatVelocity(ftPerS: number, units: UnitSystem): string {
+  return `${fromUS("velocity", ftPerS, units).toFixed(1)} ${unitName("velocity", units)}`;
+}
+
+/** A limit as it was typed, or a default: "20 ft/s", "6 m/s", "19.5 ft/s". */
+function formatLimit(ftPerS: number, units: UnitSystem): string {
+  return `${Number(fromUS("velocity", ftPerS, units).toFixed(1))} ${unitName("velocity", units)}`;
+}
+
+/** A part's share of the demand pressure, whole percent: "31 %", "−9 %", "less than 1 %". */
+function share(pressure: number, demand: number): string {
+  const pct = demand > 0 ? (pressure / demand) * 100 : 0;
+  if (pct !== 0 && Math.abs(pct) < 0.5) return "less than 1 %";
+  return `${pct < 0 ? "−" : ""}${Math.abs(Math.round(pct))} %`;
+}
+
+/** Each part of the breakdown as the pane writes it: its pressure and its share of the demand pressure. */
+export function partLines(e: Estimate, b: Breakdown): Array<{ id: string; label: string; value: string; width: number; negative: boolean }> {
+  return b.parts.map((p) => ({
+    id: p.id,
+    label: p.label,
+    value: `${signed(p.pressure, e.units)} (${share(p.pressure, e.demandPressure)})`,
+    width: e.demandPressure > 0 ? Math.min(100, (Math.abs(p.pressure) / e.demandPressure) * 100) : 0,
+    negative: p.pressure < 0,
+  }));
+}
+
+/**
+ * The segment that loses the most, in one sentence: its loss, the water's velocity, and where that is above the limit,
+ * so; where it is and there is pressure to make up (marginal, pump needed), a larger pipe there is the cheapest fix.
+ */
+export function worstLine(e: Estimate): string | null {
+  const w = e.breakdown?.worst;
+  if (!w) return null;
+  const u = e.units;
+  const above = w.overLimit ? ` (above the ${formatLimit(w.limit, u)} limit${w.limitGiven ? "" : ", common practice"})` : "";
+  const fix = w.overLimit && (e.state === "marginal" || e.state === "short") ? ": a larger pipe there is the cheapest fix" : "";
+  return `Most lost in one segment: ${formatPressure(w.loss, u)} in ${w.segment}, water at ${formatVelocity(w.velocity, u)}${above}${fix}.`;
+}
+
 /** The verdict box's state for the stylesheet and for tests. */
 const BOX_STATE: Record<Estimate["state"], string> = { enough: "pass", marginal: "marginal", short: "fail", "cannot-serve": "cannot-serve" };
 
@@ -166,9 +208,20 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   const caveat = h(doc, "p", { class: "hr-caveat", "data-role": "caveat" });
   const pump = h(doc, "p", { class: "hr-pump", "data-role": "pump" });
   const suction = h(doc, "p", { class: "hr-pump", "data-role": "suction" });
+  const parts = h(doc, "ul", { class: "hr-parts" });
+  const worst = h(doc, "p", { class: "hr-worst", "data-role": "worst" });
+  const breakdown = h(
+    doc,
+    "section",
+    { class: "hr-breakdown", "data-role": "breakdown", "aria-label": "Where the pressure goes" },
+    h(doc, "p", { class: "hr-breakdown-title" }, "Where the pressure goes"),
+    parts,
+    worst,
+  );
+  breakdown.hidden = true;
   const steps = h(doc, "ul", { class: "hr-steps", "data-role": "next-steps", "aria-label": "What to do next" });
   const problems = h(doc, "ul", { class: "hr-problems", "data-role": "problems" });
-  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, verdict, margin, caveat, pump, suction, steps, problems);
+  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, verdict, margin, caveat, pump, suction, breakdown, steps, problems);
   const caution = h(doc, "p", { class: "hr-caution", "data-role": "caution" }, CAUTION);
   const calcNote = h(doc, "p", { class: "hr-calc-note", "data-role": "calc-note" });
   calcNote.hidden = true;
@@ -207,6 +260,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     show(stateTag, null);
     margin.textContent = "";
     for (const p of [caveat, pump, suction]) show(p, null);
+    drawBreakdown(null);
     steps.replaceChildren();
     steps.hidden = true;
   }
@@ -221,6 +275,32 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     if (data.pumpLabel) items.push(["pump", data.pumpLabel]);
     legend.replaceChildren(...items.map(([k, label]) => h(doc, "li", {}, legendIcon(doc, k), label)));
     plotBox.hidden = false;
+  }
+
+  function drawBreakdown(e: Estimate | null): void {
+    const b = e?.breakdown;
+    if (!e || !b) {
+      parts.replaceChildren();
+      show(worst, null);
+      breakdown.hidden = true;
+      return;
+    }
+    parts.replaceChildren(
+      ...partLines(e, b).map((line) => {
+        const bar = h(doc, "span", { class: "hr-part-bar", "data-part": line.id, "data-sign": line.negative ? "negative" : "positive" });
+        bar.style.width = `${line.width.toFixed(2)}%`;
+        return h(
+          doc,
+          "li",
+          { "data-role": "breakdown-row", "data-id": line.id },
+          h(doc, "span", { class: "hr-part-label" }, line.label),
+          h(doc, "span", { class: "hr-part-value" }, line.value),
+          h(doc, "span", { class: "hr-part-track", "aria-hidden": "true" }, bar),
+        );
+      }),
+    );
+    show(worst, worstLine(e));
+    breakdown.hidden = false;
   }
 
   function drawReadings(e: Estimate): void {
@@ -240,6 +320,16 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     ];
     if (u === "SI") rows.push(["Hazard classes", "NFPA 13's, with values converted to SI"]);
     if (e.assessment.supplyPressure !== null) rows.splice(7, 0, ["Supply at demand flow", formatPressure(e.assessment.supplyPressure, u)]);
+    const b = e.breakdown;
+    if (b) {
+      for (const p of b.parts) rows.push([p.label, signed(p.pressure, u)]);
+      const w = b.worst;
+      rows.push(["Segment losing the most", w ? `${w.segment}: ${formatPressure(w.loss, u)} at ${formatVelocity(w.velocity, u)}` : "not given"]);
+      if (w) rows.push(["Velocity limit", w.limitGiven ? formatLimit(w.limit, u) : `${formatLimit(w.limit, u)} (common practice; no Velocity_Limit)`]);
+    } else {
+      const missing = e.breakdownMissing.length === BREAKDOWN_PARTS.length ? "Pressure_ names" : e.breakdownMissing.join(", ");
+      rows.push(["Where the pressure goes", `not given (no ${missing})`]);
+    }
     readingsList.replaceChildren(...rows.flatMap(([k, v]) => [h(doc, "dt", {}, k), h(doc, "dd", {}, v)]));
     readingsBox.hidden = false;
   }
@@ -278,6 +368,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     show(caveat, e.caveat);
     show(pump, pumpLine(e));
     show(suction, suctionLine(e));
+    drawBreakdown(e);
     steps.replaceChildren(...e.nextSteps.map((t) => h(doc, "li", {}, t)));
     steps.hidden = e.nextSteps.length === 0;
     problems.replaceChildren();

@@ -3,6 +3,19 @@
  * under .hr-pane so that a host page (the preview) keeps its own styles. Sized for a 320 px task pane.
  */
 import { PALETTE } from "../workbook/look";
+import type { BreakdownPart } from "./model";
+
+/**
+ * The colour of each part's bar in "Where the pressure goes": the end sprinkler in the plot's sprinkler colour, the
+ * run's friction in the demand's; every bar sits beside its label and its number, so colour is never the only cue.
+ */
+export const PART_COLOURS: Readonly<Record<BreakdownPart["id"], string>> = {
+  "end-sprinkler": PALETTE.sprinklers,
+  "area-friction": PALETTE.band,
+  "run-friction": PALETTE.demand,
+  elevation: PALETTE.supply,
+  devices: PALETTE.ink,
+};
 
 export const PANE_CSS = `
 .hr-pane { font: 13px/1.4 system-ui, -apple-system, "Segoe UI", Roboto, "Helvetica Neue", Arial, sans-serif;
@@ -24,6 +37,20 @@ export const PANE_CSS = `
 .hr-margin, .hr-pump, .hr-caveat { margin: 6px 0 0; font-size: 13px; }
 .hr-caveat { color: #6B2C00; }
 .hr-pump[hidden], .hr-caveat[hidden], .hr-steps[hidden] { display: none; }
+.hr-breakdown { margin: 8px 0 0; padding-top: 6px; border-top: 1px solid ${PALETTE.grid}; }
+.hr-breakdown[hidden], .hr-worst[hidden] { display: none; }
+.hr-breakdown-title { margin: 0 0 2px; font-size: 12px; font-weight: 700; color: #3A4A5A; }
+.hr-parts { list-style: none; margin: 0; padding: 0; }
+.hr-parts li { display: grid; grid-template-columns: minmax(0, 1fr) auto; gap: 1px 8px; margin: 4px 0 0; font-size: 12px; }
+.hr-part-label { overflow-wrap: anywhere; }
+.hr-part-value { text-align: right; white-space: nowrap; font-variant-numeric: tabular-nums; }
+.hr-part-track { grid-column: 1 / -1; display: block; height: 7px; background: #EEF1F4; border-radius: 2px; overflow: hidden; }
+.hr-part-bar { display: block; height: 100%; min-width: 2px; border-radius: 2px; background: currentColor; }
+.hr-part-bar[data-sign="negative"] { background: transparent; border: 1.5px dashed currentColor; }
+${Object.entries(PART_COLOURS)
+  .map(([id, colour]) => `.hr-part-bar[data-part="${id}"] { color: ${colour}; }`)
+  .join("\n")}
+.hr-worst { margin: 6px 0 0; font-size: 13px; }
 .hr-steps { margin: 6px 0 0; padding-left: 18px; font-size: 13px; }
 .hr-steps li { margin: 3px 0; }
 .hr-problems { margin: 6px 0 0; padding-left: 18px; }

@@ -284,3 +284,128 @@ describe("the actions", () => {
     expect($("status")!.textContent).toMatch(/^Added Estimate values 2026-05-04: the numbers of Estimate with values frozen/);
   });
 });
+
+describe("where the pressure goes", () => {
+  /** Parts of BASE's 48 psi, invented: 15 + 8.5 + 17.3 + 4.33 + 2.87 = 48.00 psi. */
+  const PARTS: Values = { Pressure_EndSprinkler: 15, Pressure_AreaFriction: 8.5, Pressure_RunFriction: 17.3, Pressure_Elevation: 4.33, Pressure_Devices: 2.87 };
+  /**
+   * Pump needed: 105 psi where BASE's supply gives 67.958 psi at 562 gpm [NFPA 291]; 15 + 12.4 + 61.4 + 13.0 + 3.2 =
+   * 105.0 psi, 42.6 psi of it in one segment at 22.6 ft/s.
+   */
+  const SHORT: Values = {
+    ...BASE,
+    Demand_Pressure: 105,
+    Pressure_EndSprinkler: 15,
+    Pressure_AreaFriction: 12.4,
+    Pressure_RunFriction: 61.4,
+    Pressure_Elevation: 13.0,
+    Pressure_Devices: 3.2,
+    Run_WorstSegment: "Cross main to the riser",
+    Run_WorstLoss: 42.6,
+    Run_WorstVelocity: 22.6,
+  };
+
+  it("draws one row a part, label, pressure and share of the demand pressure, each with its bar", async () => {
+    const { $, root } = await mount({ ...BASE, ...PARTS });
+    const block = $("breakdown")!;
+    expect(block.hidden).toBe(false);
+    const rows = [...root.querySelectorAll<HTMLElement>('[data-role="breakdown-row"]')];
+    // 15/48 = 31.3 %, 8.5/48 = 17.7 %, 17.3/48 = 36.0 %, 4.33/48 = 9.0 %, 2.87/48 = 6.0 %
+    expect(rows.map((r) => [r.dataset.id, r.querySelector(".hr-part-label")!.textContent, r.querySelector(".hr-part-value")!.textContent])).toEqual([
+      ["end-sprinkler", "End sprinkler", "15.0 psi (31 %)"],
+      ["area-friction", "Friction in the design area", "8.5 psi (18 %)"],
+      ["run-friction", "Friction in the pipe run", "17.3 psi (36 %)"],
+      ["elevation", "Elevation", "4.3 psi (9 %)"],
+      ["devices", "Devices (backflow preventer, meter)", "2.9 psi (6 %)"],
+    ]);
+    const widths = rows.map((r) => parseFloat(r.querySelector<HTMLElement>(".hr-part-bar")!.style.width));
+    [15, 8.5, 17.3, 4.33, 2.87].forEach((p, i) => expect(widths[i]).toBeCloseTo((p / 48) * 100, 1));
+    // the bars say nothing to a screen reader that the text does not
+    for (const r of rows) expect(r.querySelector(".hr-part-track")!.getAttribute("aria-hidden")).toBe("true");
+    // under the pump and suction lines, above what to do next
+    expect($("suction")!.compareDocumentPosition(block) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(block.compareDocumentPosition($("next-steps")!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect($("worst")!.hidden).toBe(true);
+  });
+
+  it("draws a negative elevation as a gain, its bar outlined", async () => {
+    // 15 + 8.5 + 25.8 − 4.33 + 3.03 = 48.00 psi; −4.33/48 = −9.0 %
+    const { root } = await mount({ ...BASE, ...PARTS, Pressure_RunFriction: 25.8, Pressure_Elevation: -4.33, Pressure_Devices: 3.03 });
+    const row = root.querySelector<HTMLElement>('[data-role="breakdown-row"][data-id="elevation"]')!;
+    expect(row.querySelector(".hr-part-value")!.textContent).toBe("−4.3 psi (−9 %)");
+    const bar = row.querySelector<HTMLElement>(".hr-part-bar")!;
+    expect(bar.dataset.sign).toBe("negative");
+    expect(parseFloat(bar.style.width)).toBeCloseTo((4.33 / 48) * 100, 1);
+  });
+
+  it("names the segment that loses the most, above the 20 ft/s limit of common practice, and what to do", async () => {
+    const { $ } = await mount(SHORT);
+    expect($("worst")!.textContent).toBe(
+      "Most lost in one segment: 42.6 psi in Cross main to the riser, water at 22.6 ft/s (above the 20 ft/s limit, common practice): a larger pipe there is the cheapest fix.",
+    );
+    expect($("next-steps")!.textContent).toBe("Upsize Cross main to the riser (loses 42.6 psi), or budget the pump.");
+  });
+
+  it("says no more than the facts under the limit, and names the sheet's limit where it gives one", async () => {
+    const under = await mount({ ...SHORT, Velocity_Limit: 25 });
+    expect(under.$("worst")!.textContent).toBe("Most lost in one segment: 42.6 psi in Cross main to the riser, water at 22.6 ft/s.");
+    const over = await mount({ ...SHORT, Velocity_Limit: 18 });
+    expect(over.$("worst")!.textContent).toBe(
+      "Most lost in one segment: 42.6 psi in Cross main to the riser, water at 22.6 ft/s (above the 18 ft/s limit): a larger pipe there is the cheapest fix.",
+    );
+  });
+
+  it("speaks SI: bar, m/s and the 6 m/s of common practice", async () => {
+    // the pump-needed case in SI: each pressure × 0.0689476 bar/psi, the velocity × 0.3048 m/(ft)
+    const bar = (psi: number) => Number((psi * 0.0689475729316836).toFixed(4));
+    const parts = [15, 12.4, 61.4, 13.0, 3.2].map(bar);
+    const { $, root } = await mount({
+      Units: "SI",
+      Supply_Static: bar(72),
+      Supply_Residual: bar(58),
+      Supply_TestFlow: 1100 * 3.785411784,
+      Demand_Flow: 562 * 3.785411784,
+      Demand_Pressure: parts.reduce((a, b) => a + b, 0),
+      Pressure_EndSprinkler: parts[0],
+      Pressure_AreaFriction: parts[1],
+      Pressure_RunFriction: parts[2],
+      Pressure_Elevation: parts[3],
+      Pressure_Devices: parts[4],
+      Run_WorstSegment: "Cross main to the riser",
+      Run_WorstLoss: bar(42.6),
+      Run_WorstVelocity: 22.6 * 0.3048,
+    });
+    // 15 psi = 1.03 bar; 15/105 = 14 %
+    expect(root.querySelector('[data-id="end-sprinkler"] .hr-part-value')!.textContent).toBe("1.03 bar (14 %)");
+    // 42.6 psi = 2.94 bar; 22.6 ft/s = 6.89 m/s
+    expect($("worst")!.textContent).toBe(
+      "Most lost in one segment: 2.94 bar in Cross main to the riser, water at 6.9 m/s (above the 6 m/s limit, common practice): a larger pipe there is the cheapest fix.",
+    );
+  });
+
+  it("is hidden where the workbook names no breakdown, and goes when the names go", async () => {
+    const plain = await mount(BASE);
+    expect(plain.$("breakdown")!.hidden).toBe(true);
+    expect(plain.root.querySelectorAll('[data-role="breakdown-row"]')).toHaveLength(0);
+    const { port, pane, $, root } = await mount({ ...BASE, ...PARTS });
+    expect($("breakdown")!.hidden).toBe(false);
+    port.set({ Pressure_Devices: undefined });
+    await pane.idle();
+    expect($("breakdown")!.hidden).toBe(true);
+    expect(root.querySelectorAll('[data-role="breakdown-row"]')).toHaveLength(0);
+  });
+
+  it("lists the parts and the segment among the inputs read", async () => {
+    const { $, root } = await mount(SHORT);
+    const dl = $("readings")!;
+    const rows = new Map([...dl.querySelectorAll("dt")].map((dt) => [dt.textContent, dt.nextElementSibling!.textContent]));
+    expect(rows.get("End sprinkler")).toBe("15.0 psi");
+    expect(rows.get("Elevation")).toBe("13.0 psi");
+    expect(rows.get("Segment losing the most")).toBe("Cross main to the riser: 42.6 psi at 22.6 ft/s");
+    expect(rows.get("Velocity limit")).toBe("20 ft/s (common practice; no Velocity_Limit)");
+    const plain = await mount(BASE);
+    const plainRows = new Map([...plain.$("readings")!.querySelectorAll("dt")].map((dt) => [dt.textContent, dt.nextElementSibling!.textContent]));
+    expect(plainRows.get("Where the pressure goes")).toBe("not given (no Pressure_ names)");
+    expect(root.querySelector(".hr-breakdown-title")!.textContent).toBe("Where the pressure goes");
+  });
+});
