@@ -13,6 +13,15 @@
  */
 import { fail, n, q } from "./errors";
 import { type HeadLoss, elevationPressure, headLoss } from "./friction";
+import type { UnitSystem } from "./units";
+
+/**
+ * Velocity above which a segment of the run is flagged, in each unit system's own velocity: 20 ft/s, 6 m/s.
+ *
+ * The visible default of the estimate sheet's velocity limit and of the pane where a workbook gives none.
+ * @see (common practice)
+ */
+export const DEFAULT_VELOCITY_LIMIT: Readonly<Record<UnitSystem, number>> = { US: 20, SI: 6 };
 
 
 /** One segment of a run. */

@@ -18,6 +18,7 @@ import {
   pumpSuction,
 } from "../engine/pump";
 import { CURVE_DEMAND_FLOW_FACTOR, type CurvePoint, SUPPLY_CURVE_FLOW_FACTOR, sampleFlows } from "../engine/curve";
+import { DEFAULT_VELOCITY_LIMIT } from "../engine/run";
 import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
 import { type QuantityRule, SIGNED, ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
@@ -57,11 +58,6 @@ export const BREAKDOWN_PARTS = [
   { id: "devices", name: "Pressure_Devices", label: "Devices (backflow preventer, meter)" },
 ] as const;
 
-/**
- * The velocity above which a segment is flagged where the workbook gives no Velocity_Limit, in the sheet's units:
- * 20 ft/s, 6 m/s in SI work. (common practice)
- */
-export const DEFAULT_VELOCITY_LIMIT: Readonly<Record<UnitSystem, number>> = { US: 20, SI: 6 };
 
 /**
  * How far the parts may be from Demand_Pressure, for the rounding of a sheet: 0.5 % of it, and at least 0.05 psi.

@@ -3,6 +3,7 @@
  * and an optional pump) and the demo scenarios every new estimate sheet starts from. The template (./template.ts)
  * lays a scenario out as cells; the samples (samples/scenarios.ts) are scenarios too.
  */
+import { DEFAULT_VELOCITY_LIMIT } from "../engine/run";
 import type { UnitSystem } from "../engine/units";
 
 /** One segment of the run from the design area back to the supply, in the scenario's units. */
@@ -166,7 +167,7 @@ export function demoScenario(units: UnitSystem): Scenario {
       system: "wet",
       design: { kind: "area" },
       areaFittings: "T",
-      velocityLimit: 6,
+      velocityLimit: DEFAULT_VELOCITY_LIMIT.SI,
       insideHose: null,
       hydrantsDownstream: false,
       run: [
@@ -208,7 +209,7 @@ export function demoScenario(units: UnitSystem): Scenario {
     system: "wet",
     design: { kind: "area" },
     areaFittings: "T",
-    velocityLimit: 20,
+    velocityLimit: DEFAULT_VELOCITY_LIMIT.US,
     insideHose: null,
     hydrantsDownstream: false,
     run: [
