@@ -23,7 +23,7 @@ import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
 import { type QuantityRule, SIGNED, ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
 import { decisionArgs, pumpRatingArgs } from "../functions/common";
-import { type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
+import { INPUT_NAMES, type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
 
 /** What each name should hold, for messages: a description and its quantity ("text" for a label). */
 export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; quantity: Quantity | "text" }> = {
@@ -304,18 +304,8 @@ export function buildModel(readings: Readings): PaneModel {
     problems.push({ name: n, message: numberProblem(n, r) ?? `${n} cannot be read.` });
   };
   for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
-  const optional: Exclude<InputName, "Units">[] = [
-    "Demand_HoseFlow",
-    "Required_Margin",
-    "Pump_RatedFlow",
-    "Pump_RatedPressure",
-    "Pump_Flow",
-    "Suction_Minimum",
-    ...BREAKDOWN_PARTS.map((p) => p.name),
-    "Run_WorstLoss",
-    "Run_WorstVelocity",
-    "Velocity_Limit",
-  ];
+  // every other numeric name is optional (Run_WorstSegment, the one text name, is read on its own below)
+  const optional = INPUT_NAMES.filter((n): n is Exclude<InputName, "Units"> => n !== "Units" && n !== "Run_WorstSegment" && !REQUIRED_NAMES.includes(n));
   const given = new Set<InputName>();
   for (const n of optional) {
     if (isBlank(readings[n])) continue;

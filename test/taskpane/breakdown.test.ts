@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { type Estimate, type PaneModel, buildModel } from "../../src/taskpane/model";
-import { BASE, FakePort, type Values } from "./fakePort";
+import { BASE, FakePort, type Values, siBreakdown } from "./fakePort";
 
 function model(v: Values): PaneModel {
   return buildModel(new FakePort(v).readings);
@@ -269,24 +269,7 @@ describe("pane model: what to do next names the segment", () => {
 
   it("speaks the sheet's units", () => {
     // 105 psi × 0.0689476 = 7.24 bar demanded; 42.6 psi = 2.94 bar; the SI sheet's parts are the US ones converted
-    const bar = (psi: number) => Number((psi * BAR).toFixed(4));
-    const parts = [15, 12.4, 61.4, 13.0, 3.2].map(bar);
-    const e = ready({
-      Units: "SI",
-      Supply_Static: bar(72),
-      Supply_Residual: bar(58),
-      Supply_TestFlow: 1100 * 3.785411784,
-      Demand_Flow: 562 * 3.785411784,
-      Demand_Pressure: parts.reduce((a, b) => a + b, 0),
-      Pressure_EndSprinkler: parts[0],
-      Pressure_AreaFriction: parts[1],
-      Pressure_RunFriction: parts[2],
-      Pressure_Elevation: parts[3],
-      Pressure_Devices: parts[4],
-      Run_WorstSegment: "Cross main to the riser",
-      Run_WorstLoss: bar(42.6),
-      Run_WorstVelocity: 22.6 * M_PER_FT,
-    });
+    const e = ready(siBreakdown());
     expect(e.nextSteps).toEqual(["Upsize Cross main to the riser (loses 2.94 bar), or budget the pump."]);
   });
 });

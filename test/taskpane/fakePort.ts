@@ -73,3 +73,30 @@ export const BASE: Values = {
   Demand_Flow: 562,
   Demand_Pressure: 48,
 };
+
+/**
+ * A pump-needed estimate with its pressure breakdown, in SI: the US case (end sprinkler 15, design area 12.4, run
+ * friction 61.4, elevation 13.0, devices 3.2 psi, the cross main to the riser losing 42.6 psi at 22.6 ft/s) with
+ * each pressure × 0.0689476 bar/psi (mathjs: psi to bar), flows × 3.785411784 L/min per gpm, the velocity × 0.3048
+ * m/ft. Invented demo numbers.
+ */
+export function siBreakdown(): Values {
+  const bar = (psi: number) => Number((psi * 0.0689475729316836).toFixed(4));
+  const parts = [15, 12.4, 61.4, 13.0, 3.2].map(bar);
+  return {
+    Units: "SI",
+    Supply_Static: bar(72),
+    Supply_Residual: bar(58),
+    Supply_TestFlow: 1100 * 3.785411784,
+    Demand_Flow: 562 * 3.785411784,
+    Demand_Pressure: parts.reduce((a, b) => a + b, 0),
+    Pressure_EndSprinkler: parts[0],
+    Pressure_AreaFriction: parts[1],
+    Pressure_RunFriction: parts[2],
+    Pressure_Elevation: parts[3],
+    Pressure_Devices: parts[4],
+    Run_WorstSegment: "Cross main to the riser",
+    Run_WorstLoss: bar(42.6),
+    Run_WorstVelocity: 22.6 * 0.3048,
+  };
+}

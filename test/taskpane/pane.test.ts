@@ -3,7 +3,7 @@ import { afterEach, describe, expect, it, vi } from "vitest";
 import { verdict as verdictCell } from "../../src/functions/functions";
 import { BUSY_REREAD_MS, type PaneHandle, mountPane } from "../../src/taskpane/pane";
 import { CAUTION } from "../../src/workbook/look";
-import { BASE, FakePort, type Values } from "./fakePort";
+import { BASE, FakePort, type Values, siBreakdown } from "./fakePort";
 
 let mounted: PaneHandle[] = [];
 afterEach(async () => {
@@ -356,25 +356,7 @@ describe("where the pressure goes", () => {
   });
 
   it("speaks SI: bar, m/s and the 6 m/s of common practice", async () => {
-    // the pump-needed case in SI: each pressure × 0.0689476 bar/psi, the velocity × 0.3048 m/(ft)
-    const bar = (psi: number) => Number((psi * 0.0689475729316836).toFixed(4));
-    const parts = [15, 12.4, 61.4, 13.0, 3.2].map(bar);
-    const { $, root } = await mount({
-      Units: "SI",
-      Supply_Static: bar(72),
-      Supply_Residual: bar(58),
-      Supply_TestFlow: 1100 * 3.785411784,
-      Demand_Flow: 562 * 3.785411784,
-      Demand_Pressure: parts.reduce((a, b) => a + b, 0),
-      Pressure_EndSprinkler: parts[0],
-      Pressure_AreaFriction: parts[1],
-      Pressure_RunFriction: parts[2],
-      Pressure_Elevation: parts[3],
-      Pressure_Devices: parts[4],
-      Run_WorstSegment: "Cross main to the riser",
-      Run_WorstLoss: bar(42.6),
-      Run_WorstVelocity: 22.6 * 0.3048,
-    });
+    const { $, root } = await mount(siBreakdown());
     // 15 psi = 1.03 bar; 15/105 = 14 %
     expect(root.querySelector('[data-id="end-sprinkler"] .hr-part-value')!.textContent).toBe("1.03 bar (14 %)");
     // 42.6 psi = 2.94 bar; 22.6 ft/s = 6.89 m/s
