@@ -94,9 +94,12 @@ function tickLabel(v: number): string {
   return String(Number(v.toPrecision(6)));
 }
 
-/** Approximate width of a label in the 11 px system font, px. */
-const CHAR_WIDTH = 6.2;
-const LABEL_HEIGHT = 12;
+/**
+ * Approximate width of a character of a label in the 11 px system font at weight 600, px, and the height of its box
+ * from above the capitals to below the descenders (measured in Chromium: getBoundingClientRect of the labels).
+ */
+const CHAR_WIDTH = 6.6;
+const LABEL_HEIGHT = 14;
 
 type Box = { x0: number; y0: number; x1: number; y1: number };
 type Offset = { dx: number; dy: number; anchor: "start" | "middle" | "end" };
@@ -112,11 +115,16 @@ const OFFSETS = {
 } as const satisfies Record<string, Offset>;
 type Spot = keyof typeof OFFSETS;
 
+/** The same spots one label height further from the point, for where the near ones are all taken. */
+const FAR_OFFSETS: Record<Spot, Offset> = Object.fromEntries(
+  Object.entries(OFFSETS).map(([k, o]) => [k, { ...o, dy: o.dy + (o.dy < 0 ? -LABEL_HEIGHT : LABEL_HEIGHT) }]),
+) as Record<Spot, Offset>;
+
 function labelBox(px: number, py: number, o: Offset, label: string): Box {
   const w = label.length * CHAR_WIDTH;
   const x0 = o.anchor === "start" ? px + o.dx : o.anchor === "end" ? px + o.dx - w : px + o.dx - w / 2;
   const base = py + o.dy;
-  return { x0, y0: base - LABEL_HEIGHT + 2, x1: x0 + w, y1: base + 2 };
+  return { x0, y0: base - LABEL_HEIGHT + 3, x1: x0 + w, y1: base + 3 };
 }
 
 const overlap = (a: Box, b: Box) => Math.max(0, Math.min(a.x1, b.x1) - Math.max(a.x0, b.x0)) * Math.max(0, Math.min(a.y1, b.y1) - Math.max(a.y0, b.y0));
@@ -124,13 +132,13 @@ const outside = (b: Box, area: Box) =>
   Math.max(0, area.x0 - b.x0) + Math.max(0, b.x1 - area.x1) + Math.max(0, area.y0 - b.y0) + Math.max(0, b.y1 - area.y1);
 
 /**
- * Place a label at a point: the spot of `prefer` (in that order) that stays inside `area` and clear of `taken`
- * (other labels and markers), else the one that pokes out and overlaps least. Adds the box chosen to `taken`.
+ * Place a label at a point: the spot of `prefer` (in that order, near the point, then one label height further) that
+ * stays inside `area` and clear of `taken` (other labels and markers), else the one that pokes out and overlaps
+ * least. Adds the box chosen to `taken`.
  */
 function place(px: number, py: number, label: string, prefer: Spot[], area: Box, taken: Box[]): Offset & { clear: boolean } {
   let best: { o: Offset; b: Box; cost: number } | null = null;
-  for (const k of prefer) {
-    const o = OFFSETS[k];
+  for (const o of [...prefer.map((k) => OFFSETS[k]), ...prefer.map((k) => FAR_OFFSETS[k])]) {
     const b = labelBox(px, py, o, label);
     const cost = outside(b, area) * LABEL_HEIGHT * 4 + taken.reduce((sum, t) => sum + overlap(b, t), 0);
     if (!best || cost < best.cost) best = { o, b, cost };
@@ -259,7 +267,8 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
   // demand points, each with its own shape and a label placed clear of the others (a white halo keeps a label
   // readable where a curve runs behind it)
   const area: Box = { x0: PAD.left + 2, y0: PAD.top, x1: width - PAD.right, y1: height - PAD.bottom - 2 };
-  const markerBox = (q: number, p: number): Box => ({ x0: X(q) - 7, y0: Y(p) - 7, x1: X(q) + 7, y1: Y(p) + 7 });
+  // a marker and a clearance around it (the diamond reaches 6.5 px and its stroke 0.75 px more)
+  const markerBox = (q: number, p: number): Box => ({ x0: X(q) - 8, y0: Y(p) - 8, x1: X(q) + 8, y1: Y(p) + 8 });
   const taken: Box[] = [...d.demand.map((pt) => markerBox(pt.q, pt.p)), markerBox(...d.testPoint), markerBox(...d.staticPoint)];
   const ordered = [...d.demand].sort((a, b) => (a.id === "total" ? -1 : b.id === "total" ? 1 : 0));
   const offsets = new Map<string, Offset>();

@@ -332,6 +332,43 @@ describe("the pane's states at 320 px", () => {
   });
 });
 
+describe("the plot's labels", () => {
+  test("never overlap one another or a marker, in every sample, on both flow axes, at 320 and 420 px", async () => {
+    const { samples } = JSON.parse(await readFile("samples/index.json", "utf8")) as { samples: Array<{ file: string }> };
+    const hits: string[] = [];
+    for (const { file } of samples) {
+      await open(file);
+      for (const width of ["320px", "420px"]) {
+        await page.evaluate(async (w) => {
+          document.documentElement.style.setProperty("--pane-width", w);
+          await (window as unknown as { headroomPreview: { pane: { refresh(): Promise<void> } } }).headroomPreview.pane.refresh();
+        }, width);
+        for (const axis of ["axis-linear", "axis-pow"]) {
+          await page.click(`[data-role="${axis}"]`);
+          const found = await page.evaluate(() => {
+            const svg = document.querySelector('[data-role="plot"]')!;
+            // the labels placed at points (demand points, the flow test), and the demand markers
+            const labels = [...svg.querySelectorAll('[data-role="demand-point"] text, :scope > text[font-size="10.5"]')].map((t) => ({ s: `"${t.textContent}"`, b: t.getBoundingClientRect() }));
+            const markers = [...svg.querySelectorAll('[data-role="demand-point"] rect, [data-role="demand-point"] path')].map((m) => ({ s: "a marker", b: m.getBoundingClientRect() }));
+            const out: string[] = [];
+            labels.forEach((a, i) =>
+              [...labels.slice(i + 1), ...markers].forEach((b) => {
+                const x = Math.min(a.b.right, b.b.right) - Math.max(a.b.left, b.b.left);
+                const y = Math.min(a.b.bottom, b.b.bottom) - Math.max(a.b.top, b.b.top);
+                if (x > 0.5 && y > 0.5) out.push(`${a.s} overlaps ${b.s} by ${x.toFixed(1)} × ${y.toFixed(1)} px`);
+              }),
+            );
+            return out;
+          });
+          hits.push(...found.map((h) => `${file}, ${width}, ${axis}: ${h}`));
+        }
+      }
+      await page.evaluate(() => document.documentElement.style.removeProperty("--pane-width"));
+    }
+    expect(hits).toEqual([]);
+  });
+});
+
 describe(".xlsx in and out", () => {
   test("Save .xlsx writes formulas (the add-in's spelling) with their values, and the edit", async () => {
     await open(PUMP_SAMPLE);
