@@ -636,7 +636,7 @@ export function supplyDemandSection(
   sh.heading("Demand at the water supply");
   const sprinklerFlow = sh.line("Sprinkler flow", "computed", `=${area.flow}`, u.flow, `from ${area.source}`, f.flow);
   const inside = sh.line("Inside hose allowance", "computed", `=${hazard.insideHose}`, u.flow, "hose stations inside the building", f.flow);
-  const outside = sh.line("Outside hose allowance", "computed", `=MAX(0,${hazard.hose}-${inside})`, u.flow, "the hazard's total less the inside hose: hydrants on the public main", f.flow);
+  const outside = sh.line("Outside hose allowance", "computed", `=MAX(0,${hazard.hose}-${inside})`, u.flow, "the total hose allowance less the inside hose: hydrants on the public main", f.flow);
   const hoseFlow = sh.line("Hose stream allowance, inside + outside", "computed", `=${inside}+${outside}`, u.flow, "", f.flow);
   const demandFlow = sh.line("Demand flow, sprinklers + hose", "computed", `=${sprinklerFlow}+${hoseFlow}`, u.flow, "", f.flow);
   const demandPressure = sh.line("Demand pressure at the supply", "computed", `=${run.pressureAfter}`, u.pressure, "from PIPERUN: the pressure after the last segment", f.pressure);
