@@ -23,7 +23,7 @@ import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
 import { type QuantityRule, SIGNED, ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
 import { decisionArgs, pumpRatingArgs } from "../functions/common";
-import { INPUT_NAMES, type InputName, REQUIRED_NAMES, type Reading, type Readings } from "../workbook/port";
+import { INPUT_NAMES, type InputName, REQUIRED_NAMES, type Reading, type Readings, SUMMARY_NAMES } from "../workbook/port";
 
 /** What each name should hold, for messages: a description and its quantity ("text" for a label). */
 export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; quantity: Quantity | "text" }> = {
@@ -47,6 +47,14 @@ export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; 
   Run_WorstLoss: { what: "the friction loss of the run segment that loses the most", quantity: "pressure" },
   Run_WorstVelocity: { what: "the water velocity in the run segment that loses the most", quantity: "velocity" },
   Velocity_Limit: { what: "the velocity above which the estimate sheet flags a segment", quantity: "velocity" },
+  // read by the one-page summary alone (src/summary/), never by the verdict
+  Project_Site: { what: "the site of the project", quantity: "text" },
+  Project_Address: { what: "the address of the site", quantity: "text" },
+  Project_PreparedBy: { what: "who prepared the estimate", quantity: "text" },
+  Supply_When: { what: "when and where the flow test used was made", quantity: "text" },
+  Design_Hazard: { what: "the occupancy hazard (or what is stored)", quantity: "text" },
+  Design_System: { what: "the system type: wet, dry, preaction", quantity: "text" },
+  Design_Area: { what: "the design area", quantity: "area" },
 };
 
 /** The parts of the demand pressure, in the order the pane shows them; they add up to Demand_Pressure. */
@@ -304,8 +312,12 @@ export function buildModel(readings: Readings): PaneModel {
     problems.push({ name: n, message: numberProblem(n, r) ?? `${n} cannot be read.` });
   };
   for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
-  // every other numeric name is optional (Run_WorstSegment, the one text name, is read on its own below)
-  const optional = INPUT_NAMES.filter((n): n is Exclude<InputName, "Units"> => n !== "Units" && n !== "Run_WorstSegment" && !REQUIRED_NAMES.includes(n));
+  // every other name of the verdict and its breakdown is optional (Run_WorstSegment, text, is read on its own below;
+  // the one-page summary's names are the summary's business: src/summary/)
+  const summaryOnly: readonly InputName[] = SUMMARY_NAMES;
+  const optional = INPUT_NAMES.filter(
+    (n): n is Exclude<InputName, "Units"> => n !== "Units" && n !== "Run_WorstSegment" && !REQUIRED_NAMES.includes(n) && !summaryOnly.includes(n),
+  );
   const given = new Set<InputName>();
   for (const n of optional) {
     if (isBlank(readings[n])) continue;

@@ -12,9 +12,11 @@ import type { UnitSystem } from "../engine/units";
 import type { Scenario } from "./scenario";
 
 /**
- * The named cells the pane reads. Units holds "US" or "SI", Run_WorstSegment a segment's label; every other name
- * holds a number in those units. The pressure breakdown (Pressure_*, Run_*, Velocity_Limit) is optional: a workbook
- * without it gets no breakdown.
+ * The named cells the pane reads. Units holds "US" or "SI", Run_WorstSegment a segment's label, and the project's,
+ * the flow test's and the design's descriptions (SUMMARY_TEXT_NAMES) text; every other name holds a number in those
+ * units. The pressure breakdown (Pressure_*, Run_*, Velocity_Limit) is optional: a workbook without it gets no
+ * breakdown; so are the names the one-page summary alone reads (SUMMARY_NAMES): a workbook without them still gets its
+ * verdict.
  */
 export const INPUT_NAMES = [
   "Units",
@@ -38,9 +40,37 @@ export const INPUT_NAMES = [
   "Run_WorstLoss",
   "Run_WorstVelocity",
   "Velocity_Limit",
+  "Project_Site",
+  "Project_Address",
+  "Project_PreparedBy",
+  "Supply_When",
+  "Design_Hazard",
+  "Design_System",
+  "Design_Area",
 ] as const;
 
 export type InputName = (typeof INPUT_NAMES)[number];
+
+/** Names the one-page summary reads beside the verdict's own: the project, the flow test's date and place, the design. */
+export const SUMMARY_NAMES = [
+  "Project_Site",
+  "Project_Address",
+  "Project_PreparedBy",
+  "Supply_When",
+  "Design_Hazard",
+  "Design_System",
+  "Design_Area",
+] as const satisfies readonly InputName[];
+
+/** The summary's names that hold text, read as text ("OH2", "wet", a date and a hydrant); Design_Area is a number. */
+export const SUMMARY_TEXT_NAMES = [
+  "Project_Site",
+  "Project_Address",
+  "Project_PreparedBy",
+  "Supply_When",
+  "Design_Hazard",
+  "Design_System",
+] as const satisfies readonly InputName[];
 
 /** Names an estimate must define; the others are optional. */
 export const REQUIRED_NAMES: readonly InputName[] = [

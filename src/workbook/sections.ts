@@ -157,6 +157,8 @@ export interface FlowTestRefs {
   residual: string;
   /** the test flow used (measured directly or from the pitot reading) */
   testFlow: string;
+  /** when and where the test was made (text) */
+  when: string;
 }
 
 /** The flow tests, each carried to the site. */
@@ -241,9 +243,9 @@ export function projectSection(s: Scenario, row: number): Section<UnitsRefs> {
   sh.skip();
 
   sh.heading("Project");
-  sh.line("Site", "input", s.site);
-  sh.line("Address", "input", s.address);
-  sh.line("Prepared by", "input", s.preparedBy);
+  sh.name("Project_Site", sh.line("Site", "input", s.site), "Site of the project, for the one-page summary");
+  sh.name("Project_Address", sh.line("Address", "input", s.address), "Address of the site, for the one-page summary");
+  sh.name("Project_PreparedBy", sh.line("Prepared by", "input", s.preparedBy), "Who prepared the estimate, for the one-page summary");
   const unitsCell = sh.line("Units of this sheet", "input", s.units, "", "US or SI: every number below is in these units");
   sh.name("Units", unitsCell, "Units of the estimate: US or SI");
   return sh.done({ units: abs(unitsCell) });
@@ -281,7 +283,7 @@ export function waterSupplySection(s: Scenario, row: number, { units: U }: Units
   const outlet = reading(`Outlet internal diameter (${u.diameter})`, (t) => t.outletDiameter, s.units === "SI" ? "0.0" : "0.00");
   const coef = reading("Outlet coefficient", (t) => t.outletCoefficient, "0.00");
   const rise = reading(`Site above the test gauge (${u.length})`, (t) => t.rise, s.units === "SI" ? "0.0" : "0");
-  reading("When and where tested", (t) => t.when);
+  const when = reading("When and where tested", (t) => t.when);
   sh.put("A", "label", `Flow from the pitot reading (${u.flow})`);
   const pitotFlow = cols.map((c, i) => sh.put(c, "computed", `=IF(ISBLANK(${pitot[i]}),"",${hr("PITOTFLOW", pitot[i], outlet[i], coef[i], U)})`, { format: f.flow }));
   sh.row++;
@@ -317,7 +319,7 @@ export function waterSupplySection(s: Scenario, row: number, { units: U }: Units
     });
     sh.row++;
     const a = parseCell(site);
-    return { label: labels[i], static: site, residual: `${columnLetters(a.col + 1)}${a.row + 1}`, testFlow: testFlow[i] };
+    return { label: labels[i], static: site, residual: `${columnLetters(a.col + 1)}${a.row + 1}`, testFlow: testFlow[i], when: when[i] };
   });
   return sh.done({ tests: carried });
 }
@@ -335,6 +337,7 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
   const hazard = sh.line("Occupancy hazard", "input", s.hazard, "", classes);
   const areaChosen = sh.line("Design area chosen", "input", s.designArea, u.area, "leave blank for the smallest area on the hazard's curve", f.area);
   const area = sh.line("Design area", "computed", `=IF(ISNUMBER(${areaChosen}),${areaChosen},${hr("DESIGNAREA", hazard, U)})`, u.area, "DESIGNAREA", f.area);
+  sh.name("Design_Hazard", hazard, "Occupancy hazard of the design, for the one-page summary");
   const density = sh.line("Design density", "computed", `=${hr("DESIGNDENSITY", hazard, area, U)}`, u.density, "DESIGNDENSITY, read at the design area", f.density);
   const hose = sh.line("Hose stream allowance, inside + outside", "computed", `=${hr("HOSEALLOWANCE", hazard, text("total"), U)}`, u.flow, "HOSEALLOWANCE", f.flow);
   const insideChosen = sh.line("Inside hose allowance chosen", "input", s.insideHose, u.flow, "leave blank for the hazard's largest inside allowance", f.flow);
@@ -369,7 +372,8 @@ export function storageCriteriaSection(s: Scenario, row: number): Section<Hazard
   const f = u.fmt;
   const sh = new SectionWriter(row);
   sh.heading("Storage design criteria");
-  sh.line("Storage", "input", d.storage, "", "what is stored, how and how high: the storage chapter of NFPA 13 that applies gives the criteria below");
+  const stored = sh.line("Storage", "input", d.storage, "", "what is stored, how and how high: the storage chapter of NFPA 13 that applies gives the criteria below");
+  sh.name("Design_Hazard", stored, "What is stored, for the one-page summary");
   const hose = sh.line("Hose stream allowance, inside + outside", "input", d.hose, u.flow, "from the storage chapter (often 250 to 500 gpm)", f.flow);
   const insideChosen = sh.line("Inside hose allowance chosen", "input", s.insideHose, u.flow, "part of the total above; leave blank for none", f.flow);
   const insideHose = sh.line("Inside hose allowance", "computed", `=IF(ISBLANK(${insideChosen}),0,${insideChosen})`, u.flow, "", f.flow);
@@ -469,6 +473,7 @@ export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard:
     "ADJUSTAREA: dry and double-interlock systems flow 30 % more area [NFPA 13], at the density read above",
     f.area,
   );
+  sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
   const formula = `=${hr("AREADEMAND", density, flowed, coverage, k, spacing, pipes.branch.id, pipes.main.id, pipes.c, minP, U)}`;
   return sh.done(areaSolve(s, sh, U, "AREADEMAND", formula, pipes));
 };
@@ -654,6 +659,8 @@ export function supplyDemandSection(
   sh.name("Demand_Flow", demandFlow, "Demand flow at the supply, sprinklers plus hose");
   sh.name("Demand_Pressure", demandPressure, "Pressure the system needs at the supply");
   sh.name("Pump_Flow", pumpFlow, "Flow that passes through a pump: sprinklers, inside hose, and outside hose where hydrants are downstream");
+  // the system cell of whichever section found the design area's demand
+  sh.name("Design_System", area.system, "System type, for the one-page summary");
   return sh.done({ sprinklerFlow, hoseFlow, flow: demandFlow, pressure: demandPressure, pumpFlow });
 }
 
@@ -699,6 +706,9 @@ export function verdictSection(
   // the tests' cells side by side (labels, test flows: one row) or one above the other (SITETEST's rows)
   const column = (pick: (t: FlowTestRefs) => string) => `${pick(supply.tests[0])}:${pick(supply.tests[supply.tests.length - 1])}`;
   sh.line("Flow test used", "computed", `=INDEX(${column((t) => abs(t.label))},1,${which})`, "", "the lowest supply at the demand flow governs");
+  // &"" keeps a blank description blank (INDEX of an empty cell gives 0)
+  const usedWhen = sh.line("When and where tested, test used", "computed", `=INDEX(${column((t) => t.when)},1,${which})&""`);
+  sh.name("Supply_When", usedWhen, "When and where the flow test used was made, for the one-page summary");
   const usedStatic = sh.line("Static pressure at the site, test used", "computed", `=INDEX(${column((t) => t.static)},${which},1)`, u.pressure, "", f.pressure);
   const usedResidual = sh.line("Residual pressure at the site, test used", "computed", `=INDEX(${column((t) => t.residual)},${which},1)`, u.pressure, "", f.pressure);
   const usedFlow = sh.line("Test flow, test used", "computed", `=INDEX(${column((t) => t.testFlow)},1,${which})`, u.flow, "", f.flow);

@@ -10,7 +10,8 @@ import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { buildModel } from "../../src/taskpane/model";
 import { cellAddress, columnLetters, parseCell, parseRange } from "../../src/workbook/a1";
-import { INPUT_NAMES } from "../../src/workbook/port";
+import { INPUT_NAMES, SUMMARY_NAMES } from "../../src/workbook/port";
+import { SAMPLES } from "../../samples/scenarios";
 import { PreviewPort } from "../../src/preview/port";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
 import { CAUTION } from "../../src/workbook/look";
@@ -66,7 +67,17 @@ describe.each(["US", "SI"] as const)("estimate template, %s", (units) => {
 
   it("defines every name the pane reads, once, on a cell of the right role", () => {
     expect(t.names.map((n) => n.name).sort()).toEqual([...INPUT_NAMES].sort());
-    const inputs = { Units: s.units, Required_Margin: s.requiredMargin, Suction_Minimum: s.suctionMinimum, Velocity_Limit: s.velocityLimit };
+    const inputs = {
+      Units: s.units,
+      Required_Margin: s.requiredMargin,
+      Suction_Minimum: s.suctionMinimum,
+      Velocity_Limit: s.velocityLimit,
+      Project_Site: s.site,
+      Project_Address: s.address,
+      Project_PreparedBy: s.preparedBy,
+      Design_Hazard: s.hazard,
+      Design_System: s.system,
+    };
     const chosen = ["Pump_RatedFlow", "Pump_RatedPressure"]; // blank inputs: no pump chosen in the demo
     for (const n of t.names) {
       const c = cellAt(t, n.address);
@@ -190,5 +201,50 @@ describe("estimate template, the US demo worked through", () => {
     const a = parseCell(run.address);
     const last = wb.value("Estimate", cellAddress({ row: a.row + run.spill!.rows - 1, col: a.col + 3 }));
     expect(r.Demand_Pressure).toMatchObject({ kind: "number", value: last });
+  });
+});
+
+describe.each(SAMPLES.map((x) => [x.file, x.scenario] as const))("the names the one-page summary reads, %s", (_, s) => {
+  /** The value beside a label of column A on the calculated sheet. */
+  const beside = (t: SheetTemplate, wb: PreviewWorkbook, label: string) => {
+    const a = t.cells.find((c) => c.address.startsWith("A") && c.value === label);
+    expect(a, label).toBeDefined();
+    return wb.value("Estimate", `B${parseCell(a!.address).row + 1}`);
+  };
+
+  it("reads the project, the governing test's date and place and the design as text, the design area as a number", async () => {
+    const { t, wb, port } = calculated(s);
+    const r = await port.readInputs();
+    expect(r.Project_Site).toMatchObject({ kind: "text", value: s.site });
+    expect(r.Project_Address).toMatchObject({ kind: "text", value: s.address });
+    expect(r.Project_PreparedBy).toMatchObject({ kind: "text", value: s.preparedBy });
+    // the hazard, or what is stored in a design by number of sprinklers; the area flowed (ADJUSTAREA), which such a
+    // design has none of
+    expect(r.Design_Hazard).toMatchObject({ kind: "text", value: s.design.kind === "heads" ? s.design.storage : s.hazard });
+    expect(r.Design_System).toMatchObject({ kind: "text", value: s.system });
+    if (s.design.kind === "heads") expect(r.Design_Area).toEqual({ kind: "missing" });
+    else expect(r.Design_Area).toMatchObject({ kind: "number", value: beside(t, wb, "Design area flowed") });
+    // the test that governs gives the lowest supply at the demand flow, as the sheet's own rows say
+    const supplies = s.flowTests.map((_, i) => beside(t, wb, `Supply at the demand flow, Test ${i + 1}`) as number);
+    const governing = supplies.indexOf(Math.min(...supplies));
+    expect(beside(t, wb, "Flow test used")).toBe(`Test ${governing + 1}`);
+    expect(r.Supply_When).toMatchObject({ kind: "text", value: s.flowTests[governing].when });
+  });
+
+  it("leaves the pane's verdict as it is, with or without them", async () => {
+    const { port } = calculated(s);
+    const r = await port.readInputs();
+    const without = { ...r };
+    for (const n of SUMMARY_NAMES) without[n] = { kind: "missing" };
+    expect(buildModel(without)).toEqual(buildModel(r));
+  });
+});
+
+describe("the flow test's description on the sheet", () => {
+  it("reads blank where the test used has none (not 0)", async () => {
+    const s = demoScenario("US");
+    const { port } = calculated({ ...s, flowTests: s.flowTests.map((t) => ({ ...t, when: "" })) });
+    const r = await port.readInputs();
+    expect(r.Supply_When).toMatchObject({ kind: "text", value: "" });
   });
 });
