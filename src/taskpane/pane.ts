@@ -7,13 +7,14 @@
  * cannot-serve), "margin",
  * "caveat", "pump", "suction", "breakdown" (where the pressure goes; its rows "breakdown-row" carry data-id, the
  * part), "worst", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
- * "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status".
+ * "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status"; "print-summary" where the host
+ * shows the one-page summary (PaneOptions.onPrintSummary).
  */
 import { formatFlow, formatPressure } from "../engine/decision";
 import { type UnitSystem, fromUS, unitName } from "../engine/units";
-import type { WorkbookPort } from "../workbook/port";
+import type { Readings, WorkbookPort } from "../workbook/port";
 import { CAUTION, PALETTE } from "../workbook/look";
-import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, buildModel, plotData } from "./model";
+import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, type PlotData, buildModel, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
 import { PANE_CSS } from "./styles";
 
@@ -22,7 +23,21 @@ export interface PaneOptions {
   width?: number;
   /** the flow axis to start with */
   axis?: FlowAxis;
+  /**
+   * Show the one-page summary of the estimate on show (the host decides how: a print view in the preview, an Office
+   * dialog in Excel). Without it the pane has no summary button. A refusal's reason goes to the status line.
+   */
+  onPrintSummary?: (request: SummaryRequest) => Promise<SummaryOutcome> | SummaryOutcome;
 }
+
+/** What the pane hands its host for the summary: the estimate it shows and the readings it was built from. */
+export interface SummaryRequest {
+  estimate: Estimate;
+  readings: Readings;
+}
+
+/** Whether the host showed the summary; if not, why, in words for the status line. */
+export type SummaryOutcome = { shown: true } | { shown: false; reason: string };
 
 export interface PaneHandle {
   /** resolves once the pane listens to the workbook and has drawn its first reading */
@@ -61,7 +76,18 @@ function h<K extends keyof HTMLElementTagNameMap>(
   return e;
 }
 
-function legendIcon(doc: Document, kind: "supply" | "band" | "sprinklers" | "total" | "pump"): SVGSVGElement {
+export type LegendKind = "supply" | "band" | "sprinklers" | "total" | "pump";
+
+/** The legend under the plot: each item's icon and its words (the pane's and the summary's). */
+export function legendItems(e: Estimate, data: PlotData): Array<[LegendKind, string]> {
+  const items: Array<[LegendKind, string]> = [["supply", "Water supply (flow test)"]];
+  if (data.band) items.push(["band", `Required margin ${formatPressure(e.requiredMargin, e.units)}`]);
+  for (const d of data.demand) items.push([d.id, d.id === "sprinklers" ? "Sprinklers alone" : data.demand.length > 1 ? "Sprinklers + hose" : "Demand"]);
+  if (data.pumpLabel) items.push(["pump", data.pumpLabel]);
+  return items;
+}
+
+export function legendIcon(doc: Document, kind: LegendKind): SVGSVGElement {
   const ns = "http://www.w3.org/2000/svg";
   const svg = doc.createElementNS(ns, "svg");
   svg.setAttribute("width", "22");
@@ -196,6 +222,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   let axis: FlowAxis = options.axis ?? "linear";
   let current: PaneModel | null = null;
   let lastReady: Estimate | null = null;
+  let lastReadings: Readings | null = null;
   let unitsTouched = false;
   let destroyed = false;
 
@@ -239,8 +266,12 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   const newSheet = h(doc, "button", { type: "button", "data-role": "new-sheet" }, "New estimate sheet");
   const shareCopy = h(doc, "button", { type: "button", "data-role": "share-copy", class: "secondary" }, "Share copy");
   const refreshButton = h(doc, "button", { type: "button", "data-role": "refresh", class: "secondary" }, "Read again");
+  const summaryButton = options.onPrintSummary
+    ? h(doc, "button", { type: "button", "data-role": "print-summary", class: "secondary", title: "The verdict, the plot and the caution on one printable page" }, "One-page summary")
+    : null;
+  if (summaryButton) summaryButton.disabled = true; // until there is an estimate to print
   const status = h(doc, "p", { class: "hr-status", "data-role": "status", "aria-live": "polite" });
-  const actions = h(doc, "section", { class: "hr-actions" }, unitsSelect, newSheet, shareCopy, refreshButton, status);
+  const actions = h(doc, "section", { class: "hr-actions" }, unitsSelect, newSheet, shareCopy, refreshButton, ...(summaryButton ? [summaryButton] : []), status);
   const head = h(doc, "header", { class: "hr-head" }, h(doc, "span", { class: "hr-brand" }, "Headroom"), h(doc, "span", { class: "hr-sub" }, "water supply against sprinkler demand"));
   const pane = h(doc, "div", { class: "hr-pane" }, style, head, box, caution, calcNote, plotBox, readingsBox, actions);
   root.replaceChildren(pane);
@@ -269,11 +300,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     holder.replaceChildren(renderPlot(doc, data, axis, width()));
     linear.setAttribute("aria-pressed", String(axis === "linear"));
     pow.setAttribute("aria-pressed", String(axis === "pow"));
-    const items: Array<[Parameters<typeof legendIcon>[1], string]> = [["supply", "Water supply (flow test)"]];
-    if (data.band) items.push(["band", `Required margin ${formatPressure(e.requiredMargin, e.units)}`]);
-    for (const d of data.demand) items.push([d.id, d.id === "sprinklers" ? "Sprinklers alone" : data.demand.length > 1 ? "Sprinklers + hose" : "Demand"]);
-    if (data.pumpLabel) items.push(["pump", data.pumpLabel]);
-    legend.replaceChildren(...items.map(([k, label]) => h(doc, "li", {}, legendIcon(doc, k), label)));
+    legend.replaceChildren(...legendItems(e, data).map(([k, label]) => h(doc, "li", {}, legendIcon(doc, k), label)));
     plotBox.hidden = false;
   }
 
@@ -386,6 +413,8 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       if (destroyed) return;
       const m = buildModel(readings);
       draw(m);
+      if (m.kind === "ready") lastReadings = readings;
+      if (summaryButton && m.kind !== "busy") summaryButton.disabled = m.kind !== "ready";
       followBusy(m);
     } catch (err) {
       setStatus(`Could not read the workbook: ${message(err)}`, "refused");
@@ -454,6 +483,15 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     if (lastReady) drawPlot(lastReady);
   }
   unitsSelect.addEventListener("change", () => (unitsTouched = true));
+  summaryButton?.addEventListener("click", async () => {
+    if (!lastReady || !lastReadings || !options.onPrintSummary) return;
+    try {
+      const outcome = await options.onPrintSummary({ estimate: lastReady, readings: lastReadings });
+      if (!outcome.shown) setStatus(outcome.reason, "refused");
+    } catch (err) {
+      setStatus(`The one-page summary failed: ${message(err)}`, "refused");
+    }
+  });
   refreshButton.addEventListener("click", () => void refresh());
   newSheet.addEventListener("click", () =>
     action(newSheet, async () => {

@@ -1,7 +1,7 @@
 // @vitest-environment happy-dom
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { verdict as verdictCell } from "../../src/functions/functions";
-import { BUSY_REREAD_MS, type PaneHandle, mountPane } from "../../src/taskpane/pane";
+import { BUSY_REREAD_MS, type PaneHandle, type SummaryRequest, mountPane } from "../../src/taskpane/pane";
 import { CAUTION } from "../../src/workbook/look";
 import { BASE, FakePort, type Values, siBreakdown } from "./fakePort";
 
@@ -389,5 +389,42 @@ describe("where the pressure goes", () => {
     const plainRows = new Map([...plain.$("readings")!.querySelectorAll("dt")].map((dt) => [dt.textContent, dt.nextElementSibling!.textContent]));
     expect(plainRows.get("Where the pressure goes")).toBe("not given (no Pressure_ names)");
     expect(root.querySelector(".hr-breakdown-title")!.textContent).toBe("Where the pressure goes");
+  });
+});
+
+describe("the one-page summary button", () => {
+  it("is there only where the host can show a summary", async () => {
+    const { $ } = await mount(BASE);
+    expect($("print-summary")).toBeNull();
+  });
+
+  it("hands the host the estimate on show and the readings it came from", async () => {
+    const onPrintSummary = vi.fn(async () => ({ shown: true as const }));
+    const { $, pane } = await mount({ ...BASE, Project_Site: "Unit 7" }, { width: 320, onPrintSummary });
+    const button = $<HTMLButtonElement>("print-summary")!;
+    expect(button.disabled).toBe(false);
+    button.click();
+    await vi.waitFor(() => expect(onPrintSummary).toHaveBeenCalledTimes(1));
+    const [request] = onPrintSummary.mock.calls[0] as unknown as [SummaryRequest];
+    const m = pane.model();
+    expect(m?.kind).toBe("ready");
+    if (m?.kind === "ready") expect(request.estimate).toEqual(m.estimate);
+    expect(request.readings.Project_Site).toMatchObject({ kind: "text", value: "Unit 7" });
+  });
+
+  it("says in the status line why the host could not show it", async () => {
+    const reason = "The summary could not open: print the estimate sheet instead.";
+    const { $ } = await mount(BASE, { width: 320, onPrintSummary: async () => ({ shown: false, reason }) });
+    $<HTMLButtonElement>("print-summary")!.click();
+    await vi.waitFor(() => expect($("status")!.textContent).toBe(reason));
+    expect($("status")!.dataset.tone).toBe("refused");
+  });
+
+  it("is disabled while the inputs need attention, so there is no estimate to print", async () => {
+    const { $, port, pane } = await mount({ ...BASE, Supply_Static: "abc" }, { width: 320, onPrintSummary: async () => ({ shown: true }) });
+    expect($<HTMLButtonElement>("print-summary")!.disabled).toBe(true);
+    port.set({ Supply_Static: 72 });
+    await pane.idle();
+    expect($<HTMLButtonElement>("print-summary")!.disabled).toBe(false);
   });
 });
