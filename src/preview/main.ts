@@ -2,11 +2,16 @@
  * The preview page `npm start` serves: the estimate workbook in a grid, recalculated by HyperFormula running the very
  * cell functions of the add-in (registered from the functions.json the build generates), and the task pane beside it
  * through the preview side of the Workbook port. Opens a sample estimate (samples/index.json; `?sample=<file>` picks
- * one), opens and saves .xlsx files, saves a values-only share copy.
+ * one), opens and saves .xlsx files, saves a values-only share copy, and shows the one-page summary in its print view
+ * (from the toolbar or the pane's button).
  */
 import "./installShim";
 import * as functions from "../functions/functions";
-import { mountPane } from "../taskpane/pane";
+import { summaryFacts } from "../summary/facts";
+import { type SummaryView, showSummaryView } from "../summary/view";
+import { type Estimate, buildModel } from "../taskpane/model";
+import { type SummaryOutcome, mountPane } from "../taskpane/pane";
+import type { Readings } from "../workbook/port";
 import { ROLE_STYLES } from "../workbook/look";
 import { Grid } from "./grid";
 import type { FunctionsMetadata } from "./metadata";
@@ -33,6 +38,13 @@ function roleColours(): void {
     if (look.fill) root.setProperty(`--role-${role}-fill`, look.fill);
     root.setProperty(`--role-${role}-font`, look.font ?? "inherit");
   }
+}
+
+/** A button of the toolbar (the pane has buttons of its own with the same roles). */
+function toolbarButton(role: string): HTMLButtonElement {
+  const el = document.querySelector<HTMLButtonElement>(`.bar [data-role="${role}"]`);
+  if (!el) throw new Error(`the toolbar has no [data-role="${role}"]`);
+  return el;
 }
 
 function status(text: string, error = false): void {
@@ -92,8 +104,26 @@ async function main(): Promise<void> {
     message: $("cell-message"),
   });
   const port = new PreviewPort(wb);
-  const pane = mountPane($("pane-host"), port);
+
+  // the one-page summary's print view, over the workbook; the way back takes it away
+  let summary: SummaryView | null = null;
+  const closeSummary = () => {
+    summary?.remove();
+    summary = null;
+  };
+  const showSummary = (estimate: Estimate, readings: Readings): SummaryOutcome => {
+    closeSummary();
+    summary = showSummaryView(document, estimate, summaryFacts(readings), { onClose: closeSummary });
+    return { shown: true };
+  };
+  const pane = mountPane($("pane-host"), port, { onPrintSummary: ({ estimate, readings }) => showSummary(estimate, readings) });
   await pane.ready;
+  toolbarButton("print-summary").addEventListener("click", async () => {
+    const readings = await port.readInputs();
+    const m = buildModel(readings);
+    if (m.kind === "ready") showSummary(m.estimate, readings);
+    else status("No summary yet: fix the inputs the pane lists first, then try again.", true);
+  });
 
   const picker = $<HTMLSelectElement>("sample-picker");
   for (const s of samples) picker.append(new Option(s.title, s.file, false, s.file === current.file));

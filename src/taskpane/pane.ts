@@ -207,7 +207,7 @@ export function worstLine(e: Estimate): string | null {
 }
 
 /** The verdict box's state for the stylesheet and for tests. */
-const BOX_STATE: Record<Estimate["state"], string> = { enough: "pass", marginal: "marginal", short: "fail", "cannot-serve": "cannot-serve" };
+export const BOX_STATE: Record<Estimate["state"], string> = { enough: "pass", marginal: "marginal", short: "fail", "cannot-serve": "cannot-serve" };
 
 /** The state in a few words, above the verdict sentence. */
 export const STATE_WORDS: Record<Estimate["state"], string> = {
