@@ -5,6 +5,8 @@
  *   functions.json  their metadata, generated from the JSDoc of the topic files (scripts/function-files.mjs)
  *   taskpane.html   the task pane page, which is also the shared runtime: it loads Office.js, functions.js and
  *                   taskpane.js
+ *   summary.html    the one-page summary, which the pane opens in an Office dialog (same origin): Office.js and
+ *                   summary.js
  *   assets/*.png    the icons the manifest names
  *
  * `npm run build` (production) never touches certificates; only `webpack serve` (npm run dev-server) asks
@@ -80,6 +82,7 @@ export function addinConfig(mode) {
     entry: {
       functions: FUNCTIONS_ENTRY,
       taskpane: "./src/taskpane/taskpane.ts",
+      summary: "./src/summary/summary.ts",
     },
     output: {
       path: path.join(root, "dist"),
@@ -99,6 +102,8 @@ export function addinConfig(mode) {
         chunks: ["functions", "taskpane"],
         chunksSortMode: "manual",
       }),
+      // The summary's dialog page: its own bundle, beside the pane's page so that it shares its origin.
+      new HtmlWebpackPlugin({ filename: "summary.html", template: "./src/summary/summary.html", chunks: ["summary"] }),
       new CopyWebpackPlugin({ patterns: [{ from: "assets/*.png", to: "assets/[name][ext]" }] }),
     ],
   };

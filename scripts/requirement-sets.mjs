@@ -61,6 +61,31 @@ export const CODE_ROWS = [
     version: "1.1",
     source: "https://learn.microsoft.com/javascript/api/requirement-sets/common/dialog-api-requirement-sets",
   },
+  {
+    // "Delivers a message from the dialog box to its parent/opener page" (Office.UI, DialogApi 1.1)
+    api: "Office.context.ui.messageParent",
+    code: /\.messageParent\s*\(/,
+    set: "DialogApi",
+    version: "1.1",
+    source: "https://learn.microsoft.com/javascript/api/office/office.ui",
+  },
+  {
+    // "Requirement sets: DialogApi 1.2" on Dialog.messageChild; DialogApi 1.2 "can't be specified in the add-in
+    // manifest" (dialog-api-in-office-add-ins, "Pass information to the dialog box"): checked at runtime
+    api: "Dialog.messageChild",
+    code: /\.messageChild\s*\(/,
+    set: "DialogApi",
+    version: "1.2",
+    source: "https://learn.microsoft.com/javascript/api/office/office.dialog",
+  },
+  {
+    // UI.addHandlerAsync for the DialogParentMessageReceived event: "Requirement set: DialogApi 1.2"
+    api: "UI.addHandlerAsync(DialogParentMessageReceived)",
+    code: /\bDialogParentMessageReceived\b/,
+    set: "DialogApi",
+    version: "1.2",
+    source: "https://learn.microsoft.com/javascript/api/office/office.ui",
+  },
   // Excel JavaScript API: the families above ExcelApi 1.1 (sought in files that use the Excel namespace)
   {
     api: "Range.getResizedRange, Range.merge, RangeFormat.rowHeight/columnWidth",

@@ -132,12 +132,16 @@ describe("the add-in's requirement sets", () => {
     const metadata = JSON.parse(shippedMetadata((await generateCustomFunctionsMetadata(functionFiles())).metadataJson));
     const needed = neededSets({ sources: addinSources(), metadata, manifest });
     // CustomFunctions.ErrorCode (bridge.ts) → 1.3; the pane's copyFrom / worksheets.onChanged (excel.ts) → ExcelApi 1.9;
-    // <Runtime lifetime="long"> → SharedRuntime 1.1 (sources in scripts/requirement-sets.mjs)
+    // <Runtime lifetime="long"> → SharedRuntime 1.1; the summary's dialog: Dialog.messageChild (summaryDialog.ts) and
+    // DialogParentMessageReceived (dialog-page.ts) → DialogApi 1.2 (sources in scripts/requirement-sets.mjs)
     expect(Object.fromEntries([...needed].map(([set, n]) => [set, n.version]))).toEqual({
       CustomFunctionsRuntime: "1.3",
+      DialogApi: "1.2",
       ExcelApi: "1.9",
       SharedRuntime: "1.1",
     });
+    expect(needed.get("DialogApi")!.uses.join("\n")).toMatch(/Dialog\.messageChild .* in src\/taskpane\/summaryDialog\.ts/);
+    expect(needed.get("DialogApi")!.uses.join("\n")).toMatch(/DialogParentMessageReceived.* in src\/summary\/dialog-page\.ts/);
   });
 
   it("functions.json as shipped does not turn data-typed cells into objects (no allowCustomDataForDataTypeAny)", async () => {

@@ -3,8 +3,10 @@
  * page (see webpack.config.js), so the cell functions and the pane share one JavaScript context.
  *
  * Office.onReady → the Excel side of the Workbook port → the pane. The pane itself (./pane.ts) knows nothing of
- * Office.js; the preview host mounts it over its own port.
+ * Office.js; the preview host mounts it over its own port. The pane's One-page summary opens in an Office dialog
+ * (./summaryDialog.ts), or says why it cannot and to print the estimate sheet instead.
  */
+import { officeDialogHost, openSummaryDialog } from "./summaryDialog";
 import { createExcelPort } from "../workbook/excel";
 import { mountPane } from "./pane";
 
@@ -23,5 +25,5 @@ Office.onReady((info) => {
     if (status) status.textContent = `This version of Excel lacks ExcelApi ${EXCEL_API}, which the pane needs; the HEADROOM cell functions still work.`;
     return;
   }
-  mountPane(root, createExcelPort());
+  mountPane(root, createExcelPort(), { onPrintSummary: (request) => openSummaryDialog(officeDialogHost(), request) });
 });

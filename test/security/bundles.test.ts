@@ -55,8 +55,12 @@ afterAll(() => {
 });
 
 describe("production add-in bundles", () => {
-  it("emit the functions bundle, the pane bundle and the shared-runtime page", () => {
-    expect(Object.keys(files).sort()).toEqual(expect.arrayContaining(["functions.js", "taskpane.html", "taskpane.js"]));
+  it("emit the functions bundle, the pane bundle and the shared-runtime page, and the summary's dialog page", () => {
+    expect(Object.keys(files).sort()).toEqual(expect.arrayContaining(["functions.js", "taskpane.html", "taskpane.js", "summary.html", "summary.js"]));
+    // the dialog page loads its own bundle and Office.js, and not the pane's bundles
+    expect(files["summary.html"]).toContain(OFFICE_JS);
+    expect(files["summary.html"]).toMatch(/<script[^>]+src="?summary\.js"?[\s>]/);
+    expect(files["summary.html"]).not.toMatch(/taskpane\.js|functions\.js/);
   });
 
   it("name no remote URL but Office.js (XML namespace names aside)", () => {
@@ -82,6 +86,12 @@ describe("production add-in bundles", () => {
     const officeOrigin = new URL(OFFICE_JS).origin;
     expect(directive("script-src")).toContain(officeOrigin);
     expect(directive("frame-src")).toContain(officeOrigin);
+  });
+
+  it("the summary's dialog page carries the pane's Content-Security-Policy, word for word", () => {
+    const csp = (page: string) => /http-equiv="?Content-Security-Policy"?\s+content="([^"]+)"/.exec(files[page])?.[1].replace(/\s+/g, " ").trim() ?? "";
+    expect(csp("summary.html")).not.toBe("");
+    expect(csp("summary.html")).toBe(csp("taskpane.html"));
   });
 
   it("ship functions.json without allowCustomDataForDataTypeAny (data-typed cells stay basic values; see test/requirements.test.ts)", () => {
@@ -132,14 +142,14 @@ describe("development add-in bundles", () => {
   });
 
   it("evaluate no code from strings (the pane's Content-Security-Policy has no 'unsafe-eval')", () => {
-    expect(Object.keys(dev)).toEqual(expect.arrayContaining(["functions.js", "taskpane.js"]));
+    expect(Object.keys(dev)).toEqual(expect.arrayContaining(["functions.js", "taskpane.js", "summary.js"]));
     const counts = Object.entries(dev).map(([name, text]) => [name, (text.match(/\beval\s*\(|\bnew\s+Function\s*\(/g) ?? []).length]);
     expect(counts.filter(([, n]) => n !== 0)).toEqual([]);
   });
 
   it("still come with source maps, as separate files", () => {
     expect(String(devtool)).not.toMatch(/eval/);
-    expect(maps.sort()).toEqual(expect.arrayContaining(["functions.js.map", "taskpane.js.map"]));
+    expect(maps.sort()).toEqual(expect.arrayContaining(["functions.js.map", "taskpane.js.map", "summary.js.map"]));
   });
 });
 
