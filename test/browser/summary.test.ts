@@ -205,3 +205,62 @@ describe("the longest summary", () => {
     },
   );
 });
+
+/**
+ * The built dialog page (dist/summary.html) in the browser, under its own Content-Security-Policy. Office.js cannot
+ * be fetched here, so its address is answered with a stand-in that gives the dialog's side of the API
+ * (Office.onReady, ui.addHandlerAsync, ui.messageParent) and lets the test play the pane: the readings of a sample, as
+ * the pane would send them with messageChild.
+ */
+describe("the summary's dialog page, built", () => {
+  const OFFICE_JS = "https://officeapis.public.onecdn.static.microsoft/1/office.js";
+  const STAND_IN = `
+    window.__toParent = [];
+    window.Office = {
+      EventType: { DialogParentMessageReceived: "dialogParentMessageReceived" },
+      AsyncResultStatus: { Succeeded: "succeeded", Failed: "failed" },
+      onReady: function (cb) { setTimeout(function () { cb({ host: "Excel" }); }, 0); return Promise.resolve({ host: "Excel" }); },
+      context: { ui: {
+        addHandlerAsync: function (type, handler, cb) { window.__fromParent = function (m) { handler({ message: m, type: type }); }; cb({ status: "succeeded" }); },
+        messageParent: function (m) { window.__toParent.push(m); },
+      } },
+    };`;
+
+  test("says ready, shows the summary it is sent, prints it on one page, and asks to be closed", async () => {
+    await open(samples[0].file);
+    const readings = await page.evaluate(async () => {
+      const w = window as unknown as { headroomPreview: { port: { readInputs(): Promise<unknown> } } };
+      return w.headroomPreview.port.readInputs();
+    });
+    const paneVerdict = flat((await page.locator('[data-role="pane-host"] [data-role="verdict"]').textContent()) ?? "");
+
+    const dialog = await context.newPage();
+    const errors: string[] = [];
+    dialog.on("pageerror", (e) => errors.push(e.message));
+    dialog.on("console", (m) => {
+      if (m.type() === "error") errors.push(m.text());
+    });
+    await dialog.route(OFFICE_JS, (route) => route.fulfill({ status: 200, contentType: "text/javascript", body: STAND_IN }));
+    await dialog.goto(`${base}summary.html`);
+    await dialog.waitForFunction(() => (window as unknown as { __toParent: string[] }).__toParent.length > 0);
+    expect(await dialog.evaluate(() => (window as unknown as { __toParent: string[] }).__toParent)).toEqual(['{"type":"ready"}']);
+    await dialog.evaluate((m) => (window as unknown as { __fromParent(m: string): void }).__fromParent(m), JSON.stringify({ type: "summary", readings }));
+    const summary = dialog.locator('[data-role="summary-view"] [data-role="summary"]');
+    await summary.waitFor();
+    expect(flat((await summary.locator('[data-role="summary-verdict"]').textContent()) ?? "")).toBe(paneVerdict);
+
+    const pdf = path.join(RESULTS, "summary-dialog-Letter.pdf");
+    await writeFile(pdf, await dialog.pdf({ format: "Letter", printBackground: true }));
+    expect(await pdfPages(pdf)).toBe(1);
+    const text = flat(await pdfText(pdf));
+    expect(text).toContain(paneVerdict);
+    expect(text).toContain(flat(CAUTION));
+    // the loading note, which also carries the caution, does not print: the caution appears once
+    expect(text.split(flat(CAUTION)).length - 1).toBe(1);
+
+    await dialog.locator('[data-role="summary-close"]').click();
+    expect(await dialog.evaluate(() => (window as unknown as { __toParent: string[] }).__toParent)).toEqual(['{"type":"ready"}', '{"type":"close"}']);
+    expect(errors).toEqual([]);
+    await dialog.close();
+  });
+});
