@@ -35,7 +35,7 @@ export const SUMMARY_CSS = `
 .hs-head { display: flex; justify-content: space-between; align-items: baseline; gap: 4mm; border-bottom: 2px solid #1B2A3A; padding-bottom: 1.5mm; }
 .hs-head > :last-child { flex: none; white-space: nowrap; }
 .hs-brand { font-weight: 700; font-size: 11pt; }
-.hs-kind { color: #5A6675; }
+.hs-kind { color: #5A6675; font-size: 8.5pt; }
 .hs-prelim { font-weight: 700; font-size: 11pt; letter-spacing: 0.05em; text-transform: uppercase; color: #6B2C00; }
 .hs-date { color: #3A4A5A; margin-left: 3mm; }
 .hs-site { font-size: 15pt; line-height: 1.2; margin: 3mm 0 0.5mm; }
