@@ -74,8 +74,7 @@ export function areaWords(area: number, units: UnitSystem): string {
  * Run_WorstSegment and its loss); null where it does not.
  */
 export function worstSegment(e: Estimate): { segment: string; loss: number } | null {
-  const withBreakdown = e as Estimate & { breakdown?: { worst: { segment: string; loss: number } | null } | null };
-  return withBreakdown.breakdown?.worst ?? null;
+  return e.breakdown?.worst ?? null;
 }
 
 /** One row of the key inputs: what it is, and its value in words. */

@@ -82,9 +82,15 @@ describe.each(SAMPLES.map((x) => [x.file, x.scenario] as const))("the summary of
     const text = inputs.textContent ?? "";
     expect(s.flowTests.map((t) => t.when)).toContain(readings.Supply_When.kind === "text" ? readings.Supply_When.value : null);
     expect(text).toContain((readings.Supply_When as { value: string }).value);
+    expect(text).toContain(s.system === "wet" ? "Wet pipe" : s.system);
+    if (s.design.kind === "heads") {
+      // a design by number of sprinklers: what is stored, as written, and no design area
+      expect(text).toContain(s.design.storage);
+      expect(readings.Design_Area.kind).toBe("missing");
+      return;
+    }
     expect(text).toContain(`(${s.hazard})`);
     expect(text.toLowerCase()).toContain(hazardInfo(s.hazard as Hazard).name);
-    expect(text).toContain(s.system === "wet" ? "Wet pipe" : s.system);
     expect(readings.Design_Area.kind).toBe("number");
     expect(text).toContain(areaWords((readings.Design_Area as { value: number }).value, s.units));
   });
@@ -111,7 +117,8 @@ describe("a workbook without the summary's names", () => {
     expect(text).toContain(e.headline);
     expect(text).toContain(CAUTION);
     expect(page.querySelector('[data-role="plot"]')).not.toBeNull();
-    expect(keyInputs(e, f).map(([k]) => k)).toEqual(["Flow test used", "Tested", "Demand at the supply", "Margin required"]);
+    // the pipe losing the most comes from the pressure breakdown, not from the summary's names
+    expect(keyInputs(e, f).map(([k]) => k)).toEqual(["Flow test used", "Tested", "Demand at the supply", "Margin required", "Pipe losing the most"]);
   });
 
   it("reads blank text as not given, and a number typed as a description as its digits", () => {
@@ -134,7 +141,9 @@ describe("the key inputs' words", () => {
 
   it("names the pipe losing the most where the estimate carries the pressure breakdown", async () => {
     const readings = await readingsOf(SAMPLES[0].scenario);
-    const e = { ...estimateOf(readings), breakdown: { parts: [], worst: { segment: "Underground to the street main", loss: 12.34 } } };
+    const base = estimateOf(readings);
+    const worst = { segment: "Underground to the street main", loss: 12.34, velocity: 5, overLimit: false, limit: 20, limitGiven: true };
+    const e = { ...base, breakdown: { parts: base.breakdown?.parts ?? [], worst } };
     expect(keyInputs(e, summaryFacts(readings))).toContainEqual(["Pipe losing the most", "Underground to the street main, 12.3 psi"]);
   });
 });
