@@ -248,7 +248,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   breakdown.hidden = true;
   const steps = h(doc, "ul", { class: "hr-steps", "data-role": "next-steps", "aria-label": "What to do next" });
   const problems = h(doc, "ul", { class: "hr-problems", "data-role": "problems" });
-  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, verdict, margin, caveat, pump, suction, breakdown, steps, problems);
+  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, verdict, margin, caveat, pump, suction, steps, problems);
   const caution = h(doc, "p", { class: "hr-caution", "data-role": "caution" }, CAUTION);
   const calcNote = h(doc, "p", { class: "hr-calc-note", "data-role": "calc-note" });
   calcNote.hidden = true;
@@ -273,7 +273,8 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   const status = h(doc, "p", { class: "hr-status", "data-role": "status", "aria-live": "polite" });
   const actions = h(doc, "section", { class: "hr-actions" }, unitsSelect, newSheet, shareCopy, refreshButton, ...(summaryButton ? [summaryButton] : []), status);
   const head = h(doc, "header", { class: "hr-head" }, h(doc, "span", { class: "hr-brand" }, "Headroom"), h(doc, "span", { class: "hr-sub" }, "water supply against sprinkler demand"));
-  const pane = h(doc, "div", { class: "hr-pane" }, style, head, box, caution, calcNote, plotBox, readingsBox, actions);
+  // the caution straight beneath the verdict, the breakdown after it: the caution stays in view with the verdict
+  const pane = h(doc, "div", { class: "hr-pane" }, style, head, box, caution, calcNote, breakdown, plotBox, readingsBox, actions);
   root.replaceChildren(pane);
 
   const width = () => {

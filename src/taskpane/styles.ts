@@ -37,7 +37,8 @@ export const PANE_CSS = `
 .hr-margin, .hr-pump, .hr-caveat { margin: 6px 0 0; font-size: 13px; }
 .hr-caveat { color: #6B2C00; }
 .hr-pump[hidden], .hr-caveat[hidden], .hr-steps[hidden] { display: none; }
-.hr-breakdown { margin: 8px 0 0; padding-top: 6px; border-top: 1px solid ${PALETTE.grid}; }
+.hr-breakdown { margin: 10px 0 0; background: #FFFFFF; border-radius: 4px; padding: 8px 12px;
+  box-shadow: 0 1px 2px rgba(27, 42, 58, 0.12); }
 .hr-breakdown[hidden], .hr-worst[hidden] { display: none; }
 .hr-breakdown-title { margin: 0 0 2px; font-size: 12px; font-weight: 700; color: #3A4A5A; }
 .hr-parts { list-style: none; margin: 0; padding: 0; }

@@ -323,8 +323,11 @@ describe("where the pressure goes", () => {
     // the bars say nothing to a screen reader that the text does not
     for (const r of rows) expect(r.querySelector(".hr-part-track")!.getAttribute("aria-hidden")).toBe("true");
     // under the pump and suction lines, above what to do next
-    expect($("suction")!.compareDocumentPosition(block) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
-    expect(block.compareDocumentPosition($("next-steps")!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    // below the verdict, its next steps and the caution (which stays right beneath the verdict), above the plot
+    expect($("next-steps")!.compareDocumentPosition(block) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect($("caution")!.compareDocumentPosition(block) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect(block.compareDocumentPosition($("plot")!) & Node.DOCUMENT_POSITION_FOLLOWING).toBeTruthy();
+    expect($("verdict")!.closest("section")!.nextElementSibling).toBe($("caution"));
     expect($("worst")!.hidden).toBe(true);
   });
 
