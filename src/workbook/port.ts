@@ -11,6 +11,12 @@
 import type { UnitSystem } from "../engine/units";
 import type { Scenario } from "./scenario";
 
+/** The summary's names that hold text, read as text ("OH2", "wet", a date and a hydrant). */
+export const SUMMARY_TEXT_NAMES = ["Project_Site", "Project_Address", "Project_PreparedBy", "Supply_When", "Design_Hazard", "Design_System"] as const;
+
+/** Names the one-page summary reads beside the verdict's own: the project, the flow test's date and place, the design. */
+export const SUMMARY_NAMES = [...SUMMARY_TEXT_NAMES, "Design_Area"] as const;
+
 /**
  * The named cells the pane reads. Units holds "US" or "SI", Run_WorstSegment a segment's label, and the project's,
  * the flow test's and the design's descriptions (SUMMARY_TEXT_NAMES) text; every other name holds a number in those
@@ -40,37 +46,10 @@ export const INPUT_NAMES = [
   "Run_WorstLoss",
   "Run_WorstVelocity",
   "Velocity_Limit",
-  "Project_Site",
-  "Project_Address",
-  "Project_PreparedBy",
-  "Supply_When",
-  "Design_Hazard",
-  "Design_System",
-  "Design_Area",
+  ...SUMMARY_NAMES,
 ] as const;
 
 export type InputName = (typeof INPUT_NAMES)[number];
-
-/** Names the one-page summary reads beside the verdict's own: the project, the flow test's date and place, the design. */
-export const SUMMARY_NAMES = [
-  "Project_Site",
-  "Project_Address",
-  "Project_PreparedBy",
-  "Supply_When",
-  "Design_Hazard",
-  "Design_System",
-  "Design_Area",
-] as const satisfies readonly InputName[];
-
-/** The summary's names that hold text, read as text ("OH2", "wet", a date and a hydrant); Design_Area is a number. */
-export const SUMMARY_TEXT_NAMES = [
-  "Project_Site",
-  "Project_Address",
-  "Project_PreparedBy",
-  "Supply_When",
-  "Design_Hazard",
-  "Design_System",
-] as const satisfies readonly InputName[];
 
 /** Names an estimate must define; the others are optional. */
 export const REQUIRED_NAMES: readonly InputName[] = [

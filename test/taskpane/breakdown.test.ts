@@ -29,6 +29,29 @@ function problems(v: Values): string[] {
 const BAR = 0.0689475729316836;
 const M_PER_FT = 0.3048;
 
+/**
+ * An SI sheet's breakdown, invented: 1.03 + 0.59 + 1.19 + 0.30 + 0.19 = 3.30 bar against static 4.96, residual 4.0 bar
+ * at 4164 L/min, the feed main losing 0.84 bar at `velocity` m/s.
+ */
+function smallSI(velocity: number): Values {
+  return {
+    Units: "SI",
+    Supply_Static: 4.96,
+    Supply_Residual: 4.0,
+    Supply_TestFlow: 4164,
+    Demand_Flow: 2127,
+    Demand_Pressure: 3.3,
+    Pressure_EndSprinkler: 1.03,
+    Pressure_AreaFriction: 0.59,
+    Pressure_RunFriction: 1.19,
+    Pressure_Elevation: 0.3,
+    Pressure_Devices: 0.19,
+    Run_WorstSegment: "Feed main",
+    Run_WorstLoss: 0.84,
+    Run_WorstVelocity: velocity,
+  };
+}
+
 /** Parts of BASE's 48 psi: 15 + 8.5 + 17.3 + 4.33 + 2.87 = 48.00 psi (elevation: 10 ft × 0.433 psi/ft [NFPA 13]). */
 const PARTS_48: Values = {
   Pressure_EndSprinkler: 15,
@@ -142,22 +165,7 @@ describe("pane model: the breakdown of the demand pressure", () => {
 
   it("converts an SI sheet's parts to psi and its velocity to ft/s", () => {
     // 1.03 + 0.59 + 1.19 + 0.30 + 0.19 = 3.30 bar
-    const e = ready({
-      Units: "SI",
-      Supply_Static: 4.96,
-      Supply_Residual: 4.0,
-      Supply_TestFlow: 4164,
-      Demand_Flow: 2127,
-      Demand_Pressure: 3.3,
-      Pressure_EndSprinkler: 1.03,
-      Pressure_AreaFriction: 0.59,
-      Pressure_RunFriction: 1.19,
-      Pressure_Elevation: 0.3,
-      Pressure_Devices: 0.19,
-      Run_WorstSegment: "Feed main",
-      Run_WorstLoss: 0.84,
-      Run_WorstVelocity: 5.8,
-    });
+    const e = ready(smallSI(5.8));
     const b = e.breakdown!;
     // 1.03 bar / 0.0689476 = 14.939 psi ... 0.19 bar = 2.756 psi
     expect(b.parts.map((p) => p.pressure)).toEqual([1.03, 0.59, 1.19, 0.3, 0.19].map((bar) => expect.closeTo(bar / BAR, 9)));
@@ -182,22 +190,7 @@ describe("pane model: the segment losing the most", () => {
     // at the limit is not above it
     expect(ready({ ...SHORT_105, Velocity_Limit: 22.6 }).breakdown!.worst!.overLimit).toBe(false);
     // 6.9 m/s / 0.3048 = 22.64 ft/s, above 6 m/s, the SI default (common practice)
-    const si: Values = {
-      Units: "SI",
-      Supply_Static: 4.96,
-      Supply_Residual: 4.0,
-      Supply_TestFlow: 4164,
-      Demand_Flow: 2127,
-      Demand_Pressure: 3.3,
-      Pressure_EndSprinkler: 1.03,
-      Pressure_AreaFriction: 0.59,
-      Pressure_RunFriction: 1.19,
-      Pressure_Elevation: 0.3,
-      Pressure_Devices: 0.19,
-      Run_WorstSegment: "Feed main",
-      Run_WorstLoss: 0.84,
-      Run_WorstVelocity: 6.9,
-    };
+    const si = smallSI(6.9);
     expect(ready(si).breakdown!.worst).toMatchObject({ overLimit: true, limitGiven: false });
     // a limit given in m/s: 7 m/s
     expect(ready({ ...si, Velocity_Limit: 7 }).breakdown!.worst).toMatchObject({ overLimit: false, limitGiven: true });
