@@ -15,6 +15,7 @@ import type { Server } from "node:http";
 import ExcelJS from "exceljs";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { setNamed } from "./previewPage";
 import { startServer } from "../../scripts/start-server.mjs";
 
 const CHROMIUM = "/usr/bin/chromium";
@@ -222,20 +223,6 @@ describe("the preview of the sample that needs a pump", () => {
 });
 
 describe("the pane's states at 320 px", () => {
-  /** Type into the cell a workbook name points at, as the user would type into that cell. */
-  async function setNamed(name: string, typed: string): Promise<void> {
-    await page.evaluate(
-      ({ name, typed }) => {
-        type Wb = { nameTarget(n: string): { kind: string; sheet: string; address: string } | null; setTyped(s: string, a: string, t: string): void };
-        const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
-        const t = wb.nameTarget(name);
-        if (!t || t.kind !== "cell") throw new Error(`${name} is not one cell`);
-        wb.setTyped(t.sheet, t.address, typed);
-      },
-      { name, typed },
-    );
-    await settle();
-  }
   /** The B cell beside a label, typed into. */
   async function setLabelled(label: string, typed: string, col = "B"): Promise<void> {
     const row = (await labelAddress(label)).slice(1);
@@ -278,7 +265,7 @@ describe("the pane's states at 320 px", () => {
     });
     expect(margin).toBeGreaterThan(0);
     // a required margin above what the supply leaves: some to spare, less than required
-    await setNamed("Required_Margin", String(Math.ceil(margin) + 2));
+    await setNamed(page, "Required_Margin", String(Math.ceil(margin) + 2));
     expect(await verdict()).toMatch(/^Marginal: .* to spare at .*, less than the .* margin required\.$/);
     expect(await boxState()).toBe("marginal");
     await expect(page.locator('[data-role="next-steps"]').textContent()).resolves.toMatch(/or budget the pump/);
@@ -303,7 +290,7 @@ describe("the pane's states at 320 px", () => {
     });
     expect(left).toBeGreaterThan(20);
     // a purveyor's minimum above what the main keeps at the suggested pump's 150 % point
-    await setNamed("Suction_Minimum", String(Math.ceil(left) + 5));
+    await setNamed(page, "Suction_Minimum", String(Math.ceil(left) + 5));
     expect(await boxState()).toBe("cannot-serve");
     await expect(page.locator('[data-role="state"]').textContent()).resolves.toBe("A pump alone cannot serve");
     await expect(page.locator('[data-role="suction"]').textContent()).resolves.toMatch(/a suction tank or a stronger main is needed\.$/);
@@ -313,11 +300,11 @@ describe("the pane's states at 320 px", () => {
 
   test("a chosen pump that meets the demand, and one that misses", async () => {
     await open(PUMP_SAMPLE);
-    await setNamed("Pump_RatedFlow", "750");
-    await setNamed("Pump_RatedPressure", "60");
+    await setNamed(page, "Pump_RatedFlow", "750");
+    await setNamed(page, "Pump_RatedPressure", "60");
     await expect(page.locator('[data-role="pump"]').textContent()).resolves.toMatch(/^Chosen pump 750 gpm at 60\.0 psi: meets the demand and the required margin/);
     await shoot("chosen-meets");
-    await setNamed("Pump_RatedPressure", "5");
+    await setNamed(page, "Pump_RatedPressure", "5");
     await expect(page.locator('[data-role="pump"]').textContent()).resolves.toMatch(/^Chosen pump 750 gpm at 5\.0 psi: falls .* short/);
     await shoot("chosen-misses");
   });

@@ -18,6 +18,7 @@ import path from "node:path";
 import { promisify } from "node:util";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { setNamed } from "./previewPage";
 import { startServer } from "../../scripts/start-server.mjs";
 import { CAUTION } from "../../src/workbook/look";
 
@@ -146,20 +147,6 @@ describe.each(samples.map((s) => [s.file] as const))("the one-page summary of %s
 });
 
 describe("the longest summary", () => {
-  /** Type into the cell a workbook name points at, as a user would. */
-  async function setNamed(name: string, typed: string): Promise<void> {
-    await page.evaluate(
-      ({ name, typed }) => {
-        type Wb = { nameTarget(n: string): { kind: string; sheet: string; address: string } | null; setTyped(s: string, a: string, t: string): void };
-        const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
-        const t = wb.nameTarget(name);
-        if (!t || t.kind !== "cell") throw new Error(`${name} is not one cell`);
-        wb.setTyped(t.sheet, t.address, typed);
-      },
-      { name, typed },
-    );
-    await page.evaluate(() => (window as unknown as { headroomPreview: { pane: { idle(): Promise<void> } } }).headroomPreview.pane.idle());
-  }
 
   /** Type into column B beside a label of column A. */
   async function setBeside(label: string, typed: string): Promise<void> {
@@ -182,13 +169,13 @@ describe("the longest summary", () => {
     async (format) => {
       await open(samples[0].file);
       // the main must keep more than it can while a pump draws from it; a pump chosen too weak; the longest words
-      await setNamed("Suction_Minimum", "75");
+      await setNamed(page, "Suction_Minimum", "75");
       // a test that flowed little: the demand lies beyond it and the residual dropped under 25 % of static
       await setBeside("Flow measured directly (gpm)", "300");
-      await setNamed("Pump_RatedFlow", "750");
-      await setNamed("Pump_RatedPressure", "5");
-      await setNamed("Project_Site", "Unit 4 and the mezzanine store, Tinker Row light manufacturing and assembly (sample, extended)");
-      await setNamed("Project_Address", "Building C, 4 Tinker Row, Exampleton Industrial Estate, Sampleshire SA1 2BC, behind the loading yard");
+      await setNamed(page, "Pump_RatedFlow", "750");
+      await setNamed(page, "Pump_RatedPressure", "5");
+      await setNamed(page, "Project_Site", "Unit 4 and the mezzanine store, Tinker Row light manufacturing and assembly (sample, extended)");
+      await setNamed(page, "Project_Address", "Building C, 4 Tinker Row, Exampleton Industrial Estate, Sampleshire SA1 2BC, behind the loading yard");
       await page.locator('.bar [data-role="print-summary"]').click();
       const summary = page.locator('[data-role="summary-view"] [data-role="summary"]');
       await summary.waitFor();

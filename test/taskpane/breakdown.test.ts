@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { type Estimate, type PaneModel, buildModel } from "../../src/taskpane/model";
-import { BASE, FakePort, type Values, siBreakdown } from "./fakePort";
+import { BASE, FakePort, SHORT_105, type Values, siBreakdown } from "./fakePort";
 
 function model(v: Values): PaneModel {
   return buildModel(new FakePort(v).readings);
@@ -64,22 +64,6 @@ const PARTS_48: Values = {
 /** The worst segment of a run: 9.1 psi lost at 14.2 ft/s, under the 20 ft/s limit (common practice). */
 const WORST_SLOW: Values = { Run_WorstSegment: "Cross main to the riser", Run_WorstLoss: 9.1, Run_WorstVelocity: 14.2 };
 
-/**
- * A pump-needed case: 105 psi wanted where BASE's supply gives 67.958 psi at 562 gpm [NFPA 291]. Parts:
- * 15 + 12.4 + 61.4 + 13.0 + 3.2 = 105.0 psi; of the run's 61.4 psi, 42.6 psi lost in one 2½ in segment at 22.6 ft/s.
- */
-const SHORT_105: Values = {
-  ...BASE,
-  Demand_Pressure: 105,
-  Pressure_EndSprinkler: 15,
-  Pressure_AreaFriction: 12.4,
-  Pressure_RunFriction: 61.4,
-  Pressure_Elevation: 13.0,
-  Pressure_Devices: 3.2,
-  Run_WorstSegment: "Cross main to the riser",
-  Run_WorstLoss: 42.6,
-  Run_WorstVelocity: 22.6,
-};
 
 describe("pane model: the breakdown of the demand pressure", () => {
   it("gives the five parts in order, with plain labels, where all five are named", () => {

@@ -100,3 +100,20 @@ export function siBreakdown(): Values {
     Run_WorstVelocity: 22.6 * 0.3048,
   };
 }
+
+/**
+ * A pump-needed case: 105 psi wanted where BASE's supply gives 67.958 psi at 562 gpm [NFPA 291]. Parts:
+ * 15 + 12.4 + 61.4 + 13.0 + 3.2 = 105.0 psi; of the run's 61.4 psi, 42.6 psi lost in one 2½ in segment at 22.6 ft/s.
+ */
+export const SHORT_105: Values = {
+  ...BASE,
+  Demand_Pressure: 105,
+  Pressure_EndSprinkler: 15,
+  Pressure_AreaFriction: 12.4,
+  Pressure_RunFriction: 61.4,
+  Pressure_Elevation: 13.0,
+  Pressure_Devices: 3.2,
+  Run_WorstSegment: "Cross main to the riser",
+  Run_WorstLoss: 42.6,
+  Run_WorstVelocity: 22.6,
+};

@@ -3,7 +3,7 @@ import { afterEach, describe, expect, it, vi } from "vitest";
 import { verdict as verdictCell } from "../../src/functions/functions";
 import { BUSY_REREAD_MS, type PaneHandle, type SummaryRequest, mountPane } from "../../src/taskpane/pane";
 import { CAUTION } from "../../src/workbook/look";
-import { BASE, FakePort, type Values, siBreakdown } from "./fakePort";
+import { BASE, FakePort, SHORT_105, type Values, siBreakdown } from "./fakePort";
 
 let mounted: PaneHandle[] = [];
 afterEach(async () => {
@@ -288,22 +288,7 @@ describe("the actions", () => {
 describe("where the pressure goes", () => {
   /** Parts of BASE's 48 psi, invented: 15 + 8.5 + 17.3 + 4.33 + 2.87 = 48.00 psi. */
   const PARTS: Values = { Pressure_EndSprinkler: 15, Pressure_AreaFriction: 8.5, Pressure_RunFriction: 17.3, Pressure_Elevation: 4.33, Pressure_Devices: 2.87 };
-  /**
-   * Pump needed: 105 psi where BASE's supply gives 67.958 psi at 562 gpm [NFPA 291]; 15 + 12.4 + 61.4 + 13.0 + 3.2 =
-   * 105.0 psi, 42.6 psi of it in one segment at 22.6 ft/s.
-   */
-  const SHORT: Values = {
-    ...BASE,
-    Demand_Pressure: 105,
-    Pressure_EndSprinkler: 15,
-    Pressure_AreaFriction: 12.4,
-    Pressure_RunFriction: 61.4,
-    Pressure_Elevation: 13.0,
-    Pressure_Devices: 3.2,
-    Run_WorstSegment: "Cross main to the riser",
-    Run_WorstLoss: 42.6,
-    Run_WorstVelocity: 22.6,
-  };
+  const SHORT = SHORT_105;
 
   it("draws one row a part, label, pressure and share of the demand pressure, each with its bar", async () => {
     const { $, root } = await mount({ ...BASE, ...PARTS });
