@@ -5,7 +5,7 @@
  * Inputs arrive in the sheet's units (Units: "US" or "SI"); they are converted to US for the engine, as the cell
  * functions do, so the pane's verdict is the very sentence VERDICT writes and its margin the number MARGIN gives.
  */
-import { type Assessment, assess, caveatSentence, chosenPumpCheck, formatFlow, formatPressure, pumpBoost, stateSentence, verdictSentence } from "../engine/decision";
+import { type Assessment, MIN_TEST_DROP_SHARE, assess, caveatSentence, chosenPumpCheck, formatFlow, formatPressure, pumpBoost, stateSentence, verdictSentence } from "../engine/decision";
 import { HeadroomError } from "../engine/errors";
 import {
   DEFAULT_OVERLOAD_RATIO,
@@ -573,7 +573,10 @@ function checkChosen(
  */
 function nextSteps(state: PaneState, caveat: boolean, suction: SuctionCheck | null, chosen: ChosenPump | null, upsize: string | null): string[] {
   const steps: string[] = [];
-  if (caveat) steps.push("Confirm the flow test: ask for one that drops the residual at least 25 % below static or flows the full demand.");
+  if (caveat) {
+    const share = Math.round(MIN_TEST_DROP_SHARE * 100);
+    steps.push(`Confirm the flow test: ask for one that drops the residual at least ${share} % below static or flows the full demand.`);
+  }
   if (upsize) steps.push(upsize);
   else if (state === "marginal") {
     steps.push("Upsize the pipe that loses the most pressure in the run on the estimate sheet, or budget the pump.");

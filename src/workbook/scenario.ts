@@ -3,6 +3,7 @@
  * and an optional pump) and the demo scenarios every new estimate sheet starts from. The template (./template.ts)
  * lays a scenario out as cells; the samples (samples/scenarios.ts) are scenarios too.
  */
+import { MIN_SUCTION_PRESSURE_PSI } from "../engine/pump";
 import { DEFAULT_VELOCITY_LIMIT } from "../engine/run";
 import type { UnitSystem } from "../engine/units";
 
@@ -220,7 +221,7 @@ export function demoScenario(units: UnitSystem): Scenario {
     ],
     requiredMargin: 10,
     pump: null,
-    suctionMinimum: 20,
+    suctionMinimum: MIN_SUCTION_PRESSURE_PSI,
     duration: null,
   };
 }

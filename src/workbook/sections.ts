@@ -336,7 +336,7 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
       : "LH, OH1, OH2, EH1 or EH2: NFPA 13's occupancy classes (not storage: design storage by number of sprinklers)";
   const hazard = sh.line("Occupancy hazard", "input", s.hazard, "", classes);
   const areaChosen = sh.line("Design area chosen", "input", s.designArea, u.area, "leave blank for the smallest area on the hazard's curve", f.area);
-  const area = sh.line("Design area", "computed", `=IF(ISNUMBER(${areaChosen}),${areaChosen},${hr("DESIGNAREA", hazard, U)})`, u.area, "DESIGNAREA", f.area);
+  const area = sh.line("Design area", "computed", `=IF(ISBLANK(${areaChosen}),${hr("DESIGNAREA", hazard, U)},${areaChosen})`, u.area, "DESIGNAREA", f.area);
   sh.name("Design_Hazard", hazard, "Occupancy hazard of the design, for the one-page summary");
   const density = sh.line("Design density", "computed", `=${hr("DESIGNDENSITY", hazard, area, U)}`, u.density, "DESIGNDENSITY, read at the design area", f.density);
   const hose = sh.line("Hose stream allowance, inside + outside", "computed", `=${hr("HOSEALLOWANCE", hazard, text("total"), U)}`, u.flow, "HOSEALLOWANCE", f.flow);
@@ -580,7 +580,7 @@ export function pipeRunSection(
     }
     sh.put("R", "computed", `=${hr("VELOCITY", `G${r}`, `H${r}`, U)}`, { format: "0.0" });
     sh.put("S", "computed", `=100*${hr("FRICTIONRATE", `G${r}`, `H${r}`, `I${r}`, U)}`, { format: f.pressure });
-    sh.put("T", "computed", `=IF(R${r}>${abs(limit)},"faster than the limit","")`);
+    sh.put("T", "computed", `=IF(ISNUMBER(${abs(limit)}),IF(R${r}>${abs(limit)},"faster than the limit",""),"type a number in ${limit}")`);
     sh.row++;
   });
   const lastSeg = firstSeg + n - 1;
@@ -748,7 +748,8 @@ export function verdictSection(
   sh.row++;
   sh.name("Pump_RatedFlow", chosenFlow, "Rated flow of the pump chosen");
   sh.name("Pump_RatedPressure", chosenPressure, "Rated pressure of the pump chosen");
-  const chosen = `ISNUMBER(${chosenFlow})`;
+  // a rated flow typed is a chosen pump, text included: its error shows where it is used, never "no pump"
+  const chosen = `NOT(ISBLANK(${chosenFlow}))`;
   sh.put("A", "label", "Suggested pump, smallest standard rating");
   const size = sh.put(
     "B",
@@ -765,7 +766,7 @@ export function verdictSection(
   sh.put("C", "computed", `=IF(${chosen},${chosenPressure},IF(ISNUMBER(${sizePressure}),${sizePressure},""))`, { format: f.pressure });
   sh.put("D", "note", "the pump chosen, else the suggestion");
   sh.row++;
-  const pumped = `ISNUMBER(${ratedFlow})`;
+  const pumped = `OR(${chosen},ISNUMBER(${size}))`;
 
   const minimum = sh.line(
     "Least pressure the main must keep",
@@ -784,11 +785,11 @@ export function verdictSection(
     "PUMPSUCTION, with the hose drawn from the main beside the pump",
     f.pressure,
   );
-  const suctionShort = `AND(ISNUMBER(${suction}),${suction}<${minimum})`;
+  const suctionShort = `AND(ISNUMBER(${suction}),ISNUMBER(${minimum}),${suction}<${minimum})`;
   sh.line(
     "Suction check",
     "computed",
-    `=IF(ISNUMBER(${suction}),IF(${suction}>=${minimum},"Enough left in the main for the pump","Below the least the main must keep: a pump alone cannot serve; a suction tank or a stronger main is needed"),"")`,
+    `=IF(ISNUMBER(${suction}),IF(ISNUMBER(${minimum}),IF(${suction}>=${minimum},"Enough left in the main for the pump","Below the least the main must keep: a pump alone cannot serve; a suction tank or a stronger main is needed"),"type a number in ${minimum}"),"")`,
   );
   const spare = sh.line(
     "Chosen pump: pressure to spare at the demand",

@@ -111,6 +111,13 @@ describe("each segment's velocity, friction rate and check; where the pressure g
     expect(at("Underground to the street main", "T")).toBe("");
   });
 
+  it("asks for a number where the velocity limit holds text, rather than flag nothing", async () => {
+    const { at, wb, row } = await sheet(us((s) => (s.run[0].nominal = 2)));
+    const limit = row("Velocity limit");
+    wb.setContent("Estimate", `B${limit}`, "fast");
+    expect(at("Cross main to the riser", "T")).toBe(`type a number in B${limit}`);
+  });
+
   it("adds up to the demand pressure and names the segment losing the most", async () => {
     const { num, readings, at } = await sheet(us((s) => (s.run[0].nominal = 2)));
     const parts = ["Pressure_EndSprinkler", "Pressure_AreaFriction", "Pressure_RunFriction", "Pressure_Elevation", "Pressure_Devices"] as const;

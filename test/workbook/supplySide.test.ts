@@ -164,6 +164,41 @@ describe("the pump: suggested, chosen, and whether the main can feed it", () => 
   });
 });
 
+describe("text where a number belongs is said, never read as blank", () => {
+  it("a rated flow typed as text is an error where it is used, not 'no pump chosen'", async () => {
+    const { at, wb, row, t } = await sheet(us((s) => (s.flowTests[0].residual = 50)));
+    const flow = t.names.find((n) => n.name === "Pump_RatedFlow")!.address;
+    wb.setContent("Estimate", flow, "750 gpm");
+    wb.setContent("Estimate", t.names.find((n) => n.name === "Pump_RatedPressure")!.address, 40);
+    expect(at("Suggested pump, smallest standard rating")).toBe("a pump is chosen");
+    expect(wb.value("Estimate", `B${row("Pressure left in the main at 150 % of rated flow")}`)).toMatchObject({ error: "#VALUE!" });
+    expect(at("Chosen pump: pressure to spare at the demand")).toMatchObject({ error: "#VALUE!" });
+  });
+
+  it("a minimum the main must keep typed as text asks for a number, and gives no suction verdict", async () => {
+    const { at, wb, row } = await sheet(us((s) => (s.flowTests[0].residual = 50)));
+    const minimum = row("Least pressure the main must keep");
+    wb.setContent("Estimate", `B${minimum}`, "twenty");
+    expect(at("Suction check")).toBe(`type a number in B${minimum}`);
+    expect(at("Suction tank, estimated volume")).toBe("not needed");
+  });
+
+  it("a design area typed as text is an error, not the curve's smallest area", async () => {
+    const { at, wb, row } = await sheet(us());
+    wb.setContent("Estimate", `B${row("Design area chosen")}`, "big");
+    expect(at("Design area")).toBe("big");
+    expect(at("Design density")).toMatchObject({ error: "#VALUE!" });
+  });
+
+  it("a derate typed as a percentage number says it is a fraction", async () => {
+    const { wb, row } = await sheet(us());
+    wb.setContent("Estimate", `B${row("Derate for seasonal and future loss")}`, 10);
+    const site = wb.value("Estimate", `B${row("Test 1")}`) as { error: string; message?: string };
+    expect(site).toMatchObject({ error: "#VALUE!" });
+    expect(site.message).toMatch(/0\.1 for 10 %/);
+  });
+});
+
 describe("SI work", () => {
   it("says the hazard codes are NFPA 13's classes with converted values", async () => {
     const { at } = await sheet(demoScenario("SI"));
