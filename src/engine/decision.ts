@@ -5,7 +5,7 @@
  */
 import { fail, outsideEnvelope, q } from "./errors";
 import { DEFAULT_OVERLOAD_RATIO, DEFAULT_SHUTOFF_RATIO, OVERLOAD_FLOW_RATIO, type PumpRating, pumpPressure } from "./pump";
-import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
+import { type FlowTest, checkFlowTest, exhaustionFlow, supplyBefore } from "./supply";
 import { type UnitSystem, fromUS, unitName } from "./units";
 
 /**
@@ -109,9 +109,8 @@ export function assess(demandFlow: number, demandPressure: number, t: FlowTest, 
   if (!(requiredMargin >= 0)) fail("required_margin", q("pressure", requiredMargin), "must be 0 or more");
   const exhaustedAt = exhaustionFlow(t);
   const caveat = flowTestCaveat(demandFlow, t);
-  const supplyPressure = supplyCurve(demandFlow, t);
-  // a pressure that rounds to 0 short of the exhaustion flow (a static of a few denormals) is exhausted too
-  if (!(demandFlow < exhaustedAt && supplyPressure > 0)) {
+  const supplyPressure = supplyBefore(demandFlow, t);
+  if (supplyPressure === null) {
     return {
       demandFlow, demandPressure, requiredMargin, exhaustedAt, supplyPressure: null, margin: null,
       state: "exhausted", pumpNeeded: true, caveat,
@@ -379,15 +378,14 @@ export function chosenPumpCheck(
     );
   }
   const pump = pumpPressure(pumpFlow, ratedFlow, ratedPressure, shutoffRatio, overloadRatio); // checks the rating
-  const exhaustedAt = exhaustionFlow(t);
-  const supply = supplyCurve(totalFlow, t);
-  if (!(totalFlow < exhaustedAt && supply > 0)) {
+  const supply = supplyBefore(totalFlow, t);
+  if (supply === null) {
     fail(
       "demand_flow",
       q("flow", totalFlow),
       "this supply reaches {0} at {1}; a pump cannot draw more than the main delivers",
       q("pressure", 0),
-      q("flow", exhaustedAt),
+      q("flow", exhaustionFlow(t)),
     );
   }
   const delivered = supply + pump;

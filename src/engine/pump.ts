@@ -4,7 +4,7 @@
  */
 import { fail, n, notInTable, outsideEnvelope, q } from "./errors";
 import { ceilCount } from "./sprinkler";
-import { type FlowTest, checkFlowTest, exhaustionFlow, supplyCurve } from "./supply";
+import { type FlowTest, checkFlowTest, exhaustionFlow, supplyBefore } from "./supply";
 import { type UnitSystem, fromUS } from "./units";
 
 /**
@@ -245,15 +245,14 @@ export function pumpSuction(ratedFlow: number, t: FlowTest, otherFlow: number): 
   if (!(ratedFlow > 0) || !Number.isFinite(ratedFlow)) fail("rated_flow", q("flow", ratedFlow), "must be greater than 0");
   if (!(otherFlow >= 0) || !Number.isFinite(otherFlow)) fail("other_flow", q("flow", otherFlow), "must be 0 or more");
   const drawn = OVERLOAD_FLOW_RATIO * ratedFlow + otherFlow;
-  const exhaustedAt = exhaustionFlow(t);
-  const p = supplyCurve(drawn, t);
-  if (!(drawn < exhaustedAt && p > 0)) {
+  const p = supplyBefore(drawn, t);
+  if (p === null) {
     fail(
       "rated_flow",
       q("flow", ratedFlow),
       "150 % of it plus other_flow is {0}, at or beyond {1}, where this supply reaches {2}",
       q("flow", drawn),
-      q("flow", exhaustedAt),
+      q("flow", exhaustionFlow(t)),
       q("pressure", 0),
     );
   }

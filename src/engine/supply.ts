@@ -124,6 +124,28 @@ export function supplyCurve(flow: number, t: FlowTest): number {
 }
 
 /**
+ * The supply pressure at a flow where the supply still has some, else null.
+ *
+ *   P(Q) = Ps − (Ps − Pr) (Q / Qt)^1.85 where Q < Qe and P > 0;   null otherwise
+ *
+ * A pressure that rounds to 0 short of the exhaustion flow (a static of a few denormals) counts as none: the callers
+ * (the verdict, the suction check, the chosen pump's check) each say in their own words what a missing pressure means.
+ * Static 70, residual 50 psi at 1000 gpm: 62.2 psi at 600 gpm (worked in supplyCurve); none at 2000 gpm, past 1968 gpm.
+ *
+ * @param flow Q, the flow, gpm (≥ 0)
+ * @param t the flow test: static Ps and residual Pr, psi; test flow Qt, gpm (checked by the caller)
+ * @returns P, the pressure, psi (> 0), or null where the supply is exhausted at `flow`
+ * @see [NFPA 291] water supply curve
+ * @example
+ * supplyBefore(600, { static: 70, residual: 50, testFlow: 1000 }) // ≈ 62.2 psi
+ * supplyBefore(2000, { static: 70, residual: 50, testFlow: 1000 }) // → null
+ */
+export function supplyBefore(flow: number, t: FlowTest): number | null {
+  const p = supplyCurve(flow, t);
+  return flow < exhaustionFlow(t) && p > 0 ? p : null;
+}
+
+/**
  * Pressure the supply delivers at a flow, along the supply curve.
  *
  *   P(Q) = Ps − (Ps − Pr) (Q / Qt)^1.85
