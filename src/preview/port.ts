@@ -5,8 +5,9 @@
  * It passes the same contract tests as the Excel side (test/workbook/contract.ts, run by test/preview/port.test.ts).
  */
 import type { UnitSystem } from "../engine/units";
-import { cellAddress, freeSheetName, parseCell } from "../workbook/a1";
+import { cellAddress, freeSheetName, parseCell, parseRange } from "../workbook/a1";
 import {
+  CANDIDATES_NAME,
   INPUT_NAMES,
   type InsertResult,
   type InputName,
@@ -15,7 +16,10 @@ import {
   type Reading,
   type Readings,
   type ShareCopyResult,
+  type TableReading,
+  type WorkbookName,
   type WorkbookPort,
+  candidatesShapeProblem,
   isoDate,
   shareRefusal,
   shareStamp,
@@ -36,7 +40,31 @@ export class PreviewPort implements WorkbookPort {
   async readInputs(): Promise<Readings> {
     const out = {} as Readings;
     for (const name of INPUT_NAMES) out[name] = this.read(name);
+    out[CANDIDATES_NAME] = this.readTable(CANDIDATES_NAME);
     return out;
+  }
+
+  /** A table name's cells, row by row, each read as a one-cell name is. */
+  private readTable(name: string): TableReading {
+    const wb = this.workbook;
+    const target = wb.nameTarget(name);
+    if (!target) return { kind: "missing" };
+    if (target.kind === "other") return { kind: "invalid", reason: `${name} refers to ${target.expression}, not a block of cells of this workbook` };
+    const range = target.kind === "cell" ? target.address : target.range;
+    const address = `${target.sheet}!${range}`;
+    const r = parseRange(range);
+    const problem = candidatesShapeProblem(r.rows, r.cols, address);
+    if (problem) return { kind: "invalid", reason: problem, address };
+    const rows: Reading[][] = [];
+    for (let i = 0; i < r.rows; i++) {
+      const row: Reading[] = [];
+      for (let j = 0; j < r.cols; j++) {
+        const at = cellAddress({ row: r.start.row + i, col: r.start.col + j });
+        row.push(shownReading(wb.value(target.sheet, at), `${target.sheet}!${at}`));
+      }
+      rows.push(row);
+    }
+    return { kind: "table", address, rows };
   }
 
   private read(name: InputName): Reading {
@@ -55,12 +83,7 @@ export class PreviewPort implements WorkbookPort {
     if (target.kind === "other" && value !== null && typeof value === "object" && value.error === "#REF!") {
       return { kind: "invalid", reason: `${name} refers to ${target.expression}, which is not a cell of this workbook` };
     }
-    const at = address ? { address } : {};
-    if (value === null) return { kind: "empty", ...at };
-    if (typeof value === "number") return { kind: "number", value, ...at };
-    if (typeof value === "string") return { kind: "text", value, ...at };
-    if (typeof value === "boolean") return { kind: "text", value: value ? "TRUE" : "FALSE", ...at };
-    return { kind: "error", code: value.error, ...(value.message ? { message: value.message } : {}), ...at };
+    return shownReading(value, address);
   }
 
   async subscribe(onChange: () => void): Promise<() => Promise<void>> {
@@ -85,10 +108,10 @@ export class PreviewPort implements WorkbookPort {
     const wb = this.workbook;
     const t = estimateTemplate(scenario ?? demoScenario(units));
     const sheetName = wb.addSheet(templateSheet(t, freeSheetName(t.sheetName, wb.sheetNames())));
-    const namesMoved: InputName[] = [];
+    const namesMoved: WorkbookName[] = [];
     for (const n of templateNames(t, sheetName)) {
       const before = wb.nameTarget(n.name);
-      if (before) namesMoved.push(n.name as InputName);
+      if (before) namesMoved.push(n.name as WorkbookName);
       wb.setName(n.name, n.ref);
     }
     wb.activate(sheetName);
@@ -147,4 +170,14 @@ export class PreviewPort implements WorkbookPort {
     this.workbook.activate(sheetName);
     return { ok: true, sheetName, sourceSheet: made.sourceSheet };
   }
+}
+
+/** What a cell shows, as a reading. */
+function shownReading(value: ReturnType<PreviewWorkbook["value"]>, address: string | undefined): Reading {
+  const at = address ? { address } : {};
+  if (value === null) return { kind: "empty", ...at };
+  if (typeof value === "number") return { kind: "number", value, ...at };
+  if (typeof value === "string") return { kind: "text", value, ...at };
+  if (typeof value === "boolean") return { kind: "text", value: value ? "TRUE" : "FALSE", ...at };
+  return { kind: "error", code: value.error, ...(value.message ? { message: value.message } : {}), ...at };
 }

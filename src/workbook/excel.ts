@@ -9,8 +9,9 @@
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
-import { cellAddress, freeSheetName, parseRange, splitSheet } from "./a1";
+import { cellAddress, freeSheetName, parseRange, quoteSheet, splitSheet } from "./a1";
 import {
+  CANDIDATES_NAME,
   INPUT_NAMES,
   type InputName,
   type InsertResult,
@@ -19,7 +20,10 @@ import {
   type Reading,
   type Readings,
   type ShareCopyResult,
+  type TableReading,
+  type WorkbookName,
   type WorkbookPort,
+  candidatesShapeProblem,
   isoDate,
   shareRefusal,
   shareStamp,
@@ -85,7 +89,8 @@ function lookUpName(ctx: Ctx, sheet: Excel.Worksheet, name: string, load: string
 
 async function readInputs(ctx: Ctx): Promise<Readings> {
   const active = ctx.workbook.worksheets.getActiveWorksheet();
-  const found = INPUT_NAMES.map((n) => lookUpName(ctx, active, n, "type,value"));
+  const names = [...INPUT_NAMES, CANDIDATES_NAME];
+  const found = names.map((n) => lookUpName(ctx, active, n, "type,value"));
   await ctx.sync();
   const items = found.map((pick) => pick());
   const ranges = items.map((item) => {
@@ -99,7 +104,26 @@ async function readInputs(ctx: Ctx): Promise<Readings> {
   INPUT_NAMES.forEach((n, i) => {
     out[n] = reading(items[i], ranges[i]);
   });
+  out[CANDIDATES_NAME] = tableReading(items[INPUT_NAMES.length], ranges[INPUT_NAMES.length]);
   return out;
+}
+
+/** A table name (the candidates), row by row: each cell read as a one-cell name is, with its own address. */
+function tableReading(item: Excel.NamedItem, range: Excel.Range | null): TableReading {
+  if (item.isNullObject) return { kind: "missing" };
+  if (item.type !== "Range" || !range || range.isNullObject) {
+    return { kind: "invalid", reason: `${CANDIDATES_NAME} refers to ${String(item.value)}, not a block of cells` };
+  }
+  const address = range.address;
+  const problem = candidatesShapeProblem(range.rowCount, range.columnCount, address);
+  if (problem) return { kind: "invalid", reason: problem, address };
+  const { sheet, range: block } = splitSheet(address);
+  const start = parseRange(block.replace(/\$/g, "")).start;
+  const prefix = sheet === null ? "" : `${quoteSheet(sheet)}!`;
+  const rows = range.values.map((row, i) =>
+    row.map((v, j) => cellReading(v, range.valueTypes[i][j], `${prefix}${cellAddress({ row: start.row + i, col: start.col + j })}`)),
+  );
+  return { kind: "table", address, rows };
 }
 
 function reading(item: Excel.NamedItem, range: Excel.Range | null): Reading {
@@ -218,7 +242,7 @@ async function insertEstimateSheet(ctx: Ctx, units: UnitSystem, scenario?: Scena
   ctx.application.suspendApiCalculationUntilNextSync();
   const sheet = wb.worksheets.add(sheetName);
   writeCells(sheet, template);
-  const namesMoved: InputName[] = [];
+  const namesMoved: WorkbookName[] = [];
   template.names.forEach((n, i) => {
     if (!existing[i].isNullObject) {
       existing[i].delete();

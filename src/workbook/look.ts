@@ -31,6 +31,7 @@ export const PALETTE = {
   sprinklers: "#E69F00",
   demand: "#D55E00",
   pump: "#009E73",
+  candidate: "#CC79A7",
   ink: "#1F1F1F",
   grid: "#D9DDE3",
 } as const;

@@ -80,14 +80,53 @@ export type Reading =
   | { kind: "missing" }
   | { kind: "invalid"; reason: string; address?: string };
 
-export type Readings = Record<InputName, Reading>;
+/**
+ * The table of candidate design areas (a building's occupancies, storage sections, dry parts): one row each, four
+ * columns: its name, its demand flow at the supply (sprinklers + hose), the pressure it needs at the supply, and the
+ * flow that passes through a pump (blank: its demand flow). The estimate sheet's first row is its own demand section;
+ * the one with the least margin controls the verdict, on the sheet and in the pane alike.
+ */
+export const CANDIDATES_NAME = "Design_Candidates";
+
+/** Every name the template defines and the pane reads: the one-cell names and the candidates table. */
+export type WorkbookName = InputName | typeof CANDIDATES_NAME;
+
+/** The columns of the candidates table, in order. */
+export const CANDIDATE_COLUMNS = ["name", "flow", "pressure", "pumpFlow"] as const;
+
+/**
+ * What a table name holds: each row's cells, read as one-cell names are (an empty cell is "empty"); "missing" where the
+ * workbook defines no such name, "invalid" where it is not a block of CANDIDATE_COLUMNS columns.
+ */
+export type TableReading =
+  | { kind: "table"; address: string; rows: Reading[][] }
+  | { kind: "missing" }
+  | { kind: "invalid"; reason: string; address?: string };
+
+/**
+ * The readings of a workbook: one per input name, and the candidates table. Both hosts always read the table (a
+ * workbook without it: "missing"); a reading made by hand may leave it out, which means the same.
+ */
+export type Readings = Record<InputName, Reading> & { [CANDIDATES_NAME]?: TableReading };
+
+/** Why a block cannot be the candidates table, or null: it must be CANDIDATE_COLUMNS wide and 1 to 50 rows tall. */
+export function candidatesShapeProblem(rows: number, cols: number, address: string): string | null {
+  if (cols !== CANDIDATE_COLUMNS.length) {
+    return `${CANDIDATES_NAME} refers to ${address}, ${cols} column${cols === 1 ? "" : "s"} wide; it must be ${CANDIDATE_COLUMNS.length} columns wide: name, demand flow, pressure at the supply, flow through a pump`;
+  }
+  if (rows < 1 || rows > MAX_CANDIDATES) return `${CANDIDATES_NAME} refers to ${address}, ${rows} rows; it may hold 1 to ${MAX_CANDIDATES} rows`;
+  return null;
+}
+
+/** The most rows the candidates table may hold. */
+export const MAX_CANDIDATES = 50;
 
 /** What "New estimate sheet" did. */
 export interface InsertResult {
   /** name of the new worksheet */
   sheetName: string;
   /** names that pointed elsewhere before and now point to the new sheet */
-  namesMoved: InputName[];
+  namesMoved: WorkbookName[];
 }
 
 /** What "Share copy" did, or why it refused. */

@@ -51,6 +51,20 @@ export type DemandDesign =
       duration: number;
     };
 
+/**
+ * Another candidate design area of the building (an office floor beside a warehouse, a dry loading dock), typed in
+ * the sheet's table of candidates from its own estimate: its demand at the supply, in the scenario's units.
+ */
+export interface CandidateInput {
+  name: string;
+  /** demand flow at the supply, sprinklers + hose, gpm or L/min */
+  flow: number;
+  /** pressure it needs at the supply, psi or bar */
+  pressure: number;
+  /** flow that passes through a pump, gpm or L/min; null for its demand flow */
+  pumpFlow: number | null;
+}
+
 /** One hydrant flow test, in the scenario's units. */
 export interface FlowTestInput {
   /** when and where the test was made (text) */
@@ -132,6 +146,10 @@ export interface Scenario {
   suctionMinimum: number;
   /** minutes the supply must last, for a suction tank's volume; null for DURATION(hazard, "max") */
   duration: number | null;
+  /** the name of this sheet's own design area, the first row of the table of candidates; "" for a plain one */
+  areaName?: string;
+  /** the building's other candidate design areas, typed below this sheet's own in the table of candidates */
+  candidates?: CandidateInput[];
 }
 
 /**

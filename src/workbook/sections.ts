@@ -16,7 +16,7 @@ import { CURVE_DEMAND_FLOW_FACTOR, SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_POINTS
 import { type UnitSystem, unitName } from "../engine/units";
 import { cellAddress, columnLetters, parseCell } from "./a1";
 import { CAUTION, type CellRole, PALETTE } from "./look";
-import type { InputName } from "./port";
+import { CANDIDATES_NAME, type WorkbookName } from "./port";
 import type { Scenario } from "./scenario";
 import type { ChartSeries, Section, TemplateCell, TemplateName } from "./sheet";
 
@@ -130,7 +130,7 @@ class SectionWriter {
     this.row += n;
   }
 
-  name(name: InputName, address: string, comment: string): void {
+  name(name: WorkbookName, address: string, comment: string): void {
     this.names.push({ name, address, comment });
   }
 
@@ -664,6 +664,99 @@ export function supplyDemandSection(
   return sh.done({ sprinklerFlow, hoseFlow, flow: demandFlow, pressure: demandPressure, pumpFlow });
 }
 
+/** Rows of the table of candidate design areas: this sheet's own and four more to type (more where a scenario has them). */
+export const CANDIDATE_ROWS = 5;
+
+/** The demand the verdict judges: the controlling candidate's. */
+export interface JudgedDemandRefs {
+  /** its name */
+  name: string;
+  flow: string;
+  pressure: string;
+  pumpFlow: string;
+  /** the typed candidates' flows and pressures (rows 2 on), for the chart */
+  othersFlow: string;
+  othersPressure: string;
+}
+
+/**
+ * The building's candidate design areas side by side (occupancies, storage sections, dry parts): this sheet's own
+ * demand first, then the others typed from their own estimates. Each row's margin is taken on the weakest flow test at
+ * its flow, and the one with the least margin controls the verdict (the first on a tie). The name Design_Candidates
+ * covers the four columns the pane reads: name, demand flow, pressure at the supply, flow through a pump.
+ *
+ * A row's cells go through VERDICT's own checks before any arithmetic, so text, a blank beside a typed name or a
+ * negative pressure shows VERDICT's message in the margin cell, and the error carries on into the verdict: a row is
+ * never dropped for being wrong.
+ */
+export function candidatesSection(
+  s: Scenario,
+  row: number,
+  { units: U, supply, demand }: UnitsRefs & { supply: SupplyRefs; demand: DemandRefs },
+): Section<JudgedDemandRefs> {
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
+  const sh = new SectionWriter(row);
+  const typed = s.candidates ?? [];
+  const rows = Math.max(CANDIDATE_ROWS, 1 + typed.length);
+  sh.heading("Design areas compared");
+  sh.put(
+    "A",
+    "note",
+    "One row per candidate design area: the first is this sheet's own; type the others' demand at the supply from their estimates. " +
+      "The one with the least margin controls the verdict below.",
+  );
+  sh.row++;
+  sh.put("A", "header", "Design area");
+  sh.put("B", "header", `Demand flow, sprinklers + hose (${u.flow})`);
+  sh.put("C", "header", `Pressure at the supply (${u.pressure})`);
+  sh.put("D", "header", `Flow through a pump (${u.flow})`);
+  sh.put("E", "header", `Weakest supply at its flow (${u.pressure})`);
+  sh.put("F", "header", `Margin (${u.pressure})`);
+  sh.row++;
+  const first = sh.row;
+  const tests = supply.tests;
+  const t1 = tests[0];
+  for (let i = 0; i < rows; i++) {
+    const r = sh.row;
+    const [A, B, C, D] = ["A", "B", "C", "D"].map((c) => `${c}${r}`);
+    if (i === 0) {
+      sh.put("A", "input", s.areaName || "This sheet's design area");
+      sh.put("B", "computed", `=${demand.flow}`, { format: f.flow });
+      sh.put("C", "computed", `=${demand.pressure}`, { format: f.pressure });
+      sh.put("D", "computed", `=${demand.pumpFlow}`, { format: f.flow });
+    } else {
+      const c = typed[i - 1];
+      sh.put("A", "input", c ? c.name : null);
+      sh.put("B", "input", c ? c.flow : null, { format: f.flow });
+      sh.put("C", "input", c ? c.pressure : null, { format: f.pressure });
+      sh.put("D", "input", c && c.pumpFlow !== null ? c.pumpFlow : null, { format: f.flow });
+    }
+    // each test's supply at the row's flow, 0 where it runs dry first; a test not filled in counts for nothing (a
+    // pressure no supply reaches, written out: not every formula engine reads 1E+9)
+    const at = (t: FlowTestRefs) => {
+      const test = [t.static, t.residual, t.testFlow];
+      return `IF(${t.static}="",1000000000,IF(VALUE(${B})>=${hr("FLOWAT", "0", ...test, U)},0,${hr("SUPPLYAT", B, ...test, U)}))`;
+    };
+    const check = hr("VERDICT", B, C, t1.static, t1.residual, t1.testFlow, "0", U);
+    const blank = `AND(${A}="",${B}="",${C}="",${D}="")`;
+    const weakest = sh.put("E", "computed", `=IF(${blank},"",IF(ISTEXT(${check}),MIN(${tests.map(at).join(",")}),${check}))`, { format: f.pressure });
+    sh.put("F", "computed", `=IF(${weakest}="","",${weakest}-${C})`, { format: f.pressure });
+    sh.row++;
+  }
+  const last = sh.row - 1;
+  const col = (c: string, from = first) => `${abs(`${c}${from}`)}:${abs(`${c}${last}`)}`;
+  sh.name(CANDIDATES_NAME, `A${first}:D${last}`, "Candidate design areas: name, demand flow, pressure at the supply, flow through a pump");
+  const which = `MATCH(MIN(${col("F")}),${col("F")},0)`;
+  const pick = (c: string) => `INDEX(${col(c)},${which},1)`;
+  // &"" keeps a blank name blank and a number as its text (INDEX of an empty cell gives 0)
+  const name = sh.line("Controlling design area", "computed", `=${pick("A")}&""`, "", "the least margin; the first on a tie");
+  const flow = sh.line("Its demand flow, sprinklers + hose", "computed", `=${pick("B")}`, u.flow, "", f.flow);
+  const pressure = sh.line("Its pressure at the supply", "computed", `=${pick("C")}`, u.pressure, "", f.pressure);
+  const pumpFlow = sh.line("Its flow through a pump", "computed", `=IF(${pick("D")}&""="",${flow},${pick("D")})`, u.flow, "blank in the table: its demand flow", f.flow);
+  return sh.done({ name, flow, pressure, pumpFlow, othersFlow: `B${first + 1}:B${last}`, othersPressure: `C${first + 1}:C${last}` });
+}
+
 /**
  * The verdict: the flow test that governs (the lowest supply at the demand flow), the margin and VERDICT; the pump
  * (chosen or suggested), its suction check and, where the main cannot feed a pump, a suction tank's volume.
@@ -671,7 +764,7 @@ export function supplyDemandSection(
 export function verdictSection(
   s: Scenario,
   row: number,
-  { units: U, supply, hazard, demand }: UnitsRefs & { supply: SupplyRefs; hazard: HazardRefs; demand: DemandRefs },
+  { units: U, supply, hazard, demand }: UnitsRefs & { supply: SupplyRefs; hazard: HazardRefs; demand: JudgedDemandRefs },
 ): Section<{ used: UsedTestRefs }> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
@@ -826,7 +919,7 @@ export interface ChartRefs {
 export function supplyCurveSection(
   s: Scenario,
   row: number,
-  { units: U, supply, demand }: UnitsRefs & { supply: UsedTestRefs; demand: DemandRefs },
+  { units: U, supply, demand, judged }: UnitsRefs & { supply: UsedTestRefs; demand: DemandRefs; judged: JudgedDemandRefs },
 ): Section<ChartRefs> {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
@@ -835,9 +928,9 @@ export function supplyCurveSection(
   const chartMax = sh.line(
     "Chart flow up to",
     "computed",
-    `=MAX(${CHART_TEST_FLOW_FACTOR}*${supply.testFlow},${CHART_DEMAND_FLOW_FACTOR}*${demand.flow})`,
+    `=MAX(${CHART_TEST_FLOW_FACTOR}*${supply.testFlow},${CHART_DEMAND_FLOW_FACTOR}*MAX(${demand.flow},${judged.othersFlow}))`,
     u.flow,
-    `${CHART_TEST_FLOW_FACTOR} × test flow or ${CHART_DEMAND_FLOW_FACTOR} × demand flow, the larger`,
+    `${CHART_TEST_FLOW_FACTOR} × test flow or ${CHART_DEMAND_FLOW_FACTOR} × the largest demand flow compared, the larger`,
     f.flow,
   );
   sh.put("B", "header", `Flow (${u.flow})`);
@@ -860,6 +953,7 @@ export function supplyCurveSection(
         { name: "Water supply", x: `B${c0}:B${c1}`, y: `C${c0}:C${c1}`, style: "line", marker: "none", color: PALETTE.supply },
         { name: "Sprinklers", x: demand.sprinklerFlow, y: demand.pressure, style: "marker", marker: "square", color: PALETTE.sprinklers },
         { name: "Sprinklers + hose", x: demand.flow, y: demand.pressure, style: "marker", marker: "diamond", color: PALETTE.demand },
+        { name: "Other design areas", x: judged.othersFlow, y: judged.othersPressure, style: "marker", marker: "circle", color: PALETTE.candidate },
       ],
     },
   });

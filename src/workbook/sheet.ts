@@ -7,7 +7,7 @@
 import type { UnitSystem } from "../engine/units";
 import { cellAddress, parseCell } from "./a1";
 import type { CellRole } from "./look";
-import type { InputName } from "./port";
+import type { WorkbookName } from "./port";
 
 export interface TemplateCell {
   /** A1 address on the estimate sheet, e.g. "B12" */
@@ -27,7 +27,7 @@ export interface TemplateCell {
 }
 
 export interface TemplateName {
-  name: InputName;
+  name: WorkbookName;
   /** A1 address on the estimate sheet */
   address: string;
   comment: string;

@@ -10,7 +10,8 @@
  *   (HEADFLOW, PIPEID, CFACTOR, ADJUSTAREA, AREADEMAND; or HEADSDEMAND), the fittings inside the area (FITTINGS,
  *   FRICTION) · the pipe run back to the supply (PIPEID, CFACTOR, FITTINGS helper columns into PIPERUN; the inside hose
  *   where a segment carries it; VELOCITY and FRICTIONRATE beside it) · where the pressure goes · demand at the supply
- *   and the flow through a pump · verdict (the
+ *   and the flow through a pump · the design areas compared (this sheet's and the others typed; the least margin
+ *   controls) · verdict, for the controlling design area (the
  *   governing flow test, MARGIN, VERDICT, PUMPBOOST, PUMPSIZE, PUMPSUCTION, the chosen pump through PUMPCURVE, a
  *   suction tank's volume) · supply curve for the chart (SUPPLYCURVE).
  */
@@ -18,6 +19,7 @@ import type { Scenario } from "./scenario";
 import {
   type AreaDemandSection,
   breakdownSection,
+  candidatesSection,
   hazardSection,
   headsDemandSection,
   pipeRunSection,
@@ -72,8 +74,9 @@ export function estimateTemplate(s: Scenario, { areaDemand = s.design.kind === "
   const run = lay(pipeRunSection(s, row, { units, area, hazard }));
   lay(breakdownSection(s, row, { area, run }));
   const demand = lay(supplyDemandSection(s, row, { area, hazard, run }));
-  const { used } = lay(verdictSection(s, row, { units, supply, hazard, demand }));
-  const { chart } = lay(supplyCurveSection(s, row, { units, supply: used, demand }));
+  const judged = lay(candidatesSection(s, row, { units, supply, demand }));
+  const { used } = lay(verdictSection(s, row, { units, supply, hazard, demand: judged }));
+  const { chart } = lay(supplyCurveSection(s, row, { units, supply: used, demand, judged }));
 
   const sheet: Omit<SheetTemplate, "print"> = {
     sheetName: "Estimate",

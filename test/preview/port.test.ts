@@ -9,6 +9,7 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { PreviewPort } from "../../src/preview/port";
 import { portContract, type PortHarness } from "../workbook/contract";
 import { generatedMetadata } from "./metadataFixture";
+import { cellAddress } from "../../src/workbook/a1";
 
 beforeAll(async () => {
   registerHeadroomFunctions(await generatedMetadata(), functions);
@@ -20,6 +21,7 @@ async function harness(): Promise<PortHarness> {
   const wb = new PreviewWorkbook({ sheets: [{ name: INPUT_SHEET, cells: {} }], names: [] });
   const port = new PreviewPort(wb);
   let nextRow = 1;
+  let nextTableRow = 1;
   const cellOf = (name: string) => {
     let t = wb.nameTarget(name);
     if (!t) {
@@ -46,6 +48,14 @@ async function harness(): Promise<PortHarness> {
       // a real cell-function error: a negative flow is refused with a message
       wb.setContent(t.sheet, t.address, "=HEADROOM.SUPPLYAT(-1,72,58,1100)");
     },
+    async putTable(name, rows) {
+      // tables stand right of the one-cell names, from column D down
+      const top = nextTableRow;
+      rows.forEach((row, i) => row.forEach((v, j) => wb.setContent(INPUT_SHEET, cellAddress({ row: top - 1 + i, col: 3 + j }), v)));
+      const end = cellAddress({ row: top - 2 + rows.length, col: 2 + rows[0].length });
+      wb.setName(name, `${INPUT_SHEET}!$D$${top}:$${end.replace(/\d+$/, "")}$${end.replace(/^[A-Z]+/, "")}`);
+      nextTableRow += rows.length + 1;
+    },
     async remove(name) {
       wb.removeName(name);
     },
@@ -66,7 +76,8 @@ async function harness(): Promise<PortHarness> {
     },
     async nameTarget(name) {
       const t = wb.nameTarget(name);
-      return t && t.kind === "cell" ? { sheet: t.sheet, address: t.address } : null;
+      if (!t || t.kind === "other") return null;
+      return { sheet: t.sheet, address: t.kind === "cell" ? t.address : t.range };
     },
   };
 }

@@ -6,7 +6,7 @@ import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { PreviewPort } from "../../src/preview/port";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { parseCell } from "../../src/workbook/a1";
-import type { Readings } from "../../src/workbook/port";
+import type { InputName, Readings } from "../../src/workbook/port";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
 import { estimateTemplate } from "../../src/workbook/template";
 
@@ -24,7 +24,7 @@ export async function calculatedSheet(s: Scenario) {
   };
   const at = (label: string, col = "B") => wb.value("Estimate", `${col}${row(label)}`);
   const readings: Readings = await new PreviewPort(wb).readInputs();
-  const num = (name: keyof Readings) => {
+  const num = (name: InputName) => {
     const r = readings[name];
     if (r.kind !== "number") throw new Error(`${name} is ${JSON.stringify(r)}`);
     return r.value;

@@ -6,7 +6,7 @@
  * look at the workbook afterwards; the port under test is only used through its interface.
  */
 import { describe, expect, it } from "vitest";
-import { INPUT_NAMES, type InputName, REQUIRED_NAMES, SHARE_STAMP, type WorkbookPort, isoDate } from "../../src/workbook/port";
+import { CANDIDATES_NAME, INPUT_NAMES, type InputName, REQUIRED_NAMES, SHARE_STAMP, type WorkbookPort, isoDate } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
 import { estimateTemplate } from "../../src/workbook/template";
 
@@ -25,6 +25,11 @@ export interface PortHarness {
   putFormula(name: InputName, formula: string, value: number): Promise<void>;
   /** Make the cell `name` refers to show an error (whichever error the host can produce). */
   putError(name: InputName): Promise<void>;
+  /**
+   * Define `name` on a block of cells of the harness's own input sheet, as many rows and columns as `rows`, holding
+   * them (null: an empty cell), as a user typing them would.
+   */
+  putTable(name: string, rows: Array<Array<number | string | null>>): Promise<void>;
   /** Delete the workbook's definition of `name`. */
   remove(name: InputName): Promise<void>;
   /** Wait until change notifications caused by earlier calls have been delivered. */
@@ -67,7 +72,8 @@ export function portContract(host: string, makeHarness: () => Promise<PortHarnes
       withHarness(async (h) => {
         await fillRequired(h);
         const r = await h.port.readInputs();
-        expect(Object.keys(r).sort()).toEqual([...INPUT_NAMES].sort());
+        expect(Object.keys(r).sort()).toEqual([...INPUT_NAMES, CANDIDATES_NAME].sort());
+        expect(r[CANDIDATES_NAME]).toEqual({ kind: "missing" });
         for (const name of REQUIRED_NAMES) {
           expect(r[name]).toMatchObject({ kind: "number", value: REQUIRED_VALUES[name] });
         }
@@ -102,6 +108,47 @@ export function portContract(host: string, makeHarness: () => Promise<PortHarnes
         const target = await h.nameTarget("Supply_Static");
         expect(target).not.toBeNull();
         if (r.Supply_Static.kind === "text") expect(r.Supply_Static.address).toMatch(new RegExp(`${target!.address}$`));
+      }),
+    );
+
+    it(
+      "reads the candidates table row by row, each cell as a one-cell name is, with its own address",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.putTable(CANDIDATES_NAME, [
+          ["Warehouse", 1450, 61.5, null],
+          ["Office", "abc", null, 400],
+        ]);
+        const t = (await h.port.readInputs())[CANDIDATES_NAME];
+        expect(t?.kind).toBe("table");
+        if (t?.kind !== "table") return;
+        expect(t.rows).toHaveLength(2);
+        expect(t.rows[0].map((c) => c.kind)).toEqual(["text", "number", "number", "empty"]);
+        expect(t.rows[0][0]).toMatchObject({ value: "Warehouse" });
+        expect(t.rows[0][2]).toMatchObject({ value: 61.5 });
+        expect(t.rows[1][1]).toMatchObject({ kind: "text", value: "abc" });
+        expect(t.rows[1][3]).toMatchObject({ kind: "number", value: 400 });
+        // each cell's address: the block's top-left cell and the one below and right of it
+        const first = t.rows[0][0].kind === "text" ? t.rows[0][0].address! : "";
+        const last = t.rows[1][3].kind === "number" ? t.rows[1][3].address! : "";
+        const [sheet, a] = first.split("!");
+        expect(last.split("!")[0]).toBe(sheet);
+        const cell = (x: string) => /^([A-Z]+)(\d+)$/.exec(x.replace(/\$/g, ""))!;
+        const [, c0, r0] = cell(a);
+        const [, c1, r1] = cell(last.split("!")[1]);
+        expect(Number(r1) - Number(r0)).toBe(1);
+        expect(c1.charCodeAt(0) - c0.charCodeAt(0)).toBe(3);
+      }),
+    );
+
+    it(
+      "says a candidates table that is not four columns wide is not one",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        await h.putTable(CANDIDATES_NAME, [["Warehouse", 1450, 61.5]]);
+        const t = (await h.port.readInputs())[CANDIDATES_NAME];
+        expect(t).toMatchObject({ kind: "invalid" });
+        if (t?.kind === "invalid") expect(t.reason).toMatch(/3 columns wide; it must be 4 columns wide: name, demand flow, pressure at the supply, flow through a pump/);
       }),
     );
 

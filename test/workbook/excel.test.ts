@@ -7,7 +7,7 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { BUSY_REREAD_MS, mountPane } from "../../src/taskpane/pane";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
-import { INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
+import { CANDIDATES_NAME, INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
 import { CAUTION, ROLE_STYLES } from "../../src/workbook/look";
 import { spillCells } from "../../src/workbook/sheet";
@@ -50,6 +50,13 @@ function harness(fake = new FakeExcel(["Inputs"])): PortHarness {
     putError: async (name) => {
       const t = target(name);
       fake.setCell(t.sheet, t.address, { value: "#VALUE!", error: true, formula: "=HEADROOM.FLOWAT(-1,1,1,1)" });
+    },
+    putTable: async (name, rows) => {
+      // tables stand right of the one-cell names, from column D down
+      const top = [...fake.names.values()].filter((t) => /^D/.test(t.address)).length * 10;
+      const end = cellAddress({ row: top + rows.length - 1, col: 2 + rows[0].length });
+      fake.names.set(name, { sheetId: fake.sheetByName("Inputs")!.id, address: `D${top + 1}:${end}` });
+      rows.forEach((row, i) => row.forEach((v, j) => fake.setCell("Inputs", cellAddress({ row: top + i, col: 3 + j }), v === null ? null : { value: v })));
     },
     remove: async (name) => {
       fake.names.delete(name);
@@ -297,7 +304,7 @@ describe("Excel port: the estimate sheet", () => {
     const { sheetName, namesMoved } = await excelPort(fake).insertEstimateSheet("SI");
     expect(namesMoved).toEqual([]);
     const t = estimateTemplate(demoScenario("SI"));
-    expect(t.names.map((n) => n.name).sort()).toEqual([...INPUT_NAMES].sort());
+    expect(t.names.map((n) => n.name).sort()).toEqual([...INPUT_NAMES, CANDIDATES_NAME].sort());
     for (const n of t.names) expect(fake.nameTarget(n.name)).toEqual({ sheet: sheetName, address: n.address });
     expect(fake.sheetByName(sheetName)!.cells.get(t.names.find((n) => n.name === "Units")!.address)?.value).toBe("SI");
   });

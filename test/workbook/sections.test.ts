@@ -14,6 +14,7 @@ import { SAMPLES } from "../../samples/scenarios";
 import {
   type AreaDemandSection,
   breakdownSection,
+  candidatesSection,
   hazardSection,
   headsDemandSection,
   pipeRunSection,
@@ -55,12 +56,13 @@ const run = {
   velocityLimit: "B919",
 };
 const demand = { sprinklerFlow: "B911", hoseFlow: "B912", flow: "B913", pressure: "B914", pumpFlow: "B916" };
+const judged = { name: "B930", flow: "B931", pressure: "B932", pumpFlow: "B933", othersFlow: "B941:B944", othersPressure: "C941:C944" };
 
 const SHIFT = 100;
 
 /** A section's own addresses (rows first..first+rows−1, relative or absolute) moved down by `by` rows; others left alone. */
 function shifted(text: string, first: number, rows: number, by: number): string {
-  return text.replace(/(?<![A-Za-z$])(\$?[A-Z]{1,2}\$?)(\d+)\b/g, (m, col: string, r: string) => {
+  return text.replace(/(?<![A-Za-z0-9$#])(\$?[A-Z]{1,2}\$?)(\d+)\b/g, (m, col: string, r: string) => {
     const n = Number(r);
     return n >= first && n < first + rows ? `${col}${n + by}` : m;
   });
@@ -81,8 +83,9 @@ describe.each(["US", "SI"] as const)("the sections, %s", (u) => {
     ["storage criteria", (row) => storageCriteriaSection(storage, row)],
     ["sprinklers by number", (row) => headsDemandSection(storage, row, { units, hazard })],
     ["demand at the supply", (row) => supplyDemandSection(s, row, { area, hazard, run })],
-    ["verdict", (row) => verdictSection(s, row, { units, supply, hazard, demand })],
-    ["supply curve", (row) => supplyCurveSection(s, row, { units, supply: used, demand })],
+    ["design areas compared", (row) => candidatesSection(s, row, { units, supply, demand })],
+    ["verdict", (row) => verdictSection(s, row, { units, supply, hazard, demand: judged })],
+    ["supply curve", (row) => supplyCurveSection(s, row, { units, supply: used, demand, judged })],
   ];
 
   it.each(builders)("%s: its cells lie in the rows it reports, and move with its first row", (_, build) => {
