@@ -13,7 +13,6 @@ import { cellAddress, freeSheetName, parseRange, quoteSheet, splitSheet } from "
 import {
   CANDIDATES_NAME,
   INPUT_NAMES,
-  type InputName,
   type InsertResult,
   SHARE_REFUSAL_LIST,
   SHARE_STAMP_ROWS,
