@@ -53,6 +53,11 @@ export function requiredMarginArg(value: unknown, u: UnitSystem): number {
   return optionalQuantityArg(value, "required_margin", "pressure", u, 0, ZERO_ALLOWED);
 }
 
+/** demand_flow and demand_pressure, as VERDICT reads them (US units): the pane reads the candidates' rows through it. */
+export function demandPointArgs(demandFlow: unknown, demandPressure: unknown, u: UnitSystem): [number, number] {
+  return [quantityArg(demandFlow, "demand_flow", "flow", u), quantityArg(demandPressure, "demand_pressure", "pressure", u, ZERO_ALLOWED)];
+}
+
 /** demand_flow, demand_pressure and the flow test. */
 export function demandArgs(
   demandFlow: unknown,
@@ -62,8 +67,7 @@ export function demandArgs(
   testFlow: unknown,
   u: UnitSystem,
 ): [number, number, FlowTest] {
-  const q = quantityArg(demandFlow, "demand_flow", "flow", u);
-  const p = quantityArg(demandPressure, "demand_pressure", "pressure", u, ZERO_ALLOWED);
+  const [q, p] = demandPointArgs(demandFlow, demandPressure, u);
   return [q, p, flowTestArgs(staticP, residual, testFlow, u)];
 }
 

@@ -19,11 +19,21 @@ import {
 } from "../engine/pump";
 import { CURVE_DEMAND_FLOW_FACTOR, type CurvePoint, SUPPLY_CURVE_FLOW_FACTOR, sampleFlows } from "../engine/curve";
 import { DEFAULT_VELOCITY_LIMIT } from "../engine/run";
-import { type FlowTest, exhaustionFlow, supplyAt } from "../engine/supply";
+import { type FlowTest, exhaustionFlow, supplyAt, supplyBefore } from "../engine/supply";
 import { type Quantity, type UnitSystem, fromUS, toUS, unitName } from "../engine/units";
 import { type QuantityRule, SIGNED, ZERO_ALLOWED, quantityArg, toNumber, unitsArg } from "../functions/args";
-import { decisionArgs, pumpRatingArgs } from "../functions/common";
-import { INPUT_NAMES, type InputName, REQUIRED_NAMES, type Reading, type Readings, SUMMARY_NAMES } from "../workbook/port";
+import { decisionArgs, demandPointArgs, pumpRatingArgs } from "../functions/common";
+import {
+  CANDIDATES_NAME,
+  INPUT_NAMES,
+  type InputName,
+  REQUIRED_NAMES,
+  type Reading,
+  type Readings,
+  SUMMARY_NAMES,
+  type TableReading,
+  type WorkbookName,
+} from "../workbook/port";
 
 /** What each name should hold, for messages: a description and its quantity ("text" for a label). */
 export const NAME_MEANINGS: Record<Exclude<InputName, "Units">, { what: string; quantity: Quantity | "text" }> = {
@@ -74,8 +84,26 @@ export const BREAKDOWN_PARTS = [
 export const BREAKDOWN_TOLERANCE = { ratio: 0.005, psi: 0.05 } as const;
 
 export interface Problem {
-  name: InputName;
+  name: WorkbookName;
   message: string;
+}
+
+/** A candidate design area as the pane judges it, US units: a row of the table of candidates. */
+export interface Candidate {
+  /** its name on the sheet ("Row 3" where the row has none) */
+  name: string;
+  /** gpm, sprinklers + hose */
+  flow: number;
+  /** psi at the supply */
+  pressure: number;
+  /** gpm through a pump: the row's own, else its demand flow */
+  pumpFlow: number;
+  /** psi: the supply at its flow (0 where the supply runs dry first) less its pressure */
+  margin: number;
+  /** true for the one with the least margin (the first on a tie) */
+  controls: boolean;
+  /** the cell of its flow, for messages */
+  address?: string;
 }
 
 export type { PumpRating };
@@ -159,7 +187,17 @@ export interface Estimate {
   caveat: string | null;
   /** what to do next, for a marginal, caveated or unservable verdict */
   nextSteps: string[];
-  /** where the demand pressure goes, or null where the workbook does not name all five parts */
+  /**
+   * the design areas compared (the rows of the table of candidates, blank rows left out), the controlling one marked;
+   * empty where the workbook has no such table. The verdict, the pump and the suction check are the controlling one's.
+   */
+  candidates: Candidate[];
+  /**
+   * true where the demand judged is the sheet's own (Demand_Flow, Demand_Pressure): its breakdown and hose allowance
+   * belong to it. False where another candidate controls.
+   */
+  judgesOwn: boolean;
+  /** where the demand pressure goes, or null where the workbook does not name all five parts or another area controls */
   breakdown: Breakdown | null;
   /** the parts the workbook does not name (empty where there is a breakdown) */
   breakdownMissing: InputName[];
@@ -201,7 +239,7 @@ export type PaneModel =
   | { kind: "ready"; estimate: Estimate }
   | { kind: "problems"; problems: Problem[] }
   /** some inputs are still being calculated (#BUSY!) */
-  | { kind: "busy"; names: InputName[] };
+  | { kind: "busy"; names: WorkbookName[] };
 
 /** The named cell each argument of the shared checks reads, for attributing a problem to its cell. */
 const ARGUMENT_NAMES: Record<string, Exclude<InputName, "Units">> = {
@@ -280,10 +318,10 @@ function readUnits(r: Reading): { units: UnitSystem; assumed: boolean } | string
  * Excel is still working on them.
  */
 export function buildModel(readings: Readings): PaneModel {
-  const busy = (Object.keys(readings) as InputName[]).filter((n) => {
-    const r = readings[n];
-    return r.kind === "error" && r.code === "#BUSY!";
-  });
+  const table = readings[CANDIDATES_NAME];
+  const busyCell = (r: Reading) => r.kind === "error" && r.code === "#BUSY!";
+  const busy: WorkbookName[] = INPUT_NAMES.filter((n) => busyCell(readings[n]));
+  if (table?.kind === "table" && table.rows.some((row) => row.some(busyCell))) busy.push(CANDIDATES_NAME);
   if (busy.length > 0) return { kind: "busy", names: busy };
 
   const problems: Problem[] = [];
@@ -383,14 +421,20 @@ export function buildModel(readings: Readings): PaneModel {
     decision && breakdownMissing.length === 0
       ? readBreakdown(decision.demandPressure, typeof segment === "string" ? segment : null)
       : null;
+  const compared = decision ? readCandidates(table, decision.test, units, problems) : [];
   if (problems.length > 0 || !decision) return { kind: "problems", problems };
 
-  const { demandFlow, demandPressure, test, requiredMargin } = decision;
+  const { test, requiredMargin } = decision;
+  // the demand judged: the controlling candidate's where the workbook has a table of them, else the sheet's own
+  const controlling = compared.find((c) => c.controls);
+  const demandFlow = controlling ? controlling.flow : decision.demandFlow;
+  const demandPressure = controlling ? controlling.pressure : decision.demandPressure;
+  const judgesOwn = !controlling || (same(controlling.flow, decision.demandFlow) && same(controlling.pressure, decision.demandPressure));
   const assessment = assess(demandFlow, demandPressure, test, requiredMargin); // every input checked above
   const verdict = verdictSentence(assessment, units);
   const marginPercent = assessment.margin !== null && demandPressure > 0 ? (assessment.margin / demandPressure) * 100 : null;
 
-  const pumpFlow = pumpFlowRead ?? demandFlow;
+  const pumpFlow = controlling ? controlling.pumpFlow : (pumpFlowRead ?? demandFlow);
   const suctionMinimum = suctionMinimumRead ?? MIN_SUCTION_PRESSURE_PSI;
 
   let boost: number | null = null;
@@ -422,7 +466,7 @@ export function buildModel(readings: Readings): PaneModel {
       test,
       demandFlow,
       demandPressure,
-      hoseFlow: hoseFlow ?? null,
+      hoseFlow: judgesOwn ? (hoseFlow ?? null) : null,
       requiredMargin,
       requiredMarginGiven: given.has("Required_Margin"),
       pump,
@@ -434,15 +478,17 @@ export function buildModel(readings: Readings): PaneModel {
       pumpSize,
       pumpSizeNote,
       pumpFlow,
-      pumpFlowGiven: given.has("Pump_Flow"),
+      pumpFlowGiven: controlling ? true : given.has("Pump_Flow"),
       suctionMinimum,
       suctionMinimumGiven: given.has("Suction_Minimum"),
       suction,
       chosen,
       state,
       caveat,
-      nextSteps: nextSteps(state, caveat !== null, suction, chosen, upsizeStep(state, assessment.margin, requiredMargin, boost, breakdown?.worst ?? null, units)),
-      breakdown: breakdown ?? null,
+      nextSteps: nextSteps(state, caveat !== null, suction, chosen, upsizeStep(state, assessment.margin, requiredMargin, boost, judgesOwn ? (breakdown?.worst ?? null) : null, units)),
+      candidates: compared,
+      judgesOwn,
+      breakdown: judgesOwn ? (breakdown ?? null) : null,
       breakdownMissing,
     },
   };
@@ -500,6 +546,73 @@ export function buildModel(readings: Readings): PaneModel {
     }
     return { parts, worst: { segment: label, loss, velocity, overLimit: velocity > limit, limit, limitGiven } };
   }
+}
+
+/** Two numbers read from the same cell through different routes (a name and the table's formula): equal to rounding. */
+function same(a: number, b: number): boolean {
+  return Math.abs(a - b) <= 1e-9 * Math.max(1, Math.abs(a), Math.abs(b));
+}
+
+/**
+ * The table of candidate design areas read as the estimate sheet reads it: blank rows left out; each row's flow and
+ * pressure through VERDICT's own checks (the sheet checks its rows with VERDICT), its flow through a pump a flow not
+ * above its demand flow (blank: its demand flow); its margin the supply at its flow (0 where the supply runs dry
+ * first) less its pressure. The least margin controls, the first on a tie, as the sheet's MATCH(MIN(…)) picks.
+ *
+ * The sheet takes each row's supply on the weakest flow test at that row's flow; the pane has the test that governs at
+ * the controlling flow (Supply_*). Both pick the same row: the controlling row's margin on the weakest test is its
+ * margin on the governing test, and no other row's margin on that test is below its margin on the weakest.
+ */
+function readCandidates(table: TableReading | undefined, test: FlowTest, units: UnitSystem, problems: Problem[]): Candidate[] {
+  if (!table || table.kind === "missing") return [];
+  if (table.kind === "invalid") {
+    problems.push({ name: CANDIDATES_NAME, message: `${CANDIDATES_NAME}: ${table.reason}. Point the name at the table of candidates (Formulas > Name Manager).` });
+    return [];
+  }
+  const out: Candidate[] = [];
+  table.rows.forEach((row, i) => {
+    if (row.every(isBlank)) return;
+    const [nameCell, flowCell, pressureCell, pumpCell] = row;
+    const label = readLabel(nameCell);
+    const name = typeof label === "string" ? label : `Row ${i + 1}`;
+    const at = (r: Reading) => where(r);
+    const say = (r: Reading, what: string) => problems.push({ name: CANDIDATES_NAME, message: `${CANDIDATES_NAME}, ${name}${at(r)}: ${what}` });
+    const shown = row.find((r) => r.kind === "error" || r.kind === "invalid");
+    if (shown) {
+      say(shown, shown.kind === "error" ? `shows ${shown.code}${shown.message ? ` ${shown.message}` : ""}: fix the cells it is calculated from.` : "cannot be read.");
+      return;
+    }
+    const cellValue = (r: Reading) => (r.kind === "number" || r.kind === "text" ? r.value : null);
+    let flow: number, pressure: number;
+    try {
+      [flow, pressure] = demandPointArgs(cellValue(flowCell), cellValue(pressureCell), units);
+    } catch (e) {
+      if (!(e instanceof HeadroomError)) throw e;
+      say(e.argument === "demand_pressure" ? pressureCell : flowCell, `${e.messageIn(units)}`);
+      return;
+    }
+    let pumpFlow = flow;
+    if (!isBlank(pumpCell)) {
+      try {
+        pumpFlow = quantityArg(cellValue(pumpCell), "flow through a pump", "flow", units);
+      } catch (e) {
+        if (!(e instanceof HeadroomError)) throw e;
+        say(pumpCell, e.messageIn(units));
+        return;
+      }
+      if (pumpFlow > flow * (1 + 1e-12)) {
+        say(pumpCell, `its flow through a pump cannot exceed its demand flow (${formatFlow(flow, units)}).`);
+        return;
+      }
+    }
+    const margin = (supplyBefore(flow, test) ?? 0) - pressure;
+    out.push({ name, flow, pressure, pumpFlow, margin, controls: false, ...("address" in flowCell && flowCell.address ? { address: flowCell.address } : {}) });
+  });
+  if (out.length > 0) {
+    const least = out.reduce((best, c) => (c.margin < best.margin ? c : best), out[0]);
+    least.controls = true;
+  }
+  return out;
 }
 
 /**
@@ -615,6 +728,14 @@ export interface DemandPoint {
   p: number;
 }
 
+/** A candidate design area on the picture, sheet units. */
+export interface CandidatePoint {
+  name: string;
+  q: number;
+  p: number;
+  controls: boolean;
+}
+
 export interface PlotData {
   units: UnitSystem;
   flowUnit: string;
@@ -632,6 +753,11 @@ export interface PlotData {
   band: Pt[] | null;
   requiredMargin: number;
   demand: DemandPoint[];
+  /**
+   * every design area compared, the controlling one marked, where there are two or more (empty for one demand); the
+   * controlling one is also the "total" demand point, named for it
+   */
+  candidates: CandidatePoint[];
   /** supply pressure at the total demand flow, or null where the supply is exhausted there */
   supplyAtDemand: number | null;
   /** the supply with the pump's net pressure added, or null without a pump */
@@ -658,7 +784,9 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
   const shown = e.pump ?? e.pumpSize;
   const beside = e.demandFlow - e.pumpFlow;
   const pumpReach = shown ? beside + OVERLOAD_FLOW_RATIO * shown.ratedFlow : 0;
-  const qMaxUS = Math.max(PLOT_TEST_FLOW_FACTOR * e.test.testFlow, PLOT_DEMAND_FLOW_FACTOR * e.demandFlow, shown ? Math.min(pumpReach, qe) : 0);
+  const compared = e.candidates.length >= 2 ? e.candidates : [];
+  const largestFlow = Math.max(e.demandFlow, ...compared.map((c) => c.flow));
+  const qMaxUS = Math.max(PLOT_TEST_FLOW_FACTOR * e.test.testFlow, PLOT_DEMAND_FLOW_FACTOR * largestFlow, shown ? Math.min(pumpReach, qe) : 0);
   const qMax = niceMax(f(qMaxUS));
   const qEndUS = Math.min(qe, toUS("flow", qMax, u));
 
@@ -684,14 +812,17 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
   }
 
   const demand: DemandPoint[] = [];
-  if (e.hoseFlow !== null && e.hoseFlow > 0) {
+  const controlling = compared.find((c) => c.controls);
+  if (controlling) {
+    demand.push({ id: "total", label: controlling.name, q: f(e.demandFlow), p: p(e.demandPressure) });
+  } else if (e.hoseFlow !== null && e.hoseFlow > 0) {
     demand.push({ id: "sprinklers", label: "Sprinklers", q: f(e.demandFlow - e.hoseFlow), p: p(e.demandPressure) });
     demand.push({ id: "total", label: "+ hose", q: f(e.demandFlow), p: p(e.demandPressure) });
   } else {
     demand.push({ id: "total", label: "Demand", q: f(e.demandFlow), p: p(e.demandPressure) });
   }
 
-  const highest = Math.max(e.test.static, e.demandPressure, ...(pump ?? []).map((pt) => toUS("pressure", pt[1], u)));
+  const highest = Math.max(e.test.static, e.demandPressure, ...compared.map((c) => c.pressure), ...(pump ?? []).map((pt) => toUS("pressure", pt[1], u)));
   const pMax = niceMax(p(highest * PLOT_PRESSURE_FACTOR));
 
   return {
@@ -707,6 +838,7 @@ export function plotData(e: Estimate, niceMax: (v: number) => number = (v) => v)
     band,
     requiredMargin: p(e.requiredMargin),
     demand,
+    candidates: compared.map((c) => ({ name: c.name, q: f(c.flow), p: p(c.pressure), controls: c.controls })),
     supplyAtDemand: e.assessment.supplyPressure === null ? null : p(e.assessment.supplyPressure),
     pump,
     pumpLabel,

@@ -6,7 +6,8 @@
  * Stable hooks: data-role="state" (the state in words), "verdict" (its box carries data-state: pass, marginal, fail,
  * cannot-serve), "margin",
  * "caveat", "pump", "suction", "breakdown" (where the pressure goes; its rows "breakdown-row" carry data-id, the
- * part), "worst", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
+ * part), "worst", "controlling" and "candidates" (the design areas compared; rows "candidate-row" with data-name and
+ * data-controls), "breakdown-elsewhere", "next-steps", "problems", "caution", "plot" (the svg), "supply-curve", "demand-point",
  * "axis-linear", "axis-pow", "new-sheet", "share-copy", "units", "refresh", "status"; "print-summary" where the host
  * shows the one-page summary (PaneOptions.onPrintSummary).
  */
@@ -76,13 +77,17 @@ function h<K extends keyof HTMLElementTagNameMap>(
   return e;
 }
 
-export type LegendKind = "supply" | "band" | "sprinklers" | "total" | "pump";
+export type LegendKind = "supply" | "band" | "sprinklers" | "total" | "pump" | "candidate";
 
 /** The legend under the plot: each item's icon and its words (the pane's and the summary's). */
 export function legendItems(e: Estimate, data: PlotData): Array<[LegendKind, string]> {
   const items: Array<[LegendKind, string]> = [["supply", "Water supply (flow test)"]];
   if (data.band) items.push(["band", `Required margin ${formatPressure(e.requiredMargin, e.units)}`]);
-  for (const d of data.demand) items.push([d.id, d.id === "sprinklers" ? "Sprinklers alone" : data.demand.length > 1 ? "Sprinklers + hose" : "Demand"]);
+  if (data.candidates.length > 0) {
+    items.push(["total", "Controlling design area, sprinklers + hose"], ["candidate", "Other design areas compared"]);
+  } else {
+    for (const d of data.demand) items.push([d.id, d.id === "sprinklers" ? "Sprinklers alone" : data.demand.length > 1 ? "Sprinklers + hose" : "Demand"]);
+  }
   if (data.pumpLabel) items.push(["pump", data.pumpLabel]);
   return items;
 }
@@ -103,7 +108,32 @@ export function legendIcon(doc: Document, kind: LegendKind): SVGSVGElement {
   if (kind === "pump") add("line", { x1: 1, x2: 21, y1: 6, y2: 6, stroke: PALETTE.pump, "stroke-width": 2.25, "stroke-dasharray": "7 3 2 3" });
   if (kind === "sprinklers") add("rect", { x: 7, y: 2, width: 8, height: 8, fill: "#FFFFFF", stroke: PALETTE.sprinklers, "stroke-width": 2 });
   if (kind === "total") add("path", { d: "M11,0L17,6L11,12L5,6Z", fill: PALETTE.demand });
+  if (kind === "candidate") add("circle", { cx: 11, cy: 6, r: 3.5, fill: "#FFFFFF", stroke: PALETTE.candidate, "stroke-width": 1.5 });
   return svg;
+}
+
+/** Where several design areas are compared: which one the verdict is for, and why. */
+export function controllingLine(e: Estimate): string | null {
+  if (e.candidates.length < 2) return null;
+  const c = e.candidates.find((x) => x.controls)!;
+  return `For ${c.name}: the least margin of the ${e.candidates.length} design areas compared.`;
+}
+
+/** Each design area compared, in the table's order: its demand and its margin on the plotted supply. */
+export function candidateLines(e: Estimate): Array<{ name: string; controls: boolean; text: string }> {
+  if (e.candidates.length < 2) return [];
+  const u = e.units;
+  return e.candidates.map((c) => ({
+    name: c.name,
+    controls: c.controls,
+    text: `${c.name}: ${formatFlow(c.flow, u)} at ${formatPressure(c.pressure, u)}, margin ${signed(c.margin, u)}${c.controls ? " (controls)" : ""}`,
+  }));
+}
+
+/** Where another design area controls: the breakdown on the sheet is of the sheet's own, and the pane says so. */
+export function breakdownElsewhereLine(e: Estimate): string | null {
+  if (e.judgesOwn || e.candidates.length < 2) return null;
+  return `Where the pressure goes is worked out on the sheet for ${e.candidates[0].name} only, which does not control.`;
 }
 
 function signed(psi: number, units: UnitSystem): string {
@@ -246,9 +276,22 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     worst,
   );
   breakdown.hidden = true;
+  const compared = h(doc, "ul", { class: "hr-candidates" });
+  const elsewhere = h(doc, "p", { class: "hr-worst", "data-role": "breakdown-elsewhere" });
+  const candidatesBox = h(
+    doc,
+    "section",
+    { class: "hr-breakdown", "data-role": "candidates", "aria-label": "Design areas compared" },
+    h(doc, "p", { class: "hr-breakdown-title" }, "Design areas compared"),
+    compared,
+    elsewhere,
+  );
+  candidatesBox.hidden = true;
+  const controlling = h(doc, "p", { class: "hr-margin", "data-role": "controlling" });
+  controlling.hidden = true;
   const steps = h(doc, "ul", { class: "hr-steps", "data-role": "next-steps", "aria-label": "What to do next" });
   const problems = h(doc, "ul", { class: "hr-problems", "data-role": "problems" });
-  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, verdict, margin, caveat, pump, suction, steps, problems);
+  const box = h(doc, "section", { class: "hr-verdict-box", "data-state": "waiting" }, stateTag, controlling, verdict, margin, caveat, pump, suction, steps, problems);
   const caution = h(doc, "p", { class: "hr-caution", "data-role": "caution" }, CAUTION);
   const calcNote = h(doc, "p", { class: "hr-calc-note", "data-role": "calc-note" });
   calcNote.hidden = true;
@@ -274,7 +317,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   const actions = h(doc, "section", { class: "hr-actions" }, unitsSelect, newSheet, shareCopy, refreshButton, ...(summaryButton ? [summaryButton] : []), status);
   const head = h(doc, "header", { class: "hr-head" }, h(doc, "span", { class: "hr-brand" }, "Headroom"), h(doc, "span", { class: "hr-sub" }, "water supply against sprinkler demand"));
   // the caution straight beneath the verdict, the breakdown after it: the caution stays in view with the verdict
-  const pane = h(doc, "div", { class: "hr-pane" }, style, head, box, caution, calcNote, breakdown, plotBox, readingsBox, actions);
+  const pane = h(doc, "div", { class: "hr-pane" }, style, head, box, caution, calcNote, breakdown, candidatesBox, plotBox, readingsBox, actions);
   root.replaceChildren(pane);
 
   const width = () => {
@@ -290,6 +333,8 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   }
   function clearLines(): void {
     show(stateTag, null);
+    show(controlling, null);
+    drawCandidates(null);
     margin.textContent = "";
     for (const p of [caveat, pump, suction]) show(p, null);
     drawBreakdown(null);
@@ -331,6 +376,15 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     breakdown.hidden = false;
   }
 
+  function drawCandidates(e: Estimate | null): void {
+    const lines = e ? candidateLines(e) : [];
+    compared.replaceChildren(
+      ...lines.map((l) => h(doc, "li", { "data-role": "candidate-row", "data-name": l.name, "data-controls": String(l.controls) }, l.text)),
+    );
+    show(elsewhere, e ? breakdownElsewhereLine(e) : null);
+    candidatesBox.hidden = lines.length === 0;
+  }
+
   function drawReadings(e: Estimate): void {
     const u = e.units;
     const rows: Array<[string, string]> = [
@@ -338,6 +392,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       ["Static pressure", formatPressure(e.test.static, u)],
       ["Residual pressure", formatPressure(e.test.residual, u)],
       ["Test flow", formatFlow(e.test.testFlow, u)],
+      ...(e.candidates.length >= 2 ? [["Design area judged", e.candidates.find((c) => c.controls)!.name] as [string, string]] : []),
       ["Demand flow", formatFlow(e.demandFlow, u)],
       ["of which hose", e.hoseFlow === null ? "not given" : formatFlow(e.hoseFlow, u)],
       ["Demand pressure", formatPressure(e.demandPressure, u)],
@@ -347,7 +402,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       ["Pump chosen", e.pump ? `${formatFlow(e.pump.ratedFlow, u)} at ${formatPressure(e.pump.ratedPressure, u)}` : "none"],
     ];
     if (u === "SI") rows.push(["Hazard classes", "NFPA 13's, with values converted to SI"]);
-    if (e.assessment.supplyPressure !== null) rows.splice(7, 0, ["Supply at demand flow", formatPressure(e.assessment.supplyPressure, u)]);
+    if (e.assessment.supplyPressure !== null) rows.splice(rows.findIndex(([k]) => k === "Flow through a pump"), 0, ["Supply at demand flow", formatPressure(e.assessment.supplyPressure, u)]);
     const b = e.breakdown;
     if (b) {
       for (const p of b.parts) rows.push([p.label, signed(p.pressure, u)]);
@@ -390,6 +445,8 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     lastReady = e;
     box.dataset.state = BOX_STATE[e.state];
     show(stateTag, STATE_WORDS[e.state]);
+    show(controlling, controllingLine(e));
+    drawCandidates(e);
     // VERDICT's sentence; its flow-test caveat stands on its own line below
     verdict.textContent = e.headline;
     margin.textContent = marginLine(e);

@@ -7,7 +7,9 @@
  * thinned where the power axis crowds them near 0.
  *
  * Stable hooks for tests: the svg has data-role="plot", the supply curve data-role="supply-curve", each demand point
- * data-role="demand-point" (data-id "sprinklers" or "total") placed by transform="translate(x,y)".
+ * data-role="demand-point" (data-id "sprinklers" or "total") placed by transform="translate(x,y)". Where several design
+ * areas are compared, each is a data-role="candidate-point" instead (data-name, data-controls "true" on the one that
+ * controls), placed the same way.
  */
 import { scaleLinear, scalePow, type ScaleLinear, type ScalePower } from "d3-scale";
 import { HW_FLOW_EXPONENT } from "../engine/friction";
@@ -165,6 +167,11 @@ function text(doc: Document, s: string, attrs: Record<string, string | number>, 
   return t;
 }
 
+/** A design area's label on the plot: its name, and "controls" on the one that does. */
+function candidateLabel(c: PlotData["candidates"][number]): string {
+  return c.controls ? `${c.name} (controls)` : c.name;
+}
+
 /** Draw the picture. `width` is the pane's width in px. */
 export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth: number): SVGSVGElement {
   const { width, height } = plotSize(paneWidth);
@@ -269,9 +276,19 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
   const area: Box = { x0: PAD.left + 2, y0: PAD.top, x1: width - PAD.right, y1: height - PAD.bottom - 2 };
   // a marker and a clearance around it (the diamond reaches 6.5 px and its stroke 0.75 px more)
   const markerBox = (q: number, p: number): Box => ({ x0: X(q) - 8, y0: Y(p) - 8, x1: X(q) + 8, y1: Y(p) + 8 });
-  const taken: Box[] = [...d.demand.map((pt) => markerBox(pt.q, pt.p)), markerBox(...d.testPoint), markerBox(...d.staticPoint)];
-  const ordered = [...d.demand].sort((a, b) => (a.id === "total" ? -1 : b.id === "total" ? 1 : 0));
+  const several = d.candidates.length > 0;
+  const points = several ? d.candidates.map((c) => markerBox(c.q, c.p)) : d.demand.map((pt) => markerBox(pt.q, pt.p));
+  const taken: Box[] = [...points, markerBox(...d.testPoint), markerBox(...d.staticPoint)];
+  const ordered = several ? [] : [...d.demand].sort((a, b) => (a.id === "total" ? -1 : b.id === "total" ? 1 : 0));
   const offsets = new Map<string, Offset>();
+  // the controlling area's name first, then the others', each where it fits
+  const candidateOffsets = new Map<number, Offset & { clear: boolean }>();
+  const byControl = d.candidates.map((c, i) => [c, i] as const).sort(([a], [b]) => Number(b.controls) - Number(a.controls));
+  for (const [c, i] of byControl) {
+    const above = d.supplyAtDemand !== null && c.controls && c.p > d.supplyAtDemand;
+    const prefer: Spot[] = above ? ["ar", "ac", "al", "br", "bc", "bl"] : ["br", "bc", "bl", "ar", "ac", "al"];
+    candidateOffsets.set(i, place(X(c.q), Y(c.p), candidateLabel(c), prefer, area, taken));
+  }
   for (const pt of ordered) {
     const above = d.supplyAtDemand !== null && pt.p > d.supplyAtDemand;
     const prefer: Spot[] =
@@ -284,7 +301,31 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
   const tpo = place(X(tp[0]), Y(tp[1]), "flow test", ["ar", "ac", "al", "br", "bl", "bc"], area, taken);
   // a name for the test point where there is room for it (the legend names it too)
   if (tpo.clear) text(doc, "flow test", { x: r2(X(tp[0]) + tpo.dx), y: r2(Y(tp[1]) + tpo.dy), "text-anchor": tpo.anchor, "font-size": 10.5, fill: PALETTE.supply, ...HALO }, svg);
-  for (const pt of d.demand) {
+  d.candidates.forEach((c, i) => {
+    const g = el(doc, "g", {
+      "data-role": "candidate-point",
+      "data-name": c.name,
+      "data-controls": String(c.controls),
+      "data-flow": c.q,
+      "data-pressure": c.p,
+      transform: `translate(${r2(X(c.q))},${r2(Y(c.p))})`,
+    }, svg);
+    if (c.controls) marker(doc, "diamond", PALETTE.demand, "#FFFFFF", g);
+    else marker(doc, "circle", "#FFFFFF", PALETTE.candidate, g);
+    const o = candidateOffsets.get(i)!;
+    // every name is in the list under the plot; on the plot, the controlling one always, the others where they fit
+    if (!c.controls && !o.clear) return;
+    text(doc, candidateLabel(c), {
+      x: o.dx,
+      y: o.dy,
+      "text-anchor": o.anchor,
+      "font-size": c.controls ? 11 : 10.5,
+      "font-weight": c.controls ? 600 : 400,
+      fill: c.controls ? PALETTE.demand : "#7A3E63",
+      ...HALO,
+    }, g);
+  });
+  for (const pt of several ? [] : d.demand) {
     const px = r2(X(pt.q));
     const py = r2(Y(pt.p));
     const g = el(doc, "g", { "data-role": "demand-point", "data-id": pt.id, "data-flow": pt.q, "data-pressure": pt.p, transform: `translate(${px},${py})` }, svg);

@@ -2,7 +2,17 @@
  * A Workbook port over a plain map of readings, for the pane's tests: `set` changes a reading and notifies the
  * subscribers as a workbook change would.
  */
-import { INPUT_NAMES, type InputName, type InsertResult, type Reading, type Readings, type ShareCopyResult, type WorkbookPort } from "../../src/workbook/port";
+import {
+  CANDIDATES_NAME,
+  INPUT_NAMES,
+  type InputName,
+  type InsertResult,
+  type Reading,
+  type Readings,
+  type ShareCopyResult,
+  type TableReading,
+  type WorkbookPort,
+} from "../../src/workbook/port";
 import type { UnitSystem } from "../../src/engine/units";
 
 export type Values = Partial<Record<InputName, number | string | Reading | null>>;
@@ -32,6 +42,15 @@ export class FakePort implements WorkbookPort {
     for (const n of INPUT_NAMES) this.readings[n] = toReading(n, values[n]);
   }
 
+  /**
+   * Give the workbook a table of candidates at Estimate!A60 (one row each: name, demand flow, pressure at the supply,
+   * flow through a pump; null an empty cell; a Reading as it is), or take it away (null), and notify.
+   */
+  setTable(rows: Array<Array<number | string | null | Reading>> | null): void {
+    this.readings[CANDIDATES_NAME] = rows === null ? { kind: "missing" } : candidatesTable(rows);
+    for (const l of this.listeners) l();
+  }
+
   /** Change readings and notify, as a recalculation would. */
   set(values: Values): void {
     for (const [n, v] of Object.entries(values)) this.readings[n as InputName] = toReading(n as InputName, v);
@@ -59,6 +78,23 @@ export class FakePort implements WorkbookPort {
   async makeShareCopy(): Promise<ShareCopyResult> {
     return this.shareResult;
   }
+}
+
+/** A table of candidates at Estimate!A60:D(59 + rows), as a host reads it. */
+export function candidatesTable(rows: Array<Array<number | string | null | Reading>>): TableReading {
+  return {
+    kind: "table",
+    address: `Estimate!A60:D${59 + rows.length}`,
+    rows: rows.map((row, i) =>
+      row.map((v, j): Reading => {
+        const address = `Estimate!${"ABCD"[j]}${60 + i}`;
+        if (v === null) return { kind: "empty", address };
+        if (typeof v === "number") return { kind: "number", value: v, address };
+        if (typeof v === "string") return { kind: "text", value: v, address };
+        return v;
+      }),
+    ),
+  };
 }
 
 /**

@@ -416,3 +416,46 @@ describe("the one-page summary button", () => {
     expect($<HTMLButtonElement>("print-summary")!.disabled).toBe(false);
   });
 });
+
+describe("several design areas", () => {
+  it("says which one the verdict is for, lists them all, plots each and marks the one that controls", async () => {
+    const { port, pane, $, $$ } = await mount(SHORT_105);
+    // the sheet's own area needs 105 psi at 562 gpm (SHORT_105); an invented office needs 30 psi at 300 gpm
+    port.setTable([["Print hall", 562, 105, null], ["Office", 300, 30, null], [null, null, null, null]]);
+    await pane.idle();
+    expect($("controlling")!.textContent).toBe("For Print hall: the least margin of the 2 design areas compared.");
+    expect($$("candidate-row").map((r) => [r.getAttribute("data-name"), r.getAttribute("data-controls")])).toEqual([
+      ["Print hall", "true"],
+      ["Office", "false"],
+    ]);
+    expect($$("candidate-point").map((p) => [p.getAttribute("data-name"), p.getAttribute("data-controls")])).toEqual([
+      ["Print hall", "true"],
+      ["Office", "false"],
+    ]);
+    expect($$("demand-point")).toHaveLength(0);
+    // the sheet's own area controls: its breakdown stays
+    expect($("breakdown")!.hidden).toBe(false);
+    expect($("breakdown-elsewhere")!.hidden).toBe(true);
+    expect($("verdict")!.textContent).toBe(verdictCell(562, 105, 72, 58, 1100, "", "US"));
+  });
+
+  it("judges another area where it has less margin, and says the breakdown is the sheet's own area's", async () => {
+    const { port, pane, $ } = await mount(SHORT_105);
+    port.setTable([["Print hall", 562, 105, null], ["Paper store", 1000, 120, null]]);
+    await pane.idle();
+    expect($("controlling")!.textContent).toBe("For Paper store: the least margin of the 2 design areas compared.");
+    expect($("verdict")!.textContent).toBe(verdictCell(1000, 120, 72, 58, 1100, "", "US"));
+    expect($("breakdown")!.hidden).toBe(true);
+    expect($("breakdown-elsewhere")!.textContent).toBe("Where the pressure goes is worked out on the sheet for Print hall only, which does not control.");
+  });
+
+  it("shows nothing of a comparison for one demand", async () => {
+    const { port, pane, $, $$ } = await mount(SHORT_105);
+    port.setTable([["Print hall", 562, 105, null]]);
+    await pane.idle();
+    expect($("controlling")!.hidden).toBe(true);
+    expect($("candidates")!.hidden).toBe(true);
+    expect($$("candidate-point")).toHaveLength(0);
+    expect($$("demand-point")).toHaveLength(1);
+  });
+});

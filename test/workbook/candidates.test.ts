@@ -6,6 +6,7 @@
 import { beforeAll, describe, expect, it } from "vitest";
 import * as functions from "../../src/functions/functions";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
+import { buildModel } from "../../src/taskpane/model";
 import { CANDIDATES_NAME } from "../../src/workbook/port";
 import type { Scenario } from "../../src/workbook/scenario";
 import { generatedMetadata } from "../preview/metadataFixture";
@@ -141,5 +142,20 @@ describe("a wrong row is an error that reaches the verdict", () => {
     expect(blank.cell(2, "F")).toBe("");
     const named = await withCandidates([{ name: "Dock", flow: null as unknown as number, pressure: null as unknown as number, pumpFlow: null }]);
     expect(named.at("Verdict")).toMatchObject({ error: "#VALUE!" });
+  });
+});
+
+describe("the pane reads the table and says what the sheet says", () => {
+  it.each([
+    ["the sheet's own area controls", [{ name: "Office floor", flow: 400, pressure: 40, pumpFlow: null }]],
+    ["a typed area controls", [{ name: "Paper store", flow: 900, pressure: 60, pumpFlow: 700 }, { name: "Office floor", flow: 400, pressure: 40, pumpFlow: null }]],
+  ] as const)("%s: the same controlling area, verdict and suggested pump", async (_, rows) => {
+    const { at, readings } = await withCandidates(rows.map((r) => ({ ...r })));
+    const m = buildModel(readings);
+    expect(m.kind).toBe("ready");
+    if (m.kind !== "ready") return;
+    expect(m.estimate.candidates.find((c) => c.controls)?.name).toBe(at("Controlling design area"));
+    expect(m.estimate.verdict).toBe(at("Verdict"));
+    expect(m.estimate.pumpSize?.ratedFlow).toBe(at("Suggested pump, smallest standard rating"));
   });
 });
