@@ -255,6 +255,12 @@ const storage: Scenario = {
   pump: null,
   suctionMinimum: 20,
   duration: null,
+  areaName: "Rack storage hall",
+  // the building's other areas, as their own (invented) estimates give them: demand at the supply with hose
+  candidates: [
+    { name: "Office block, light hazard", flow: 400, pressure: 58, pumpFlow: null },
+    { name: "Dock canopy, dry pipe", flow: 900, pressure: 84, pumpFlow: 750 },
+  ],
 };
 
 /** In the order the preview offers them; the first opens by default. */
@@ -284,7 +290,7 @@ export const SAMPLES: SampleSpec[] = [
     file: "harrow-row-rack-storage-by-sprinklers.xlsx",
     title: "Rack storage, 12 early-suppression sprinklers (US)",
     story:
-      "A distribution centre with rack storage, designed by number of sprinklers (HEADSDEMAND: 12 sprinklers, four on each of three lines) with the storage chapter's hose allowance and duration typed in.",
+      "A distribution centre with rack storage, designed by number of sprinklers (HEADSDEMAND: 12 sprinklers, four on each of three lines) with the storage chapter's hose allowance and duration typed in; the office block and the dry dock canopy are compared beside it, and the rack storage controls.",
     scenario: storage,
   },
   {

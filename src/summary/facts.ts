@@ -81,9 +81,10 @@ export function worstSegment(e: Estimate): { segment: string; loss: number } | n
 export type KeyInput = [label: string, value: string];
 
 /**
- * The key inputs a project manager checks: the flow test used (its pressures and flow, when and where), the hazard
- * or what is stored, the system, the design area, the demand at the supply and the margin required, and the pipe
- * that loses the most where the sheet names it. Rows the workbook does not give are left out, save the test's date.
+ * The key inputs a project manager checks: the flow test used (its pressures and flow, when and where), the design
+ * area judged where several are compared, the hazard or what is stored, the system, the design area, the demand at
+ * the supply (and the other areas compared, each with its margin) and the margin required, and the pipe that loses
+ * the most where the sheet names it. Rows the workbook does not give are left out, save the test's date.
  */
 export function keyInputs(e: Estimate, f: SummaryFacts): KeyInput[] {
   const u = e.units;
@@ -92,15 +93,26 @@ export function keyInputs(e: Estimate, f: SummaryFacts): KeyInput[] {
     ["Flow test used", `${formatPressure(t.static, u)} static, ${formatPressure(t.residual, u)} residual at ${formatFlow(t.testFlow, u)}`],
     ["Tested", f.testWhen ?? "date and place not given on the sheet"],
   ];
+  // several design areas: the verdict is the controlling one's; the hazard, system and design area on the sheet are
+  // the sheet's own area's, and say so where another controls
+  const several = e.candidates.length >= 2;
+  const controlling = e.candidates.find((c) => c.controls);
+  if (several && controlling) rows.push(["Design area judged", `${controlling.name}: the least margin of the ${e.candidates.length} compared`]);
+  const own = several && !e.judgesOwn ? `, ${e.candidates[0].name}` : "";
   if (f.hazard) {
     const words = hazardWords(f.hazard);
     // in SI work the classes are NFPA 13's with converted values, as the sheet and the pane say
-    rows.push(["Hazard", u === "SI" && words !== f.hazard ? `${words}: NFPA 13's class, values in SI` : words]);
+    rows.push([`Hazard${own}`, u === "SI" && words !== f.hazard ? `${words}: NFPA 13's class, values in SI` : words]);
   }
-  if (f.system) rows.push(["System", systemWords(f.system)]);
-  if (f.designArea !== null) rows.push(["Design area", areaWords(f.designArea, u)]);
+  if (f.system) rows.push([`System${own}`, systemWords(f.system)]);
+  if (f.designArea !== null) rows.push([`Design area${own}`, areaWords(f.designArea, u)]);
   const hose = e.hoseFlow !== null && e.hoseFlow > 0 ? ` (hose ${formatFlow(e.hoseFlow, u)} included)` : "";
   rows.push(["Demand at the supply", `${formatFlow(e.demandFlow, u)} at ${formatPressure(e.demandPressure, u)}${hose}`]);
+  if (several) {
+    const others = e.candidates.filter((c) => !c.controls);
+    const margin = (m: number) => `${m < 0 ? "−" : ""}${formatPressure(m, u)}`;
+    rows.push(["Also compared", others.map((c) => `${c.name}, ${formatFlow(c.flow, u)} at ${formatPressure(c.pressure, u)}, margin ${margin(c.margin)}`).join("; ")]);
+  }
   rows.push(["Margin required", e.requiredMarginGiven ? formatPressure(e.requiredMargin, u) : "none set"]);
   const worst = worstSegment(e);
   if (worst) rows.push(["Pipe losing the most", `${worst.segment}, ${formatPressure(worst.loss, u)}`]);

@@ -319,6 +319,13 @@ function readUnits(r: Reading): { units: UnitSystem; assumed: boolean } | string
  */
 export function buildModel(readings: Readings): PaneModel {
   const table = readings[CANDIDATES_NAME];
+  /**
+   * Where a row of the candidates is wrong, the sheet's verdict block (the governing test, Supply_*) shows errors
+   * calculated from it: the pane points at the row, the cause, and leaves out the names that only show an error,
+   * which are its consequence (an error of their own shows once the row is fixed).
+   */
+  const rootCauses = (found: Problem[]): Problem[] =>
+    found.some((p) => p.name === CANDIDATES_NAME) ? found.filter((p) => p.name === CANDIDATES_NAME || readings[p.name as InputName]?.kind !== "error") : found;
   const busyCell = (r: Reading) => r.kind === "error" && r.code === "#BUSY!";
   const busy: WorkbookName[] = INPUT_NAMES.filter((n) => busyCell(readings[n]));
   if (table?.kind === "table" && table.rows.some((row) => row.some(busyCell))) busy.push(CANDIDATES_NAME);
@@ -364,7 +371,9 @@ export function buildModel(readings: Readings): PaneModel {
   }
   const segment = readLabel(readings.Run_WorstSegment);
   if (segment !== null && typeof segment === "object") problems.push({ name: "Run_WorstSegment", message: segment.problem });
-  if (problems.length > 0) return { kind: "problems", problems };
+  // the candidates' rows, read before anything that may be calculated from them
+  const rows = readCandidateRows(table, units, problems);
+  if (problems.length > 0) return { kind: "problems", problems: rootCauses(problems) };
 
   // Magnitudes: read by the very argument checks the cell functions use (VERDICT, PUMPBOOST, PUMPCURVE), so that
   // where a cell on the sheet shows an error the pane shows the same message, never a verdict.
@@ -421,8 +430,8 @@ export function buildModel(readings: Readings): PaneModel {
     decision && breakdownMissing.length === 0
       ? readBreakdown(decision.demandPressure, typeof segment === "string" ? segment : null)
       : null;
-  const compared = decision ? readCandidates(table, decision.test, units, problems) : [];
-  if (problems.length > 0 || !decision) return { kind: "problems", problems };
+  const compared = decision ? judgeCandidates(rows, decision.test) : [];
+  if (problems.length > 0 || !decision) return { kind: "problems", problems: rootCauses(problems) };
 
   const { test, requiredMargin } = decision;
   // the demand judged: the controlling candidate's where the workbook has a table of them, else the sheet's own
@@ -556,14 +565,9 @@ function same(a: number, b: number): boolean {
 /**
  * The table of candidate design areas read as the estimate sheet reads it: blank rows left out; each row's flow and
  * pressure through VERDICT's own checks (the sheet checks its rows with VERDICT), its flow through a pump a flow not
- * above its demand flow (blank: its demand flow); its margin the supply at its flow (0 where the supply runs dry
- * first) less its pressure. The least margin controls, the first on a tie, as the sheet's MATCH(MIN(…)) picks.
- *
- * The sheet takes each row's supply on the weakest flow test at that row's flow; the pane has the test that governs at
- * the controlling flow (Supply_*). Both pick the same row: the controlling row's margin on the weakest test is its
- * margin on the governing test, and no other row's margin on that test is below its margin on the weakest.
+ * above its demand flow (blank: its demand flow). Their margins are judgeCandidates' business.
  */
-function readCandidates(table: TableReading | undefined, test: FlowTest, units: UnitSystem, problems: Problem[]): Candidate[] {
+function readCandidateRows(table: TableReading | undefined, units: UnitSystem, problems: Problem[]): Candidate[] {
   if (!table || table.kind === "missing") return [];
   if (table.kind === "invalid") {
     problems.push({ name: CANDIDATES_NAME, message: `${CANDIDATES_NAME}: ${table.reason}. Point the name at the table of candidates (Formulas > Name Manager).` });
@@ -605,13 +609,22 @@ function readCandidates(table: TableReading | undefined, test: FlowTest, units: 
         return;
       }
     }
-    const margin = (supplyBefore(flow, test) ?? 0) - pressure;
-    out.push({ name, flow, pressure, pumpFlow, margin, controls: false, ...("address" in flowCell && flowCell.address ? { address: flowCell.address } : {}) });
+    out.push({ name, flow, pressure, pumpFlow, margin: 0, controls: false, ...("address" in flowCell && flowCell.address ? { address: flowCell.address } : {}) });
   });
-  if (out.length > 0) {
-    const least = out.reduce((best, c) => (c.margin < best.margin ? c : best), out[0]);
-    least.controls = true;
-  }
+  return out;
+}
+
+/**
+ * The candidates' margins, each the supply at its flow (0 where the supply runs dry first) less its pressure, and the
+ * one that controls: the least margin, the first on a tie, as the sheet's MATCH(MIN(…)) picks.
+ *
+ * The sheet takes each row's supply on the weakest flow test at that row's flow; the pane has the test that governs at
+ * the controlling flow (Supply_*). Both pick the same row: the controlling row's margin on the weakest test is its
+ * margin on the governing test, and no other row's margin on that test is below its margin on the weakest.
+ */
+function judgeCandidates(rows: readonly Candidate[], test: FlowTest): Candidate[] {
+  const out = rows.map((c) => ({ ...c, margin: (supplyBefore(c.flow, test) ?? 0) - c.pressure, controls: false }));
+  if (out.length > 0) out.reduce((best, c) => (c.margin < best.margin ? c : best), out[0]).controls = true;
   return out;
 }
 

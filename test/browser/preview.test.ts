@@ -319,6 +319,34 @@ describe("the pane's states at 320 px", () => {
   });
 });
 
+describe("several design areas", () => {
+  const STORAGE = "harrow-row-rack-storage-by-sprinklers.xlsx";
+  const controlling = () => page.locator('[data-role="plot"] [data-role="candidate-point"][data-controls="true"]').getAttribute("data-name");
+
+  test("the sample compares three areas; typing a higher pressure for another makes it control, and the verdict follows", async () => {
+    await open(STORAGE);
+    await expect(page.locator('[data-role="plot"] [data-role="candidate-point"]').count()).resolves.toBe(3);
+    expect(await controlling()).toBe("Rack storage hall");
+    expect(await page.locator('[data-role="controlling"]').textContent()).toBe("For Rack storage hall: the least margin of the 3 design areas compared.");
+    const before = await verdict();
+    // the dock canopy's pressure at the supply, in the table's third column
+    const row = (await labelAddress("Dock canopy, dry pipe")).slice(1);
+    await typeInto(`C${row}`, "200");
+    expect(await controlling()).toBe("Dock canopy, dry pipe");
+    expect(await verdict()).toMatch(/^Pump needed: the supply is \d+(\.\d)? psi short at 900 gpm\.$/);
+    // the grid's own verdict agrees
+    expect((await cell(await formulaCell("=HEADROOM.VERDICT(")).textContent())?.trim()).toBe(await verdict());
+    expect(await page.locator('[data-role="breakdown-elsewhere"]').textContent()).toMatch(/for Rack storage hall only/);
+    await page.locator('[data-role="pane-host"] .hr-pane').screenshot({ path: `${RESULTS}/pane-candidates.png` });
+    // nonsense in a flow: the pane names the row, the sheet's verdict is an error, nothing is dropped
+    await typeInto(`B${row}`, "lots");
+    expect(await page.locator('[data-role="problems"] li[data-name="Design_Candidates"]').textContent()).toMatch(/Dock canopy, dry pipe \(Estimate!B\d+\): demand_flow: got "lots"; must be a number/);
+    await typeInto(`B${row}`, "900");
+    await typeInto(`C${row}`, "84");
+    expect(await verdict()).toBe(before);
+  });
+});
+
 describe("the plot's labels", () => {
   test("never overlap one another or a marker, in every sample, on both flow axes, at 320 and 420 px", async () => {
     const { samples } = JSON.parse(await readFile("samples/index.json", "utf8")) as { samples: Array<{ file: string }> };
@@ -335,8 +363,9 @@ describe("the plot's labels", () => {
           const found = await page.evaluate(() => {
             const svg = document.querySelector('[data-role="plot"]')!;
             // the labels placed at points (demand points, the flow test), and the demand markers
-            const labels = [...svg.querySelectorAll('[data-role="demand-point"] text, :scope > text[font-size="10.5"]')].map((t) => ({ s: `"${t.textContent}"`, b: t.getBoundingClientRect() }));
-            const markers = [...svg.querySelectorAll('[data-role="demand-point"] rect, [data-role="demand-point"] path')].map((m) => ({ s: "a marker", b: m.getBoundingClientRect() }));
+            const points = '[data-role="demand-point"], [data-role="candidate-point"]';
+            const labels = [...svg.querySelectorAll(`:is(${points}) text, :scope > text[font-size="10.5"]`)].map((t) => ({ s: `"${t.textContent}"`, b: t.getBoundingClientRect() }));
+            const markers = [...svg.querySelectorAll(`:is(${points}) :is(rect, path, circle)`)].map((m) => ({ s: "a marker", b: m.getBoundingClientRect() }));
             const out: string[] = [];
             labels.forEach((a, i) =>
               [...labels.slice(i + 1), ...markers].forEach((b) => {

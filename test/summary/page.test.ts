@@ -24,6 +24,7 @@ import type { Scenario } from "../../src/workbook/scenario";
 import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
 import { VOCABULARY } from "../functions/vocabulary";
+import { candidatesTable } from "../taskpane/fakePort";
 
 beforeAll(async () => {
   registerHeadroomFunctions(await generatedMetadata(), functions);
@@ -167,5 +168,26 @@ describe("the print view", () => {
     // once removed, Escape is no longer the view's
     document.dispatchEvent(new KeyboardEvent("keydown", { key: "Escape" }));
     expect(onClose).toHaveBeenCalledTimes(2);
+  });
+});
+
+describe("several design areas on the page", () => {
+  it("names the area judged, says whose hazard and design area the sheet gives, and lists the others with their margins", async () => {
+    const readings = await readingsOf(SAMPLES[0].scenario);
+    const own = estimateOf(readings);
+    // an invented second area needing far more than the sample's own: it controls
+    readings.Design_Candidates = candidatesTable([
+      ["Press hall", own.demandFlow, own.demandPressure, null],
+      ["Paper store", 900, 130, null],
+    ]);
+    const e = estimateOf(readings);
+    const rows = keyInputs(e, summaryFacts(readings));
+    expect(rows).toContainEqual(["Design area judged", "Paper store: the least margin of the 2 compared"]);
+    expect(rows.map(([k]) => k)).toContain("Hazard, Press hall");
+    expect(rows.find(([k]) => k === "Demand at the supply")![1]).toBe("900 gpm at 130.0 psi");
+    const also = rows.find(([k]) => k === "Also compared")![1];
+    expect(also).toMatch(/^Press hall, \d+ gpm at [\d.]+ psi, margin −?[\d.]+ psi$/);
+    const page = renderSummary(document, e, summaryFacts(readings), { printedOn: PRINTED });
+    expect(page.querySelectorAll('[data-role="candidate-point"]')).toHaveLength(2);
   });
 });

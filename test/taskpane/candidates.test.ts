@@ -131,6 +131,14 @@ describe("a wrong table or row", () => {
     expect(m.problems[0].message).toMatch(message);
   });
 
+  it("points at the wrong row, not at the sheet's names whose errors follow from it", () => {
+    // on the sheet the governing test is picked at the controlling flow: a wrong row makes Supply_* show its error
+    const error = (address: string) => ({ kind: "error", code: "#VALUE!", message: 'demand_flow: got "lots"; must be a number', address }) as const;
+    const v = { ...BASE, Supply_Static: error("Estimate!B70"), Supply_Residual: error("Estimate!B71"), Required_Margin: "ten" };
+    const m = model(v, [OWN, ["Dock", "lots", 50, null]]);
+    expect(m.kind === "problems" && m.problems.map((p) => p.name)).toEqual(["Required_Margin", "Design_Candidates"]);
+  });
+
   it("names a row without a name by its place in the table", () => {
     const m = model(BASE, [OWN, [null, "lots", 50, null]]);
     expect(m.kind === "problems" && m.problems[0].message).toMatch(/^Design_Candidates, Row 2 \(Estimate!B61\)/);
