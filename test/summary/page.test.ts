@@ -66,12 +66,18 @@ describe.each(SAMPLES.map((x) => [x.file, x.scenario] as const))("the summary of
     expect(page.querySelector('[data-role="summary-caution"]')?.textContent).toBe(CAUTION);
   });
 
-  it("draws the plot at its fixed width, with the demand point and the axis titles", async () => {
+  it("draws the plot at its fixed width, with the demand point (or every design area compared) and the axis titles", async () => {
     const readings = await readingsOf(s);
     const page = renderSummary(document, estimateOf(readings), summaryFacts(readings), { printedOn: PRINTED });
     const svg = page.querySelector('[data-role="plot"]')!;
     expect(svg.getAttribute("width")).toBe(String(SUMMARY_PLOT_WIDTH));
-    expect(svg.querySelector('[data-role="demand-point"][data-id="total"]')).not.toBeNull();
+    const compared = 1 + (s.candidates?.length ?? 0);
+    if (compared > 1) {
+      expect(svg.querySelectorAll('[data-role="candidate-point"]')).toHaveLength(compared);
+      expect(svg.querySelectorAll('[data-role="candidate-point"][data-controls="true"]')).toHaveLength(1);
+    } else {
+      expect(svg.querySelector('[data-role="demand-point"][data-id="total"]')).not.toBeNull();
+    }
     const titles = [...svg.querySelectorAll("text.title")].map((t) => t.textContent);
     expect(titles).toEqual(s.units === "SI" ? ["Flow (L/min)", "Pressure (bar)"] : ["Flow (gpm)", "Pressure (psi)"]);
   });
