@@ -93,10 +93,11 @@ export function estimateTemplate(s: Scenario, { areaDemand = s.design.kind === "
  * The print setup of the estimate: the whole template (its extent, which takes in the chart beside the upper
  * sections), scaled to one page wide and one page tall, so that the first page holds the caution at the top and the
  * verdict further down whatever the paper; the title and the caution repeat on every page should a user print it
- * larger, over several pages. Portrait: the sheet is about as tall as it is wide (1215 pt of columns, some 1420 pt of
- * rows at Excel's default 15 pt a row), so an upright page gives the larger scale, and there the width sets it: about
- * 42 % on Letter and 41 % on A4 with Excel's normal margins of 0.7 in and 0.75 in (from memory), at which the sheet
- * takes some 600 of the 684 pt (Letter) and 580 of the 734 pt (A4) a page holds, so one page tall costs nothing.
+ * larger, over several pages. Portrait: the sheet is taller than it is wide (1490 pt of columns, some 2430 pt of rows
+ * at Excel's default 15 pt a row with the wrapped notes' taller rows), so an upright page gives the larger scale, and
+ * there the height sets it: about 28 % on Letter (684 pt of 2430) and 30 % on A4 (734 pt), with Excel's normal margins
+ * of 0.7 in and 0.75 in (from memory). Small print: the one-page summary is the page to read; this one keeps the whole
+ * working on one sheet of paper.
  */
 function printSetup(t: Omit<SheetTemplate, "print">): TemplatePrint {
   const { rows, cols } = templateExtent(t);
