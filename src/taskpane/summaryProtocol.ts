@@ -10,7 +10,7 @@
  * dialog builds the same estimate from them with the same code. Anything else is not a message of ours: decoding
  * gives null.
  */
-import { INPUT_NAMES, type Reading, type Readings } from "../workbook/port";
+import { CANDIDATES_NAME, INPUT_NAMES, type Reading, type Readings, type TableReading } from "../workbook/port";
 
 export type DialogMessage = { type: "ready" } | { type: "close" };
 export type PaneMessage = { type: "summary"; readings: Readings };
@@ -49,7 +49,22 @@ function reading(v: unknown): Reading | null {
   return r as unknown as Reading;
 }
 
-/** A message from the pane, or null: every name the pane reads must come with a reading. */
+/** A table reading as JSON brought it, or null where it is not one. */
+function tableReading(v: unknown): TableReading | null {
+  if (v === null || typeof v !== "object") return null;
+  const t = v as Record<string, unknown>;
+  if (t.kind === "missing") return { kind: "missing" };
+  if (t.kind === "invalid") return typeof t.reason === "string" ? (t as unknown as TableReading) : null;
+  if (t.kind !== "table" || typeof t.address !== "string" || !Array.isArray(t.rows)) return null;
+  const rows = t.rows.map((row) => (Array.isArray(row) ? row.map(reading) : null));
+  if (rows.some((row) => row === null || row.some((r) => r === null))) return null;
+  return { kind: "table", address: t.address, rows: rows as Reading[][] };
+}
+
+/**
+ * A message from the pane, or null: every name the pane reads must come with a reading; the table of candidates may
+ * be left out (a workbook without one), and where it comes it must be one.
+ */
 export function decodePaneMessage(text: unknown): PaneMessage | null {
   const v = parse(text);
   if (!v || v.type !== "summary" || v.readings === null || typeof v.readings !== "object") return null;
@@ -59,6 +74,11 @@ export function decodePaneMessage(text: unknown): PaneMessage | null {
     const r = reading(given[n]);
     if (!r) return null;
     readings[n] = r;
+  }
+  if (given[CANDIDATES_NAME] !== undefined) {
+    const table = tableReading(given[CANDIDATES_NAME]);
+    if (!table) return null;
+    readings[CANDIDATES_NAME] = table;
   }
   return { type: "summary", readings };
 }

@@ -14,7 +14,7 @@ import { buildModel } from "../../src/taskpane/model";
 import { DIALOG_API, DIALOG_READY_MS, DIALOG_SIZE, PRINT_SHEET, officeDialogHost, openSummaryDialog } from "../../src/taskpane/summaryDialog";
 import { decodeDialogMessage, decodePaneMessage, encode } from "../../src/taskpane/summaryProtocol";
 import { INPUT_NAMES, type Readings } from "../../src/workbook/port";
-import { BASE, FakePort } from "./fakePort";
+import { BASE, FakePort, candidatesTable } from "./fakePort";
 
 const OFFICE_ENUMS = {
   EventType: { DialogMessageReceived: "dialogMessageReceived", DialogEventReceived: "dialogEventReceived", DialogParentMessageReceived: "dialogParentMessageReceived" },
@@ -160,6 +160,17 @@ describe("opening the summary in an Office dialog", () => {
 });
 
 describe("the messages between the pane and the dialog", () => {
+  it("carry the table of candidate design areas, so that the dialog judges the area the pane judges", async () => {
+    const { readings } = await request();
+    const withTable: Readings = { ...readings, Design_Candidates: candidatesTable([["Print hall", 562, 48, null], ["Paper store", 1000, 66, 700]]) };
+    expect(decodePaneMessage(encode({ type: "summary", readings: withTable }))).toEqual({ type: "summary", readings: withTable });
+    // a table that is not one is refused like any other reading that is not one
+    const odd = { ...withTable, Design_Candidates: { kind: "table", address: "Estimate!A60:D60", rows: [[{ kind: "number", value: "5" }]] } };
+    expect(decodePaneMessage(JSON.stringify({ type: "summary", readings: odd }))).toBeNull();
+    const invalid = { ...withTable, Design_Candidates: { kind: "invalid", reason: "3 columns wide" } };
+    expect(decodePaneMessage(encode({ type: "summary", readings: invalid as Readings }))).toEqual({ type: "summary", readings: invalid });
+  });
+
   it("carry the readings exactly, and refuse anything else", async () => {
     const { readings } = await request();
     expect(decodePaneMessage(encode({ type: "summary", readings }))).toEqual({ type: "summary", readings });
