@@ -15,6 +15,7 @@
  * Node and pipe indices are kept: EPANET numbers its junctions before its reservoirs, so each is looked up by its ID.
  */
 import {
+  AnalysisStatistic,
   FlowUnits,
   HeadLossType,
   LinkProperty,
@@ -41,6 +42,8 @@ export interface EpanetModel {
   solve(): void;
   /** pressures (psi) at the nodes and flows (gpm) in the pipes of the last solve, in the network's own order */
   read(): { pressure: number[]; flow: number[] };
+  /** the trials EPANET's last solve took */
+  iterations(): number;
   /** release the project */
   close(): void;
 }
@@ -76,6 +79,7 @@ export function epanetModel(net: Network): EpanetModel {
       pressure: nodeIndex.map((k, i) => (project.getNodeValue(k, NodeProperty.Head) - net.nodes[i].elevation * scale) * EPANET_PSI_PER_FT),
       flow: linkIndex.map((k) => project.getLinkValue(k, LinkProperty.Flow)),
     }),
+    iterations: () => project.getStatistic(AnalysisStatistic.Iterations),
     close: () => project.close(),
   };
 }

@@ -234,6 +234,24 @@ describe("network solve: reuse", () => {
   });
 });
 
+describe("network: ordering", () => {
+  it("eliminates a grid's lines first: 40 lines × 48 sprinklers factor with a few entries per junction", () => {
+    const g = gridNetwork({ lines: 40, heads: 48, k: 5.6, headSpacing: 10, lineSpacing: 12, branchDiameter: 1.38, mainDiameter: 4.026, pressure: 50, feedLine: 0 });
+    const prep = prepareNetwork(g);
+    // 40 × 48 sprinklers and 2 × 40 main nodes are the junctions; the riser is fixed
+    expect(prep.unknowns).toBe(40 * 48 + 80);
+    // Eliminating a sprinkler of a line joins its two neighbours (one new entry), and the mains are a ladder: every
+    // column holds at most 2 entries below its diagonal, so at most 3 entries and 3 multiply-adds per junction (a
+    // dense factor would hold 2000 × 2001 / 2 = 2 001 000)
+    expect(prep.factorEntries).toBeLessThanOrEqual(3 * prep.unknowns);
+    expect(prep.factorWork).toBeLessThanOrEqual(3 * prep.unknowns);
+    expect(prep.factorEntries).toBeGreaterThanOrEqual(prep.unknowns + g.pipes.length - 1);
+    // every junction once in the order, every pipe once in the pipes' order
+    expect([...prep.order].sort((a, b) => a - b)).toEqual(Array.from({ length: prep.unknowns }, (_, i) => i + 1));
+    expect([...prep.pipeOrder].sort((a, b) => a - b)).toEqual(Array.from({ length: g.pipes.length }, (_, j) => j));
+  });
+});
+
 describe("network solve: no convergence", () => {
   it("is a converge error stating the residual reached, never a number", () => {
     const g = gridNetwork({ lines: 4, heads: 5, k: 5.6, headSpacing: 10, lineSpacing: 12, branchDiameter: 1.38, mainDiameter: 3.068, pressure: 50, feedLine: 0 });
