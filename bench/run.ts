@@ -6,7 +6,11 @@
  *   per call (Node)      FRICTION, SUPPLYAT, AREADEMAND through the cell-function layer vs the same math inline
  *   sheet (preview)      10,000-row sheet in HyperFormula: HEADROOM functions vs native formulas, one edit
  *   solve                AREADEMAND for a 4,000 ft² extra-hazard area, through the cell layer and by the engine alone
+ *   network              the network solver against epanet-js's solveH on one grid, a 2,000-node grid, cost vs size
  *   bundles              gzipped production bundles against their budgets (needs `npm run build` first)
+ *
+ * `BENCH_ONLY=network,solve npx tsx bench/run.ts` runs only the sections named (call, solve, sheet, network, bundles);
+ * the default runs them all.
  */
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { gzipSync } from "node:zlib";
@@ -17,6 +21,9 @@ const f = await import("../src/functions/functions");
 const { solveAreaDemand } = await import("../src/engine/tree");
 const { headLoss } = await import("../src/engine/friction");
 const { sheetBench } = await import("./sheet");
+
+const only = process.env.BENCH_ONLY?.split(",").map((x) => x.trim());
+const runs = (section: string) => only === undefined || only.includes(section);
 
 interface Figure { name: string; value: number; unit: string; goal?: string; ok?: boolean }
 const figures: Figure[] = [];
@@ -68,7 +75,7 @@ const residuals = Float64Array.from({ length: 1024 }, (_, i) => 20 + (i % 9) * 3
 const testFlows = Float64Array.from({ length: 1024 }, (_, i) => 800 + (i % 11) * 50);
 
 // ── per call ─────────────────────────────────────────────────────────────────────────────────────────────────────
-{
+if (runs("call")) {
   const { a: cell, b: inline, ratio } = compare(
     (i) => f.friction(flows[i & 1023], diameters[i & 1023], cs[i & 1023], lengths[i & 1023]),
     (i) => {
@@ -80,7 +87,7 @@ const testFlows = Float64Array.from({ length: 1024 }, (_, i) => 800 + (i % 11) *
   record({ name: "FRICTION ns/call (inline math)", value: inline, unit: "ns" });
   record({ name: "FRICTION ratio cell/inline", value: ratio, unit: "×", goal: "≤ 1.5", ok: ratio <= 1.5 });
 }
-{
+if (runs("call")) {
   const { a: cell, b: inline, ratio } = compare(
     (i) => f.supplyat(flows[i & 1023], statics[i & 1023], residuals[i & 1023], testFlows[i & 1023]),
     (i) => {
@@ -92,7 +99,7 @@ const testFlows = Float64Array.from({ length: 1024 }, (_, i) => 800 + (i % 11) *
   record({ name: "SUPPLYAT ns/call (inline math)", value: inline, unit: "ns" });
   record({ name: "SUPPLYAT ratio cell/inline", value: ratio, unit: "×", goal: "≤ 1.5", ok: ratio <= 1.5 });
 }
-{
+if (runs("call")) {
   const input = { density: 0.15, area: 1500, coverage: 130, kFactor: 5.6, headSpacing: 13, branchDiameter: 1.38, mainDiameter: 2.469, cFactor: 120, minPressure: 7 };
   const { a: cell, b: engine, ratio } = compare(
     (i) => f.areademand(0.15, 1500 + (i & 7), 130, 5.6, 13, 1.38, 2.469)[0][0],
@@ -105,12 +112,12 @@ const testFlows = Float64Array.from({ length: 1024 }, (_, i) => 800 + (i % 11) *
 }
 
 // ── one large solve ──────────────────────────────────────────────────────────────────────────────────────────────
-{
+if (runs("solve")) {
   // EH2 0.40 gpm/ft² over 4,000 ft², 100 ft² per sprinkler, K 11.2, 10 ft spacing, 1¼ in lines, 4 in main
   const ns = nsPerCall((i) => f.areademand(0.4, 4000 + (i & 3), 100, 11.2, 10, 1.38, 4.026)[0][0], 5_000);
   record({ name: "AREADEMAND 4,000 ft² extra hazard, ms/solve", value: ns / 1e6, unit: "ms", goal: "< 1", ok: ns / 1e6 < 1 });
 }
-{
+if (runs("solve")) {
   // the same area solved by the engine alone, 2 in lines (the solve the engine tests check for values)
   const input = { density: 0.4, area: 4000, coverage: 100, kFactor: 11.2, headSpacing: 10, branchDiameter: 2.067, mainDiameter: 4.026, cFactor: 120, minPressure: 7 };
   const ns = nsPerCall((i) => solveAreaDemand({ ...input, density: 0.4 + (i & 1023) * 1e-6 }, headLoss("US")).flow, 5_000);
@@ -118,11 +125,17 @@ const testFlows = Float64Array.from({ length: 1024 }, (_, i) => 800 + (i % 11) *
 }
 
 // ── the preview engine: a 10,000-row sheet ───────────────────────────────────────────────────────────────────────
-for (const fig of await sheetBench(10_000)) record(fig);
+if (runs("sheet")) for (const fig of await sheetBench(10_000)) record(fig);
+
+// ── the network solver against EPANET ────────────────────────────────────────────────────────────────────────────
+if (runs("network")) {
+  const { networkBench } = await import("./network");
+  for (const fig of networkBench()) record(fig);
+}
 
 // ── bundle sizes ─────────────────────────────────────────────────────────────────────────────────────────────────
 let budgetExceeded = false;
-for (const [file, budgetKB] of [["dist/functions.js", 120], ["dist/taskpane.js", 200]] as const) {
+for (const [file, budgetKB] of runs("bundles") ? ([["dist/functions.js", 120], ["dist/taskpane.js", 200]] as const) : []) {
   if (!existsSync(file)) {
     console.error(`${file} is missing: run \`npm run build\` first`);
     budgetExceeded = true;

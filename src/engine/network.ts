@@ -142,8 +142,10 @@ const DEFAULT_MAX_ITERATIONS = 100;
 const LINEAR_VELOCITY_FT_S = 0.001;
 /** Below this flow (gpm) a sprinkler's pressure is linear in its flow. */
 const SPRINKLER_LINEAR_GPM = 1e-4;
-/** The velocity (ft/s) of the pipes' first guess of flow. */
-const START_VELOCITY_FT_S = 1;
+/** The velocity (ft/s) of the pipes' first guess of flow: a sprinkler system's mains and lines run at a few ft/s. */
+const START_VELOCITY_FT_S = 4;
+/** The sprinklers' first guess of pressure, as a fraction of the static pressure at them (the highest source's). */
+const START_PRESSURE_FRACTION = 0.5;
 /** The rounding allowed in a flow made of heads and flows, as a multiple of their magnitudes. */
 const ROUNDING = 32 * Number.EPSILON;
 /** Flows within this fraction of each other share one power |Q|^0.85 (pipes in a row through closed sprinklers). */
@@ -319,15 +321,13 @@ function minimumDegree(adjacency: number[][]): { order: Int32Array; colStart: In
       const list = adjacency[a];
       stamp++;
       mark[a] = stamp;
-      let w = 0;
       for (let i = 0; i < list.length; i++) {
-        const b = list[i];
-        if (b !== v) {
-          list[w++] = b;
-          mark[b] = stamp;
-        }
+        if (list[i] === v) {
+          list[i] = list[list.length - 1];
+          list.pop();
+          i--;
+        } else mark[list[i]] = stamp;
       }
-      list.length = w;
       for (const b of touched) {
         if (mark[b] !== stamp) {
           list.push(b);
@@ -445,7 +445,8 @@ export function prepareNetwork(net: Network): PreparedNetwork {
     }
   }
   const m = junctionNode.length;
-  const adjacency: number[][] = Array.from({ length: m }, () => []);
+  const adjacency: number[][] = [];
+  for (let j = 0; j < m; j++) adjacency.push([]);
   for (const p of net.pipes) {
     const a = junction[p.from], b = junction[p.to];
     // parallel pipes join the same two junctions once
@@ -733,15 +734,27 @@ export function solveNetwork(net: Network, options?: SolveNetworkOptions): Netwo
   // from the last solve of this topology while the pipe and the unit system stay the same
   if (w.units !== hl.units) w.diameter.fill(Number.NaN);
   w.units = hl.units;
+  // the loss per ft at 1 gpm and the linear flow's power depend on the size alone: worked out once for a run of pipes
+  // of one size
+  let lastDiameter = Number.NaN, lastC = Number.NaN, lastRate = 0, lastLinearFlow = 0, lastLinearPower = 0;
   for (let j = 0; j < pipeCount; j++) {
     const p = pipes[j];
     if (p.diameter === w.diameter[j] && p.cFactor === w.cFactor[j] && p.length === w.length[j]) continue;
     w.diameter[j] = p.diameter;
     w.cFactor[j] = p.cFactor;
     w.length[j] = p.length;
-    resistance[j] = hl.loss(1, p.diameter, p.cFactor, p.length);
-    linearFlow[j] = LINEAR_VELOCITY_FT_S / velocity(1, p.diameter);
-    linearSlope[j] = resistance[j] * Math.pow(linearFlow[j], exponent);
+    if (p.diameter !== lastDiameter || p.cFactor !== lastC) {
+      if (p.diameter !== lastDiameter) {
+        lastLinearFlow = LINEAR_VELOCITY_FT_S / velocity(1, p.diameter);
+        lastLinearPower = Math.pow(lastLinearFlow, exponent);
+      }
+      lastDiameter = p.diameter;
+      lastC = p.cFactor;
+      lastRate = hl.rate(1, p.diameter, p.cFactor);
+    }
+    resistance[j] = lastRate * p.length;
+    linearFlow[j] = lastLinearFlow;
+    linearSlope[j] = resistance[j] * lastLinearPower;
   }
 
   const flow = new Float64Array(pipeCount);
@@ -764,7 +777,7 @@ export function solveNetwork(net: Network, options?: SolveNetworkOptions): Netwo
     for (let r = 0; r < m; r++) {
       if (kOf[r] > 0) {
         open[r] = 1;
-        sprinklerFlow[r] = kOf[r] * Math.sqrt(Math.max(1, -elevationHead[order[r]]));
+        sprinklerFlow[r] = kOf[r] * Math.sqrt(Math.max(1, -START_PRESSURE_FRACTION * elevationHead[order[r]]));
       }
     }
   }
