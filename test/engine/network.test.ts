@@ -197,6 +197,18 @@ describe("network solve: sources", () => {
   });
 });
 
+describe("network solve: two sources and no junction", () => {
+  it("a pipe between two sources carries what their difference drives, and nothing is left to solve for [NFPA 13]", () => {
+    // the same 200 ft of 4 in and 20 psi as above: 598.14 gpm
+    const s = solveNetwork({
+      nodes: [{ elevation: 0, fixedPressure: 70 }, { elevation: 0, fixedPressure: 50 }],
+      pipes: [pipe(0, 1, 4.026, 200)],
+    });
+    expect(s.flow[0]).toBeCloseTo(598.14, 1);
+    expect([...s.pressure]).toEqual([70, 50]);
+  });
+});
+
 describe("network solve: reuse", () => {
   const g = gridNetwork({ lines: 5, heads: 6, k: 5.6, headSpacing: 10, lineSpacing: 12, branchDiameter: 1.38, mainDiameter: 3.068, pressure: 50, feedLine: 2 });
   const cold = solveNetwork(g);
@@ -224,6 +236,20 @@ describe("network solve: reuse", () => {
     const fresh = solveNetwork(neighbour);
     expect(warm.iterations).toBeLessThan(fresh.iterations);
     for (let i = 0; i < g.nodes.length; i++) expect(warm.pressure[i]).toBeCloseTo(fresh.pressure[i], 4);
+  });
+
+  it("a warm start from a solution with other sprinklers flowing gives the cold solution", () => {
+    // the design area moved: the first two lines' sprinklers shut, the rest flowing, at a new riser pressure
+    const moved: Network = {
+      nodes: g.nodes.map((node, i) => (i === 0 ? { ...node, fixedPressure: 70 } : i >= 11 && i < 11 + 12 ? { ...node, k: 0 } : node)),
+      pipes: g.pipes,
+    };
+    const prepared = prepareNetwork(g);
+    const warm = solveNetwork(moved, { warmStart: cold, prepared });
+    const fresh = solveNetwork(moved);
+    for (let i = 0; i < g.nodes.length; i++) expect(warm.pressure[i]).toBeCloseTo(fresh.pressure[i], 4);
+    for (let j = 0; j < g.pipes.length; j++) expect(warm.flow[j]).toBeCloseTo(fresh.flow[j], 3);
+    expect(warm.outflow[11]).toBe(0);
   });
 
   it("refuses a topology prepared for another network", () => {
