@@ -1,12 +1,13 @@
 /**
  * Cell functions of the sprinkler demand: one sprinkler (HEADFLOW, HEADPRESSURE), the design area's counts
- * (HEADCOUNT, HEADSPERLINE), the tree design-area solves (AREADEMAND, HEADSDEMAND) and the density/area, system
- * adjustment, hose and duration tables (DESIGNDENSITY, DESIGNAREA, ADJUSTAREA, HOSEALLOWANCE, DURATION). Engine:
- * src/engine/sprinkler.ts, tree.ts, design.ts.
+ * (HEADCOUNT, HEADSPERLINE), the tree design-area solves (AREADEMAND, HEADSDEMAND), the gridded one (GRIDDEMAND) and
+ * the density/area, system adjustment, hose and duration tables (DESIGNDENSITY, DESIGNAREA, ADJUSTAREA, HOSEALLOWANCE,
+ * DURATION). Engine: src/engine/sprinkler.ts, tree.ts, gridded.ts, design.ts.
  */
 import { adjustedArea, designArea, designDensity, hoseAllowance, supplyDuration } from "../engine/design";
 import { finiteOr, q as qty } from "../engine/errors";
 import { headLoss } from "../engine/friction";
+import { DEFAULT_FEED_LINE, solveGridDemand } from "../engine/gridded";
 import { DESIGN_AREA_LENGTH_FACTOR, headCount, headFlow, headPressure, headsPerLine } from "../engine/sprinkler";
 import { type AreaDemand, DEFAULT_C_FACTOR, solveAreaDemand, solveHeadsDemand } from "../engine/tree";
 import { type UnitSystem, fromUS } from "../engine/units";
@@ -219,6 +220,79 @@ export function headsdemand(
       cFactor: isBlank(c_factor) ? DEFAULT_C_FACTOR : cFactorArg(c_factor),
     };
     return demandRow(solveHeadsDemand(inp, headLoss(u)), u);
+  });
+}
+
+// ─── GRIDDEMAND ──────────────────────────────────────────────────────────────────────────────────────────────────────────
+/** GRIDDEMAND's output columns (one row): AREADEMAND's, then where the design area landed. */
+export const GRIDDEMAND_COLUMNS = [...AREADEMAND_COLUMNS, "first_line", "first_head"] as const;
+/** GRIDDEMAND spills one row of its columns. */
+export const GRIDDEMAND_SPILL: SpillShape = { rows: 1, columns: GRIDDEMAND_COLUMNS.length };
+
+/**
+ * Demand of a gridded system's design area, placed where it demands most (NFPA 13 density/area method): branch lines
+ * tied at both ends into cross mains, sprinklers centred on each line, the riser on the near main at feed_line; every
+ * placement of the area is solved as a pipe network (Q = K √p, Hazen-Williams in every pipe, flows balanced at every
+ * node) for the riser pressure at which the least-favoured sprinkler flows max(density × coverage, K √min_pressure).
+ * No elevation and no fittings: add ELEVATION and FITTINGS.
+ * @customfunction
+ * @param density Design density (gpm/ft²; SI: mm/min).
+ * @param area Design area (ft²; SI: m²).
+ * @param coverage Floor area one sprinkler protects (ft²; SI: m²).
+ * @param k_factor Sprinkler K-factor (gpm/psi^0.5; SI: L/min/bar^0.5).
+ * @param head_spacing Distance between sprinklers along a branch line (ft; SI: m); lines are coverage ÷ head_spacing apart.
+ * @param lines Branch lines in the grid (a whole number).
+ * @param line_length Length of each branch line between the two cross mains (ft; SI: m).
+ * @param branch_diameter Internal diameter of the branch lines (in; SI: mm).
+ * @param main_diameter Internal diameter of both cross mains (in; SI: mm).
+ * @param c_factor Hazen-Williams C of all pipes; default 120.
+ * @param min_pressure Minimum sprinkler operating pressure (psi; SI: bar); default 7 psi (SI: 0.5 bar).
+ * @param feed_line The line where the riser joins the near cross main, from 1 to lines; default 1.
+ * @param units "US" (default) or "SI".
+ * @returns One row: [flow (gpm; SI: L/min), pressure (psi; SI: bar) at the riser, sprinklers flowing, lines, least-favoured sprinkler pressure, first line and first sprinkler of the area].
+ */
+export function griddemand(
+  density: any,
+  area: any,
+  coverage: any,
+  k_factor: any,
+  head_spacing: any,
+  lines: any,
+  line_length: any,
+  branch_diameter: any,
+  main_diameter: any,
+  c_factor?: any,
+  min_pressure?: any,
+  feed_line?: any,
+  units?: any,
+): any[][] {
+  return cell(units, (u) => {
+    const inp = {
+      density: quantityArg(density, "density", "density", u),
+      area: quantityArg(area, "area", "area", u),
+      coverage: quantityArg(coverage, "coverage", "area", u),
+      kFactor: quantityArg(k_factor, "k_factor", "kfactor", u),
+      headSpacing: quantityArg(head_spacing, "head_spacing", "length", u),
+      lines: numberArg(lines, "lines"), // the engine says what counts of lines are allowed
+      lineLength: quantityArg(line_length, "line_length", "length", u),
+      branchDiameter: quantityArg(branch_diameter, "branch_diameter", "diameter", u),
+      mainDiameter: quantityArg(main_diameter, "main_diameter", "diameter", u),
+      cFactor: isBlank(c_factor) ? DEFAULT_C_FACTOR : cFactorArg(c_factor),
+      minPressure: minPressureArg(min_pressure, u),
+      feedLine: isBlank(feed_line) ? DEFAULT_FEED_LINE : numberArg(feed_line, "feed_line"),
+    };
+    const r = solveGridDemand(inp, headLoss(u));
+    return [
+      [
+        fromUS("flow", r.flow, u),
+        fromUS("pressure", r.pressure, u),
+        r.heads,
+        r.lines,
+        fromUS("pressure", r.endPressure, u),
+        r.firstLine,
+        r.firstHead,
+      ],
+    ];
   });
 }
 

@@ -7,7 +7,7 @@
  * (scripts/function-files.mjs gives the list to the build and to the tests); this file is the add-in's entry and
  * the one module the preview host and the tests import. Names and argument orders follow the vocabulary.
  */
-import { AREADEMAND_SPILL, HEADSDEMAND_SPILL } from "./demand";
+import { AREADEMAND_SPILL, GRIDDEMAND_SPILL, HEADSDEMAND_SPILL } from "./demand";
 import { PIPERUN_SPILL } from "./piping";
 import { PUMPSIZE_SPILL } from "./pump";
 import type { SpillShape } from "./shapes";
@@ -29,6 +29,7 @@ export const SPILL_SHAPES: Readonly<Record<string, SpillShape>> = {
   SUPPLYCURVE: SUPPLYCURVE_SPILL,
   AREADEMAND: AREADEMAND_SPILL,
   HEADSDEMAND: HEADSDEMAND_SPILL,
+  GRIDDEMAND: GRIDDEMAND_SPILL,
   PUMPSIZE: PUMPSIZE_SPILL,
   SITETEST: SITETEST_SPILL,
 };

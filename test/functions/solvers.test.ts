@@ -1,6 +1,6 @@
 /**
- * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, HEADSDEMAND, SIZEFOR, PUMPSIZE,
- * PUMPCURVE (and PUMPSUCTION beside them), in US and SI units, with their spill shapes and every error path.
+ * The range functions and solvers from a cell: PIPERUN, SUPPLYCURVE, AREADEMAND, HEADSDEMAND, GRIDDEMAND, SIZEFOR,
+ * PUMPSIZE, PUMPCURVE (and PUMPSUCTION beside them), in US and SI units, with their spill shapes and every error path.
  */
 import { describe, expect, it } from "vitest";
 import {
@@ -10,6 +10,7 @@ import {
   headsdemand,
   elevation,
   friction,
+  griddemand,
   headpressure,
   pipeid,
   piperun,
@@ -398,6 +399,95 @@ describe("HEADSDEMAND", () => {
     );
     expect(errorOf(() => headsdemand(...args, 0)).message).toMatch(/^c_factor: got 0; must be from 10 to 200/);
     expect(errorOf(() => headsdemand(...args, 120, "imperial units")).message).toMatch(/^units/);
+  });
+});
+
+// ─── GRIDDEMAND ──────────────────────────────────────────────────────────────────────────────────────────────────
+describe("GRIDDEMAND", () => {
+  // OH1 0.15 gpm/ft² over 1500 ft² [NFPA 13] (from memory); 130 ft² per sprinkler, K 5.6, 13 ft between sprinklers on
+  // 10 lines 160 ft long, 1¼ branch lines (1.38 in) and 2½ cross mains (2.469 in), Schedule 40 [ASME B36.10M]
+  const args = [0.15, 1500, 130, 5.6, 13, 10, 160, 1.38, 2.469] as const;
+
+  it("spills one row: flow, pressure, heads, lines, end pressure, first line, first sprinkler [NFPA 13]", () => {
+    const out = griddemand(...args);
+    expect(out).toHaveLength(1);
+    expect(out[0]).toHaveLength(7);
+    const [flow, pressure, heads, lines, end, firstLine, firstHead] = out[0];
+    // 12 sprinklers (ceil(1500 / 130) = ceil(11.54)), 4 a line (ceil(1.2 √1500 / 13) = ceil(3.575)), 3 lines [NFPA 13]
+    expect([heads, lines]).toEqual([12, 3]);
+    // the least-favoured sprinkler at 0.15 × 130 = 19.5 gpm, (19.5 / 5.6)² = 12.125 psi [NFPA 13]
+    expect(end).toBeCloseTo(12.1253, 4);
+    expect(flow).toBeGreaterThanOrEqual(0.15 * 1500); // never below density × area [NFPA 13]
+    // the engine's worked value (test/engine/gridded.test.ts checks the solve's invariants and the search)
+    expect([firstLine, firstHead]).toEqual([8, 6]);
+    expect(flow).toBeCloseTo(236.858, 3);
+    expect(pressure).toBeCloseTo(28.2023, 4);
+  });
+
+  it("defaults C to 120, the minimum pressure to 7 psi [NFPA 13] and the feed to line 1", () => {
+    expect(griddemand(...args, null, null, null)).toEqual(griddemand(...args, 120, 7, 1));
+    expect(griddemand(...args, "", "", "")).toEqual(griddemand(...args, 120, 7, 1));
+    // fed at its middle line the same grid needs less pressure: half as far along the near main
+    expect(Number(griddemand(...args, null, null, 5)[0][1])).toBeLessThan(Number(griddemand(...args)[0][1]));
+    // counts typed as text are read as numbers
+    expect(griddemand(0.15, 1500, 130, 5.6, 13, "10", 160, 1.38, 2.469, null, null, "1")).toEqual(griddemand(...args));
+  });
+
+  it("works in SI: the same grid in mm/min, m², L/min/bar^0.5, m and mm [NFPA 13] [EN 12845]", () => {
+    const us = griddemand(...args)[0];
+    const si = griddemand(
+      0.15 * 40.746, // 1 gpm/ft² = 40.746 mm/min [NFPA 13]
+      1500 * 0.092903, // 1 ft² = 0.092903 m²
+      130 * 0.092903,
+      5.6 * KSI_PER_KUS, // K 5.6 US ≈ K 80 metric (common practice)
+      13 * M_PER_FT,
+      10,
+      160 * M_PER_FT,
+      1.38 * MM_PER_IN,
+      2.469 * MM_PER_IN,
+      null,
+      null,
+      null,
+      "SI",
+    )[0];
+    expect([si[2], si[3], si[5], si[6]]).toEqual([us[2], us[3], us[5], us[6]]);
+    // within 0.2 %: the SI friction form differs by that much [NFPA 13] [EN 12845]; the inputs above are rounded
+    expect(Math.abs(Number(si[0]) / L_PER_GAL / Number(us[0]) - 1)).toBeLessThan(0.002);
+    expect(Math.abs(Number(si[1]) / BAR_PER_PSI / Number(us[1]) - 1)).toBeLessThan(0.002);
+    // the SI default minimum pressure is 0.5 bar [NFPA 13]: 0.01 mm/min × 10 m² = 0.1 L/min < 80 √0.5 = 56.6 L/min
+    const low = griddemand(0.01, 100, 10, 80, 3, 10, 30, 25, 50, null, null, null, "SI")[0];
+    expect(low[4]).toBeCloseTo(0.5, 6);
+  });
+
+  it("refuses bad input with messages naming the argument, the value and what is allowed", () => {
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, 2, 160, 1.38, 2.469)).message).toBe(
+      "lines: got 2; must be at least 3: the design area's 12 sprinklers, at most 4 on a line of 12, need 3 lines",
+    );
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, 10.5, 160, 1.38, 2.469)).message).toBe(
+      "lines: got 10.5; must be a whole number of branch lines from 1 to 200",
+    );
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, "ten", 160, 1.38, 2.469)).message).toBe('lines: got "ten"; must be a number');
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, null, 160, 1.38, 2.469)).message).toBe("lines is empty: type a number");
+    expect(errorOf(() => griddemand(...args, null, null, 11)).message).toBe("feed_line: got 11; must be a whole number from 1 to lines, 10");
+    expect(errorOf(() => griddemand(...args, null, null, "first")).message).toBe('feed_line: got "first"; must be a number');
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, 10, 12, 1.38, 2.469)).message).toBe(
+      "line_length: got 12 ft; must be at least head_spacing, 13 ft: a line shorter than one head spacing holds no sprinkler",
+    );
+    // in SI, in the user's units: 13 ft = 3.9624 m
+    expect(errorOf(() => griddemand(6.1, 139, 12, 80, 3.9624, 10, 3, 35, 63, null, null, null, "SI")).message).toBe(
+      "line_length: got 3 m; must be at least head_spacing, 3.9624 m: a line shorter than one head spacing holds no sprinkler",
+    );
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, 10, 1e6, 1.38, 2.469)).message).toBe(
+      "line_length: got 1000000 ft; must be greater than 0 and at most 100000 ft",
+    );
+    expect(errorOf(() => griddemand(0.15, 1500, 130, 5.6, 13, 10, 160, 0, 2.469)).message).toBe(
+      "branch_diameter: got 0 in; must be from 0.1 in to 120 in",
+    );
+    expect(errorOf(() => griddemand(0.15, 130, 1500, 5.6, 13, 10, 160, 1.38, 2.469)).message).toBe(
+      "coverage: got 1500 ft²; must not exceed the design area 130 ft²",
+    );
+    expect(errorOf(() => griddemand(...args, 0)).message).toMatch(/^c_factor: got 0; must be from 10 to 200/);
+    expect(errorOf(() => griddemand(...args, null, null, null, "imperial units")).message).toMatch(/^units/);
   });
 });
 

@@ -41,6 +41,7 @@ export const VOCABULARY: string[] = [
   "SUPPLYCURVE",
   "AREADEMAND",
   "HEADSDEMAND",
+  "GRIDDEMAND",
   "SIZEFOR",
   "PUMPSIZE",
   "PUMPCURVE",

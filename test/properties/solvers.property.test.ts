@@ -9,6 +9,7 @@ import * as f from "../../src/functions/functions";
 import { velocity } from "../../src/engine/friction";
 import { scheduleSizes } from "../../src/engine/pipes";
 import { solveAreaDemand, solveHeadsDemand } from "../../src/engine/tree";
+import { gridLayout, solveGridDemand } from "../../src/engine/gridded";
 import { STANDARD_RATED_CAPACITIES_GPM } from "../../src/engine/pump";
 import { BAR_PER_PSI, KSI_PER_KUS, L_PER_GAL, M2_PER_FT2, MMMIN_PER_GPMFT2, MM_PER_IN, M_PER_FT } from "../../src/engine/units";
 import { BLANKS, NOT_NUMBERS, NOT_POSITIVE, arb, givesError } from "./arbitraries";
@@ -182,6 +183,101 @@ describe("HEADSDEMAND", () => {
     const args = [...valid];
     args[i] = bad[i][k % bad[i].length];
     expect(givesError(() => f.headsdemand(...(args as Parameters<typeof f.headsdemand>))), `arg ${i + 1} = ${String(args[i])}`).toBe(true);
+  });
+});
+
+/**
+ * A grid that holds its design area: the lines long enough for the area's sprinklers a line and a few more, as many
+ * lines as the area needs and a few more, the riser anywhere along the near main; pipes big enough for its flow.
+ */
+const gridded = fc
+  .record({
+    density: d(0.05, 0.4),
+    area: d(800, 3000),
+    coverage: d(80, 200),
+    k: d(5.6, 11.2),
+    spacing: d(8, 15),
+    branch: d(1.049, 2.5),
+    main: d(2, 6),
+    c: d(100, 150),
+    moreHeads: fc.nat(6),
+    moreLines: fc.nat(4),
+    feed: d(0, 1),
+  })
+  .map((g) => {
+    const n = Math.ceil(g.area / g.coverage - 1e-9);
+    const m = Math.ceil((1.2 * Math.sqrt(g.area)) / g.spacing - 1e-9);
+    const lines = Math.ceil(n / m) + g.moreLines;
+    return { ...g, lines, lineLength: (m + g.moreHeads + 0.5) * g.spacing, feedLine: Math.min(lines, 1 + Math.floor(g.feed * lines)) };
+  });
+type Gridded = typeof gridded extends fc.Arbitrary<infer T> ? T : never;
+const GRID_RUNS = { numRuns: 40 };
+const solveGrid = (a: Gridded, branch = a.branch, main = a.main) =>
+  f.griddemand(a.density, a.area, a.coverage, a.k, a.spacing, a.lines, a.lineLength, branch, main, a.c, null, a.feedLine)[0] as number[];
+const gridInput = (a: Gridded, branch = a.branch, main = a.main) => ({
+  density: a.density, area: a.area, coverage: a.coverage, kFactor: a.k, headSpacing: a.spacing, lines: a.lines,
+  lineLength: a.lineLength, branchDiameter: branch, mainDiameter: main, cFactor: a.c, minPressure: 7, feedLine: a.feedLine,
+});
+
+describe("GRIDDEMAND", () => {
+  test.prop([gridded], GRID_RUNS)("flow is finite, never below density × area, and the area lies inside the grid [NFPA 13]", (a) => {
+    const [flow, pressure, heads, lines, end, firstLine, firstHead] = solveGrid(a);
+    expect([flow, pressure, heads, lines, end, firstLine, firstHead].every(Number.isFinite)).toBe(true);
+    expect(flow).toBeGreaterThanOrEqual(a.density * a.area * (1 - 1e-12));
+    expect(pressure).toBeGreaterThan(end);
+    const layout = gridLayout(gridInput(a));
+    expect([heads, lines]).toEqual([layout.heads, layout.areaLines]);
+    // first_line … first_line + l − 1 within 1 … lines; first_head … first_head + m − 1 within 1 … N
+    expect(Number.isInteger(firstLine) && firstLine >= 1 && firstLine + lines - 1 <= a.lines).toBe(true);
+    expect(Number.isInteger(firstHead) && firstHead >= 1 && firstHead + layout.headsPerLine - 1 <= layout.lineHeads).toBe(true);
+  });
+  test.prop([gridded], GRID_RUNS)("the least-favoured sprinkler flows q_req, every one K √p, their sum the flow [NFPA 13]", (a) => {
+    const r = solveGridDemand(gridInput(a), undefined, true);
+    const s = r.solved!.solution;
+    const qReq = Math.max(a.density * a.coverage, a.k * Math.sqrt(7)); // [NFPA 13]
+    const flows = r.solved!.grid.flowing.map((i) => s.outflow[i]);
+    r.solved!.grid.flowing.forEach((i) => expect(s.outflow[i] / (a.k * Math.sqrt(s.pressure[i]))).toBeCloseTo(1, 12));
+    expect(Math.abs(Math.min(...flows) / qReq - 1)).toBeLessThanOrEqual(1e-7);
+    expect(flows.reduce((x, y) => x + y, 0) / r.flow).toBeCloseTo(1, 10);
+  });
+  test.prop([gridded, d(1.05, 1.6)], GRID_RUNS)("pressure never rises as the branch lines grow", (a, k) => {
+    expect(solveGrid(a, a.branch * k)[1]).toBeLessThanOrEqual(solveGrid(a)[1] * (1 + 1e-6));
+  });
+  test.prop([gridded, d(1.05, 1.6)], GRID_RUNS)("pressure never rises as the cross mains grow", (a, k) => {
+    expect(solveGrid(a, a.branch, a.main * k)[1]).toBeLessThanOrEqual(solveGrid(a)[1] * (1 + 1e-6));
+  });
+  test.prop([gridded], GRID_RUNS)("in SI it equals the converted US solve within 0.5 % (EN 12845 friction form) [EN 12845]", (a) => {
+    const us = solveGrid(a);
+    const si = f.griddemand(
+      a.density * MMMIN_PER_GPMFT2, a.area * M2_PER_FT2, a.coverage * M2_PER_FT2, a.k * KSI_PER_KUS, a.spacing * M_PER_FT,
+      a.lines, a.lineLength * M_PER_FT, a.branch * MM_PER_IN, a.main * MM_PER_IN, a.c, 7 * BAR_PER_PSI, a.feedLine, "SI",
+    )[0] as number[];
+    // the highest pressure over the placements moves no more than each placement's (the forms differ by 0.02 %)
+    expect(Math.abs(si[1] / (us[1] * BAR_PER_PSI) - 1)).toBeLessThan(0.005);
+    expect([si[2], si[3]]).toEqual([us[2], us[3]]);
+    // two placements needing nearly the same pressure may trade places; where the same one wins, so does its flow
+    if (si[5] === us[5] && si[6] === us[6]) expect(Math.abs(si[0] / (us[0] * L_PER_GAL) - 1)).toBeLessThan(0.005);
+  });
+  const valid: unknown[] = [0.15, 1500, 130, 5.6, 13, 10, 160, 1.38, 2.469, null, null, null, null];
+  const bad: unknown[][] = [
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // density
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 100_000], // area (more lines than the grid has)
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 5000], // coverage (larger than the area)
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // K
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 2.9, 200], // head spacing (longer than a line)
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 2, 2.5, 201], // lines
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 12, 1e5], // line length
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // branch
+    [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE], // main
+    [...NOT_NUMBERS, ...NOT_POSITIVE, 500], // C
+    [...NOT_NUMBERS, ...NOT_POSITIVE], // min pressure
+    [...NOT_NUMBERS, ...NOT_POSITIVE, 11, 1.5], // feed line
+    ["metric-ish", 3, true], // units
+  ];
+  test.prop([fc.nat(bad.length - 1), fc.nat(1000)], { numRuns: 200 })("invalid arguments give an error with a message", (i, k) => {
+    const args = [...valid];
+    args[i] = bad[i][k % bad[i].length];
+    expect(givesError(() => f.griddemand(...(args as Parameters<typeof f.griddemand>))), `arg ${i + 1} = ${String(args[i])}`).toBe(true);
   });
 });
 
