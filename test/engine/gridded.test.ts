@@ -209,6 +209,27 @@ describe("the placement search [NFPA 13]", () => {
     expect(middle.pressure).toBeLessThan(r.pressure);
   });
 
+  it("the README's example: the print works' design area on a 12-line grid", () => {
+    // OH2 0.20 gpm/ft² over 1500 ft² [NFPA 13] (from memory), 120 ft² a sprinkler, K 8.0, 12 ft apart, on 12 lines
+    // 120 ft long: N = floor(120 / 12) = 10, gaps (120 − 9 × 12) / 2 = 6 ft, lines 120 / 12 = 10 ft apart; n = 13,
+    // m = ceil(1.2 √1500 / 12) = ceil(3.87) = 4, l = 4, the remainder 13 − 12 = 1 [NFPA 13]. The README's figures are
+    // the engine's values, checked here to the precision it shows them.
+    const inp = { ...base, density: 0.2, coverage: 120, kFactor: 8, headSpacing: 12, lines: 12, lineLength: 120 };
+    const r = solveGridDemand(inp, headLoss("US"), true);
+    expect([r.heads, r.lines, r.lineHeads, r.firstLine, r.firstHead]).toEqual([13, 4, 10, 9, 4]);
+    expect(r.pressure).toBeCloseTo(32.78, 2);
+    const s = r.solved!;
+    // the one-sprinkler line is line 9, the area's line nearest the riser; the least favoured is sprinkler 6 of line 12
+    expect(s.grid.flowing.filter((i) => s.grid.nodeAt[i].line === 9)).toHaveLength(1);
+    expect(s.grid.nodeAt[s.least]).toEqual({ line: 12, position: 6 });
+    // next to the riser it needs least
+    expect(solveGridPlacement(gridLayout(inp), { firstLine: 1, firstHead: 1 }).pressure).toBeCloseTo(18.77, 2);
+    // fed at its middle line it needs less, the area a sprinkler further along its lines
+    const middle = solveGridDemand({ ...inp, feedLine: 6 });
+    expect([middle.firstLine, middle.firstHead]).toEqual([9, 5]);
+    expect(middle.pressure).toBeCloseTo(23.8, 2);
+  });
+
   it("needs less pressure than a tree of the same pipes [NFPA 13]", () => {
     // The README's tree design area (Wrenfield Road, OH2): 0.20 gpm/ft² over 1500 ft², 120 ft² a sprinkler, K 8.0,
     // 12 ft apart, 1¼ lines and 2½ cross main (Schedule 40 [ASME B36.10M]): 13 sprinklers on 4 lines (4 + 4 + 4 + 1),
@@ -229,6 +250,9 @@ describe("the placement search [NFPA 13]", () => {
     // (341.7 gpm instead of 375.2).
     expect(grid.pressure).toBeLessThan(0.75 * tree.pressure);
     expect(grid.flow).toBeLessThan(tree.flow);
+    // the figures above (and in README), the engine's values to the precision shown
+    expect([tree.pressure, tree.flow]).toEqual([expect.closeTo(31.76, 2), expect.closeTo(375.2, 1)]);
+    expect([grid.pressure, grid.flow]).toEqual([expect.closeTo(22.58, 2), expect.closeTo(341.7, 1)]);
     expect(grid.flow).toBeGreaterThanOrEqual(0.2 * 1500); // never below density × area [NFPA 13]
     expect(grid.endPressure).toBeCloseTo(tree.endPressure, 5); // both at (24 / 8)² = 9 psi [NFPA 13]
   });
