@@ -7,10 +7,11 @@
  *   sheet (preview)      10,000-row sheet in HyperFormula: HEADROOM functions vs native formulas, one edit
  *   solve                AREADEMAND for a 4,000 ft² extra-hazard area, through the cell layer and by the engine alone
  *   network              the network solver against epanet-js's solveH on one grid, a 2,000-node grid, cost vs size
+ *   gridded              GRIDDEMAND's whole placement search on a 20 × 20 grid, at a corner and at the middle line
  *   bundles              gzipped production bundles against their budgets (needs `npm run build` first)
  *
- * `BENCH_ONLY=network,solve npx tsx bench/run.ts` runs only the sections named (call, solve, sheet, network, bundles);
- * the default runs them all.
+ * `BENCH_ONLY=network,solve npx tsx bench/run.ts` runs only the sections named (call, solve, sheet, network, gridded,
+ * bundles); the default runs them all.
  */
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { gzipSync } from "node:zlib";
@@ -131,6 +132,12 @@ if (runs("sheet")) for (const fig of await sheetBench(10_000)) record(fig);
 if (runs("network")) {
   const { networkBench } = await import("./network");
   for (const fig of networkBench()) record(fig);
+}
+
+// ── GRIDDEMAND: the placement search ─────────────────────────────────────────────────────────────────────────────
+if (runs("gridded")) {
+  const { griddedBench } = await import("./gridded");
+  for (const fig of griddedBench()) record(fig);
 }
 
 // ── bundle sizes ─────────────────────────────────────────────────────────────────────────────────────────────────
