@@ -30,11 +30,21 @@ export interface RunSegmentInput {
 
 /**
  * How the design area's demand is found: by the density/area method over a tree of branch lines (AREADEMAND, the
- * hazard's curve), or by a number of sprinklers at a minimum pressure (HEADSDEMAND: storage, high-K and
+ * hazard's curve) or over a grid (GRIDDEMAND: the area placed where it demands most), or by a number of sprinklers at a minimum pressure (HEADSDEMAND: storage, high-K and
  * early-suppression sprinklers), whose hose allowance and duration are inputs of their own.
  */
 export type DemandDesign =
   | { kind: "area" }
+  | {
+      /** the density/area method over a gridded system: both ends of every branch line tied into a cross main (GRIDDEMAND) */
+      kind: "grid";
+      /** branch lines in the grid */
+      lines: number;
+      /** length of each branch line between the two cross mains, ft or m */
+      lineLength: number;
+      /** the line (1 … lines) where the riser feeds the near cross main */
+      feedLine: number;
+    }
   | {
       kind: "heads";
       /** what is stored and how, in words, e.g. "rack storage of cartoned goods to 20 ft" (text) */

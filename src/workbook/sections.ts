@@ -410,15 +410,26 @@ function areaPipes(s: Scenario, sh: SectionWriter, U: string) {
  * in the design area that the line-by-line walk leaves out (the tee where a line joins the cross main, riser nipples):
  * their loss at an average line's flow is added where the run starts.
  */
-function areaSolve(s: Scenario, sh: SectionWriter, U: string, fn: string, formula: string, pipes: ReturnType<typeof areaPipes>): AreaDemandRefs {
+function areaSolve(
+  s: Scenario,
+  sh: SectionWriter,
+  U: string,
+  fn: string,
+  formula: string,
+  pipes: ReturnType<typeof areaPipes>,
+  { where = "at the cross main", placement = false }: { where?: string; placement?: boolean } = {},
+): AreaDemandRefs {
   const u = SHEET_UNITS[s.units];
   const f = u.fmt;
-  sh.put("A", "header", "Design area demand at the cross main");
+  sh.put("A", "header", `Design area demand ${where}`);
   const demandHeaders = [`Flow (${u.flow})`, `Pressure (${u.pressure})`, "Sprinklers", "Lines", `End sprinkler (${u.pressure})`];
+  // GRIDDEMAND says where it placed the area: its first line and, along the lines, its first sprinkler
+  if (placement) demandHeaders.push("First line", "First sprinkler");
   demandHeaders.forEach((h, i) => sh.put(columnLetters(1 + i), "header", h));
   sh.row++;
   sh.put("A", "label", fn);
-  const solved = sh.put("B", "computed", formula, { format: f.flow, spill: { rows: 1, cols: 5, formats: [f.flow, f.pressure, "0", "0", f.pressure] } });
+  const formats = [f.flow, f.pressure, "0", "0", f.pressure, ...(placement ? ["0", "0"] : [])];
+  const solved = sh.put("B", "computed", formula, { format: f.flow, spill: { rows: 1, cols: formats.length, formats } });
   sh.row++;
   const r = parseCell(solved).row + 1;
   const [flow, pressure, lines, end] = [`B${r}`, `C${r}`, `E${r}`, `F${r}`];
@@ -476,6 +487,50 @@ export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard:
   sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
   const formula = `=${hr("AREADEMAND", density, flowed, coverage, k, spacing, pipes.branch.id, pipes.main.id, pipes.c, minP, U)}`;
   return sh.done(areaSolve(s, sh, U, "AREADEMAND", formula, pipes));
+};
+
+/**
+ * The design area of a gridded system by the density/area method (GRIDDEMAND): sprinklers on branch lines tied at
+ * both ends into cross mains, the grid's size and where the riser feeds it, the area adjusted for the system type
+ * (ADJUSTAREA), and the area placed where it needs the most pressure, with its flow and pressure at the riser.
+ */
+export const gridDemandSection: AreaDemandSection = (s, row, { units: U, hazard: { area, density } }) => {
+  if (area === null || density === null) throw new Error("the grid demand section needs the hazard's design area and density");
+  if (s.design.kind !== "grid") throw new Error("the grid demand section needs a gridded design");
+  const d = s.design;
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
+  const len = s.units === "SI" ? "0.00" : "0.0";
+  const sh = new SectionWriter(row);
+  sh.heading("Sprinklers and the gridded system's pipes");
+  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
+  const coverage = sh.line("Coverage per sprinkler", "input", s.sprinkler.coverage, u.area, "", f.area);
+  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, "the lines stand coverage ÷ spacing apart", len);
+  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, s.units === "SI" ? "0.5 bar unless the listing says more" : "7 psi unless the listing says more", f.pressure);
+  sh.line("Most remote sprinkler flow", "computed", `=${hr("HEADFLOW", density, coverage, k, minP, U)}`, u.flow, "HEADFLOW", "0.0");
+  const lines = sh.line("Branch lines in the grid", "input", d.lines, "", "each tied at both ends into a cross main", "0");
+  const lineLength = sh.line("Length of a branch line", "input", d.lineLength, u.length, "between the two cross mains", len);
+  const feedLine = sh.line("Line where the riser feeds", "input", d.feedLine, "", "1 for a corner; the middle line for a centre feed", "0");
+  const pipes = areaPipes(s, sh, U);
+  const flowed = sh.line(
+    "Design area flowed",
+    "computed",
+    `=${hr("ADJUSTAREA", area, pipes.system)}`,
+    u.area,
+    "ADJUSTAREA: dry and double-interlock systems flow 30 % more area [NFPA 13], at the density read above",
+    f.area,
+  );
+  sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
+  const formula = `=${hr("GRIDDEMAND", density, flowed, coverage, k, spacing, lines, lineLength, pipes.branch.id, pipes.main.id, pipes.c, minP, feedLine, U)}`;
+  const refs = areaSolve(s, sh, U, "GRIDDEMAND", formula, pipes, { where: "at the riser, placed where it needs the most", placement: true });
+  sh.put(
+    "A",
+    "note",
+    "GRIDDEMAND solves the grid as a network (water reaches each sprinkler from both ends of its line) for every place the design area " +
+      "can stand, and keeps the one needing the most pressure at the riser: its first line and first sprinkler are shown beside it.",
+  );
+  sh.row++;
+  return sh.done(refs);
 };
 
 /**

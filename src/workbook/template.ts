@@ -7,7 +7,7 @@
  *   caution, project and units · water supply (up to three flow tests, a pitot reading through PITOTFLOW, each test
  *   carried to the site by SITETEST) · hazard and design area (DESIGNAREA, DESIGNDENSITY, HOSEALLOWANCE, DURATION), or
  *   for a design by number of sprinklers the storage criteria typed in · sprinklers and the design area's pipes
- *   (HEADFLOW, PIPEID, CFACTOR, ADJUSTAREA, AREADEMAND; or HEADSDEMAND), the fittings inside the area (FITTINGS,
+ *   (HEADFLOW, PIPEID, CFACTOR, ADJUSTAREA, AREADEMAND or, for a grid, GRIDDEMAND; or HEADSDEMAND), the fittings inside the area (FITTINGS,
  *   FRICTION) · the pipe run back to the supply (PIPEID, CFACTOR, FITTINGS helper columns into PIPERUN; the inside hose
  *   where a segment carries it; VELOCITY and FRICTIONRATE beside it) · where the pressure goes · demand at the supply
  *   and the flow through a pump · the design areas compared (this sheet's and the others typed; the least margin
@@ -20,6 +20,7 @@ import {
   type AreaDemandSection,
   breakdownSection,
   candidatesSection,
+  gridDemandSection,
   hazardSection,
   headsDemandSection,
   pipeRunSection,
@@ -58,7 +59,14 @@ export interface TemplateOptions {
  * The estimate worksheet for a scenario. Every formula passes the sheet's Units cell as its `units` argument, so the
  * same layout serves US and SI work.
  */
-export function estimateTemplate(s: Scenario, { areaDemand = s.design.kind === "heads" ? headsDemandSection : treeDemandSection }: TemplateOptions = {}): SheetTemplate {
+/** The demand section of a scenario's design. */
+const DEMAND_SECTIONS: Record<Scenario["design"]["kind"], AreaDemandSection> = {
+  area: treeDemandSection,
+  grid: gridDemandSection,
+  heads: headsDemandSection,
+};
+
+export function estimateTemplate(s: Scenario, { areaDemand = DEMAND_SECTIONS[s.design.kind] }: TemplateOptions = {}): SheetTemplate {
   const built: Array<Section<unknown>> = [];
   let row = 1;
   /** Lay a section down at the current row; its refs, for the sections after it. */
