@@ -263,6 +263,53 @@ const storage: Scenario = {
   ],
 };
 
+/**
+ * A large single-storey assembly hall on a gridded system: both ends of every branch line tied into a cross main, the
+ * riser at a corner. Solved as a grid (GRIDDEMAND) its demand sits inside the supply, with less than the required margin
+ * (Marginal); the same area as a tree, which the sheet shows beside it, would need a pump.
+ */
+const assemblyGrid: Scenario = {
+  units: "US",
+  site: "Fallow Road assembly hall, single storey (sample)",
+  address: "2 Fallow Road, Sampleford",
+  preparedBy: "Sample Hydraulics Office (sample)",
+  flowTests: [
+    {
+      when: "2026-09-08 09:15, hydrant on Fallow Road opposite the gate (sample)",
+      static: 66,
+      residual: 50,
+      flow: 1050,
+      pitot: null,
+      outletDiameter: 2.5,
+      outletCoefficient: 0.9,
+      rise: 0,
+    },
+  ],
+  derate: 0,
+  hazard: "OH2",
+  designArea: null,
+  sprinkler: { kFactor: 5.6, coverage: 120, spacing: 12, minPressure: 7 },
+  branch: { nominal: 1.25, schedule: "40" },
+  crossMain: { nominal: 4, schedule: "40" },
+  material: "steel",
+  system: "wet",
+  design: { kind: "grid", lines: 14, lineLength: 120, feedLine: 1 },
+  areaFittings: "T",
+  velocityLimit: 20,
+  insideHose: null,
+  hydrantsDownstream: false,
+  run: [
+    { label: "Riser with its valves", nominal: 4, schedule: "40", material: "steel", fittings: "E GV CV", length: 30, rise: 26, fixedLoss: 0, insideHose: true },
+    { label: "Backflow preventer", nominal: 4, schedule: "40", material: "steel", fittings: "2GV", length: 5, rise: 0, fixedLoss: 8, insideHose: true },
+    { label: "Underground to the street main", nominal: 6, schedule: "DR14", material: "plastic", fittings: "E GV", length: 160, rise: 3, fixedLoss: 0, insideHose: true },
+  ],
+  requiredMargin: 10,
+  pump: null,
+  suctionMinimum: 20,
+  duration: null,
+  areaName: "Assembly hall, gridded",
+};
+
 /** In the order the preview offers them; the first opens by default. */
 export const SAMPLES: SampleSpec[] = [
   {
@@ -292,6 +339,13 @@ export const SAMPLES: SampleSpec[] = [
     story:
       "A distribution centre with rack storage, designed by number of sprinklers (HEADSDEMAND: 12 sprinklers, four on each of three lines) with the storage chapter's hose allowance and duration typed in; the office block and the dry dock canopy are compared beside it, and the rack storage controls.",
     scenario: storage,
+  },
+  {
+    file: "fallow-road-assembly-hall-gridded.xlsx",
+    title: "Assembly hall on a gridded system: marginal as a grid, a pump as a tree (US)",
+    story:
+      "A large single-storey ordinary hazard group 2 assembly hall whose branch lines are tied at both ends into cross mains; GRIDDEMAND solves the grid as a network and places the design area where it needs the most, and the sheet shows the same area as a tree beside it: the tree would need a pump, the grid is marginal (no pump, if the owner accepts the smaller margin or a pipe is upsized).",
+    scenario: assemblyGrid,
   },
   {
     file: "kiln-lane-workshop-si-units.xlsx",

@@ -523,11 +523,25 @@ export const gridDemandSection: AreaDemandSection = (s, row, { units: U, hazard:
   sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
   const formula = `=${hr("GRIDDEMAND", density, flowed, coverage, k, spacing, lines, lineLength, pipes.branch.id, pipes.main.id, pipes.c, minP, feedLine, U)}`;
   const refs = areaSolve(s, sh, U, "GRIDDEMAND", formula, pipes, { where: "at the riser, placed where it needs the most", placement: true });
+  // the same area as a tree of end-fed lines, for comparison: what piping the grid saves
+  sh.put("A", "header", "For comparison: the same area as a tree");
+  [`Flow (${u.flow})`, `Pressure (${u.pressure})`, "Sprinklers", "Lines", `End sprinkler (${u.pressure})`].forEach((h, i) => sh.put(columnLetters(1 + i), "header", h));
+  sh.row++;
+  sh.put("A", "label", "AREADEMAND");
+  const tree = sh.put("B", "computed", `=${hr("AREADEMAND", density, flowed, coverage, k, spacing, pipes.branch.id, pipes.main.id, pipes.c, minP, U)}`, {
+    format: f.flow,
+    spill: { rows: 1, cols: 5, formats: [f.flow, f.pressure, "0", "0", f.pressure] },
+  });
+  sh.row++;
+  const treePressure = cellAddress({ ...parseCell(tree), col: parseCell(tree).col + 1 });
+  const gridPressure = cellAddress({ ...parseCell(refs.flow), col: parseCell(refs.flow).col + 1 });
+  sh.line("Pressure the grid saves", "computed", `=${treePressure}-${gridPressure}`, u.pressure, "the tree's pressure at its cross main less the grid's at the riser", f.pressure);
   sh.put(
     "A",
     "note",
     "GRIDDEMAND solves the grid as a network (water reaches each sprinkler from both ends of its line) for every place the design area " +
-      "can stand, and keeps the one needing the most pressure at the riser: its first line and first sprinkler are shown beside it.",
+      "can stand, and keeps the one needing the most pressure at the riser: its first line and first sprinkler are shown beside it. " +
+      "AREADEMAND's tree feeds each line from one end only, so it needs more: the run and the verdict below take the grid's.",
   );
   sh.row++;
   return sh.done(refs);
