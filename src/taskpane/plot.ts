@@ -313,7 +313,8 @@ export function renderPlot(doc: Document, d: PlotData, axis: FlowAxis, paneWidth
     if (c.controls) marker(doc, "diamond", PALETTE.demand, "#FFFFFF", g);
     else marker(doc, "circle", "#FFFFFF", PALETTE.candidate, g);
     const o = candidateOffsets.get(i)!;
-    // every name is in the list under the plot; on the plot, the controlling one always, the others where they fit
+    // every name is in the pane's list of the areas compared (and the summary's key inputs); on the plot, the controlling
+    // one always, the others where they fit
     if (!c.controls && !o.clear) return;
     text(doc, candidateLabel(c), {
       x: o.dx,
