@@ -120,7 +120,7 @@ async function main(): Promise<void> {
   await pane.ready;
   toolbarButton("print-summary").addEventListener("click", async () => {
     const readings = await port.readInputs();
-    const m = buildModel(readings);
+    const m = buildModel(readings, port.host);
     if (m.kind === "ready") showSummary(m.estimate, readings);
     else status("No summary yet: fix the inputs the pane lists first, then try again.", true);
   });

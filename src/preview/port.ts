@@ -31,6 +31,7 @@ import type { CellData, SheetData } from "./model";
 import type { PreviewWorkbook } from "./workbook";
 
 export class PreviewPort implements WorkbookPort {
+  readonly host = "preview" as const;
   /** `now` gives the date a share copy is stamped with (a parameter for tests). */
   constructor(
     readonly workbook: PreviewWorkbook,

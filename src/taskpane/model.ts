@@ -27,6 +27,7 @@ import {
   CANDIDATES_NAME,
   INPUT_NAMES,
   type InputName,
+  type PortHost,
   REQUIRED_NAMES,
   type Reading,
   type Readings,
@@ -156,6 +157,11 @@ export interface Estimate {
   requiredMargin: number;
   /** false when Required_Margin is not given and 0 was used (VERDICT's default) */
   requiredMarginGiven: boolean;
+  /**
+   * the optional names the workbook defines on a blank cell, with the cell's address: a blank is said as a blank
+   * cell, not as a name to define
+   */
+  blankAt: Partial<Record<InputName, string>>;
   /** the pump the sheet names, if any */
   pump: PumpRating | null;
   assessment: Assessment;
@@ -277,21 +283,28 @@ function where(r: Reading): string {
  * Why a reading cannot be read at all (a missing name, an error in the cell, a name on several cells), or null: text
  * and empty cells go through the cell functions' own reader instead.
  */
-function numberProblem(name: Exclude<InputName, "Units">, r: Reading): string | null {
+function numberProblem(name: Exclude<InputName, "Units">, r: Reading, host: PortHost): string | null {
   const m = NAME_MEANINGS[name];
   switch (r.kind) {
     case "number":
       return null;
     case "missing":
-      return `${name} is not defined. Select the cell that holds ${m.what}, type ${name} in the Name Box and press Enter, or use New estimate sheet.`;
+      return host === "excel"
+        ? `${name} is not defined. Select the cell that holds ${m.what}, type ${name} in the Name Box and press Enter, or use New estimate sheet.`
+        : `${name} is not defined in this workbook: use New estimate sheet, which defines every name the pane reads (${m.what}), and type your figures into it.`;
     case "empty":
     case "text":
       return null; // read by the cell functions' own reader (toNumber)
     case "error":
       return `${name}${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: fix the cells it is calculated from (Excel shows the message when you point at the cell).`;
     case "invalid":
-      return `${name}: ${r.reason}. Point the name at one cell (Formulas > Name Manager).`;
+      return `${name}: ${r.reason}. ${pointAtOneCell(host)}`;
   }
+}
+
+/** How to point a name at one cell, where the user is. */
+function pointAtOneCell(host: PortHost): string {
+  return host === "excel" ? "Point the name at one cell (Formulas > Name Manager)." : "The preview cannot change names: use New estimate sheet, which defines them.";
 }
 
 function isBlank(r: Reading): boolean {
@@ -299,7 +312,7 @@ function isBlank(r: Reading): boolean {
 }
 
 /** The Units cell read as the cell functions read their `[units]` argument (unitsArg): blank or missing is US. */
-function readUnits(r: Reading): { units: UnitSystem; assumed: boolean } | string {
+function readUnits(r: Reading, host: PortHost): { units: UnitSystem; assumed: boolean } | string {
   if (r.kind === "missing" || r.kind === "empty") return { units: "US", assumed: true };
   if (r.kind === "text" || r.kind === "number") {
     try {
@@ -310,14 +323,14 @@ function readUnits(r: Reading): { units: UnitSystem; assumed: boolean } | string
     }
   }
   if (r.kind === "error") return `Units${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: type US or SI.`;
-  return `Units: ${r.reason}. Point the name at one cell (Formulas > Name Manager).`;
+  return `Units: ${r.reason}. ${pointAtOneCell(host)}`;
 }
 
 /**
  * Turn the readings into an estimate, or say what is wrong. Busy cells (#BUSY!) give "busy" rather than a problem:
  * Excel is still working on them.
  */
-export function buildModel(readings: Readings): PaneModel {
+export function buildModel(readings: Readings, host: PortHost = "excel"): PaneModel {
   const table = readings[CANDIDATES_NAME];
   /**
    * Where a row of the candidates is wrong, the sheet's verdict block (the governing test, Supply_*) shows errors
@@ -332,7 +345,7 @@ export function buildModel(readings: Readings): PaneModel {
   if (busy.length > 0) return { kind: "busy", names: busy };
 
   const problems: Problem[] = [];
-  const u = readUnits(readings.Units);
+  const u = readUnits(readings.Units, host);
   if (typeof u === "string") {
     problems.push({ name: "Units", message: u });
   }
@@ -354,7 +367,7 @@ export function buildModel(readings: Readings): PaneModel {
       }
       return;
     }
-    problems.push({ name: n, message: numberProblem(n, r) ?? `${n} cannot be read.` });
+    problems.push({ name: n, message: numberProblem(n, r, host) ?? `${n} cannot be read.` });
   };
   for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
   // every other name of the verdict and its breakdown is optional (Run_WorstSegment, text, is read on its own below;
@@ -364,15 +377,20 @@ export function buildModel(readings: Readings): PaneModel {
     (n): n is Exclude<InputName, "Units"> => n !== "Units" && n !== "Run_WorstSegment" && !REQUIRED_NAMES.includes(n) && !summaryOnly.includes(n),
   );
   const given = new Set<InputName>();
+  const blankAt: Partial<Record<InputName, string>> = {};
   for (const n of optional) {
-    if (isBlank(readings[n])) continue;
+    const r = readings[n];
+    if (isBlank(r)) {
+      if (r.kind !== "missing") blankAt[n] = r.address ?? n;
+      continue;
+    }
     read(n);
     if (numbers.has(n)) given.add(n);
   }
-  const segment = readLabel(readings.Run_WorstSegment);
+  const segment = readLabel(readings.Run_WorstSegment, host);
   if (segment !== null && typeof segment === "object") problems.push({ name: "Run_WorstSegment", message: segment.problem });
   // the candidates' rows, read before anything that may be calculated from them
-  const rows = readCandidateRows(table, units, problems);
+  const rows = readCandidateRows(table, units, problems, host);
   if (problems.length > 0) return { kind: "problems", problems: rootCauses(problems) };
 
   // Magnitudes: read by the very argument checks the cell functions use (VERDICT, PUMPBOOST, PUMPCURVE), so that
@@ -478,6 +496,7 @@ export function buildModel(readings: Readings): PaneModel {
       hoseFlow: judgesOwn ? (hoseFlow ?? null) : null,
       requiredMargin,
       requiredMarginGiven: given.has("Required_Margin"),
+      blankAt,
       pump,
       assessment,
       verdict,
@@ -567,10 +586,11 @@ function same(a: number, b: number): boolean {
  * pressure through VERDICT's own checks (the sheet checks its rows with VERDICT), its flow through a pump a flow not
  * above its demand flow (blank: its demand flow). Their margins are judgeCandidates' business.
  */
-function readCandidateRows(table: TableReading | undefined, units: UnitSystem, problems: Problem[]): Candidate[] {
+function readCandidateRows(table: TableReading | undefined, units: UnitSystem, problems: Problem[], host: PortHost): Candidate[] {
   if (!table || table.kind === "missing") return [];
   if (table.kind === "invalid") {
-    problems.push({ name: CANDIDATES_NAME, message: `${CANDIDATES_NAME}: ${table.reason}. Point the name at the table of candidates (Formulas > Name Manager).` });
+    const fix = host === "excel" ? "Point the name at the table of candidates (Formulas > Name Manager)." : "The preview cannot change names: use New estimate sheet, which defines it.";
+    problems.push({ name: CANDIDATES_NAME, message: `${CANDIDATES_NAME}: ${table.reason}. ${fix}` });
     return [];
   }
   const out: Candidate[] = [];
@@ -632,11 +652,11 @@ function judgeCandidates(rows: readonly Candidate[], test: FlowTest): Candidate[
  * The label of the worst segment: text (trimmed) or a number as its text; null where blank; a problem where the cell
  * shows an error or the name is not one cell.
  */
-function readLabel(r: Reading): string | null | { problem: string } {
+function readLabel(r: Reading, host: PortHost = "excel"): string | null | { problem: string } {
   if (r.kind === "text") return r.value.trim() === "" ? null : r.value.trim();
   if (r.kind === "number") return String(r.value);
   if (r.kind === "missing" || r.kind === "empty") return null;
-  return { problem: numberProblem("Run_WorstSegment", r) ?? "Run_WorstSegment cannot be read." };
+  return { problem: numberProblem("Run_WorstSegment", r, host) ?? "Run_WorstSegment cannot be read." };
 }
 
 /**

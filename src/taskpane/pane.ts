@@ -13,7 +13,7 @@
  */
 import { formatFlow, formatPressure } from "../engine/decision";
 import { type UnitSystem, fromUS, unitName } from "../engine/units";
-import type { Readings, WorkbookPort } from "../workbook/port";
+import type { InputName, Readings, WorkbookPort } from "../workbook/port";
 import { CAUTION, PALETTE } from "../workbook/look";
 import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, type PlotData, buildModel, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
@@ -143,9 +143,12 @@ function signed(psi: number, units: UnitSystem): string {
 /** The line under the verdict: the margin in pressure and percent, and the margin required. */
 export function marginLine(e: Estimate): string {
   const a = e.assessment;
+  const blank = e.blankAt.Required_Margin;
   const required = e.requiredMarginGiven
     ? `required ${formatPressure(e.requiredMargin, e.units)}`
-    : "no required margin set (define Required_Margin)";
+    : blank
+      ? `no margin required: Required_Margin (${blank}) is blank`
+      : "no required margin set (no Required_Margin name)";
   if (a.margin === null) return `No margin: the supply reaches 0 at ${formatFlow(a.exhaustedAt, e.units)}; ${required}.`;
   const pct = e.marginPercent === null ? "" : `, ${e.marginPercent < 0 ? "−" : ""}${Math.abs(Math.round(e.marginPercent))} % of the ${formatPressure(e.demandPressure, e.units)} demand pressure`;
   return `Margin ${signed(a.margin, e.units)}${pct}; ${required}.`;
@@ -182,7 +185,7 @@ export function suctionLine(e: Estimate): string | null {
   if (!s) return null;
   const u = e.units;
   const which = s.chosen ? "the chosen pump's" : "the suggested pump's";
-  const minimum = `${formatPressure(e.suctionMinimum, u)}${e.suctionMinimumGiven ? "" : " (common practice; set Suction_Minimum)"}`;
+  const minimum = `${formatPressure(e.suctionMinimum, u)}${e.suctionMinimumGiven ? "" : ` (common practice: ${unset(e, "Suction_Minimum")})`}`;
   if (s.pressure === null) {
     return (
       `Main at 150 % of ${which} rated flow (${formatFlow(s.drawn, u)} with the hose beside it): it runs dry at ` +
@@ -193,6 +196,12 @@ export function suctionLine(e: Estimate): string | null {
   return s.below
     ? `${at}, below the ${minimum} it must keep. A pump alone cannot serve: a suction tank or a stronger main is needed.`
     : `${at}, above the ${minimum} it must keep.`;
+}
+
+/** Why an optional name gave nothing: its cell is blank, or the workbook has no such name. */
+function unset(e: Estimate, name: InputName): string {
+  const at = e.blankAt[name];
+  return at ? `${name} (${at}) is blank` : `no ${name} name`;
 }
 
 /** A velocity for a sentence: ft/s or m/s to 0.1. */
@@ -397,8 +406,8 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       ["of which hose", e.hoseFlow === null ? "not given" : formatFlow(e.hoseFlow, u)],
       ["Demand pressure", formatPressure(e.demandPressure, u)],
       ["Flow through a pump", e.pumpFlowGiven ? formatFlow(e.pumpFlow, u) : `${formatFlow(e.pumpFlow, u)} (no Pump_Flow: the demand flow)`],
-      ["Required margin", e.requiredMarginGiven ? formatPressure(e.requiredMargin, u) : "not given (0)"],
-      ["Least pressure the main keeps", e.suctionMinimumGiven ? formatPressure(e.suctionMinimum, u) : `${formatPressure(e.suctionMinimum, u)} (common practice; no Suction_Minimum)`],
+      ["Required margin", e.requiredMarginGiven ? formatPressure(e.requiredMargin, u) : `0 (${unset(e, "Required_Margin")})`],
+      ["Least pressure the main keeps", e.suctionMinimumGiven ? formatPressure(e.suctionMinimum, u) : `${formatPressure(e.suctionMinimum, u)} (common practice: ${unset(e, "Suction_Minimum")})`],
       ["Pump chosen", e.pump ? `${formatFlow(e.pump.ratedFlow, u)} at ${formatPressure(e.pump.ratedPressure, u)}` : "none"],
     ];
     if (u === "SI") rows.push(["Hazard classes", "NFPA 13's, with values converted to SI"]);
@@ -408,7 +417,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
       for (const p of b.parts) rows.push([p.label, signed(p.pressure, u)]);
       const w = b.worst;
       rows.push(["Segment losing the most", w ? `${w.segment}: ${formatPressure(w.loss, u)} at ${formatVelocity(w.velocity, u)}` : "not given"]);
-      if (w) rows.push(["Velocity limit", w.limitGiven ? formatLimit(w.limit, u) : `${formatLimit(w.limit, u)} (common practice; no Velocity_Limit)`]);
+      if (w) rows.push(["Velocity limit", w.limitGiven ? formatLimit(w.limit, u) : `${formatLimit(w.limit, u)} (common practice: ${unset(e, "Velocity_Limit")})`]);
     } else {
       const missing = e.breakdownMissing.length === BREAKDOWN_PARTS.length ? "Pressure_ names" : e.breakdownMissing.join(", ");
       rows.push(["Where the pressure goes", `not given (no ${missing})`]);
@@ -469,7 +478,7 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     try {
       const readings = await port.readInputs();
       if (destroyed) return;
-      const m = buildModel(readings);
+      const m = buildModel(readings, port.host);
       draw(m);
       if (m.kind === "ready") lastReadings = readings;
       if (summaryButton && m.kind !== "busy") summaryButton.disabled = m.kind !== "ready";

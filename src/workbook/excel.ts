@@ -60,6 +60,7 @@ const NAME_PROBES = 40;
 
 export function createExcelPort(host: ExcelHost = officeExcelHost()): WorkbookPort {
   return {
+    host: "excel",
     readInputs: () => host.run(readInputs),
     subscribe: (onChange) => subscribe(host, onChange),
     insertEstimateSheet: (units, scenario) => host.run((ctx) => insertEstimateSheet(ctx, units, scenario)),

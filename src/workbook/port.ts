@@ -134,7 +134,16 @@ export type ShareCopyResult =
   | { ok: true; sheetName: string; sourceSheet: string }
   | { ok: false; reason: string };
 
+/**
+ * Which host a port runs in: Excel (its Name Box and Name Manager define names) or the preview (whose name box shows
+ * the selection and cannot define names: a new estimate sheet defines them). The pane's messages say what the user
+ * can do there.
+ */
+export type PortHost = "excel" | "preview";
+
 export interface WorkbookPort {
+  /** the host the port runs in, for messages that say where to act */
+  readonly host: PortHost;
   /** Read every input name in one go. */
   readInputs(): Promise<Readings>;
   /**

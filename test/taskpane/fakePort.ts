@@ -27,6 +27,7 @@ function toReading(name: InputName, v: number | string | Reading | null | undefi
 }
 
 export class FakePort implements WorkbookPort {
+  host: "excel" | "preview" = "excel";
   readings: Readings;
   listeners = new Set<() => void>();
   reads = 0;

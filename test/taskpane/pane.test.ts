@@ -372,7 +372,7 @@ describe("where the pressure goes", () => {
     expect(rows.get("End sprinkler")).toBe("15.0 psi");
     expect(rows.get("Elevation")).toBe("13.0 psi");
     expect(rows.get("Segment losing the most")).toBe("Cross main to the riser: 42.6 psi at 22.6 ft/s");
-    expect(rows.get("Velocity limit")).toBe("20 ft/s (common practice; no Velocity_Limit)");
+    expect(rows.get("Velocity limit")).toBe("20 ft/s (common practice: no Velocity_Limit name)");
     const plain = await mount(BASE);
     const plainRows = new Map([...plain.$("readings")!.querySelectorAll("dt")].map((dt) => [dt.textContent, dt.nextElementSibling!.textContent]));
     expect(plainRows.get("Where the pressure goes")).toBe("not given (no Pressure_ names)");

@@ -56,7 +56,7 @@ describe("pane states", () => {
     expect(e.suction!.pressure).toBeCloseTo(72 - 14 * (850 / 1100) ** 1.85, 9);
     expect(e.suction!.below).toBe(false);
     expect(pumpLine(e)).toBe("Suggested pump: 500 gpm rated at 25.0 psi, the smallest standard rating for 462 gpm through it and a boost of 22.0 psi.");
-    expect(suctionLine(e)).toMatch(/^Main at 150 % of the suggested pump's rated flow: \d+\.\d psi, above the 20\.0 psi \(common practice; set Suction_Minimum\) it must keep\.$/);
+    expect(suctionLine(e)).toMatch(/^Main at 150 % of the suggested pump's rated flow: \d+\.\d psi, above the 20\.0 psi \(common practice: no Suction_Minimum name\) it must keep\.$/);
   });
 
   it("sizes on the demand flow where the workbook gives no Pump_Flow", () => {

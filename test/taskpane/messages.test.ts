@@ -1,0 +1,66 @@
+/**
+ * The pane's messages point where the user can act: a missing name is fixed by the Name Box in Excel but only by a new
+ * estimate sheet in the preview (whose name box cannot define names); a name defined on a blank cell is reported as
+ * that blank cell, not as a name to define.
+ */
+import { describe, expect, it } from "vitest";
+import { type Estimate, buildModel } from "../../src/taskpane/model";
+import { marginLine, suctionLine } from "../../src/taskpane/pane";
+import { BASE, FakePort, type Values } from "./fakePort";
+
+function problems(v: Values, host: "excel" | "preview"): string[] {
+  const m = buildModel(new FakePort(v).readings, host);
+  if (m.kind !== "problems") throw new Error(JSON.stringify(m));
+  return m.problems.map((p) => p.message);
+}
+
+function ready(v: Values): Estimate {
+  const m = buildModel(new FakePort(v).readings);
+  if (m.kind !== "ready") throw new Error(JSON.stringify(m));
+  return m.estimate;
+}
+
+describe("a name the workbook does not define", () => {
+  const withoutPressure: Values = { ...BASE };
+  delete withoutPressure.Demand_Pressure;
+
+  it("in Excel: select the cell, type the name in the Name Box, or insert a new estimate sheet", () => {
+    expect(problems(withoutPressure, "excel")).toEqual([
+      "Demand_Pressure is not defined. Select the cell that holds the pressure the system needs at the supply, type Demand_Pressure in the Name Box and press Enter, or use New estimate sheet.",
+    ]);
+  });
+
+  it("in the preview, whose name box cannot define names: a new estimate sheet, never the Name Box", () => {
+    const [message] = problems(withoutPressure, "preview");
+    expect(message).not.toMatch(/Name Box|Name Manager/);
+    expect(message).toBe(
+      "Demand_Pressure is not defined in this workbook: use New estimate sheet, which defines every name the pane reads (the pressure the system needs at the supply), and type your figures into it.",
+    );
+  });
+
+  it("a name on several cells: Excel's Name Manager, or in the preview a new estimate sheet", () => {
+    const several = { kind: "invalid", reason: "Demand_Pressure refers to several cells (Estimate!B5:B6); point it at one cell", address: "Estimate!B5:B6" } as const;
+    expect(problems({ ...BASE, Demand_Pressure: several }, "excel")[0]).toMatch(/Formulas > Name Manager/);
+    expect(problems({ ...BASE, Demand_Pressure: several }, "preview")[0]).toMatch(/use New estimate sheet/);
+    expect(problems({ ...BASE, Demand_Pressure: several }, "preview")[0]).not.toMatch(/Name Manager/);
+  });
+});
+
+describe("an optional name on a blank cell", () => {
+  it("says the required margin's cell is blank (none required), not that the name should be defined", () => {
+    const blank = ready({ ...BASE, Required_Margin: null });
+    expect(marginLine(blank)).toMatch(/no margin required: Required_Margin \(Estimate!B\d+\) is blank\.$/);
+    expect(marginLine(blank)).not.toMatch(/define/);
+    // and without the name at all, that it is not defined
+    const missing = ready(BASE);
+    expect(marginLine(missing)).toMatch(/no required margin set \(no Required_Margin name\)\.$/);
+  });
+
+  it("says the main's minimum cell is blank and the common-practice 20 psi is used", () => {
+    // a pump is needed: 100 psi at 562 gpm on BASE's supply of 67.96 psi there [NFPA 291]
+    const e = ready({ ...BASE, Demand_Pressure: 100, Suction_Minimum: null });
+    expect(suctionLine(e)).toMatch(/20\.0 psi \(common practice: Suction_Minimum \(Estimate!B\d+\) is blank\)/);
+    const missing = ready({ ...BASE, Demand_Pressure: 100 });
+    expect(suctionLine(missing)).toMatch(/20\.0 psi \(common practice: no Suction_Minimum name\)/);
+  });
+});
