@@ -296,10 +296,47 @@ function numberProblem(name: Exclude<InputName, "Units">, r: Reading, host: Port
     case "text":
       return null; // read by the cell functions' own reader (toNumber)
     case "error":
-      return `${name}${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: fix the cells it is calculated from (Excel shows the message when you point at the cell).`;
+      return `${name}${where(r)} shows ${r.code}${r.message ? ` ${r.message}` : ""}: fix the cells it is calculated from ${pointAt(host)}.`;
     case "invalid":
       return `${name}: ${r.reason}. ${pointAtOneCell(host)}`;
   }
+}
+
+/**
+ * Names that show one and the same error (one input's text reaching both SITETEST's static and residual, say) are one
+ * thing to fix, not several: they are said once, together, so that "N inputs need attention" counts causes.
+ */
+function sameCause(found: Problem[], readings: Readings, host: PortHost): Problem[] {
+  const errorOf = (p: Problem) => {
+    const r = p.name === CANDIDATES_NAME ? undefined : readings[p.name];
+    return r?.kind === "error" && r.message ? `${r.code} ${r.message}` : null;
+  };
+  const out: Problem[] = [];
+  const groups = new Map<string, Problem[]>();
+  for (const p of found) {
+    const key = errorOf(p);
+    if (key === null) out.push(p);
+    else if (groups.has(key)) groups.get(key)!.push(p);
+    else {
+      const group = [p];
+      groups.set(key, group);
+      out.push(p); // the group's place in the list: its first name's
+    }
+  }
+  return out.map((p) => {
+    const key = errorOf(p);
+    const group = key === null ? [p] : groups.get(key)!;
+    if (group.length < 2) return p;
+    const r = readings[p.name as InputName] as Extract<Reading, { kind: "error" }>;
+    const names = group.map((g) => `${g.name}${where(readings[g.name as InputName])}`);
+    const list = `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]}`;
+    return { name: p.name, message: `${list} show ${r.code} ${r.message}: one cause; fix the cells they are calculated from ${pointAt(host)}.` };
+  });
+}
+
+/** Where the user reads a cell's own message. */
+function pointAt(host: PortHost): string {
+  return host === "excel" ? "(Excel shows the message when you point at the cell)" : "(the preview shows the message when you select the cell)";
 }
 
 /** How to point a name at one cell, where the user is. */
@@ -338,7 +375,11 @@ export function buildModel(readings: Readings, host: PortHost = "excel"): PaneMo
    * which are its consequence (an error of their own shows once the row is fixed).
    */
   const rootCauses = (found: Problem[]): Problem[] =>
-    found.some((p) => p.name === CANDIDATES_NAME) ? found.filter((p) => p.name === CANDIDATES_NAME || readings[p.name as InputName]?.kind !== "error") : found;
+    sameCause(
+      found.some((p) => p.name === CANDIDATES_NAME) ? found.filter((p) => p.name === CANDIDATES_NAME || readings[p.name as InputName]?.kind !== "error") : found,
+      readings,
+      host,
+    );
   const busyCell = (r: Reading) => r.kind === "error" && r.code === "#BUSY!";
   const busy: WorkbookName[] = INPUT_NAMES.filter((n) => busyCell(readings[n]));
   if (table?.kind === "table" && table.rows.some((row) => row.some(busyCell))) busy.push(CANDIDATES_NAME);

@@ -64,3 +64,26 @@ describe("an optional name on a blank cell", () => {
     expect(suctionLine(missing)).toMatch(/20\.0 psi \(common practice: no Suction_Minimum name\)/);
   });
 });
+
+describe("one cause, said once", () => {
+  it("counts two names that show the same error as one thing to fix, naming both", () => {
+    // text typed in test 1's static reaches SITETEST, whose spill feeds both Supply_Static and Supply_Residual
+    const error = (address: string) => ({ kind: "error", code: "#VALUE!", message: 'static_pressure: got "abc"; must be a number', address }) as const;
+    const found = problems({ ...BASE, Supply_Static: error("Estimate!B70"), Supply_Residual: error("Estimate!B71") }, "excel");
+    expect(found).toEqual([
+      'Supply_Static (Estimate!B70) and Supply_Residual (Estimate!B71) show #VALUE! static_pressure: got "abc"; must be a number: one cause; fix the cells they are calculated from (Excel shows the message when you point at the cell).',
+    ]);
+  });
+
+  it("keeps two different errors apart", () => {
+    const found = problems(
+      {
+        ...BASE,
+        Supply_Static: { kind: "error", code: "#VALUE!", message: "one", address: "Estimate!B70" },
+        Supply_Residual: { kind: "error", code: "#VALUE!", message: "two", address: "Estimate!B71" },
+      },
+      "excel",
+    );
+    expect(found).toHaveLength(2);
+  });
+});
