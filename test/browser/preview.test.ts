@@ -347,6 +347,32 @@ describe("several design areas", () => {
   });
 });
 
+describe("a 320 px window", () => {
+  test("keeps the grid usable, with the pane stacked under it", async () => {
+    const narrow = await context.newPage();
+    try {
+      await narrow.setViewportSize({ width: 320, height: 720 });
+      await narrow.goto(`${base}preview/?sample=${encodeURIComponent(PUMP_SAMPLE)}`);
+      await narrow.waitForSelector("body[data-ready]", { timeout: 60_000 });
+      const sheet = (await narrow.locator(".sheet").boundingBox())!;
+      const pane = (await narrow.locator('[data-role="pane-host"]').boundingBox())!;
+      // the grid takes the window's width (less nothing but its border), and the pane comes below it, as wide
+      expect(sheet.width).toBeGreaterThanOrEqual(300);
+      expect(sheet.height).toBeGreaterThanOrEqual(200);
+      expect(pane.y).toBeGreaterThanOrEqual(sheet.y + sheet.height - 1);
+      expect(pane.width).toBeGreaterThanOrEqual(300);
+      // nothing of the page is wider than the window
+      expect(await narrow.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
+      // a click selects the cell, typing lands there, and the pane follows
+      await narrow.locator('[data-role="grid"] td[data-address="B13"]').click();
+      expect((await narrow.locator('[data-role="name-box"]').textContent())?.trim()).toBe("B13");
+      await narrow.screenshot({ path: `${RESULTS}/preview-320.png`, fullPage: true });
+    } finally {
+      await narrow.close();
+    }
+  });
+});
+
 describe("the plot's labels", () => {
   test("never overlap one another or a marker, in every sample, on both flow axes, at 320 and 420 px", async () => {
     const { samples } = JSON.parse(await readFile("samples/index.json", "utf8")) as { samples: Array<{ file: string }> };
