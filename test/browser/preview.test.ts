@@ -510,6 +510,72 @@ describe("the pane's actions on the preview's workbook", () => {
   });
 });
 
+describe("input lands where the user typed it", () => {
+  /** A new US estimate sheet from the pane, active and settled. */
+  async function newSheet(): Promise<void> {
+    await open(OFFICE_SAMPLE);
+    await page.selectOption('[data-role="units"]', "US");
+    await page.click('[data-role="new-sheet"]');
+    await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet="Estimate 2"][aria-selected="true"]');
+    await settle();
+  }
+
+  /** Click the middle of a cell with the mouse, as a user does (whatever is drawn there takes the click). */
+  async function clickAt(address: string): Promise<void> {
+    const td = cell(address);
+    await td.scrollIntoViewIfNeeded();
+    const box = (await td.boundingBox())!;
+    await page.mouse.click(box.x + box.width / 2, box.y + box.height / 2);
+  }
+
+  const content = (address: string) =>
+    page.evaluate((address) => {
+      const wb = (window as unknown as { headroomPreview: { workbook: { activeSheet: string; content(s: string, a: string): unknown } } }).headroomPreview.workbook;
+      return wb.content(wb.activeSheet, address);
+    }, address);
+
+  test("a click selects the empty cell under the pointer, not the label whose text runs over it", async () => {
+    await newSheet();
+    const direct = await valueCellOf("Flow measured directly (gpm)");
+    const label = `A${direct.slice(1)}`;
+    expect(await content(direct)).toBeNull();
+    await clickAt(direct);
+    expect(await page.locator('[data-role="name-box"]').textContent()).toBe(direct);
+    await page.keyboard.type("1250");
+    await page.keyboard.press("Enter");
+    await settle();
+    expect(await content(direct)).toBe(1250);
+    expect(await content(label)).toBe("Flow measured directly (gpm)");
+    // the estimate now takes the flow typed, not the demo's pitot reading
+    expect(await page.evaluate(() => {
+      type Wb = { nameTarget(n: string): { sheet: string; address: string } | null; value(s: string, a: string): unknown };
+      const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
+      const t = wb.nameTarget("Supply_TestFlow")!;
+      return wb.value(t.sheet, t.address);
+    })).toBe(1250);
+  });
+
+  test("an emptied cell of the pipe-run table takes the click and the typing, not the cell before it", async () => {
+    await newSheet();
+    const row = (await labelAddress("Riser with its valves")).slice(1);
+    const material = `D${row}`;
+    const fittings = `E${row}`;
+    const before = await content(material);
+    expect(typeof before).toBe("string");
+    await clickAt(fittings);
+    await page.keyboard.press("Delete");
+    await settle();
+    expect(await content(fittings)).toBeNull();
+    await clickAt(fittings);
+    expect(await page.locator('[data-role="name-box"]').textContent()).toBe(fittings);
+    await page.keyboard.type("GV");
+    await page.keyboard.press("Enter");
+    await settle();
+    expect(await content(fittings)).toBe("GV");
+    expect(await content(material)).toBe(before);
+  });
+});
+
 describe("what the page loads", () => {
   test("nothing but this server: no remote request, no page error, no console error", () => {
     expect(requests.length).toBeGreaterThan(5);
