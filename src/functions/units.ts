@@ -62,6 +62,8 @@ export function convertUnit(value: number, from: unknown, to: unknown): number {
   const [fromKey, a] = lookup(from, "from");
   const [toKey, b] = lookup(to, "to");
   if (a.kind !== b.kind) fail("to", { cell: to }, `must be a unit of ${a.kind} like ${fromKey}; ${toKey} is a unit of ${b.kind}`);
+  // to the same unit: the value itself, every digit (the estimate sheet reads a typed number this way)
+  if (fromKey === toKey) return value;
   return (value * baseValue(a)) / baseValue(b);
 }
 

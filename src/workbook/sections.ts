@@ -86,6 +86,25 @@ function text(s: string): string {
   return `"${s.replace(/"/g, '""')}"`;
 }
 
+/**
+ * A number typed into an input that may be left blank, as a formula: the number itself (numeric text as its number),
+ * anything else an error in the cell that reads it, with UNIT's own message quoting what was typed
+ * (`value: got "1250 gpm"; must be a number`). UNIT from a unit to the same unit changes nothing. Blank is the
+ * caller's business: `IF(ISBLANK(cell), fallback, typedNumber(cell, unit))`, so that text never takes the fallback.
+ */
+function typedNumber(address: string, unit: string): string {
+  const code = text(unit.replace("²", "2")); // UNIT's own spelling, plain ASCII in the formula
+  return hr("UNIT", address, code, code);
+}
+
+/**
+ * Minutes typed into an input (no cell function reads a duration, so no function's message can say what is wrong):
+ * the number, an error that comes with it, or a sentence naming the cell to type a number into.
+ */
+function typedMinutes(value: string, input: string, whenNumber = value): string {
+  return `IF(ISNUMBER(${value}),${whenNumber},IF(ISERROR(${value}),${value},"type a number of minutes in ${input}"))`;
+}
+
 /** One section's cells and names as they are written, row by row from its first row. */
 class SectionWriter {
   readonly cells: TemplateCell[] = [];
@@ -187,6 +206,8 @@ export interface HazardRefs {
   insideHose: string;
   /** minutes the supply must last */
   duration: string;
+  /** the cell a duration is typed into (the duration itself, or the duration chosen) */
+  durationInput: string;
 }
 
 /** The design area's demand where the run back to the supply starts, whichever way a section finds it. */
@@ -288,7 +309,7 @@ export function waterSupplySection(s: Scenario, row: number, { units: U }: Units
   const pitotFlow = cols.map((c, i) => sh.put(c, "computed", `=IF(ISBLANK(${pitot[i]}),"",${hr("PITOTFLOW", pitot[i], outlet[i], coef[i], U)})`, { format: f.flow }));
   sh.row++;
   sh.put("A", "label", `Test flow used (${u.flow})`);
-  const testFlow = cols.map((c, i) => sh.put(c, "computed", `=IF(ISBLANK(${direct[i]}),${pitotFlow[i]},${direct[i]})`, { format: f.flow }));
+  const testFlow = cols.map((c, i) => sh.put(c, "computed", `=IF(ISBLANK(${direct[i]}),${pitotFlow[i]},${typedNumber(direct[i], u.flow)})`, { format: f.flow }));
   sh.row++;
   sh.put(
     "A",
@@ -336,7 +357,7 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
       : "LH, OH1, OH2, EH1 or EH2: NFPA 13's occupancy classes (not storage: design storage by number of sprinklers)";
   const hazard = sh.line("Occupancy hazard", "input", s.hazard, "", classes);
   const areaChosen = sh.line("Design area chosen", "input", s.designArea, u.area, "leave blank for the smallest area on the hazard's curve", f.area);
-  const area = sh.line("Design area", "computed", `=IF(ISBLANK(${areaChosen}),${hr("DESIGNAREA", hazard, U)},${areaChosen})`, u.area, "DESIGNAREA", f.area);
+  const area = sh.line("Design area", "computed", `=IF(ISBLANK(${areaChosen}),${hr("DESIGNAREA", hazard, U)},${typedNumber(areaChosen, u.area)})`, u.area, "DESIGNAREA", f.area);
   sh.name("Design_Hazard", hazard, "Occupancy hazard of the design, for the one-page summary");
   const density = sh.line("Design density", "computed", `=${hr("DESIGNDENSITY", hazard, area, U)}`, u.density, "DESIGNDENSITY, read at the design area", f.density);
   const hose = sh.line("Hose stream allowance, inside + outside", "computed", `=${hr("HOSEALLOWANCE", hazard, text("total"), U)}`, u.flow, "HOSEALLOWANCE", f.flow);
@@ -344,7 +365,7 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
   const insideHose = sh.line(
     "Inside hose allowance",
     "computed",
-    `=IF(ISBLANK(${insideChosen}),${hr("HOSEALLOWANCE", hazard, text("inside"), U)},${insideChosen})`,
+    `=IF(ISBLANK(${insideChosen}),${hr("HOSEALLOWANCE", hazard, text("inside"), U)},${typedNumber(insideChosen, u.flow)})`,
     u.flow,
     "HOSEALLOWANCE inside: part of the total above",
     f.flow,
@@ -353,12 +374,12 @@ export function hazardSection(s: Scenario, row: number, { units: U }: UnitsRefs)
   const duration = sh.line(
     "Supply duration",
     "computed",
-    `=IF(ISBLANK(${durationChosen}),${hr("DURATION", hazard, text("max"))},${durationChosen})`,
+    `=IF(ISBLANK(${durationChosen}),${hr("DURATION", hazard, text("max"))},${typedMinutes(durationChosen, durationChosen)})`,
     "min",
     "DURATION [NFPA 13]",
     "0",
   );
-  return sh.done({ hazard, area, density, hose, insideHose, duration });
+  return sh.done({ hazard, area, density, hose, insideHose, duration, durationInput: durationChosen });
 }
 
 /**
@@ -376,9 +397,9 @@ export function storageCriteriaSection(s: Scenario, row: number): Section<Hazard
   sh.name("Design_Hazard", stored, "What is stored, for the one-page summary");
   const hose = sh.line("Hose stream allowance, inside + outside", "input", d.hose, u.flow, "from the storage chapter (often 250 to 500 gpm)", f.flow);
   const insideChosen = sh.line("Inside hose allowance chosen", "input", s.insideHose, u.flow, "part of the total above; leave blank for none", f.flow);
-  const insideHose = sh.line("Inside hose allowance", "computed", `=IF(ISBLANK(${insideChosen}),0,${insideChosen})`, u.flow, "", f.flow);
+  const insideHose = sh.line("Inside hose allowance", "computed", `=IF(ISBLANK(${insideChosen}),0,${typedNumber(insideChosen, u.flow)})`, u.flow, "", f.flow);
   const duration = sh.line("Supply duration", "input", d.duration, "min", "from the storage chapter (often 60 to 150 min)", "0");
-  return sh.done({ hazard: null, area: null, density: null, hose, insideHose, duration });
+  return sh.done({ hazard: null, area: null, density: null, hose, insideHose, duration, durationInput: duration });
 }
 
 /** The pipes of the design area (branch lines, cross main), their material, the system and C: rows both demand sections share. */
@@ -822,7 +843,7 @@ export function candidatesSection(
   const name = sh.line("Controlling design area", "computed", `=${pick("A")}&""`, "", "the least margin; the first on a tie");
   const flow = sh.line("Its demand flow, sprinklers + hose", "computed", `=${pick("B")}`, u.flow, "", f.flow);
   const pressure = sh.line("Its pressure at the supply", "computed", `=${pick("C")}`, u.pressure, "", f.pressure);
-  const pumpFlow = sh.line("Its flow through a pump", "computed", `=IF(${pick("D")}&""="",${flow},${pick("D")})`, u.flow, "blank in the table: its demand flow", f.flow);
+  const pumpFlow = sh.line("Its flow through a pump", "computed", `=IF(${pick("D")}&""="",${flow},${typedNumber(pick("D"), u.flow)})`, u.flow, "blank in the table: its demand flow", f.flow);
   return sh.done({ name, flow, pressure, pumpFlow, othersFlow: `B${first + 1}:B${last}`, othersPressure: `C${first + 1}:C${last}` });
 }
 
@@ -924,8 +945,8 @@ export function verdictSection(
   const sizeAt = parseCell(size);
   const sizePressure = cellAddress({ row: sizeAt.row, col: sizeAt.col + 1 });
   sh.put("A", "label", "Pump checked");
-  const ratedFlow = sh.put("B", "computed", `=IF(${chosen},${chosenFlow},IF(ISNUMBER(${size}),${size},""))`, { format: f.flow });
-  sh.put("C", "computed", `=IF(${chosen},${chosenPressure},IF(ISNUMBER(${sizePressure}),${sizePressure},""))`, { format: f.pressure });
+  const ratedFlow = sh.put("B", "computed", `=IF(${chosen},${typedNumber(chosenFlow, u.flow)},IF(ISNUMBER(${size}),${size},""))`, { format: f.flow });
+  sh.put("C", "computed", `=IF(${chosen},${typedNumber(chosenPressure, u.pressure)},IF(ISNUMBER(${sizePressure}),${sizePressure},""))`, { format: f.pressure });
   sh.put("D", "note", "the pump chosen, else the suggestion");
   sh.row++;
   const pumped = `OR(${chosen},ISNUMBER(${size}))`;
@@ -971,7 +992,7 @@ export function verdictSection(
   sh.line(
     "Suction tank, estimated volume",
     "computed",
-    `=IF(OR(${Q}>=${dryAt},${suctionShort}),${volume},"not needed")`,
+    `=IF(OR(${Q}>=${dryAt},${suctionShort}),${typedMinutes(duration, hazard.durationInput, volume)},"not needed")`,
     s.units === "SI" ? "m³" : "gal",
     "where the main cannot feed a pump: demand flow (sprinklers + hose) × duration",
     s.units === "SI" ? "0.0" : "#,##0",

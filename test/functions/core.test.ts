@@ -214,6 +214,14 @@ describe("UNIT (mathjs)", () => {
     expect(f.unit(5.6, "K-US", "K-SI")).toBeCloseTo(80.7, 1);
     expect(f.unit(80, " k-si ", "K-US")).toBeCloseTo(5.55, 2);
   });
+  it("to the same unit: the value itself, every digit; text quoted as not a number (the estimate sheet reads typed numbers so)", () => {
+    // through SI base units and back, 0.121 gpm and 0.007 ft² would lose their last bit (0.121 × b / b ≠ 0.121 in
+    // floating point, b the size of a gpm in m³/s); to the same unit, in either spelling, they keep it
+    expect(f.unit(0.121, "gpm", "gpm")).toBe(0.121);
+    expect(f.unit(0.007, "ft²", "ft2")).toBe(0.007);
+    expect(f.unit("1250", "gpm", "gpm")).toBe(1250);
+    expect(errorOf(() => f.unit("1250 gpm", "gpm", "gpm")).message).toBe('value: got "1250 gpm"; must be a number');
+  });
   it("refuses conversions across kinds and unknown units, listing the accepted ones", () => {
     expect(errorOf(() => f.unit(1, "gpm", "psi")).message).toBe('to: got "psi"; must be a unit of flow like gpm; psi is a unit of pressure');
     expect(errorOf(() => f.unit(1, "furlong", "m")).message).toMatch(/from: got "furlong"; must be one of "gpm", "L\/min"/);

@@ -44,7 +44,7 @@ const supply = {
   ],
 };
 const used = { static: "B901", residual: "B902", testFlow: "B903" };
-const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907", insideHose: "B915", duration: "B917" };
+const hazard = { hazard: "B904", area: "B905", density: "B906", hose: "B907", insideHose: "B915", duration: "B917", durationInput: "B916" };
 const area = { flow: "B908", pressure: "C908", endPressure: "F908", system: "B909", source: "AREADEMAND" };
 const run = {
   pressureAfter: "Q910",

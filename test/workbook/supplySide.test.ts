@@ -186,7 +186,7 @@ describe("text where a number belongs is said, never read as blank", () => {
   it("a design area typed as text is an error, not the curve's smallest area", async () => {
     const { at, wb, row } = await sheet(us());
     wb.setContent("Estimate", `B${row("Design area chosen")}`, "big");
-    expect(at("Design area")).toBe("big");
+    expect(at("Design area")).toMatchObject({ error: "#VALUE!", message: 'value: got "big"; must be a number' });
     expect(at("Design density")).toMatchObject({ error: "#VALUE!" });
   });
 
