@@ -3,7 +3,7 @@
  * the estimate template uses ("0", "0.0", "0.000", "#,##0", "0%", "0.0%") and a general format for the rest;
  * parsing what a user types into a cell.
  */
-import type { CellContent } from "./model";
+import { type CellContent, isFormula, textContent } from "./model";
 
 /** A value as the engine gives it. */
 export type ShownValue = number | string | boolean | null | { error: string; message?: string };
@@ -59,10 +59,11 @@ const PERCENT = /^([+-]?(\d+(\.\d*)?|\.\d+))\s*%$/;
 
 /**
  * What a user typed into a cell → its content: a formula ("=…"), a number ("12.5", "1,250", "1e3", "15%"), TRUE or
- * FALSE, text (a leading apostrophe keeps numeric-looking text as text), or null for nothing.
+ * FALSE, text (a leading apostrophe keeps what follows text as it is: numeric-looking text, and "'=1+1" the text
+ * "=1+1", held behind its apostrophe: ./model's textContent), or null for nothing.
  */
 export function parseTyped(typed: string): CellContent {
-  if (typed.startsWith("'")) return typed.slice(1);
+  if (typed.startsWith("'")) return textContent(typed.slice(1));
   const t = typed.trim();
   if (t === "") return null;
   if (t.startsWith("=") && t.length > 1) return t;
@@ -81,7 +82,8 @@ export function contentText(c: CellContent): string {
   if (c === null) return "";
   if (typeof c === "boolean") return c ? "TRUE" : "FALSE";
   if (typeof c === "number") return String(c);
-  // numeric-looking text keeps its apostrophe so that committing it again leaves it text
-  if (parseTyped(c) !== c && !c.startsWith("=")) return `'${c}`;
+  // numeric-looking text keeps its apostrophe so that committing it again leaves it text (text held behind one,
+  // "'=1+1", is shown as it is held)
+  if (parseTyped(c) !== c && !isFormula(c)) return `'${c}`;
   return c;
 }

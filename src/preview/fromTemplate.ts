@@ -5,14 +5,14 @@
 import { absoluteRef, cellAddress, columnIndex, parseCell } from "../workbook/a1";
 import { ROLE_STYLES, wrappedLines } from "../workbook/look";
 import type { SheetTemplate } from "../workbook/sheet";
-import type { CellData, DefinedName, SheetData } from "./model";
+import { type CellData, type DefinedName, type SheetData, textContent } from "./model";
 
 /** The template's sheet, named `sheetName` (the host may have had to rename it). */
 export function templateSheet(t: SheetTemplate, sheetName = t.sheetName): SheetData {
   const cells: Record<string, CellData> = {};
   for (const c of t.cells) {
     const look = ROLE_STYLES[c.role];
-    const content = c.formula ?? (c.value === undefined ? null : c.value);
+    const content = c.formula ?? (c.value === undefined ? null : typeof c.value === "string" ? textContent(c.value) : c.value);
     cells[c.address] = {
       content: content === "" ? null : content,
       style: {

@@ -10,6 +10,7 @@
 import { cellAddress, columnLetters, parseCell, parseRange } from "../workbook/a1";
 import { DEFAULT_COLUMN_WIDTH_PT } from "../workbook/look";
 import { contentText } from "./format";
+import { isFormula } from "./model";
 import type { CellView, PreviewWorkbook } from "./workbook";
 
 /** Points to CSS pixels. */
@@ -206,7 +207,7 @@ export class Grid {
   private fillCell(td: HTMLTableCellElement, v: CellView, overflowPx: number): void {
     const role = v.style?.role;
     if (role) td.classList.add(`role-${role}`);
-    else if (typeof v.content === "string" && v.content.startsWith("=")) td.classList.add("role-computed");
+    else if (isFormula(v.content)) td.classList.add("role-computed");
     if (v.style?.bold) td.classList.add("bold");
     if (v.style?.italic) td.classList.add("italic");
     if (v.style?.wrap) td.classList.add("wrap");

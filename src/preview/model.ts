@@ -7,8 +7,27 @@
  */
 import type { CellRole as TemplateRole } from "../workbook/look";
 
-/** What a cell holds as typed: a number, text, a boolean, a formula ("=…"), or nothing. */
+/**
+ * What a cell holds as typed: a number, text, a boolean, a formula ("=…"), or nothing. Text that would read as a
+ * formula is written as a user types it, behind an apostrophe: "'=1+1" is the text "=1+1" (and "''x" the text "'x");
+ * `textContent` writes text so, `textOf` reads it back. Any other string is text as it stands.
+ */
 export type CellContent = number | string | boolean | null;
+
+/** True for a formula ("=…"); text beginning with "=" is held behind an apostrophe and is not one. */
+export function isFormula(content: CellContent | undefined): content is string {
+  return typeof content === "string" && content.startsWith("=");
+}
+
+/** Text as a cell's content: behind an apostrophe where it begins with "=" or an apostrophe. */
+export function textContent(text: string): string {
+  return text.startsWith("=") || text.startsWith("'") ? `'${text}` : text;
+}
+
+/** The text a (non-formula) string content stands for: the apostrophe off. */
+export function textOf(content: string): string {
+  return content.startsWith("'") ? content.slice(1) : content;
+}
 
 /** A computed value as a file caches it: a number, text, boolean, or an error code with its message. */
 export type CachedValue = number | string | boolean | null | { error: string; message?: string };

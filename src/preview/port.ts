@@ -27,7 +27,7 @@ import {
 import { demoScenario, type Scenario } from "../workbook/scenario";
 import { estimateTemplate } from "../workbook/template";
 import { templateNames, templateSheet } from "./fromTemplate";
-import type { CellData, SheetData } from "./model";
+import { type CellData, type SheetData, textContent } from "./model";
 import type { PreviewWorkbook } from "./workbook";
 
 export class PreviewPort implements WorkbookPort {
@@ -142,7 +142,8 @@ export class PreviewPort implements WorkbookPort {
       const a = parseCell(v.address);
       const to = cellAddress({ row: a.row + SHARE_STAMP_ROWS, col: a.col });
       const value = v.value as number | string | boolean | null;
-      cells[to] = { content: value, ...(v.style ? { style: v.style } : {}) };
+      // text as text: "=HYPERLINK(…)" shown by a cell is held behind an apostrophe, never a live formula in the copy
+      cells[to] = { content: typeof value === "string" ? textContent(value) : value, ...(v.style ? { style: v.style } : {}) };
     }
     const merges = wb.mergedRanges(source).map((m) =>
       m

@@ -7,7 +7,7 @@
 import { DetailedCellError, HyperFormula } from "hyperformula";
 import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformula";
 import { absoluteRef, cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
-import type { CachedValue, CellContent, CellData, CellStyle, DefinedName, PrintSetup, SheetData, WorkbookData } from "./model";
+import { type CachedValue, type CellContent, type CellData, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
 import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
 import { normaliseTypedFormula } from "./formulaText";
 
@@ -189,7 +189,7 @@ export class PreviewWorkbook {
   /** Put what a user typed into a cell: formulas, numbers, TRUE/FALSE and text as a spreadsheet reads them. */
   setTyped(sheet: string, address: string, typed: string): void {
     const content = parseTyped(typed);
-    this.setContent(sheet, address, typeof content === "string" ? normaliseTypedFormula(content) : content);
+    this.setContent(sheet, address, isFormula(content) ? normaliseTypedFormula(content) : content);
   }
 
   setStyle(sheet: string, address: string, style: CellStyle | undefined): void {
@@ -383,13 +383,13 @@ function cachedOf(v: ShownValue): CachedValue {
  * schedule "40" a number.
  */
 function toEngine(content: CellContent): RawCellContent {
-  if (typeof content === "string" && !content.startsWith("=")) return `'${content}`;
+  if (typeof content === "string" && !isFormula(content)) return `'${textOf(content)}`;
   return content;
 }
 
-/** The engine's serialized text → the content (the apostrophe off). */
+/** The engine's serialized text → the content: a formula as it is, text from behind the engine's apostrophe. */
 function fromEngineText(v: string): CellContent {
-  return v.startsWith("'") ? v.slice(1) : v;
+  return v.startsWith("'") ? textContent(v.slice(1)) : v;
 }
 
 /** A sheet's cells as the engine's rows of raw content. */

