@@ -49,6 +49,20 @@ export function templateSheet(t: SheetTemplate, sheetName = t.sheetName): SheetD
   return { name: sheetName, cells, columnWidths, merges, rowHeights, print: { ...t.print } };
 }
 
+/**
+ * A sheet built from the demo scenario (a new estimate sheet) with its demo values marked: every input holding a value,
+ * but the Units cell, which the user chose in the pane.
+ */
+export function markDemoValues(sheet: SheetData, t: SheetTemplate): SheetData {
+  const units = t.names.find((n) => n.name === "Units")?.address;
+  const cells: Record<string, CellData> = {};
+  for (const [address, c] of Object.entries(sheet.cells)) {
+    const demo = c.style?.role === "input" && c.content !== null && address !== units;
+    cells[address] = demo ? { ...c, style: { ...c.style, demo: true } } : c;
+  }
+  return { ...sheet, cells };
+}
+
 /** The template's names, pointing at `sheetName`. */
 export function templateNames(t: SheetTemplate, sheetName = t.sheetName): DefinedName[] {
   return t.names.map((n) => ({ name: n.name, ref: absoluteRef(sheetName, n.address) }));

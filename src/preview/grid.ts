@@ -42,7 +42,11 @@ function isEmpty(v: CellView): boolean {
   return (v.value === null || v.value === "") && v.content === null;
 }
 
+/** What a demo value's cell says, as its title and on the message line. */
+const DEMO_NOTE = "Demo value of a new estimate sheet: type your own over it (F2, then Enter, keeps this one as yours).";
+
 function describeRole(v: CellView): string {
+  if (v.style?.demo) return DEMO_NOTE;
   switch (v.style?.role) {
     case "input":
       return "Input: type a new value.";
@@ -211,6 +215,11 @@ export class Grid {
     if (v.style?.bold) td.classList.add("bold");
     if (v.style?.italic) td.classList.add("italic");
     if (v.style?.wrap) td.classList.add("wrap");
+    if (v.style?.demo) {
+      td.classList.add("demo");
+      td.dataset.demo = "true";
+      td.title = DEMO_NOTE;
+    }
     const value = v.value;
     let shownText = v.display;
     if (value !== null && typeof value === "object") {
@@ -361,7 +370,8 @@ export class Grid {
   commit(typed: string, move: "down" | "up" | "left" | "right" | null): void {
     const editing = this.editor;
     this.editor = null;
-    const unchanged = editing && typed === this.editorOriginal;
+    // the same text committed again changes nothing, except that a demo value becomes the user's own
+    const unchanged = editing && typed === this.editorOriginal && !this.wb.style(this.wb.activeSheet, this.selected)?.demo;
     if (!unchanged) this.wb.setTyped(this.wb.activeSheet, this.selected, typed);
     if (move) this.move(move);
     this.render();

@@ -12,7 +12,7 @@ import { type SummaryView, showSummaryView } from "../summary/view";
 import { type Estimate, buildModel } from "../taskpane/model";
 import { type SummaryOutcome, mountPane } from "../taskpane/pane";
 import type { Readings } from "../workbook/port";
-import { ROLE_STYLES } from "../workbook/look";
+import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
 import { Grid } from "./grid";
 import type { FunctionsMetadata } from "./metadata";
 import type { WorkbookData } from "./model";
@@ -38,6 +38,7 @@ function roleColours(): void {
     if (look.fill) root.setProperty(`--role-${role}-fill`, look.fill);
     root.setProperty(`--role-${role}-font`, look.font ?? "inherit");
   }
+  root.setProperty("--demo-font", DEMO_LOOK.font);
 }
 
 /** A button of the toolbar (the pane has buttons of its own with the same roles). */

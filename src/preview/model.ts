@@ -46,6 +46,11 @@ export interface CellStyle {
   italic?: boolean;
   /** wrap long text within the cell's width */
   wrap?: boolean;
+  /**
+   * An input still holding the demo value a new estimate sheet was given: drawn apart (DEMO_LOOK) until the user types
+   * into the cell; a share copy is refused while any remains. Sample sheets hold their own values and carry none.
+   */
+  demo?: boolean;
 }
 
 export interface CellData {

@@ -20,13 +20,14 @@ import {
   type WorkbookName,
   type WorkbookPort,
   candidatesShapeProblem,
+  demoRefusal,
   isoDate,
   shareRefusal,
   shareStamp,
 } from "../workbook/port";
 import { demoScenario, type Scenario } from "../workbook/scenario";
 import { estimateTemplate } from "../workbook/template";
-import { templateNames, templateSheet } from "./fromTemplate";
+import { markDemoValues, templateNames, templateSheet } from "./fromTemplate";
 import { type CellData, type SheetData, textContent } from "./model";
 import type { PreviewWorkbook } from "./workbook";
 
@@ -108,7 +109,9 @@ export class PreviewPort implements WorkbookPort {
   async insertEstimateSheet(units: UnitSystem, scenario?: Scenario): Promise<InsertResult> {
     const wb = this.workbook;
     const t = estimateTemplate(scenario ?? demoScenario(units));
-    const sheetName = wb.addSheet(templateSheet(t, freeSheetName(t.sheetName, wb.sheetNames())));
+    const data = templateSheet(t, freeSheetName(t.sheetName, wb.sheetNames()));
+    // the demo's values are invented: marked until the user types over them (a given scenario's are its own)
+    const sheetName = wb.addSheet(scenario ? data : markDemoValues(data, t));
     const namesMoved: WorkbookName[] = [];
     for (const n of templateNames(t, sheetName)) {
       const before = wb.nameTarget(n.name);
@@ -135,6 +138,8 @@ export class PreviewPort implements WorkbookPort {
       const shown = bad.slice(0, SHARE_REFUSAL_LIST).map((v) => [v.address, (v.value as { error: string }).error] as [string, string]);
       return { ok: false, reason: shareRefusal(shown, bad.length) };
     }
+    const demo = views.filter((v) => v.style?.demo).map((v) => v.address);
+    if (demo.length) return { ok: false, reason: demoRefusal(demo.slice(0, SHARE_REFUSAL_LIST), demo.length) };
     const cells: Record<string, CellData> = {};
     const stampAt = "A1";
     cells[stampAt] = { content: shareStamp(source, this.now()), style: { role: "caution", bold: true } };

@@ -181,8 +181,14 @@ export class PreviewWorkbook {
     return view;
   }
 
-  /** Put content into a cell (null clears it). */
+  /** Put content into a cell (null clears it). A demo value's mark goes: what is there now is the user's. */
   setContent(sheet: string, address: string, content: CellContent): void {
+    const style = this.style(sheet, address);
+    if (style?.demo) {
+      const own: CellStyle = { ...style };
+      delete own.demo;
+      this.setStyle(sheet, address, own);
+    }
     this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content)]]);
   }
 

@@ -15,7 +15,7 @@
  */
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
 import { cellAddress, parseRange } from "../workbook/a1";
-import { ROLE_STYLES } from "../workbook/look";
+import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
 import { fromFileFormula, toFileFormula } from "./formulaText";
 import { type CachedValue, type CellData, type CellRole, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
 
@@ -219,10 +219,13 @@ function styleOf(cell: Cell): CellStyle | undefined {
   const fontHex = hexOf(font?.color as { argb?: string } | undefined);
   const bold = Boolean(font?.bold);
   const italic = Boolean(font?.italic);
-  const role = roleOfStyle(fillHex, fontHex, bold, italic);
+  // an input still holding a demo value: the input's fill under the demo look (DEMO_LOOK)
+  const demo = fillHex === ROLE_STYLES.input.fill && fontHex === DEMO_LOOK.font && italic === DEMO_LOOK.italic && !bold;
+  const role = demo ? "input" : roleOfStyle(fillHex, fontHex, bold, italic);
   if (role) style.role = role;
+  if (demo) style.demo = true;
   if (bold) style.bold = true;
-  if (italic) style.italic = true;
+  if (italic && !demo) style.italic = true;
   if (cell.alignment?.wrapText) style.wrap = true;
   return Object.keys(style).length ? style : undefined;
 }
@@ -295,7 +298,7 @@ function writeSheet(ws: Worksheet, s: SheetData, known: readonly string[]): void
 
 function applyStyle(cell: Cell, style: CellStyle): void {
   if (style.numFmt) cell.numFmt = style.numFmt;
-  const look = style.role ? ROLE_STYLES[style.role] : undefined;
+  const look = style.role ? { ...ROLE_STYLES[style.role], ...(style.demo ? DEMO_LOOK : {}) } : undefined;
   if (look?.fill) cell.fill = { type: "pattern", pattern: "solid", fgColor: { argb: argb(look.fill) } };
   const font: Partial<Font> = {};
   if (look?.font) font.color = { argb: argb(look.font) };

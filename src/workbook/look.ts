@@ -36,6 +36,13 @@ export const PALETTE = {
   grid: "#D9DDE3",
 } as const;
 
+/**
+ * The look of an input still holding the demo value a new estimate sheet was given, over the input's fill: italic, in
+ * a brown apart from the typed inputs' blue. The preview draws it and writes it to files, and reads it back so that the
+ * mark survives saving and opening; the user's typing takes it away (src/preview/workbook.ts).
+ */
+export const DEMO_LOOK = { font: "#8A5A00", italic: true } as const;
+
 /** The caution at the top of every estimate sheet and beneath the pane's verdict. */
 export const CAUTION =
   "Preliminary estimate only. The adopted codes and standards, the authority having jurisdiction and a licensed " +

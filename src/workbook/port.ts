@@ -178,6 +178,18 @@ export function shareStamp(sourceSheet: string, date: Date): string {
   return `Share copy of ${sourceSheet}, ${isoDate(date)}: ${SHARE_STAMP}.`;
 }
 
+/**
+ * The refusal of a share copy while inputs still hold the demo values of a new estimate sheet; `cells` are their
+ * addresses, the first SHARE_REFUSAL_LIST only, of `total`.
+ */
+export function demoRefusal(cells: string[], total: number): string {
+  const more = total > cells.length ? ` and ${total - cells.length} more` : "";
+  return (
+    `No share copy made: ${cells.join(", ")}${more} still hold the demo values of a new estimate sheet; ` +
+    "type your own over them (or type a value again to keep it) first, so that the copy holds no invented data."
+  );
+}
+
 /** A date as YYYY-MM-DD in local time: one form for every locale. */
 export function isoDate(date: Date): string {
   const p = (n: number) => String(n).padStart(2, "0");

@@ -604,6 +604,39 @@ describe("input lands where the user typed it", () => {
     expect(formulas).toBe(0);
     expect(texts.sort()).toEqual([link, "=1+1"].sort());
   });
+
+  test("a new sheet's demo values are marked until typed over, and Save share copy refuses while any remains, naming them", async () => {
+    await newSheet();
+    const demo = page.locator('[data-role="grid"] td[data-demo="true"]');
+    expect(await demo.count()).toBeGreaterThan(30);
+    const staticCell = await valueCellOf("Static pressure (psi)");
+    expect(await cell(staticCell).getAttribute("data-demo")).toBe("true");
+    // it looks different from an input typed by the user
+    const look = (address: string) => cell(address).evaluate((td) => getComputedStyle(td).fontStyle + " " + getComputedStyle(td).color);
+    const demoLook = await look(staticCell);
+    await page.screenshot({ path: `${RESULTS}/preview-new-sheet.png` });
+    await clickAt(staticCell);
+    await page.keyboard.type("70");
+    await page.keyboard.press("Enter");
+    await settle();
+    expect(await cell(staticCell).getAttribute("data-demo")).toBeNull();
+    expect(await look(staticCell)).not.toBe(demoLook);
+    const first = await demo.first().getAttribute("data-address");
+    let downloads = 0;
+    const count = () => downloads++;
+    page.on("download", count);
+    await page.click('[data-role="save-share-copy"]');
+    const status = page.locator('[data-role="preview-status"]');
+    await expect.poll(() => status.textContent()).toMatch(/^No share copy made: .* still hold the demo values of a new estimate sheet/);
+    expect(await status.textContent()).toContain(`${first}`);
+    expect(await status.getAttribute("class")).toMatch(/is-error/);
+    page.off("download", count);
+    expect(downloads).toBe(0);
+    // a sample's own sheet carries no marks
+    await page.click('[data-role="sheet-tabs"] [data-sheet="Estimate"]');
+    expect(await demo.count()).toBe(0);
+  });
+
 });
 
 describe("what the page loads", () => {
