@@ -13,6 +13,7 @@ import { type Estimate, buildModel } from "../taskpane/model";
 import { type SummaryOutcome, mountPane } from "../taskpane/pane";
 import type { Readings } from "../workbook/port";
 import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
+import { isShareStamp } from "../workbook/port";
 import { Grid } from "./grid";
 import type { FunctionsMetadata } from "./metadata";
 import type { WorkbookData } from "./model";
@@ -105,6 +106,11 @@ async function main(): Promise<void> {
     message: $("cell-message"),
   });
   const port = new PreviewPort(wb);
+  // a share copy's sheet (its stamp in A1) says its cells are frozen values
+  const banner = $("frozen-banner");
+  const showFrozen = () => (banner.hidden = !isShareStamp(wb.value(wb.activeSheet, "A1")));
+  wb.onChange(showFrozen);
+  showFrozen();
 
   // the one-page summary's print view, over the workbook; the way back takes it away
   let summary: SummaryView | null = null;

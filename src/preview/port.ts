@@ -28,7 +28,8 @@ import {
 import { demoScenario, type Scenario } from "../workbook/scenario";
 import { estimateTemplate } from "../workbook/template";
 import { markDemoValues, templateNames, templateSheet } from "./fromTemplate";
-import { type CellData, type SheetData, textContent } from "./model";
+import { type CellData, type CellStyle, type SheetData, textContent } from "./model";
+import { FROZEN_NOTE, INPUTS_NOTE } from "../workbook/look";
 import type { PreviewWorkbook } from "./workbook";
 
 export class PreviewPort implements WorkbookPort {
@@ -146,9 +147,11 @@ export class PreviewPort implements WorkbookPort {
     for (const v of views) {
       const a = parseCell(v.address);
       const to = cellAddress({ row: a.row + SHARE_STAMP_ROWS, col: a.col });
-      const value = v.value as number | string | boolean | null;
+      // frozen: the note asking to overwrite the inputs says there are none
+      const value = v.content === INPUTS_NOTE ? FROZEN_NOTE : (v.value as number | string | boolean | null);
+      const style = frozenStyle(v.style);
       // text as text: "=HYPERLINK(…)" shown by a cell is held behind an apostrophe, never a live formula in the copy
-      cells[to] = { content: typeof value === "string" ? textContent(value) : value, ...(v.style ? { style: v.style } : {}) };
+      cells[to] = { content: typeof value === "string" ? textContent(value) : value, ...(style ? { style } : {}) };
     }
     const merges = wb.mergedRanges(source).map((m) =>
       m
@@ -177,6 +180,15 @@ export class PreviewPort implements WorkbookPort {
     this.workbook.activate(sheetName);
     return { ok: true, sheetName, sourceSheet: made.sourceSheet };
   }
+}
+
+/** A cell's style in a share copy: an input is a frozen value like any other, unshaded; number formats stay. */
+function frozenStyle(style: CellStyle | undefined): CellStyle | undefined {
+  if (!style) return undefined;
+  const kept: CellStyle = { ...style };
+  delete kept.demo;
+  if (kept.role === "input") delete kept.role;
+  return Object.keys(kept).length ? kept : undefined;
 }
 
 /** What a cell shows, as a reading. */

@@ -43,6 +43,12 @@ export const PALETTE = {
  */
 export const DEMO_LOOK = { font: "#8A5A00", italic: true } as const;
 
+/** The note under the caution of every estimate sheet; a share copy, whose cells are frozen, leaves it out. */
+export const INPUTS_NOTE = "Shaded cells are inputs: overwrite the demo values. White cells are calculated by the HEADROOM functions.";
+
+/** What a share copy says in the note's place: its cells are values, none to overwrite. */
+export const FROZEN_NOTE = "Every cell holds a frozen value: nothing here is an input or recalculates. Change the estimate sheet and make a new copy.";
+
 /** The caution at the top of every estimate sheet and beneath the pane's verdict. */
 export const CAUTION =
   "Preliminary estimate only. The adopted codes and standards, the authority having jurisdiction and a licensed " +

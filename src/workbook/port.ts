@@ -178,6 +178,11 @@ export function shareStamp(sourceSheet: string, date: Date): string {
   return `Share copy of ${sourceSheet}, ${isoDate(date)}: ${SHARE_STAMP}.`;
 }
 
+/** True for the text of a share copy's stamp (its first cell): the sheet holds frozen values. */
+export function isShareStamp(value: unknown): boolean {
+  return typeof value === "string" && value.startsWith("Share copy of ") && value.includes(SHARE_STAMP);
+}
+
 /**
  * The refusal of a share copy while inputs still hold the demo values of a new estimate sheet; `cells` are their
  * addresses, the first SHARE_REFUSAL_LIST only, of `total`.

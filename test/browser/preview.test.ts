@@ -637,6 +637,29 @@ describe("input lands where the user typed it", () => {
     expect(await demo.count()).toBe(0);
   });
 
+  test("a share copy looks frozen: no shaded inputs, and a banner says its cells are frozen values", async () => {
+    await open(OFFICE_SAMPLE);
+    const banner = page.locator('[data-role="frozen-banner"]');
+    expect(await banner.isVisible()).toBe(false);
+    await page.click('[data-role="share-copy"]');
+    await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet^="Estimate values "][aria-selected="true"]');
+    expect(await banner.isVisible()).toBe(true);
+    expect(await banner.textContent()).toMatch(/frozen values/);
+    expect(await page.locator('[data-role="grid"] td.role-input').count()).toBe(0);
+    expect(await page.locator('[data-role="grid"] td').filter({ hasText: /overwrite the demo values/ }).count()).toBe(0);
+    await page.screenshot({ path: `${RESULTS}/preview-share-copy.png` });
+    await page.click('[data-role="sheet-tabs"] [data-sheet="Estimate"]');
+    expect(await banner.isVisible()).toBe(false);
+    // the saved share copy, opened again, says so too
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-share-copy"]')]);
+    const saved = path.join(RESULTS, `frozen-${download.suggestedFilename()}`);
+    await download.saveAs(saved);
+    await page.setInputFiles('[data-role="file-input"]', saved);
+    await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, path.basename(saved));
+    await settle();
+    expect(await banner.isVisible()).toBe(true);
+    expect(await page.locator('[data-role="grid"] td.role-input').count()).toBe(0);
+  });
 });
 
 describe("what the page loads", () => {

@@ -1,7 +1,8 @@
 /**
  * Demo values and the share copy, in the preview: a new estimate sheet (built from the demo scenario) marks every
  * input still holding its demo value until the user types into it; the marks survive saving and opening the file;
- * a share copy is refused while any remains. Samples are not demos: their values are their own.
+ * a share copy is refused while any remains. A share copy looks frozen: no input shading, no note asking to
+ * overwrite demo values. Samples are not demos: their values are their own.
  */
 import { beforeAll, describe, expect, test } from "vitest";
 import * as functions from "../../src/functions/functions";
@@ -92,3 +93,24 @@ describe("demo values are marked until overwritten", () => {
   });
 });
 
+describe("a share copy looks frozen", () => {
+  test("no input shading and no note asking to overwrite the demo values; numbers keep their formats", async () => {
+    const wb = empty();
+    const { sheetName } = await new PreviewPort(wb).insertEstimateSheet("US", SAMPLES[0].scenario);
+    const note = wb.cells(sheetName).find((v) => typeof v.content === "string" && /overwrite the demo values/.test(v.content));
+    expect(note, "the estimate sheet says to overwrite the demo values").toBeDefined();
+    const inputs = wb.cells(sheetName).filter((v) => v.style?.role === "input" && typeof v.value === "number" && v.style.numFmt);
+    expect(inputs.length).toBeGreaterThan(10);
+    const made = new PreviewPort(wb, () => new Date(2026, 4, 4)).shareCopyData();
+    if (!made.ok) throw new Error(made.reason);
+    const cells = Object.values(made.sheet.cells);
+    expect(cells.filter((c) => c.style?.role === "input")).toEqual([]);
+    expect(cells.filter((c) => typeof c.content === "string" && /overwrite the demo values/.test(c.content))).toEqual([]);
+    expect(made.sheet.cells[note!.address.replace(/\d+$/, (r) => String(Number(r) + 2))].content).toMatch(/frozen value/);
+    expect(cells.filter((c) => c.style?.demo)).toEqual([]);
+    // the values of the inputs are still there, two rows down under the stamp, in their number formats
+    const first = inputs[0];
+    const at = `${first.address.replace(/\d+$/, "")}${Number(first.address.replace(/^[A-Z]+/, "")) + 2}`;
+    expect(made.sheet.cells[at]).toMatchObject({ content: first.value, style: { numFmt: first.style!.numFmt } });
+  });
+});
