@@ -7,8 +7,10 @@
  * a sheet's print area with its print title rows, fit and orientation, and the workbook's defined names. A spilled block (an array formula with its `ref`) becomes its anchor formula;
  * the other cells of the block keep only their cached values, so that the engine can spill into them.
  *
- * Writing: formulas in the file's spelling with their current values cached (so a colleague with the add-in sees
- * numbers at once, and Excel recalculates on open: fullCalcOnLoad), spills as array formulas over their block,
+ * Writing: formulas in the file's spelling with their current values cached (so that a reader without the add-in,
+ * or another spreadsheet, sees the numbers), spills as Excel stores a dynamic array (an array formula over the block,
+ * its cell marked with the dynamic-array cell metadata: ./dynamicArrays.ts, which also leaves out the
+ * calculation-engine id so that Excel computes every formula on opening the file, without a forced full calculation),
  * roles as fills and fonts (ROLE_STYLES of ../workbook/look.ts), names, print setups (ExcelJS's pageSetup: printArea,
  * printTitlesRow, fitToPage, fitToWidth, fitToHeight, orientation; README "Page Setup",
  * https://github.com/exceljs/exceljs#page-setup). ExcelJS cannot write charts; the pane draws the plot.
@@ -16,6 +18,7 @@
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
 import { cellAddress, parseRange } from "../workbook/a1";
 import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
+import { storeDynamicArrays } from "./dynamicArrays";
 import { fromFileFormula, toFileFormula } from "./formulaText";
 import { type CachedValue, type CellData, type CellRole, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
 
@@ -242,13 +245,12 @@ export async function writeXlsx(data: WorkbookData, known: readonly string[], op
   const date = opts.date ?? new Date();
   wb.created = date;
   wb.modified = date;
-  wb.calcProperties.fullCalcOnLoad = true;
   for (const s of data.sheets) writeSheet(wb.addWorksheet(s.name), s, known);
   for (const n of data.names) wb.definedNames.add(n.ref.replace(/^=/, ""), n.name);
   const active = Math.max(0, data.sheets.findIndex((s) => s.name === data.activeSheet));
   wb.views = [{ x: 0, y: 0, width: 20000, height: 12000, firstSheet: 0, activeTab: active, visibility: "visible" }];
   const buffer = await wb.xlsx.writeBuffer();
-  return new Uint8Array(buffer as ArrayBuffer);
+  return storeDynamicArrays(new Uint8Array(buffer as ArrayBuffer), date);
 }
 
 function resultOf(v: CachedValue | undefined): unknown {

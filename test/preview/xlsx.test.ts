@@ -1,7 +1,7 @@
 /**
  * .xlsx in and out: an estimate sheet saved with formulas and cached values, opened again with the same formulas,
  * values, roles, names and spills; saved and opened once more unchanged. The file spells the add-in's functions as
- * Excel does (`_xldudf_HEADROOM_…`) and asks Excel to recalculate on open.
+ * Excel does (`_xldudf_HEADROOM_…`), stores spills as Excel stores dynamic arrays, and forces no full calculation.
  */
 import { beforeAll, describe, expect, test } from "vitest";
 import ExcelJS from "exceljs";
@@ -74,7 +74,7 @@ describe("round trip", () => {
     expect(compared).toBeGreaterThan(30);
   });
 
-  test("the file spells the add-in's functions as Excel does, spills as array formulas, and recalculates on open", async () => {
+  test("the file spells the add-in's functions as Excel does, spills as dynamic arrays, and leaves recalculation to Excel's own rule", async () => {
     const bytes = await writeXlsx(demoWorkbook().toData(), known);
     const x = new ExcelJS.Workbook();
     await x.xlsx.load(bytes as unknown as ArrayBuffer);
@@ -83,16 +83,40 @@ describe("round trip", () => {
     ws.eachRow((row) => row.eachCell((c) => c.formula && formulas.push(c.formula)));
     expect(formulas.some((f) => f.includes("_xldudf_HEADROOM_PIPEID("))).toBe(true);
     expect(formulas.some((f) => /HEADROOM\./.test(f))).toBe(false);
-    expect(zipEntry(bytes, "xl/workbook.xml")).toMatch(/<calcPr[^>]*fullCalcOnLoad="1"/);
+    // no forced full calculation, and no calculation-engine id: Excel takes a missing id as 0 and recalculates a file
+    // last calculated by an earlier engine ([MS-OI29500] §2.1.565 c; ECMA-376 Part 1 §18.2.2, calcId)
+    const calcPr = /<calcPr\b[^>]*>/.exec(zipEntry(bytes, "xl/workbook.xml"))?.[0];
+    expect(calcPr).toBe("<calcPr/>");
     expect(x.definedNames.model.map((n: { name: string }) => n.name)).toContain("Supply_Static");
     // the PIPERUN anchor is an array formula over its block
     const runAnchor = Object.entries(demoWorkbook().toData().sheets[0].cells).find(([, c]) => String(c.content).includes("HEADROOM.PIPERUN("));
     expect(runAnchor).toBeDefined();
     const v = ws.getCell(runAnchor![0]).value as { shareType?: string; ref?: string };
-    if (runAnchor![1].spill) {
-      expect(v.shareType).toBe("array");
-      expect(v.ref).toBe(runAnchor![1].spill);
-    }
+    expect(runAnchor![1].spill).toBeDefined();
+    expect(v.shareType).toBe("array");
+    expect(v.ref).toBe(runAnchor![1].spill);
+    // ... marked as a dynamic array, as Excel marks one: cm="1", the first block of the cell metadata, which points
+    // at the XLDAPR type's dynamic-array properties (fDynamic="1")
+    const sheetXml = zipEntry(bytes, "xl/worksheets/sheet1.xml");
+    const anchorCell = new RegExp(`<c r="${runAnchor![0]}"[^>]*>`).exec(sheetXml)?.[0];
+    expect(anchorCell).toMatch(/ cm="1"/);
+    const arrayCells = [...sheetXml.matchAll(/<c [^>]*>(?=<f t="array")/g)].map((m) => m[0]);
+    const spills = Object.values(demoWorkbook().toData().sheets[0].cells).filter((c) => c.spill).length;
+    expect(arrayCells.length).toBe(spills);
+    for (const c of arrayCells) expect(c).toMatch(/ cm="1"/);
+    expect([...sheetXml.matchAll(/ cm="/g)].length).toBe(spills); // no other cell carries cell metadata
+    const metadata = zipEntry(bytes, "xl/metadata.xml");
+    expect(metadata).toMatch(/<metadataType name="XLDAPR"[^>]* cellMeta="1"/);
+    expect(metadata).toContain(
+      '<futureMetadata name="XLDAPR" count="1"><bk><extLst><ext uri="{bdbb8cdc-fa1e-496e-a857-3c3f30c029c3}"><xda:dynamicArrayProperties fDynamic="1" fCollapsed="0"/>',
+    );
+    expect(metadata).toContain('<cellMetadata count="1"><bk><rc t="1" v="0"/></bk></cellMetadata>');
+    expect(zipEntry(bytes, "[Content_Types].xml")).toContain(
+      '<Override PartName="/xl/metadata.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheetMetadata+xml"/>',
+    );
+    expect(zipEntry(bytes, "xl/_rels/workbook.xml.rels")).toMatch(
+      /<Relationship Id="rId\d+" Type="http:\/\/schemas.openxmlformats.org\/officeDocument\/2006\/relationships\/sheetMetadata" Target="metadata.xml"\/>/,
+    );
     // an input keeps its shade: the template's input fill
     const fill = ws.getCell("B9").fill as { fgColor?: { argb?: string } }; // the Units cell
     expect(x.definedNames.model.find((n: { name: string }) => n.name === "Units")?.ranges).toEqual(["Estimate!$B$9"]);
