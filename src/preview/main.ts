@@ -2,8 +2,8 @@
  * The preview page `npm start` serves: the estimate workbook in a grid, recalculated by HyperFormula running the very
  * cell functions of the add-in (registered from the functions.json the build generates), and the task pane beside it
  * through the preview side of the Workbook port. Opens a sample estimate (samples/index.json; `?sample=<file>` picks
- * one), opens and saves .xlsx files, saves a values-only share copy, and shows the one-page summary in its print view
- * (from the toolbar or the pane's button).
+ * one), opens and saves .xlsx files, saves a values-only share copy (with the pane's plot as a picture), and shows the
+ * one-page summary in its print view (from the toolbar or the pane's button).
  */
 import "./installShim";
 import * as functions from "../functions/functions";
@@ -18,6 +18,7 @@ import { Grid } from "./grid";
 import type { FunctionsMetadata } from "./metadata";
 import type { WorkbookData } from "./model";
 import { registerHeadroomFunctions } from "./plugin";
+import { picturePlace, plotPng } from "./picture";
 import { PreviewPort } from "./port";
 import { PreviewWorkbook } from "./workbook";
 
@@ -178,8 +179,12 @@ async function main(): Promise<void> {
     }
     const { writeXlsx } = await xlsx();
     const name = `${fileName.replace(/\.xlsx$/i, "")} share copy.xlsx`;
-    download(await writeXlsx({ sheets: [made.sheet], names: [], activeSheet: made.sheet.name }, known), name);
-    status(`Saved ${name}: values only, for someone without the Headroom add-in.`);
+    // the pane's plot goes with the numbers, as a picture (ExcelJS writes no chart)
+    const plot = await plotPng(document.querySelector<SVGSVGElement>('[data-role="pane-host"] svg[data-role="plot"]'));
+    const pictures = plot ? [{ sheet: made.sheet.name, at: picturePlace(made.sheet), ...plot }] : [];
+    download(await writeXlsx({ sheets: [made.sheet], names: [], activeSheet: made.sheet.name }, known, { pictures }), name);
+    const withPlot = plot ? ", with the supply-versus-demand plot as a picture" : "";
+    status(`Saved ${name}: values only${withPlot}, for someone without the Headroom add-in.`);
   });
 
   // for the browser tests and for curious developers: the live objects

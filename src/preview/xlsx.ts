@@ -13,14 +13,17 @@
  * calculation-engine id so that Excel computes every formula on opening the file, without a forced full calculation),
  * roles as fills and fonts (ROLE_STYLES of ../workbook/look.ts), names, print setups (ExcelJS's pageSetup: printArea,
  * printTitlesRow, fitToPage, fitToWidth, fitToHeight, orientation; README "Page Setup",
- * https://github.com/exceljs/exceljs#page-setup). ExcelJS cannot write charts; the pane draws the plot.
+ * https://github.com/exceljs/exceljs#page-setup), and pictures (a share copy's plot, ./picture.ts) through ExcelJS's
+ * images: workbook.addImage with the PNG as base64, worksheet.addImage at a cell with a size in pixels, moving with the
+ * cell it stands on (README "Images", https://github.com/exceljs/exceljs#images). ExcelJS cannot write charts.
  */
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
-import { cellAddress, parseRange } from "../workbook/a1";
+import { cellAddress, parseCell, parseRange } from "../workbook/a1";
 import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
 import { storeDynamicArrays } from "./dynamicArrays";
 import { fromFileFormula, toFileFormula } from "./formulaText";
 import { type CachedValue, type CellData, type CellRole, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
+import type { SheetPicture } from "./picture";
 
 type ExcelJSModule = typeof import("exceljs");
 
@@ -235,9 +238,13 @@ function styleOf(cell: Cell): CellStyle | undefined {
 
 /**
  * Write an .xlsx file. `known` lists the add-in's functions as written in cells; `date` sets the file's created and
- * modified dates (now by default).
+ * modified dates (now by default); `pictures` go on the sheets they name.
  */
-export async function writeXlsx(data: WorkbookData, known: readonly string[], opts: { date?: Date } = {}): Promise<Uint8Array> {
+export async function writeXlsx(
+  data: WorkbookData,
+  known: readonly string[],
+  opts: { date?: Date; pictures?: readonly SheetPicture[] } = {},
+): Promise<Uint8Array> {
   const ExcelJS = await excel();
   const wb: ExcelWorkbook = new ExcelJS.Workbook();
   wb.creator = "Headroom";
@@ -246,6 +253,13 @@ export async function writeXlsx(data: WorkbookData, known: readonly string[], op
   wb.created = date;
   wb.modified = date;
   for (const s of data.sheets) writeSheet(wb.addWorksheet(s.name), s, known);
+  for (const p of opts.pictures ?? []) {
+    const ws = wb.getWorksheet(p.sheet);
+    if (!ws) throw new Error(`no sheet ${p.sheet} for the picture`);
+    const image = wb.addImage({ base64: p.png, extension: "png" });
+    const at = parseCell(p.at);
+    ws.addImage(image, { tl: { col: at.col, row: at.row }, ext: { width: p.width, height: p.height }, editAs: "oneCell" });
+  }
   for (const n of data.names) wb.definedNames.add(n.ref.replace(/^=/, ""), n.name);
   const active = Math.max(0, data.sheets.findIndex((s) => s.name === data.activeSheet));
   wb.views = [{ x: 0, y: 0, width: 20000, height: 12000, firstSheet: 0, activeTab: active, visibility: "visible" }];

@@ -39,8 +39,8 @@ import { type Section, type SheetTemplate, type TemplateCell, type TemplatePrint
 const GAP = 1;
 
 /** Where the chart stands: right of the upper sections, which use columns A to D only. */
-const CHART_FROM = "F5";
-const CHART_TO = "N24";
+export const CHART_FROM = "F5";
+export const CHART_TO = "N24";
 
 /** Column widths in points: A labels, B values, C units, D notes; the run table's columns E to T. */
 const COLUMN_WIDTHS: Readonly<Record<string, number>> = {

@@ -9,13 +9,17 @@
  * Run with `npm run test:browser` (it builds first).
  */
 import { existsSync } from "node:fs";
-import { mkdir, readFile } from "node:fs/promises";
+import { mkdir, readFile, writeFile } from "node:fs/promises";
 import path from "node:path";
 import type { Server } from "node:http";
 import ExcelJS from "exceljs";
 import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { setNamed } from "./previewPage";
+import { parseCell } from "../../src/workbook/a1";
+import { PALETTE } from "../../src/workbook/look";
+import { SHARE_STAMP_ROWS } from "../../src/workbook/port";
+import { CHART_FROM } from "../../src/workbook/template";
 import { startServer } from "../../scripts/start-server.mjs";
 
 const CHROMIUM = "/usr/bin/chromium";
@@ -463,6 +467,47 @@ describe(".xlsx in and out", () => {
     expect(numbers).toBeGreaterThan(50);
     expect(String(ws.getCell("A1").value)).toMatch(/^Share copy of Estimate, \d{4}-\d\d-\d\d: values frozen; recalculation needs the Headroom add-in\.$/);
     expect(await page.locator('[data-role="sheet-tabs"] [data-sheet]').count()).toBe(sheetsBefore);
+
+    // the pane's plot goes with it, as a picture where the estimate's chart stands (below the stamp's rows), as large
+    // as in the pane, drawn at twice its pixels
+    const images = ws.getImages();
+    expect(images).toHaveLength(1);
+    const chartAt = parseCell(CHART_FROM);
+    expect([images[0].range.tl.nativeCol, images[0].range.tl.nativeRow]).toEqual([chartAt.col, chartAt.row + SHARE_STAMP_ROWS]);
+    const plot = page.locator('[data-role="pane-host"] svg[data-role="plot"]');
+    const size = { width: Number(await plot.getAttribute("width")), height: Number(await plot.getAttribute("height")) };
+    // ExcelJS reads a picture anchored at one cell with its size in pixels (`ext`, not in its typings)
+    expect((images[0].range as unknown as { ext: { width: number; height: number } }).ext).toEqual(size);
+    const image = wb.getImage(Number(images[0].imageId));
+    expect(image.extension).toBe("png");
+    const png = Buffer.from(image.buffer as unknown as ArrayBuffer);
+    await writeFile(path.join(RESULTS, "share-copy-plot.png"), png);
+    // what the picture shows, counted in the page: the supply curve's colour, and dark text and axes
+    const shown = await page.evaluate(
+      async ({ data, supply }) => {
+        const img = new Image();
+        img.src = data;
+        await img.decode();
+        const c = document.createElement("canvas");
+        [c.width, c.height] = [img.naturalWidth, img.naturalHeight];
+        const g = c.getContext("2d")!;
+        g.drawImage(img, 0, 0);
+        const px = g.getImageData(0, 0, c.width, c.height).data;
+        const [r, gr, b] = [1, 3, 5].map((i) => parseInt(supply.slice(i, i + 2), 16));
+        let curve = 0;
+        let dark = 0;
+        for (let i = 0; i < px.length; i += 4) {
+          if (Math.abs(px[i] - r) + Math.abs(px[i + 1] - gr) + Math.abs(px[i + 2] - b) < 30) curve++;
+          if (px[i] + px[i + 1] + px[i + 2] < 200) dark++;
+        }
+        return { width: c.width, height: c.height, curve, dark };
+      },
+      { data: `data:image/png;base64,${png.toString("base64")}`, supply: PALETTE.supply },
+    );
+    expect([shown.width, shown.height]).toEqual([size.width * 2, size.height * 2]);
+    expect(shown.curve).toBeGreaterThan(size.width); // a line 2.5 px wide drawn at twice the pixels, across the plot
+    expect(shown.dark).toBeGreaterThan(500); // axes, ticks and their labels
+    expect(await page.locator('[data-role="preview-status"]').textContent()).toMatch(/with the supply-versus-demand plot as a picture/);
   });
 
   test("the sample menu opens the other samples; the SI one speaks bar and L/min", async () => {

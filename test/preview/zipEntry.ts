@@ -1,10 +1,10 @@
 /**
  * One file out of a .zip (an .xlsx), read through its central directory with node:zlib: enough for tests to look
- * at the XML a writer produced, without another package.
+ * at the XML a writer produced (or, as "latin1" text, at a part's bytes), without another package.
  */
 import { inflateRawSync } from "node:zlib";
 
-export function zipEntry(zip: Uint8Array, name: string): string {
+export function zipEntry(zip: Uint8Array, name: string, encoding: BufferEncoding = "utf8"): string {
   const b = Buffer.from(zip.buffer, zip.byteOffset, zip.byteLength);
   const eocd = b.lastIndexOf(Buffer.from([0x50, 0x4b, 0x05, 0x06]));
   if (eocd < 0) throw new Error("not a zip file");
@@ -21,7 +21,7 @@ export function zipEntry(zip: Uint8Array, name: string): string {
     if (entry === name) {
       const start = local + 30 + b.readUInt16LE(local + 26) + b.readUInt16LE(local + 28);
       const data = b.subarray(start, start + size);
-      return (method === 8 ? inflateRawSync(data) : data).toString("utf8");
+      return (method === 8 ? inflateRawSync(data) : data).toString(encoding);
     }
     p += 46 + nameLength + extra + comment;
   }
