@@ -13,7 +13,7 @@
  */
 import { formatFlow, formatPressure } from "../engine/decision";
 import { type UnitSystem, fromUS, unitName } from "../engine/units";
-import type { InputName, Readings, WorkbookPort } from "../workbook/port";
+import type { InputName, Readings, SharePlot, SharePlotSeries, WorkbookPort } from "../workbook/port";
 import { CAUTION, PALETTE } from "../workbook/look";
 import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, type PlotData, buildModel, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
@@ -90,6 +90,29 @@ export function legendItems(e: Estimate, data: PlotData): Array<[LegendKind, str
   }
   if (data.pumpLabel) items.push(["pump", data.pumpLabel]);
   return items;
+}
+
+/**
+ * The plot as a share copy carries it (Excel draws it as a chart of these points): one series for each item of the
+ * legend, named as the legend names it, in the plot's colours, in the sheet's units.
+ */
+export function sharePlot(e: Estimate, data: PlotData): SharePlot {
+  const line = (points: ReadonlyArray<readonly [number, number]>, color: string) => ({ points, style: "line" as const, marker: "none" as const, color });
+  const demand = (id: "sprinklers" | "total") => data.demand.filter((d) => d.id === id).map((d): [number, number] => [d.q, d.p]);
+  const drawn: Record<LegendKind, Omit<SharePlotSeries, "name">> = {
+    supply: line(data.supply, PALETTE.supply),
+    band: line(data.band ?? [], PALETTE.band),
+    pump: line(data.pump ?? [], PALETTE.pump),
+    sprinklers: { points: demand("sprinklers"), style: "marker", marker: "square", color: PALETTE.sprinklers },
+    total: { points: demand("total"), style: "marker", marker: "diamond", color: PALETTE.demand },
+    candidate: { points: data.candidates.filter((c) => !c.controls).map((c) => [c.q, c.p]), style: "marker", marker: "circle", color: PALETTE.candidate },
+  };
+  return {
+    title: "Water supply and sprinkler demand",
+    xTitle: `Flow (${data.flowUnit})`,
+    yTitle: `Pressure (${data.pressureUnit})`,
+    series: legendItems(e, data).map(([kind, name]) => ({ name, ...drawn[kind] })),
+  };
 }
 
 export function legendIcon(doc: Document, kind: LegendKind): SVGSVGElement {
@@ -569,7 +592,10 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
   );
   shareCopy.addEventListener("click", () =>
     action(shareCopy, async () => {
-      const r = await port.makeShareCopy();
+      // the plot of what the sheet holds now: read it again first, then the copy carries the pane's plot
+      await refresh();
+      const ready = current?.kind === "ready" ? current.estimate : null;
+      const r = await port.makeShareCopy(ready ? sharePlot(ready, plotData(ready, niceMax)) : undefined);
       if (r.ok) setStatus(`Added ${r.sheetName}: the numbers of ${r.sourceSheet} with values frozen, for readers without the add-in. ${r.sourceSheet} is unchanged.`);
       else setStatus(r.reason, "refused");
     }),

@@ -1,11 +1,11 @@
 /**
  * The Workbook port over Office.js (Excel JavaScript API): named cells, change and calculation events, the estimate
- * sheet, the values-only share copy.
+ * sheet, the values-only share copy (with the pane's plot as a chart of frozen values).
  *
- * Requirement sets used: ExcelApi 1.1 (application.calculate), 1.2 (range.merge), 1.4 (names.getItemOrNullObject,
- * NamedItem.getRangeOrNullObject, worksheet.names), 1.6 (application.suspendApiCalculationUntilNextSync),
- * 1.7 (chart series, worksheet.copy, worksheets.onActivated), 1.8 (worksheets.onCalculated), 1.9 (worksheets.onChanged,
- * range.copyFrom, worksheet.pageLayout).
+ * Requirement sets used: ExcelApi 1.1 (application.calculate, charts.add, chart.delete), 1.2 (range.merge), 1.4
+ * (names.getItemOrNullObject, NamedItem.getRangeOrNullObject, worksheet.names, charts.getItemOrNullObject), 1.6
+ * (application.suspendApiCalculationUntilNextSync), 1.7 (chart series, worksheet.copy, worksheets.onActivated), 1.8
+ * (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom, worksheet.pageLayout).
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
@@ -19,6 +19,7 @@ import {
   type Reading,
   type Readings,
   type ShareCopyResult,
+  type SharePlot,
   type TableReading,
   type WorkbookName,
   type WorkbookPort,
@@ -29,8 +30,8 @@ import {
 } from "./port";
 import { type Scenario, demoScenario } from "./scenario";
 import { ROLE_STYLES, wrappedLines } from "./look";
-import type { SheetTemplate, TemplateChart, TemplatePrint } from "./sheet";
-import { estimateTemplate } from "./template";
+import type { ChartSeries, SheetTemplate, TemplateChart, TemplatePrint } from "./sheet";
+import { CHART_FROM, CHART_TO, estimateTemplate } from "./template";
 
 type Ctx = Excel.RequestContext;
 
@@ -64,7 +65,7 @@ export function createExcelPort(host: ExcelHost = officeExcelHost()): WorkbookPo
     readInputs: () => host.run(readInputs),
     subscribe: (onChange) => subscribe(host, onChange),
     insertEstimateSheet: (units, scenario) => host.run((ctx) => insertEstimateSheet(ctx, units, scenario)),
-    makeShareCopy: () => host.run((ctx) => makeShareCopy(ctx, host.now())),
+    makeShareCopy: (plot) => host.run((ctx) => makeShareCopy(ctx, host.now(), plot)),
   };
 }
 
@@ -311,10 +312,13 @@ function setPrint(sheet: Excel.Worksheet, print: TemplatePrint): void {
 
 const MARKERS = { none: "None", circle: "Circle", square: "Square", diamond: "Diamond", triangle: "Triangle" } as const;
 
+/** The name of the add-in's supply-and-demand chart on a sheet. */
+const CHART_NAME = "Headroom supply and demand";
+
 function addChart(sheet: Excel.Worksheet, spec: TemplateChart): void {
   const [first, ...rest] = spec.series;
   const chart = sheet.charts.add("XYScatterLinesNoMarkers", sheet.getRange(pairRange(first.x, first.y)), "Columns");
-  chart.name = "Headroom supply and demand";
+  chart.name = CHART_NAME;
   chart.title.text = spec.title;
   chart.axes.categoryAxis.title.text = spec.xTitle;
   chart.axes.valueAxis.title.text = spec.yTitle;
@@ -332,6 +336,7 @@ function addChart(sheet: Excel.Worksheet, spec: TemplateChart): void {
     series.setXAxisValues(sheet.getRange(s.x));
     series.setValues(sheet.getRange(s.y));
     series.chartType = s.style === "line" ? "XYScatterLinesNoMarkers" : "XYScatter";
+    if (s.style === "line") series.format.line.color = s.color;
     series.markerStyle = MARKERS[s.marker];
     series.markerSize = 9;
     series.markerBackgroundColor = s.color;
@@ -348,7 +353,7 @@ function pairRange(x: string, y: string): string {
 
 // ─── Share copy ──────────────────────────────────────────────────────────────────────────────────────────────────
 
-async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
+async function makeShareCopy(ctx: Ctx, now: Date, plot?: SharePlot): Promise<ShareCopyResult> {
   const wb = ctx.workbook;
   const active = wb.worksheets.getActiveWorksheet();
   active.load("name");
@@ -394,7 +399,64 @@ async function makeShareCopy(ctx: Ctx, now: Date): Promise<ShareCopyResult> {
     if (copyErrors.length > 0) return { ok: false, reason: shareRefusal(copyErrors.slice(0, SHARE_REFUSAL_LIST), copyErrors.length) };
     return { ok: false, reason: `No share copy made: ${stillFormulas.slice(0, SHARE_REFUSAL_LIST).join(", ")} kept a formula; try again.` };
   }
+  const drawn = plot ? plot.series.filter((s) => s.points.length > 0) : [];
+  if (plot && drawn.length > 0 && drawn[0].style === "line") await addSharePlot(ctx, copy, used, { ...plot, series: drawn });
   return { ok: true, sheetName: copyName, sourceSheet: sourceName };
+}
+
+/** Where the source's cells in `block` (A1 coordinates of the source sheet) are all empty, as `used` shows them. */
+function blockEmpty(used: Excel.Range, block: ReturnType<typeof parseRange>): boolean {
+  const start = parseRange(splitSheet(used.address).range).start;
+  for (let i = 0; i < block.rows; i++) {
+    for (let j = 0; j < block.cols; j++) {
+      const v = used.values[block.start.row + i - start.row]?.[block.start.col + j - start.col];
+      if (v !== undefined && v !== "") return false;
+    }
+  }
+  return true;
+}
+
+/**
+ * The pane's plot on a share copy, as a native chart of frozen values: the plot's points written into the copy as
+ * values, right of the copied cells and below the stamp (a title row, then for each series its name, the axis titles
+ * and its points in two columns), and a chart of them drawn as insertEstimateSheet draws the estimate's (addChart).
+ * The chart stands where the estimate's chart stands, below the stamp, when the source's cells there are empty, else
+ * right of the points. A chart of the add-in's that came along with the sheet is replaced.
+ */
+async function addSharePlot(ctx: Ctx, copy: Excel.Worksheet, used: Excel.Range, plot: SharePlot): Promise<void> {
+  // the add-in's chart on the copy, if any: ChartCollection.getItemOrNullObject (ExcelApi 1.4) "Gets a chart using its
+  // name. ... If the chart doesn't exist, then this method returns an object with its isNullObject property set to
+  // true" (https://learn.microsoft.com/javascript/api/excel/excel.chartcollection#excel-excel-chartcollection-getitemornullobject-member(1))
+  const carried = copy.charts.getItemOrNullObject(CHART_NAME);
+  await ctx.sync();
+  // Chart.delete (ExcelApi 1.1): "Deletes the chart object" (https://learn.microsoft.com/javascript/api/excel/excel.chart#excel-excel-chart-delete-member(1))
+  if (!carried.isNullObject) carried.delete();
+
+  const area = parseRange(splitSheet(used.address).range);
+  const left = area.start.col + area.cols + 1; // one empty column after the copied cells
+  const top = SHARE_STAMP_ROWS;
+  const at = (row: number, col: number) => cellAddress({ row, col });
+  // Range.values (ExcelApi 1.1): a 2-D array of the range's shape; text through cellConstant, so that it stays text
+  // (https://learn.microsoft.com/javascript/api/excel/excel.range#excel-excel-range-values-member)
+  copy.getRange(at(top, left)).values = [[cellConstant("Plot data: the supply-versus-demand plot of the pane, values frozen")]];
+  const series: ChartSeries[] = plot.series.map((s, i) => {
+    const col = left + 2 * i;
+    const first = top + 3;
+    const last = first + s.points.length - 1;
+    copy.getRange(`${at(top + 1, col)}:${at(last, col + 1)}`).values = [
+      [cellConstant(s.name), ""],
+      [cellConstant(plot.xTitle), cellConstant(plot.yTitle)],
+      ...s.points.map(([q, p]) => [q, p]),
+    ];
+    return { name: s.name, x: `${at(first, col)}:${at(last, col)}`, y: `${at(first, col + 1)}:${at(last, col + 1)}`, style: s.style, marker: s.marker, color: s.color };
+  });
+  const place = parseRange(`${CHART_FROM}:${CHART_TO}`);
+  const from = blockEmpty(used, place)
+    ? { row: place.start.row + SHARE_STAMP_ROWS, col: place.start.col }
+    : { row: top, col: left + 2 * plot.series.length + 1 };
+  const to = { row: from.row + place.rows - 1, col: from.col + place.cols - 1 };
+  addChart(copy, { title: plot.title, xTitle: plot.xTitle, yTitle: plot.yTitle, series, from: at(from.row, from.col), to: at(to.row, to.col) });
+  await ctx.sync();
 }
 
 /** Addresses (Sheet!A1) and shown errors of every error cell of a loaded range. */

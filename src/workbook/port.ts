@@ -129,6 +129,24 @@ export interface InsertResult {
   namesMoved: WorkbookName[];
 }
 
+/** One series of a share copy's plot: its points (flow, pressure) in the sheet's units, a line or markers alone. */
+export interface SharePlotSeries {
+  name: string;
+  points: ReadonlyArray<readonly [number, number]>;
+  style: "line" | "marker";
+  marker: "none" | "circle" | "square" | "diamond" | "triangle";
+  /** hex colour (#RRGGBB) */
+  color: string;
+}
+
+/** The pane's supply-versus-demand plot as a share copy carries it: its titles and its series, values frozen. */
+export interface SharePlot {
+  title: string;
+  xTitle: string;
+  yTitle: string;
+  series: SharePlotSeries[];
+}
+
 /** What "Share copy" did, or why it refused. */
 export type ShareCopyResult =
   | { ok: true; sheetName: string; sourceSheet: string }
@@ -160,8 +178,11 @@ export interface WorkbookPort {
    * Copy the estimate sheet (the sheet Supply_Static refers to, else the active sheet) to a new sheet whose cells
    * hold values only, stamped with the date and "values frozen; recalculation needs the Headroom add-in". The
    * source is never modified. Refuses, saying why, while any cell of the source shows #BUSY! or another error.
+   * With the pane's plot, the copy carries it too, where the host can draw it (Excel: a chart of the plot's points,
+   * written into the copy as values; the preview's grid draws no chart, and its saved share copy file carries the
+   * plot as a picture instead).
    */
-  makeShareCopy(): Promise<ShareCopyResult>;
+  makeShareCopy(plot?: SharePlot): Promise<ShareCopyResult>;
 }
 
 /** Rows a share copy puts above the copied cells: the stamp, then a blank row. */

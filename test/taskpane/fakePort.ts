@@ -10,6 +10,7 @@ import {
   type Reading,
   type Readings,
   type ShareCopyResult,
+  type SharePlot,
   type TableReading,
   type WorkbookPort,
 } from "../../src/workbook/port";
@@ -76,7 +77,11 @@ export class FakePort implements WorkbookPort {
     return { sheetName: `Estimate ${this.inserted.length + 1}`, namesMoved: ["Supply_Static"] };
   }
 
-  async makeShareCopy(): Promise<ShareCopyResult> {
+  /** the plot the pane handed over with each share copy asked for */
+  sharedPlots: Array<SharePlot | undefined> = [];
+
+  async makeShareCopy(plot?: SharePlot): Promise<ShareCopyResult> {
+    this.sharedPlots.push(plot);
     return this.shareResult;
   }
 }

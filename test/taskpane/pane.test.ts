@@ -2,7 +2,7 @@
 import { afterEach, describe, expect, it, vi } from "vitest";
 import { verdict as verdictCell } from "../../src/functions/functions";
 import { BUSY_REREAD_MS, type PaneHandle, type SummaryRequest, mountPane } from "../../src/taskpane/pane";
-import { CAUTION } from "../../src/workbook/look";
+import { CAUTION, PALETTE } from "../../src/workbook/look";
 import { BASE, FakePort, SHORT_105, type Values, siBreakdown } from "./fakePort";
 
 let mounted: PaneHandle[] = [];
@@ -274,6 +274,26 @@ describe("the actions", () => {
     await pane.idle();
     expect($("status")!.textContent).toBe(port.shareResult.reason);
     expect($("status")!.getAttribute("data-tone")).toBe("refused");
+  });
+
+  it("hands the host its plot with a share copy: the legend's series, the supply through the flow test, the demand", async () => {
+    const { port, pane, $ } = await mount(BASE);
+    $<HTMLButtonElement>("share-copy")!.click();
+    await new Promise((r) => setTimeout(r, 0));
+    await pane.idle();
+    expect(port.sharedPlots).toHaveLength(1);
+    const plot = port.sharedPlots[0]!;
+    expect([plot.xTitle, plot.yTitle]).toEqual(["Flow (gpm)", "Pressure (psi)"]);
+    const legend = [...$("legend")!.querySelectorAll("li")].map((li) => li.textContent);
+    expect(plot.series.map((s) => s.name)).toEqual(legend);
+    const supply = plot.series[0];
+    expect(supply).toMatchObject({ style: "line", color: PALETTE.supply });
+    // the curve starts at the static pressure and passes through the flow test's residual pressure at the test flow
+    // (BASE's invented flow test: 72 psi static, 58 psi residual at 1100 gpm)
+    expect(supply.points[0]).toEqual([0, 72]);
+    expect(supply.points.some(([q, p]) => Math.abs(q - 1100) < 1e-9 && Math.abs(p - 58) < 1e-9)).toBe(true);
+    // BASE's demand: 562 gpm at 48 psi, one point (no hose flow given)
+    expect(plot.series.find((s) => s.style === "marker")).toMatchObject({ points: [[562, 48]], marker: "diamond", color: PALETTE.demand });
   });
 
   it("reports a share copy made", async () => {

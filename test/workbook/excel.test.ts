@@ -7,9 +7,9 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { BUSY_REREAD_MS, mountPane } from "../../src/taskpane/pane";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
-import { CANDIDATES_NAME, INPUT_NAMES, type InputName, SHARE_STAMP } from "../../src/workbook/port";
+import { CANDIDATES_NAME, INPUT_NAMES, type InputName, SHARE_STAMP, type SharePlot } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
-import { CAUTION, ROLE_STYLES } from "../../src/workbook/look";
+import { CAUTION, PALETTE, ROLE_STYLES } from "../../src/workbook/look";
 import { spillCells } from "../../src/workbook/sheet";
 import { estimateTemplate } from "../../src/workbook/template";
 import { portContract, type PortHarness } from "./contract";
@@ -440,6 +440,69 @@ describe("Excel port: share copy", () => {
       ok: false,
       reason: `No share copy made: ${sheetName}!${margin.address} shows #VALUE!; fix those cells first, so that the copy holds numbers.`,
     });
+  });
+
+  /** A plot as the pane hands it over (invented points: the tests check that they are written and charted as given). */
+  const PLOT: SharePlot = {
+    title: "Water supply and sprinkler demand",
+    xTitle: "Flow (gpm)",
+    yTitle: "Pressure (psi)",
+    series: [
+      { name: "Water supply (flow test)", points: [[0, 72], [550, 68.5], [1100, 58]], style: "line", marker: "none", color: PALETTE.supply },
+      { name: "Sprinklers + hose", points: [[562, 48]], style: "marker", marker: "diamond", color: PALETTE.demand },
+    ],
+  };
+
+  /** The last column the sheet's cells use, 0-based. */
+  const lastColumn = (fake: FakeExcel, sheet: string) => Math.max(...[...fake.sheetByName(sheet)!.cells.keys()].map((a) => parseCell(a).col));
+
+  it("with the pane's plot: its points as values right of the copied cells, and a chart of them where the estimate's chart stands", async () => {
+    const { fake, port, sheetName } = await calculatedEstimate();
+    const left = lastColumn(fake, sheetName) + 2; // one empty column after the copied cells
+    const result = await port.makeShareCopy(PLOT);
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    const copy = fake.sheetByName(result.sheetName)!;
+    const cells = fake.cellsOf(result.sheetName);
+    const at = (row: number, col: number) => cellAddress({ row, col });
+    // below the stamp's two rows: a title, then each series in two columns: its name, the axes' titles, its points
+    expect(cells[at(2, left)]?.value).toBe("Plot data: the supply-versus-demand plot of the pane, values frozen");
+    PLOT.series.forEach((s, i) => {
+      const col = left + 2 * i;
+      expect(cells[at(3, col)]?.value).toBe(s.name);
+      expect([cells[at(4, col)]?.value, cells[at(4, col + 1)]?.value]).toEqual(["Flow (gpm)", "Pressure (psi)"]);
+      s.points.forEach(([q, p], k) => expect([cells[at(5 + k, col)]?.value, cells[at(5 + k, col + 1)]?.value]).toEqual([q, p]));
+    });
+    expect(Object.values(cells).filter((c) => c.formula)).toEqual([]);
+
+    // one chart: the one the copied sheet carried is replaced by the chart of the frozen points
+    expect(copy.charts).toHaveLength(1);
+    const chart = copy.charts[0];
+    expect(chart.props.name).toBe("Headroom supply and demand");
+    expect(chart.props["title/text"]).toBe(PLOT.title);
+    expect(chart.position).toEqual(["F7", "N26"]); // the estimate's chart block F5:N24, two rows down
+    const col = (i: number, k: number) => cellAddress({ row: 0, col: left + 2 * i + k }).replace(/\d+$/, "");
+    expect(chart.series.map((s) => [s.name, s.x, s.y])).toEqual([
+      ["Water supply (flow test)", `${col(0, 0)}6:${col(0, 0)}8`, `${col(0, 1)}6:${col(0, 1)}8`],
+      ["Sprinklers + hose", `${col(1, 0)}6:${col(1, 0)}6`, `${col(1, 1)}6:${col(1, 1)}6`],
+    ]);
+    expect(chart.series[0].props["format/line/color"]).toBe(PALETTE.supply);
+    expect(chart.series[1].props).toMatchObject({ chartType: "XYScatter", markerStyle: "Diamond", markerBackgroundColor: PALETTE.demand });
+  });
+
+  it("with the pane's plot on a sheet whose cells fill the chart's block: the chart stands right of the points", async () => {
+    const fake = new FakeExcel(["Notes"]);
+    fake.setCell("Notes", "A1", { value: "hand-made" });
+    fake.setCell("Notes", "G6", { value: 12, formula: "=6*2" });
+    const result = await excelPort(fake, new Date(2026, 0, 9)).makeShareCopy(PLOT);
+    expect(result.ok).toBe(true);
+    if (!result.ok) return;
+    const copy = fake.sheetByName(result.sheetName)!;
+    const left = parseCell("G6").col + 2;
+    const from = cellAddress({ row: 2, col: left + 2 * PLOT.series.length + 1 });
+    expect(copy.charts).toHaveLength(1);
+    expect(copy.charts[0].position?.[0]).toBe(from);
+    expect(fake.cellsOf(result.sheetName)[cellAddress({ row: 5, col: left + 1 })]?.value).toBe(72);
   });
 
   it("copies the active sheet when no estimate names are defined", async () => {

@@ -418,7 +418,16 @@ class Session {
         return this.sheetProxy(copy);
       },
       charts: {
-        add: (type: string, source: { _ref?: NameTarget }, seriesBy: string) => this.chartProxy(sheet, type, source._ref!.address, seriesBy),
+        add: (type: string, source: { _ref?: NameTarget }, seriesBy: string) => {
+          const chart: FakeChart = { type, source: source._ref!.address, seriesBy, props: {}, series: [{ name: "", props: {} }] };
+          sheet.charts.push(chart);
+          return this.chartProxy(sheet, chart);
+        },
+        // the first chart of that name, else a null object (ChartCollection.getItemOrNullObject)
+        getItemOrNullObject: (name: string) => {
+          const chart = sheet.charts.find((c) => c.props.name === name);
+          return chart ? this.chartProxy(sheet, chart) : this.nullProxy();
+        },
       },
     };
     return this.proxy(
@@ -560,9 +569,7 @@ class Session {
     }
   }
 
-  private chartProxy(sheet: FakeSheet, type: string, source: string, seriesBy: string): OfficeMockObject {
-    const chart: FakeChart = { type, source, seriesBy, props: {}, series: [{ name: "", props: {} }] };
-    sheet.charts.push(chart);
+  private chartProxy(sheet: FakeSheet, chart: FakeChart): OfficeMockObject {
     const seriesProxy = (s: FakeChart["series"][number]) =>
       this.proxy(
         {
@@ -580,9 +587,10 @@ class Session {
       );
     return this.proxy(
       {
-        name: "",
+        name: chart.props.name ?? "",
         title: { text: "" },
         legend: { position: "" },
+        delete: () => void sheet.charts.splice(sheet.charts.indexOf(chart), 1),
         axes: { categoryAxis: { minimum: 0, title: { text: "" } }, valueAxis: { minimum: 0, title: { text: "" } } },
         setPosition: (a: string, b: string) => (chart.position = [a, b]),
         series: {
