@@ -17,6 +17,7 @@ import { describe, expect, test } from "vitest";
 import { registerFunctions } from "../../samples/build";
 import { SAMPLES } from "../../samples/scenarios";
 import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
+import { picturePlace } from "../../src/preview/picture";
 import { PreviewPort } from "../../src/preview/port";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
@@ -50,7 +51,10 @@ async function convertAll(): Promise<Seen> {
   const sample = new PreviewWorkbook((await readXlsx(bytes[SAMPLES[0].file], known)).workbook);
   const made = new PreviewPort(sample, () => new Date(2026, 4, 4)).shareCopyData();
   if (!made.ok) throw new Error(made.reason);
-  bytes[SHARE] = await writeXlsx({ sheets: [made.sheet], names: [], activeSheet: made.sheet.name }, known);
+  // with a picture where the plot goes (one pixel: the file's drawing part is what matters here)
+  const png = "data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==";
+  const pictures = [{ sheet: made.sheet.name, png, at: picturePlace(made.sheet), width: 360, height: 280 }];
+  bytes[SHARE] = await writeXlsx({ sheets: [made.sheet], names: [], activeSheet: made.sheet.name }, known, { pictures });
 
   const converted = convertWithLibreOffice(bytes);
   const files: Seen = {};
@@ -77,7 +81,7 @@ function same(a: Shown | undefined, b: Shown | undefined): boolean {
 const isError = (v: Shown | undefined) => v !== null && typeof v === "object";
 
 describe("LibreOffice Calc opens", () => {
-  test("a share copy: every value shown, no error cell", { timeout: LIBREOFFICE_MS }, async () => {
+  test("a share copy with its plot's picture: every value shown, no error cell", { timeout: LIBREOFFICE_MS }, async () => {
     const { ours, theirs } = (await (seen ??= convertAll()))[SHARE];
     expect(ours.arrays).toEqual([]);
     let compared = 0;
