@@ -482,30 +482,46 @@ function areaSolve(
 }
 
 /**
+ * The sprinkler rows of a design by the density/area method (K, coverage, spacing along a line, minimum pressure and
+ * HEADFLOW's most remote flow): the tree's and the grid's alike.
+ */
+function sprinklerRows(s: Scenario, sh: SectionWriter, U: string, density: string, spacingNote = "") {
+  const u = SHEET_UNITS[s.units];
+  const f = u.fmt;
+  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
+  const coverage = sh.line("Coverage per sprinkler", "input", s.sprinkler.coverage, u.area, "", f.area);
+  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, spacingNote, s.units === "SI" ? "0.00" : "0.0");
+  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, s.units === "SI" ? "0.5 bar unless the listing says more" : "7 psi unless the listing says more", f.pressure);
+  sh.line("Most remote sprinkler flow", "computed", `=${hr("HEADFLOW", density, coverage, k, minP, U)}`, u.flow, "HEADFLOW", "0.0");
+  return { k, coverage, spacing, minP };
+}
+
+/** The design area flowed: the hazard's, adjusted for the system type (ADJUSTAREA); named for the one-page summary. */
+function areaFlowed(s: Scenario, sh: SectionWriter, area: string, system: string): string {
+  const u = SHEET_UNITS[s.units];
+  const flowed = sh.line(
+    "Design area flowed",
+    "computed",
+    `=${hr("ADJUSTAREA", area, system)}`,
+    u.area,
+    "ADJUSTAREA: dry and double-interlock systems flow 30 % more area [NFPA 13], at the density read above",
+    u.fmt.area,
+  );
+  sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
+  return flowed;
+}
+
+/**
  * The design area as a tree by the density/area method: sprinklers on branch lines fed by a cross main, their pipes
  * and C, the area adjusted for the system type (ADJUSTAREA), and AREADEMAND's flow and pressure at the cross main.
  */
 export const treeDemandSection: AreaDemandSection = (s, row, { units: U, hazard: { area, density } }) => {
   if (area === null || density === null) throw new Error("the tree demand section needs the hazard's design area and density");
-  const u = SHEET_UNITS[s.units];
-  const f = u.fmt;
   const sh = new SectionWriter(row);
   sh.heading("Sprinklers and the design area's pipes");
-  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
-  const coverage = sh.line("Coverage per sprinkler", "input", s.sprinkler.coverage, u.area, "", f.area);
-  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, "", s.units === "SI" ? "0.00" : "0.0");
-  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, s.units === "SI" ? "0.5 bar unless the listing says more" : "7 psi unless the listing says more", f.pressure);
-  sh.line("Most remote sprinkler flow", "computed", `=${hr("HEADFLOW", density, coverage, k, minP, U)}`, u.flow, "HEADFLOW", "0.0");
+  const { k, coverage, spacing, minP } = sprinklerRows(s, sh, U, density);
   const pipes = areaPipes(s, sh, U);
-  const flowed = sh.line(
-    "Design area flowed",
-    "computed",
-    `=${hr("ADJUSTAREA", area, pipes.system)}`,
-    u.area,
-    "ADJUSTAREA: dry and double-interlock systems flow 30 % more area [NFPA 13], at the density read above",
-    f.area,
-  );
-  sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
+  const flowed = areaFlowed(s, sh, area, pipes.system);
   const formula = `=${hr("AREADEMAND", density, flowed, coverage, k, spacing, pipes.branch.id, pipes.main.id, pipes.c, minP, U)}`;
   return sh.done(areaSolve(s, sh, U, "AREADEMAND", formula, pipes));
 };
@@ -524,24 +540,12 @@ export const gridDemandSection: AreaDemandSection = (s, row, { units: U, hazard:
   const len = s.units === "SI" ? "0.00" : "0.0";
   const sh = new SectionWriter(row);
   sh.heading("Sprinklers and the gridded system's pipes");
-  const k = sh.line("Sprinkler K-factor", "input", s.sprinkler.kFactor, u.kfactor, "", f.kfactor);
-  const coverage = sh.line("Coverage per sprinkler", "input", s.sprinkler.coverage, u.area, "", f.area);
-  const spacing = sh.line("Spacing along a branch line", "input", s.sprinkler.spacing, u.length, "the lines stand coverage ÷ spacing apart", len);
-  const minP = sh.line("Minimum operating pressure", "input", s.sprinkler.minPressure, u.pressure, s.units === "SI" ? "0.5 bar unless the listing says more" : "7 psi unless the listing says more", f.pressure);
-  sh.line("Most remote sprinkler flow", "computed", `=${hr("HEADFLOW", density, coverage, k, minP, U)}`, u.flow, "HEADFLOW", "0.0");
+  const { k, coverage, spacing, minP } = sprinklerRows(s, sh, U, density, "the lines stand coverage ÷ spacing apart");
   const lines = sh.line("Branch lines in the grid", "input", d.lines, "", "each tied at both ends into a cross main", "0");
   const lineLength = sh.line("Length of a branch line", "input", d.lineLength, u.length, "between the two cross mains", len);
   const feedLine = sh.line("Line where the riser feeds", "input", d.feedLine, "", "1 for a corner; the middle line for a centre feed", "0");
   const pipes = areaPipes(s, sh, U);
-  const flowed = sh.line(
-    "Design area flowed",
-    "computed",
-    `=${hr("ADJUSTAREA", area, pipes.system)}`,
-    u.area,
-    "ADJUSTAREA: dry and double-interlock systems flow 30 % more area [NFPA 13], at the density read above",
-    f.area,
-  );
-  sh.name("Design_Area", flowed, "Design area flowed, for the one-page summary");
+  const flowed = areaFlowed(s, sh, area, pipes.system);
   const formula = `=${hr("GRIDDEMAND", density, flowed, coverage, k, spacing, lines, lineLength, pipes.branch.id, pipes.main.id, pipes.c, minP, feedLine, U)}`;
   const refs = areaSolve(s, sh, U, "GRIDDEMAND", formula, pipes, { where: "at the riser, placed where it needs the most", placement: true });
   // the same area as a tree of end-fed lines, for comparison: what piping the grid saves
