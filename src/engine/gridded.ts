@@ -35,15 +35,12 @@ import { type HeadLoss, headLoss } from "./friction";
 import { type Network, type NetworkNode, type NetworkPipe, type NetworkSolution, type PreparedNetwork, prepareNetwork, solveNetwork } from "./network";
 import {
   DESIGN_AREA_LENGTH_FACTOR,
-  MAX_DESIGN_AREA_SPRINKLERS,
-  MIN_HEAD_SPACING_FT,
-  ceilCount,
   headCount,
   headFlow,
   headPressure,
   headsPerLine,
 } from "./sprinkler";
-import { MIN_COVERAGE_FT2, MIN_LINE_SPACING_FT } from "./tree";
+import { checkAreaLayout } from "./tree";
 import type { Quantity } from "./units";
 
 /** The line where the riser joins the near main when none is given: line 1, at a corner of the grid. */
@@ -257,36 +254,7 @@ function checkInput(inp: GridDemandInput): void {
   if (!(Number.isInteger(inp.feedLine) && inp.feedLine >= 1 && inp.feedLine <= inp.lines)) {
     fail("feed_line", n(inp.feedLine), "must be a whole number from 1 to lines, {0}", n(inp.lines));
   }
-  if (inp.coverage > inp.area) fail("coverage", q("area", inp.coverage), "must not exceed the design area {0}", q("area", inp.area));
-  if (inp.coverage < MIN_COVERAGE_FT2) {
-    fail(
-      "coverage",
-      q("area", inp.coverage),
-      "must be at least {0}: a sprinkler protecting less than {1} × {2} is an input error",
-      q("area", MIN_COVERAGE_FT2),
-      q("length", MIN_HEAD_SPACING_FT),
-      q("length", MIN_LINE_SPACING_FT),
-    );
-  }
-  headsPerLine(inp.area, inp.headSpacing, DESIGN_AREA_LENGTH_FACTOR); // refuses a head spacing below MIN_HEAD_SPACING_FT
-  if (inp.coverage / inp.headSpacing < MIN_LINE_SPACING_FT) {
-    fail(
-      "head_spacing",
-      q("length", inp.headSpacing),
-      "must be at most coverage ÷ {0} = {1}: branch lines closer than {0} are an input error",
-      q("length", MIN_LINE_SPACING_FT),
-      q("length", inp.coverage / MIN_LINE_SPACING_FT),
-    );
-  }
-  if (ceilCount(inp.area / inp.coverage) > MAX_DESIGN_AREA_SPRINKLERS) {
-    fail(
-      "area",
-      q("area", inp.area),
-      `must be at most {0} with a coverage of {1}: a design area of more than ${MAX_DESIGN_AREA_SPRINKLERS} sprinklers is an input error`,
-      q("area", MAX_DESIGN_AREA_SPRINKLERS * inp.coverage),
-      q("area", inp.coverage),
-    );
-  }
+  checkAreaLayout(inp);
   if (floorCount(inp.lineLength / inp.headSpacing) < 1) {
     fail(
       "line_length",

@@ -186,8 +186,24 @@ function checkInput(inp: AreaDemandInput): void {
     const v = inp[key];
     if (!(v > 0) || !Number.isFinite(v)) fail(name, quantity ? q(quantity, v) : n(v), "must be greater than 0");
   }
+  checkAreaLayout(inp);
+}
+
+/**
+ * Refuse a design area's layout that no sprinklers could be: the checks a tree and a grid share.
+ *
+ * Coverage within the area and not below the smallest plausible, a head spacing that gives branch lines at least the
+ * smallest spacing apart, and no more than MAX_DESIGN_AREA_SPRINKLERS sprinklers (every loop of a solve runs at most
+ * that many times). Throws a HeadroomError naming the argument at fault. US units.
+ *
+ * @param inp the design area (ft²), the coverage per sprinkler (ft²) and the head spacing along a line (ft), each
+ *   already checked to be greater than 0
+ * @see [NFPA 13] design area and sprinkler spacing (the bounds are common practice)
+ * @example
+ * checkAreaLayout({ area: 100, coverage: 130, headSpacing: 13 }) // throws "coverage: got 130 ft²; must not exceed the design area 100 ft²"
+ */
+export function checkAreaLayout(inp: { area: number; coverage: number; headSpacing: number }): void {
   if (inp.coverage > inp.area) fail("coverage", q("area", inp.coverage), "must not exceed the design area {0}", q("area", inp.area));
-  // The plausible-count bounds: every loop of the solve runs at most MAX_DESIGN_AREA_SPRINKLERS times.
   if (inp.coverage < MIN_COVERAGE_FT2) {
     fail(
       "coverage",
