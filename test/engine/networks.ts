@@ -3,7 +3,7 @@
  * checks every solution must pass (flow balanced at every node, every sprinkler K √p, every pipe losing what the heads
  * across it say).
  */
-import { headLoss } from "../../src/engine/friction";
+import { headLoss, velocity } from "../../src/engine/friction";
 import type { Network, NetworkNode, NetworkPipe, NetworkSolution } from "../../src/engine/network";
 import { PSI_PER_FT_WATER, type UnitSystem } from "../../src/engine/units";
 
@@ -77,7 +77,19 @@ export interface Departures {
   headLoss: number;
   /** gpm: the total flow the sources supply */
   supplied: number;
+  /**
+   * gpm: the flow that rounding the heads by a few units in their last place drives through a junction's pipes at
+   * their stiffest (linearised below 0.001 ft/s, as the solver does): an imbalance below it is arithmetic, not the
+   * solve. A short, wide pipe carrying nothing conducts some 1e8 gpm per psi, so 2e-14 psi of rounding in an 80 psi
+   * head is 2e-6 gpm there.
+   */
+  rounding: number;
 }
+
+/** 0.001 ft/s: the velocity below which a pipe's loss is taken as linear, as the solver takes it (network.ts). */
+const LINEAR_VELOCITY_FT_S = 0.001;
+/** Units in the last place a head carries after a solve: its own rounding and the factorisation's, generously. */
+const HEAD_ULPS = 16;
 
 /** How far a solution departs from each equation of the network (computed here, independently of the solver). */
 export function departures(net: Network, s: NetworkSolution, units: UnitSystem = "US"): Departures {
@@ -105,5 +117,15 @@ export function departures(net: Network, s: NetworkSolution, units: UnitSystem =
     const expected = (p > 0 ? (node.k ?? 0) * Math.sqrt(p) : 0) + (node.demand ?? 0);
     discharge = Math.max(discharge, Math.abs(s.outflow[i] - expected));
   });
-  return { imbalance, discharge, fixed, headLoss: headLossGap, supplied };
+  // the stiffest conductance at each junction: Σ 1/g over its pipes, g the linearised slope at 0.001 ft/s
+  const conductance = new Array<number>(net.nodes.length).fill(0);
+  for (const p of net.pipes) {
+    const qLin = LINEAR_VELOCITY_FT_S / velocity(1, p.diameter);
+    const g = hl.loss(qLin, p.diameter, p.cFactor, p.length) / qLin;
+    conductance[p.from] += 1 / g;
+    conductance[p.to] += 1 / g;
+  }
+  const heads = net.nodes.map((node, i) => Math.abs(s.pressure[i] + PSI_PER_FT_WATER * node.elevation));
+  const rounding = HEAD_ULPS * Number.EPSILON * Math.max(1, ...heads) * Math.max(0, ...conductance);
+  return { imbalance, discharge, fixed, headLoss: headLossGap, supplied, rounding };
 }

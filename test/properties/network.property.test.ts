@@ -50,7 +50,7 @@ describe("network solve on random networks", () => {
     const s = solveNetwork(net);
     const dep = departures(net, s);
     const scale = Math.max(1, dep.supplied);
-    expect(dep.imbalance).toBeLessThanOrEqual(1e-6 * scale * (1 + 1e-9));
+    expect(dep.imbalance).toBeLessThanOrEqual(1e-6 * scale * (1 + 1e-9) + dep.rounding);
     expect(dep.discharge).toBeLessThanOrEqual(1e-9 * scale);
     expect(dep.fixed).toBe(0);
     expect(s.residual).toBeLessThanOrEqual(1e-6 * scale);
@@ -60,9 +60,9 @@ describe("network solve on random networks", () => {
   test.prop([network], RUNS)("every pipe loses its Hazen-Williams loss, to the tolerance asked [NFPA 13]", (net) => {
     const s = solveNetwork(net, { tolerance: 1e-10 });
     const dep = departures(net, s);
-    // 1e-10 of the flow, but for rounding: a stiff pipe (short, wide, carrying nothing) turns a head's last digit
-    // into a flow
-    expect(dep.imbalance).toBeLessThanOrEqual(1e-7 * Math.max(1, dep.supplied));
+    // 1e-10 of the flow asked, checked to 1e-7 of it, plus what rounding a head drives through the stiffest pipes (a
+    // short, wide pipe carrying nothing turns a head's last digit into a flow)
+    expect(dep.imbalance).toBeLessThanOrEqual(1e-7 * Math.max(1, dep.supplied) + dep.rounding);
     // the loss is linear below 0.001 ft/s (a loss of a few 1e-7 psi at most here), and the heads carry rounding
     expect(dep.headLoss).toBeLessThan(1e-5);
   });
