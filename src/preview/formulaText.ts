@@ -32,7 +32,7 @@ const XLFN_FUNCTIONS = new Set([
 ]);
 
 /** Apply `fn` to each stretch of formula text outside string literals and quoted sheet names. */
-function outsideQuotes(formula: string, fn: (code: string) => string): string {
+export function outsideQuotes(formula: string, fn: (code: string) => string): string {
   let out = "";
   let i = 0;
   while (i < formula.length) {

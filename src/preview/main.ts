@@ -86,15 +86,12 @@ async function main(): Promise<void> {
   let current = samples.find((s) => s.file === wanted) ?? samples[0];
   if (!current) throw new Error("samples/index.json lists no sample");
 
-  const openBytes = async (bytes: ArrayBuffer, name: string): Promise<WorkbookData> => {
-    const { readXlsx } = await xlsx();
-    const { workbook, notes } = await readXlsx(bytes, known);
-    status(notes.length ? `Opened ${name}. ${notes.join("; ")}` : `Opened ${name}.`);
-    return workbook;
-  };
+  const readBytes = async (bytes: ArrayBuffer): Promise<{ workbook: WorkbookData; notes: string[] }> => (await xlsx()).readXlsx(bytes, known);
+  const opened = (name: string, notes: string[]) => status(notes.length ? `Opened ${name}. ${notes.join("; ")}` : `Opened ${name}.`);
 
-  const first = await openBytes(await (await fetchOk(`samples/${current.file}`)).arrayBuffer(), current.file);
-  const wb = new PreviewWorkbook(first);
+  const first = await readBytes(await (await fetchOk(`samples/${current.file}`)).arrayBuffer());
+  const wb = new PreviewWorkbook(first.workbook);
+  opened(current.file, first.notes);
   let fileName = current.file;
   const showName = () => ($("file-name").textContent = fileName);
   showName();
@@ -139,12 +136,16 @@ async function main(): Promise<void> {
     const s = samples.find((x) => x.file === picker.value);
     if (!s) return;
     try {
-      wb.load(await openBytes(await (await fetchOk(`samples/${s.file}`)).arrayBuffer(), s.file));
+      // the file is read and the workbook built aside: if either fails, the open workbook stays as it was
+      const { workbook, notes } = await readBytes(await (await fetchOk(`samples/${s.file}`)).arrayBuffer());
+      wb.load(workbook);
+      opened(s.file, notes);
       current = s;
       fileName = s.file;
       showName();
       grid.select("A1");
     } catch (e) {
+      picker.value = current.file;
       status(`Could not open ${s.file}: ${(e as Error).message}`, true);
     }
   });
@@ -156,7 +157,9 @@ async function main(): Promise<void> {
     input.value = "";
     if (!file) return;
     try {
-      wb.load(await openBytes(await file.arrayBuffer(), file.name));
+      const { workbook, notes } = await readBytes(await file.arrayBuffer());
+      wb.load(workbook);
+      opened(file.name, notes);
       fileName = file.name;
       showName();
       grid.select("A1");

@@ -6,10 +6,11 @@
  */
 import { DetailedCellError, HyperFormula } from "hyperformula";
 import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformula";
-import { absoluteRef, cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
+import { absoluteRef, cellAddress, columnLetters, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
 import { type CachedValue, type CellContent, type CellData, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
 import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
 import { normaliseTypedFormula } from "./formulaText";
+import { EngineNames } from "./names";
 
 /** The engine's settings: the licence key, Excel's dynamic-array behaviour, and full-precision results. */
 export const ENGINE_CONFIG: Partial<ConfigParams> = {
@@ -46,13 +47,57 @@ function shown(v: unknown): ShownValue {
   return String(v);
 }
 
+/** What the engine does not keep: each sheet's cell styles, column widths, merges, row heights and print setup. */
+class Layout {
+  readonly styles = new Map<string, Map<string, CellStyle>>();
+  readonly widths = new Map<string, Record<number, number>>();
+  readonly merges = new Map<string, string[]>();
+  readonly heights = new Map<string, Record<number, number>>();
+  readonly prints = new Map<string, PrintSetup>();
+
+  keep(s: SheetData): void {
+    const m = new Map<string, CellStyle>();
+    for (const [address, cell] of Object.entries(s.cells)) if (cell.style) m.set(address, cell.style);
+    this.styles.set(s.name, m);
+    this.widths.set(s.name, { ...(s.columnWidths ?? {}) });
+    this.merges.set(s.name, [...(s.merges ?? [])]);
+    this.heights.set(s.name, { ...(s.rowHeights ?? {}) });
+    if (s.print) this.prints.set(s.name, { ...s.print });
+    else this.prints.delete(s.name);
+  }
+}
+
+/** The most rows and columns a sheet may have: the engine's (HyperFormula's maxRows and maxColumns). */
+const MAX_ROWS = ENGINE_CONFIG.maxRows ?? HyperFormula.defaultConfig.maxRows;
+const MAX_COLUMNS = ENGINE_CONFIG.maxColumns ?? HyperFormula.defaultConfig.maxColumns;
+
+/** Why the engine cannot hold this workbook as it is, before it is asked to (undefined: it can). */
+function sizeProblem(data: WorkbookData): string | undefined {
+  const seen = new Map<string, string>();
+  for (const s of data.sheets) {
+    const other = seen.get(s.name.toLowerCase());
+    if (other !== undefined) return `the workbook has two sheets named "${other}" and "${s.name}"`;
+    seen.set(s.name.toLowerCase(), s.name);
+    let rows = 0;
+    let cols = 0;
+    for (const address of Object.keys(s.cells)) {
+      const a = parseCell(address);
+      rows = Math.max(rows, a.row + 1);
+      cols = Math.max(cols, a.col + 1);
+    }
+    if (rows > MAX_ROWS) return `sheet "${s.name}" reaches row ${rows.toLocaleString("en-US")}; the preview holds at most ${MAX_ROWS.toLocaleString("en-US")} rows`;
+    if (cols > MAX_COLUMNS) {
+      return `sheet "${s.name}" reaches column ${columnLetters(cols - 1)}; the preview holds at most ${MAX_COLUMNS.toLocaleString("en-US")} columns (A to ${columnLetters(MAX_COLUMNS - 1)})`;
+    }
+  }
+  return undefined;
+}
+
 export class PreviewWorkbook {
   private engine!: HyperFormula;
-  private readonly styles = new Map<string, Map<string, CellStyle>>();
-  private readonly widths = new Map<string, Record<number, number>>();
-  private readonly merges = new Map<string, string[]>();
-  private readonly heights = new Map<string, Record<number, number>>();
-  private readonly prints = new Map<string, PrintSetup>();
+  private layout = new Layout();
+  /** the engine's spellings of names it refuses as they are (./names) */
+  private names_ = new EngineNames();
   private readonly listeners = new Set<ChangeListener>();
   private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
   activeSheet = "";
@@ -66,22 +111,31 @@ export class PreviewWorkbook {
     return this.engine;
   }
 
-  /** Replace the whole workbook (a file opened), keeping the listeners. */
+  /**
+   * Replace the whole workbook (a file opened), keeping the listeners. The new workbook is built completely aside
+   * and only then takes the old one's place: if anything in `data` cannot be read, this throws and the workbook,
+   * its layout, its names and its undo history stay exactly as they were.
+   */
   load(data: WorkbookData): void {
     if (!data.sheets.length) throw new Error("a workbook needs at least one sheet");
+    const problem = sizeProblem(data);
+    if (problem) throw new Error(problem);
+    const names = EngineNames.for(data.names.map((n) => n.name));
+    const namedExpressions = data.names.map((n) => ({ name: names.define(n.name), expression: names.toEngine(n.ref.startsWith("=") ? n.ref : `=${n.ref}`) }));
+    const layout = new Layout();
     const sheets: Record<string, RawCellContent[][]> = {};
-    this.styles.clear();
-    this.widths.clear();
-    this.merges.clear();
-    this.heights.clear();
-    this.prints.clear();
     for (const s of data.sheets) {
-      sheets[s.name] = toRows(s);
-      this.keepLayout(s);
+      sheets[s.name] = toRows(s, names);
+      layout.keep(s);
     }
+    // names go in with the sheets: they are part of the file, not a first step to undo
+    const engine = HyperFormula.buildFromSheets(sheets, ENGINE_CONFIG, namedExpressions);
+
     const previous = this.engine;
-    this.engine = HyperFormula.buildFromSheets(sheets, ENGINE_CONFIG);
-    for (const n of data.names) this.setName(n.name, n.ref, { quiet: true });
+    this.engine = engine;
+    this.layout = layout;
+    this.names_ = names;
+    this.spillCache = new Map();
     this.activeSheet = data.activeSheet && sheets[data.activeSheet] ? data.activeSheet : data.sheets[0].name;
     this.engine.on("valuesUpdated", () => this.changed());
     previous?.destroy();
@@ -111,10 +165,10 @@ export class PreviewWorkbook {
   addSheet(data: SheetData): string {
     const name = freeSheetName(data.name, this.sheetNames());
     const sheet = { ...data, name };
-    this.keepLayout(sheet);
+    this.layout.keep(sheet);
     this.hf.batch(() => {
       this.hf.addSheet(name);
-      this.hf.setSheetContent(this.sheetId(name), toRows(sheet));
+      this.hf.setSheetContent(this.sheetId(name), toRows(sheet, this.names_));
     });
     this.changed();
     return name;
@@ -125,7 +179,7 @@ export class PreviewWorkbook {
     const d = this.hf.getSheetDimensions(this.sheetId(sheet));
     let rows = d.height;
     let cols = d.width;
-    for (const addr of this.styles.get(sheet)?.keys() ?? []) {
+    for (const addr of this.layout.styles.get(sheet)?.keys() ?? []) {
       const a = parseCell(addr);
       rows = Math.max(rows, a.row + 1);
       cols = Math.max(cols, a.col + 1);
@@ -134,15 +188,15 @@ export class PreviewWorkbook {
   }
 
   columnWidths(sheet: string): Record<number, number> {
-    return this.widths.get(sheet) ?? {};
+    return this.layout.widths.get(sheet) ?? {};
   }
 
   rowHeights(sheet: string): Record<number, number> {
-    return this.heights.get(sheet) ?? {};
+    return this.layout.heights.get(sheet) ?? {};
   }
 
   mergedRanges(sheet: string): string[] {
-    return this.merges.get(sheet) ?? [];
+    return this.layout.merges.get(sheet) ?? [];
   }
 
   // ─── Cells ─────────────────────────────────────────────────────────────────────────────────────────────────────
@@ -155,7 +209,7 @@ export class PreviewWorkbook {
   content(sheet: string, address: string): CellContent {
     const v = this.hf.getCellSerialized(this.addr(sheet, address));
     if (v === undefined || v === null) return null;
-    if (typeof v === "string") return fromEngineText(v);
+    if (typeof v === "string") return v.startsWith("=") ? this.names_.fromEngine(v) : fromEngineText(v);
     if (typeof v === "number" || typeof v === "boolean") return v;
     return String(v);
   }
@@ -165,7 +219,7 @@ export class PreviewWorkbook {
   }
 
   style(sheet: string, address: string): CellStyle | undefined {
-    return this.styles.get(sheet)?.get(address);
+    return this.layout.styles.get(sheet)?.get(address);
   }
 
   cell(sheet: string, address: string): CellView {
@@ -189,7 +243,7 @@ export class PreviewWorkbook {
       delete own.demo;
       this.setStyle(sheet, address, own);
     }
-    this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content)]]);
+    this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content, this.names_)]]);
   }
 
   /** Put what a user typed into a cell: formulas, numbers, TRUE/FALSE and text as a spreadsheet reads them. */
@@ -199,8 +253,8 @@ export class PreviewWorkbook {
   }
 
   setStyle(sheet: string, address: string, style: CellStyle | undefined): void {
-    let m = this.styles.get(sheet);
-    if (!m) this.styles.set(sheet, (m = new Map()));
+    let m = this.layout.styles.get(sheet);
+    if (!m) this.layout.styles.set(sheet, (m = new Map()));
     if (style) m.set(address, style);
     else m.delete(address);
   }
@@ -250,17 +304,25 @@ export class PreviewWorkbook {
 
   // ─── Names ─────────────────────────────────────────────────────────────────────────────────────────────────────
 
+  /** The workbook's names, spelt as the user (or the file) spelt them. */
   names(): DefinedName[] {
-    return this.hf.listNamedExpressions().map((name) => ({ name, ref: (this.hf.getNamedExpressionFormula(name) ?? "").replace(/^=/, "") }));
+    return this.hf.listNamedExpressions().map((name) => ({ name: this.names_.userName(name), ref: this.names_.fromEngine(this.hf.getNamedExpressionFormula(name) ?? "").replace(/^=/, "") }));
+  }
+
+  /** The engine's own spelling of a defined name (matched case-insensitively, as in Excel), or undefined. */
+  private definedName(name: string): string | undefined {
+    const spelling = this.names_.engineName(name).toLowerCase();
+    return this.hf.listNamedExpressions().find((n) => n.toLowerCase() === spelling);
   }
 
   /** Define (or redefine) a workbook name: `ref` like "Estimate!$B$8" or "=Estimate!$B$8". */
   setName(name: string, ref: string, opts: { quiet?: boolean } = {}): void {
-    const expression = ref.startsWith("=") ? ref : `=${ref}`;
-    if (this.hf.listNamedExpressions().some((n) => n.toLowerCase() === name.toLowerCase())) {
-      this.hf.changeNamedExpression(name, expression);
+    const expression = this.names_.toEngine(ref.startsWith("=") ? ref : `=${ref}`);
+    const existing = this.definedName(name);
+    if (existing) {
+      this.hf.changeNamedExpression(existing, expression);
     } else {
-      this.hf.addNamedExpression(name, expression);
+      this.hf.addNamedExpression(this.names_.define(name), expression);
     }
     if (!opts.quiet) this.changed();
   }
@@ -271,7 +333,7 @@ export class PreviewWorkbook {
   }
 
   removeName(name: string): void {
-    const existing = this.hf.listNamedExpressions().find((n) => n.toLowerCase() === name.toLowerCase());
+    const existing = this.definedName(name);
     if (existing) {
       this.hf.removeNamedExpression(existing);
       this.changed();
@@ -289,9 +351,9 @@ export class PreviewWorkbook {
     | { kind: "range"; sheet: string; range: string }
     | { kind: "other"; expression: string }
     | null {
-    const existing = this.hf.listNamedExpressions().find((n) => n.toLowerCase() === name.toLowerCase());
+    const existing = this.definedName(name);
     if (!existing) return null;
-    const expression = (this.hf.getNamedExpressionFormula(existing) ?? "").replace(/^=/, "");
+    const expression = this.names_.fromEngine(this.hf.getNamedExpressionFormula(existing) ?? "").replace(/^=/, "");
     const { sheet, range } = splitSheet(expression);
     if (sheet && this.hf.getSheetId(sheet) !== undefined && /^\$?[A-Za-z]{1,3}\$?\d+(:\$?[A-Za-z]{1,3}\$?\d+)?$/.test(range)) {
       const r = parseRange(range.replace(/\$/g, ""));
@@ -302,7 +364,7 @@ export class PreviewWorkbook {
   }
 
   nameValue(name: string): ShownValue {
-    const existing = this.hf.listNamedExpressions().find((n) => n.toLowerCase() === name.toLowerCase());
+    const existing = this.definedName(name);
     return existing ? shown(this.hf.getNamedExpressionValue(existing)) : null;
   }
 
@@ -351,13 +413,13 @@ export class PreviewWorkbook {
       cells[v.address] = cell;
     }
     const data: SheetData = { name, cells };
-    const widths = this.widths.get(name);
+    const widths = this.layout.widths.get(name);
     if (widths && Object.keys(widths).length) data.columnWidths = { ...widths };
-    const merges = this.merges.get(name);
+    const merges = this.layout.merges.get(name);
     if (merges?.length) data.merges = [...merges];
-    const heights = this.heights.get(name);
+    const heights = this.layout.heights.get(name);
     if (heights && Object.keys(heights).length) data.rowHeights = { ...heights };
-    const print = this.prints.get(name);
+    const print = this.layout.prints.get(name);
     if (print) data.print = { ...print };
     return data;
   }
@@ -365,17 +427,6 @@ export class PreviewWorkbook {
   /** A formula that refers to `address` on `sheet` from another sheet. */
   static reference(sheet: string, address: string): string {
     return `${quoteSheet(sheet)}!${address}`;
-  }
-
-  private keepLayout(s: SheetData): void {
-    const m = new Map<string, CellStyle>();
-    for (const [address, cell] of Object.entries(s.cells)) if (cell.style) m.set(address, cell.style);
-    this.styles.set(s.name, m);
-    this.widths.set(s.name, { ...(s.columnWidths ?? {}) });
-    this.merges.set(s.name, [...(s.merges ?? [])]);
-    this.heights.set(s.name, { ...(s.rowHeights ?? {}) });
-    if (s.print) this.prints.set(s.name, { ...s.print });
-    else this.prints.delete(s.name);
   }
 }
 
@@ -388,8 +439,8 @@ function cachedOf(v: ShownValue): CachedValue {
  * it the engine reads text the way a user's typing is read, so a nominal size "1-1/4" would become a date and a
  * schedule "40" a number.
  */
-function toEngine(content: CellContent): RawCellContent {
-  if (typeof content === "string" && !isFormula(content)) return `'${textOf(content)}`;
+function toEngine(content: CellContent, names: EngineNames): RawCellContent {
+  if (typeof content === "string") return isFormula(content) ? names.toEngine(content) : `'${textOf(content)}`;
   return content;
 }
 
@@ -399,7 +450,7 @@ function fromEngineText(v: string): CellContent {
 }
 
 /** A sheet's cells as the engine's rows of raw content. */
-function toRows(s: SheetData): RawCellContent[][] {
+function toRows(s: SheetData, names: EngineNames): RawCellContent[][] {
   const rows: RawCellContent[][] = [];
   for (const [address, cell] of Object.entries(s.cells)) {
     if (cell.content === null || cell.content === undefined) continue;
@@ -407,7 +458,7 @@ function toRows(s: SheetData): RawCellContent[][] {
     while (rows.length <= a.row) rows.push([]);
     const row = rows[a.row];
     while (row.length < a.col) row.push(null);
-    row[a.col] = toEngine(cell.content);
+    row[a.col] = toEngine(cell.content, names);
   }
   return rows;
 }

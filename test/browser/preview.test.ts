@@ -522,6 +522,77 @@ describe(".xlsx in and out", () => {
   });
 });
 
+describe("nothing is lost", () => {
+  /** An .xlsx file written here with ExcelJS, saved under test-results/. */
+  async function writeFile(name: string, fill: (ws: ExcelJS.Worksheet, wb: ExcelJS.Workbook) => void): Promise<string> {
+    const wb = new ExcelJS.Workbook();
+    fill(wb.addWorksheet("Estimate"), wb);
+    const file = path.join(RESULTS, name);
+    await wb.xlsx.writeFile(file);
+    return file;
+  }
+  const statusText = async () => (await page.locator('[data-role="preview-status"]').textContent()) ?? "";
+  /** What of the open sheet's look a failed open must not touch: shaded inputs, merges, the first column's width. */
+  const look = () =>
+    page.evaluate(() => ({
+      inputs: document.querySelectorAll('[data-role="grid"] td.role-input').length,
+      merged: document.querySelectorAll('[data-role="grid"] td.merged').length,
+      width: document.querySelector<HTMLElement>('[data-role="grid"] col:nth-child(2)')?.style.width,
+    }));
+
+  test("a file that fails to open leaves the open workbook exactly as it was: its name, the unsaved edit, its look, Save", async () => {
+    await open(PUMP_SAMPLE);
+    const margin = await valueCellOf("Required margin");
+    await typeInto(margin, "12");
+    const before = { verdict: await verdict(), look: await look() };
+    expect(before.look.inputs).toBeGreaterThan(20);
+    expect(before.look.merged).toBeGreaterThan(0);
+    // more rows than the engine holds: 40,000 (HyperFormula's maxRows)
+    const big = await writeFile("too-many-rows.xlsx", (ws) => {
+      ws.getCell("A1").value = 1;
+      ws.getCell("A40001").value = 2;
+    });
+    await page.setInputFiles('[data-role="file-input"]', big);
+    await expect.poll(statusText).toBe('Could not open too-many-rows.xlsx: sheet "Estimate" reaches row 40,001; the preview holds at most 40,000 rows');
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    expect((await cell(margin).textContent())?.trim()).toBe("12.0");
+    expect(await look()).toEqual(before.look);
+    expect(await verdict()).toBe(before.verdict);
+    // Save writes this workbook, with the edit
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-file"]')]);
+    const saved = path.join(RESULTS, "after-failed-open.xlsx");
+    await download.saveAs(saved);
+    const x = new ExcelJS.Workbook();
+    await x.xlsx.load((await readFile(saved)) as unknown as ArrayBuffer);
+    expect(x.getWorksheet("Estimate")!.getCell(margin).value).toBe(12);
+    // and the edit is still the one Ctrl+Z takes back
+    await cell("A1").click();
+    await page.keyboard.press("Control+z");
+    await settle();
+    expect((await cell(margin).textContent())?.trim()).not.toBe("12.0");
+  });
+
+  test("a file whose names Excel takes and the engine would read as cells (Flow1, Pump1) opens and computes", async () => {
+    await open(OFFICE_SAMPLE);
+    const file = await writeFile("names-like-cells.xlsx", (ws, wb) => {
+      ws.getCell("B1").value = 1250;
+      ws.getCell("B2").value = 65;
+      ws.getCell("B3").value = { formula: "Flow1*2", result: 2500 } as ExcelJS.CellValue;
+      ws.getCell("B4").value = { formula: "Pump1+1", result: 66 } as ExcelJS.CellValue;
+      wb.definedNames.add("Estimate!$B$1", "Flow1");
+      wb.definedNames.add("Estimate!$B$2", "Pump1");
+    });
+    await page.setInputFiles('[data-role="file-input"]', file);
+    await page.waitForFunction(() => document.querySelector('[data-role="file-name"]')?.textContent === "names-like-cells.xlsx");
+    expect((await cell("B3").textContent())?.trim()).toBe("2500"); // 1250 × 2 (hand arithmetic)
+    expect((await cell("B4").textContent())?.trim()).toBe("66"); // 65 + 1 (hand arithmetic)
+    await cell("B3").click();
+    expect(await page.inputValue('[data-role="formula-bar"]')).toBe("=Flow1*2");
+    await typeInto("B1", "1000");
+    expect((await cell("B3").textContent())?.trim()).toBe("2000"); // 1000 × 2 (hand arithmetic)
+  });
+});
+
 describe("the pane's actions on the preview's workbook", () => {
   test("New estimate sheet (SI) adds a sheet that becomes active and takes the named cells over", async () => {
     await open(OFFICE_SAMPLE);

@@ -8,6 +8,7 @@ import { contentText, formatNumber, formatValue, generalNumber, parseTyped } fro
 import { isFormula } from "../../src/preview/model";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
+import type { WorkbookData } from "../../src/preview/model";
 import { generatedMetadata } from "./metadataFixture";
 
 beforeAll(async () => {
@@ -145,5 +146,99 @@ describe("showing values", () => {
     expect(generalNumber(0)).toBe("0");
     expect(formatValue({ error: "#VALUE!", message: "x" })).toBe("#VALUE!");
     expect(formatValue(true)).toBe("TRUE");
+  });
+});
+
+describe("a file that fails to open leaves the open workbook as it was", () => {
+  /** A workbook with shading, a width, a merge, a name and an unsaved edit. */
+  function edited(): PreviewWorkbook {
+    const wb = new PreviewWorkbook({
+      sheets: [
+        {
+          name: "Estimate",
+          cells: { A1: { content: "Static pressure (psi)", style: { role: "label" } }, B1: { content: 72, style: { role: "input", numFmt: "0.0" } }, B2: { content: "=B1*2" } },
+          columnWidths: { 0: 180 },
+          merges: ["A3:C3"],
+          rowHeights: { 2: 30 },
+        },
+      ],
+      names: [{ name: "Supply_Static", ref: "Estimate!$B$1" }],
+    });
+    wb.setTyped("Estimate", "B1", "65"); // the unsaved edit
+    return wb;
+  }
+
+  function expectUnchanged(wb: PreviewWorkbook): void {
+    expect(wb.sheetNames()).toEqual(["Estimate"]);
+    expect(wb.value("Estimate", "B1")).toBe(65);
+    expect(wb.value("Estimate", "B2")).toBe(130); // 65 × 2 (hand arithmetic)
+    expect(wb.style("Estimate", "B1")).toEqual({ role: "input", numFmt: "0.0" });
+    expect(wb.columnWidths("Estimate")).toEqual({ 0: 180 });
+    expect(wb.mergedRanges("Estimate")).toEqual(["A3:C3"]);
+    expect(wb.rowHeights("Estimate")).toEqual({ 2: 30 });
+    expect(wb.nameTarget("Supply_Static")).toEqual({ kind: "cell", sheet: "Estimate", address: "B1" });
+    // the edit is still the one to undo
+    expect(wb.undo()).toBe(true);
+    expect(wb.value("Estimate", "B1")).toBe(72);
+  }
+
+  test("a sheet beyond the rows the engine holds: refused with the sheet and the row named, nothing replaced", () => {
+    const wb = edited();
+    let calls = 0;
+    wb.onChange(() => calls++);
+    const big: WorkbookData = { sheets: [{ name: "Big", cells: { A1: { content: 1, style: { role: "input" } }, A50001: { content: 2 } } }], names: [] };
+    expect(() => wb.load(big)).toThrow(/^sheet "Big" reaches row 50,001; the preview holds at most 40,000 rows$/);
+    expect(calls).toBe(0);
+    expectUnchanged(wb);
+  });
+
+  test("two sheets whose names differ only in case: refused by the engine, nothing replaced", () => {
+    const wb = edited();
+    const bad: WorkbookData = { sheets: [{ name: "Other", cells: { A1: { content: 1, style: { role: "input" } } } }, { name: "OTHER", cells: {} }], names: [] };
+    expect(() => wb.load(bad)).toThrow(/OTHER/);
+    expectUnchanged(wb);
+  });
+});
+
+describe("names Excel accepts that the engine reads as cell references", () => {
+  // Excel's rule (from memory): a name starts with a letter, "_" or "\", goes on with letters, digits, "." and "_", and
+  // is not a cell reference of Excel's grid (columns A to XFD): FLOW1 is column FLOW, beyond XFD, so a name
+  const data = (): WorkbookData => ({
+    sheets: [{ name: "Estimate", cells: { B1: { content: 1250 }, B2: { content: 60 }, B3: { content: "=Flow1*2" }, B4: { content: "=pump1+Area2+ΔP" }, B5: { content: 7 } } }],
+    names: [
+      { name: "Flow1", ref: "Estimate!$B$1" },
+      { name: "Pump1", ref: "Estimate!$B$2" },
+      { name: "Area2", ref: "Estimate!$B$5" },
+      { name: "ΔP", ref: "=3" },
+    ],
+  });
+
+  test("are defined, compute in formulas, and keep their spelling in names, formulas and saved data", () => {
+    const wb = new PreviewWorkbook(data());
+    expect(wb.value("Estimate", "B3")).toBe(2500); // 1250 × 2 (hand arithmetic)
+    expect(wb.value("Estimate", "B4")).toBe(70); // 60 + 7 + 3 (hand arithmetic)
+    expect(wb.content("Estimate", "B3")).toBe("=Flow1*2");
+    expect(wb.content("Estimate", "B4")).toBe("=Pump1+Area2+ΔP");
+    expect(wb.names().map((n) => n.name).sort()).toEqual(["Area2", "Flow1", "Pump1", "ΔP"]);
+    expect(wb.nameTarget("flow1")).toEqual({ kind: "cell", sheet: "Estimate", address: "B1" });
+    expect(wb.nameValue("ΔP")).toBe(3);
+    const saved = wb.toData();
+    expect(saved.sheets[0].cells.B3.content).toBe("=Flow1*2");
+    expect(saved.names.find((n) => n.name === "Flow1")?.ref).toBe("Estimate!$B$1");
+  });
+
+  test("typing a formula with such a name uses it; names can be set, moved and removed", () => {
+    const wb = new PreviewWorkbook(data());
+    wb.setTyped("Estimate", "C1", "=FLOW1+1");
+    expect(wb.value("Estimate", "C1")).toBe(1251); // 1250 + 1 (hand arithmetic)
+    expect(wb.content("Estimate", "C1")).toBe("=Flow1+1");
+    wb.setNameToCell("Tank10", "Estimate", "B2");
+    wb.setTyped("Estimate", "C2", "=Tank10/2");
+    expect(wb.value("Estimate", "C2")).toBe(30); // 60 / 2 (hand arithmetic)
+    wb.setNameToCell("Flow1", "Estimate", "B5");
+    expect(wb.value("Estimate", "B3")).toBe(14); // 7 × 2 (hand arithmetic)
+    wb.removeName("Flow1");
+    expect(wb.nameTarget("Flow1")).toBeNull();
+    expect(wb.names().map((n) => n.name)).not.toContain("Flow1");
   });
 });

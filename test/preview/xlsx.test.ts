@@ -208,3 +208,40 @@ describe("round trip", () => {
     );
   });
 });
+
+describe("names Excel accepts and the engine would read as cell references", () => {
+  test("a file with Flow1 defined and used: the formula computes, and saved and opened again the name is Flow1 and the formula reads Flow1", async () => {
+    // a file as Excel writes it: Flow1 is a name there (column FLOW lies beyond XFD, Excel's last; from memory)
+    const x = new ExcelJS.Workbook();
+    const ws = x.addWorksheet("Estimate");
+    ws.getCell("B1").value = 1250;
+    ws.getCell("B2").value = 65;
+    ws.getCell("B3").value = { formula: "Flow1*2", result: 2500 } as ExcelJS.CellValue;
+    ws.getCell("B4").value = { formula: "Pump1+Area2", result: 66 } as ExcelJS.CellValue;
+    ws.getCell("B5").value = 1;
+    x.definedNames.add("Estimate!$B$1", "Flow1");
+    x.definedNames.add("Estimate!$B$2", "Pump1");
+    x.definedNames.add("Estimate!$B$5", "Area2");
+    const file = new Uint8Array((await x.xlsx.writeBuffer()) as ArrayBuffer);
+
+    const { workbook } = await readXlsx(file, known);
+    const wb = new PreviewWorkbook(workbook);
+    expect(wb.value("Estimate", "B3")).toBe(2500); // 1250 × 2 (hand arithmetic)
+    expect(wb.value("Estimate", "B4")).toBe(66); // 65 + 1 (hand arithmetic)
+    wb.setTyped("Estimate", "B1", "1000");
+    expect(wb.value("Estimate", "B3")).toBe(2000); // 1000 × 2 (hand arithmetic)
+
+    const saved = await writeXlsx(wb.toData(), known);
+    const back = new ExcelJS.Workbook();
+    await back.xlsx.load(saved as unknown as ArrayBuffer);
+    expect(back.definedNames.model.map((n: { name: string }) => n.name).sort()).toEqual(["Area2", "Flow1", "Pump1"]);
+    expect(back.getWorksheet("Estimate")!.getCell("B3").formula).toBe("Flow1*2");
+    expect(back.getWorksheet("Estimate")!.getCell("B3").result).toBe(2000);
+    expect(back.getWorksheet("Estimate")!.getCell("B4").formula).toBe("Pump1+Area2");
+    expect(zipEntry(saved, "xl/workbook.xml")).toContain('<definedName name="Flow1">Estimate!$B$1</definedName>');
+
+    const reopened = new PreviewWorkbook((await readXlsx(saved, known)).workbook);
+    expect(reopened.content("Estimate", "B3")).toBe("=Flow1*2");
+    expect(reopened.value("Estimate", "B3")).toBe(2000);
+  });
+});
