@@ -111,16 +111,19 @@ export class PreviewPort implements WorkbookPort {
     const wb = this.workbook;
     const t = estimateTemplate(scenario ?? demoScenario(units));
     const data = templateSheet(t, freeSheetName(t.sheetName, wb.sheetNames()));
-    // the demo's values are invented: marked until the user types over them (a given scenario's are its own)
-    const sheetName = wb.addSheet(scenario ? data : markDemoValues(data, t));
-    const namesMoved: WorkbookName[] = [];
-    for (const n of templateNames(t, sheetName)) {
-      const before = wb.nameTarget(n.name);
-      if (before) namesMoved.push(n.name as WorkbookName);
-      wb.setName(n.name, n.ref);
-    }
-    wb.activate(sheetName);
-    return { sheetName, namesMoved };
+    // the sheet, its names and showing it: one step, which one undo takes back
+    return wb.group(() => {
+      // the demo's values are invented: marked until the user types over them (a given scenario's are its own)
+      const sheetName = wb.addSheet(scenario ? data : markDemoValues(data, t));
+      const namesMoved: WorkbookName[] = [];
+      for (const n of templateNames(t, sheetName)) {
+        const before = wb.nameTarget(n.name);
+        if (before) namesMoved.push(n.name as WorkbookName);
+        wb.setName(n.name, n.ref);
+      }
+      wb.activate(sheetName);
+      return { sheetName, namesMoved };
+    });
   }
 
   /** The sheet a share copy is made of: the one Supply_Static refers to, else the active one. */
@@ -176,8 +179,12 @@ export class PreviewPort implements WorkbookPort {
   async makeShareCopy(): Promise<ShareCopyResult> {
     const made = this.shareCopyData();
     if (!made.ok) return made;
-    const sheetName = this.workbook.addSheet(made.sheet);
-    this.workbook.activate(sheetName);
+    const wb = this.workbook;
+    const sheetName = wb.group(() => {
+      const name = wb.addSheet(made.sheet);
+      wb.activate(name);
+      return name;
+    });
     return { ok: true, sheetName, sourceSheet: made.sourceSheet };
   }
 }

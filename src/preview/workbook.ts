@@ -100,6 +100,11 @@ export class PreviewWorkbook {
   private names_ = new EngineNames();
   private readonly listeners = new Set<ChangeListener>();
   private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
+  /** depth of `group` calls, and whether a change waits for the outermost to end */
+  private grouping = 0;
+  private changeWaiting = false;
+  /** for each sheet added: the sheet shown when it was added, shown again when an undo takes it away */
+  private readonly shownBefore = new Map<string, string>();
   activeSheet = "";
 
   constructor(data: WorkbookData) {
@@ -161,17 +166,47 @@ export class PreviewWorkbook {
     this.changed();
   }
 
-  /** Add a sheet (renamed " 2", " 3"… when the name is taken); returns its name. */
+  /** Add a sheet (renamed " 2", " 3"… when the name is taken); returns its name. One step to undo. */
   addSheet(data: SheetData): string {
     const name = freeSheetName(data.name, this.sheetNames());
     const sheet = { ...data, name };
     this.layout.keep(sheet);
-    this.hf.batch(() => {
+    this.shownBefore.set(name, this.activeSheet);
+    this.group(() => {
       this.hf.addSheet(name);
       this.hf.setSheetContent(this.sheetId(name), toRows(sheet, this.names_));
+      this.changed();
     });
-    this.changed();
     return name;
+  }
+
+  /**
+   * Do `steps` as one: one undo takes them all back, and the listeners hear of them once, at the end. Values cannot
+   * be read inside (the engine calculates once, at the end); names, sheets and contents can.
+   */
+  group<T>(steps: () => T): T {
+    if (this.grouping) return steps();
+    return this.quietly(() => {
+      let result: T | undefined;
+      this.hf.batch(() => {
+        result = steps();
+      });
+      return result as T;
+    });
+  }
+
+  /** Do `steps`, telling the listeners of their changes once, at the end. */
+  private quietly<T>(steps: () => T): T {
+    this.grouping++;
+    try {
+      return steps();
+    } finally {
+      this.grouping--;
+      if (!this.grouping && this.changeWaiting) {
+        this.changeWaiting = false;
+        this.changed();
+      }
+    }
   }
 
   /** Rows and columns in use (at least 1×1), spills included. */
@@ -378,20 +413,39 @@ export class PreviewWorkbook {
 
   private changed(): void {
     this.spillCache = new Map();
+    if (this.grouping) {
+      this.changeWaiting = true;
+      return;
+    }
     for (const l of [...this.listeners]) l();
   }
 
+  /** Take the last step back (an edit, or a whole group: a sheet added with its names). */
   undo(): boolean {
     if (!this.hf.isThereSomethingToUndo()) return false;
-    this.hf.undo();
-    this.changed();
+    this.quietly(() => {
+      this.hf.undo();
+      // a sheet taken away: show the one shown when it came
+      const sheets = this.sheetNames();
+      if (!sheets.includes(this.activeSheet)) {
+        const before = this.shownBefore.get(this.activeSheet);
+        this.activeSheet = before && sheets.includes(before) ? before : sheets[0];
+      }
+      this.changed();
+    });
     return true;
   }
 
+  /** Do the last step taken back again; a sheet it brings back is shown. */
   redo(): boolean {
     if (!this.hf.isThereSomethingToRedo()) return false;
-    this.hf.redo();
-    this.changed();
+    this.quietly(() => {
+      const before = new Set(this.sheetNames());
+      this.hf.redo();
+      const added = this.sheetNames().find((s) => !before.has(s));
+      if (added) this.activeSheet = added;
+      this.changed();
+    });
     return true;
   }
 

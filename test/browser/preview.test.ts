@@ -604,6 +604,26 @@ describe("the pane's actions on the preview's workbook", () => {
     expect((await cell("B9").textContent())?.trim()).toBe("SI");
   });
 
+  test("one Ctrl+Z takes a new estimate sheet back, names and all; Ctrl+Y brings it again", async () => {
+    await open(OFFICE_SAMPLE);
+    const before = await verdict();
+    await page.selectOption('[data-role="units"]', "SI");
+    await page.click('[data-role="new-sheet"]');
+    await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet="Estimate 2"][aria-selected="true"]');
+    await settle();
+    expect(await verdict()).toMatch(/bar/);
+    await cell("A1").click();
+    await page.keyboard.press("Control+z");
+    await settle();
+    await expect(page.locator('[data-role="sheet-tabs"] [data-sheet="Estimate 2"]').count()).resolves.toBe(0);
+    expect(await page.getAttribute('[data-role="sheet-tabs"] [data-sheet="Estimate"]', "aria-selected")).toBe("true");
+    expect(await verdict()).toBe(before);
+    await page.keyboard.press("Control+y");
+    await settle();
+    expect(await page.getAttribute('[data-role="sheet-tabs"] [data-sheet="Estimate 2"]', "aria-selected")).toBe("true");
+    expect(await verdict()).toMatch(/bar/);
+  });
+
   test("Share copy adds a values-only sheet, stamped, and refuses while a cell shows an error", async () => {
     await open(OFFICE_SAMPLE);
     await page.click('[data-role="share-copy"]');

@@ -2,7 +2,7 @@
  * The preview side of the Workbook port passes the contract the Excel side passes (test/workbook/contract.ts),
  * over the preview's own workbook and formula engine with the real cell functions.
  */
-import { beforeAll } from "vitest";
+import { beforeAll, describe, expect, test } from "vitest";
 import * as functions from "../../src/functions/functions";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
@@ -10,6 +10,7 @@ import { PreviewPort } from "../../src/preview/port";
 import { portContract, type PortHarness } from "../workbook/contract";
 import { generatedMetadata } from "./metadataFixture";
 import { cellAddress } from "../../src/workbook/a1";
+import { demoScenario } from "../../src/workbook/scenario";
 
 beforeAll(async () => {
   registerHeadroomFunctions(await generatedMetadata(), functions);
@@ -83,3 +84,52 @@ async function harness(): Promise<PortHarness> {
 }
 
 portContract("preview", harness);
+
+describe("undo after the pane's actions on the preview's workbook", () => {
+  /** A workbook with one input named Supply_Static, typed into. */
+  function workbook(): { wb: PreviewWorkbook; port: PreviewPort } {
+    const wb = new PreviewWorkbook({ sheets: [{ name: INPUT_SHEET, cells: { B1: { content: 72 } } }], names: [{ name: "Supply_Static", ref: `${INPUT_SHEET}!$B$1` }] });
+    wb.setTyped(INPUT_SHEET, "B1", "70");
+    return { wb, port: new PreviewPort(wb) };
+  }
+
+  test("one Ctrl+Z takes a new estimate sheet back: the sheet, its names, the sheet shown; Ctrl+Y brings it again", async () => {
+    const { wb, port } = workbook();
+    let changes = 0;
+    wb.onChange(() => changes++);
+    const { sheetName } = await port.insertEstimateSheet("US");
+    expect(wb.sheetNames()).toEqual([INPUT_SHEET, sheetName]);
+    expect(wb.nameTarget("Supply_Static")?.kind === "cell" && wb.nameTarget("Supply_Static")).toMatchObject({ sheet: sheetName });
+    expect(wb.nameTarget("Demand_Flow")).not.toBeNull();
+    expect(changes).toBe(1); // the insertion is one change, drawn once
+
+    expect(wb.undo()).toBe(true);
+    expect(wb.sheetNames()).toEqual([INPUT_SHEET]);
+    expect(wb.nameTarget("Supply_Static")).toEqual({ kind: "cell", sheet: INPUT_SHEET, address: "B1" });
+    expect(wb.nameTarget("Demand_Flow")).toBeNull();
+    expect(wb.activeSheet).toBe(INPUT_SHEET);
+    expect(wb.value(INPUT_SHEET, "B1")).toBe(70); // the edit before the insertion is still there: the next undo
+
+    expect(wb.redo()).toBe(true);
+    expect(wb.sheetNames()).toEqual([INPUT_SHEET, sheetName]);
+    expect(wb.activeSheet).toBe(sheetName);
+    expect(wb.nameTarget("Supply_Static")).toMatchObject({ sheet: sheetName });
+    expect(wb.style(sheetName, "B9")?.role).toBe("input"); // the Units cell keeps its shade
+
+    expect(wb.undo()).toBe(true);
+    expect(wb.undo()).toBe(true);
+    expect(wb.value(INPUT_SHEET, "B1")).toBe(72);
+  });
+
+  test("one Ctrl+Z takes a share copy's sheet back", async () => {
+    const { wb, port } = workbook();
+    // a scenario of the user's own: no demo value left to refuse the copy for
+    await port.insertEstimateSheet("US", demoScenario("US"));
+    const made = await port.makeShareCopy();
+    if (!made.ok) throw new Error(made.reason);
+    expect(wb.activeSheet).toBe(made.sheetName);
+    expect(wb.undo()).toBe(true);
+    expect(wb.sheetNames()).not.toContain(made.sheetName);
+    expect(wb.activeSheet).toBe(made.sourceSheet);
+  });
+});
