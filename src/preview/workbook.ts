@@ -105,10 +105,19 @@ export class PreviewWorkbook {
   private changeWaiting = false;
   /** for each sheet added: the sheet shown when it was added, shown again when an undo takes it away */
   private readonly shownBefore = new Map<string, string>();
+  private revision_ = 0;
   activeSheet = "";
 
   constructor(data: WorkbookData) {
     this.load(data);
+  }
+
+  /**
+   * Counts the changes to what the workbook holds (contents, styles, sheets, names, a workbook loaded, undo and redo;
+   * not which sheet is shown): equal counts, the same workbook.
+   */
+  get revision(): number {
+    return this.revision_;
   }
 
   /** The formula engine (replaced by `load`). */
@@ -141,6 +150,7 @@ export class PreviewWorkbook {
     this.layout = layout;
     this.names_ = names;
     this.spillCache = new Map();
+    this.revision_++;
     this.activeSheet = data.activeSheet && sheets[data.activeSheet] ? data.activeSheet : data.sheets[0].name;
     this.engine.on("valuesUpdated", () => this.changed());
     previous?.destroy();
@@ -172,6 +182,7 @@ export class PreviewWorkbook {
     const sheet = { ...data, name };
     this.layout.keep(sheet);
     this.shownBefore.set(name, this.activeSheet);
+    this.revision_++;
     this.group(() => {
       this.hf.addSheet(name);
       this.hf.setSheetContent(this.sheetId(name), toRows(sheet, this.names_));
@@ -272,6 +283,7 @@ export class PreviewWorkbook {
 
   /** Put content into a cell (null clears it). A demo value's mark goes: what is there now is the user's. */
   setContent(sheet: string, address: string, content: CellContent): void {
+    this.revision_++;
     const style = this.style(sheet, address);
     if (style?.demo) {
       const own: CellStyle = { ...style };
@@ -288,6 +300,7 @@ export class PreviewWorkbook {
   }
 
   setStyle(sheet: string, address: string, style: CellStyle | undefined): void {
+    this.revision_++;
     let m = this.layout.styles.get(sheet);
     if (!m) this.layout.styles.set(sheet, (m = new Map()));
     if (style) m.set(address, style);
@@ -354,6 +367,7 @@ export class PreviewWorkbook {
   setName(name: string, ref: string, opts: { quiet?: boolean } = {}): void {
     const expression = this.names_.toEngine(ref.startsWith("=") ? ref : `=${ref}`);
     const existing = this.definedName(name);
+    this.revision_++;
     if (existing) {
       this.hf.changeNamedExpression(existing, expression);
     } else {
@@ -370,6 +384,7 @@ export class PreviewWorkbook {
   removeName(name: string): void {
     const existing = this.definedName(name);
     if (existing) {
+      this.revision_++;
       this.hf.removeNamedExpression(existing);
       this.changed();
     }
@@ -423,6 +438,7 @@ export class PreviewWorkbook {
   /** Take the last step back (an edit, or a whole group: a sheet added with its names). */
   undo(): boolean {
     if (!this.hf.isThereSomethingToUndo()) return false;
+    this.revision_++;
     this.quietly(() => {
       this.hf.undo();
       // a sheet taken away: show the one shown when it came
@@ -439,6 +455,7 @@ export class PreviewWorkbook {
   /** Do the last step taken back again; a sheet it brings back is shown. */
   redo(): boolean {
     if (!this.hf.isThereSomethingToRedo()) return false;
+    this.revision_++;
     this.quietly(() => {
       const before = new Set(this.sheetNames());
       this.hf.redo();
@@ -466,7 +483,36 @@ export class PreviewWorkbook {
       if (v.spillRange) cell.spill = v.spillRange;
       cells[v.address] = cell;
     }
-    const data: SheetData = { name, cells };
+    return this.withLayout({ name, cells });
+  }
+
+  /**
+   * The workbook as data without its computed values: what it takes to build it again (`load` computes the rest).
+   * Quicker than `toData`, which computes every cell's view: for keeping the workbook after each change.
+   */
+  contentData(): WorkbookData {
+    const sheets = this.sheetNames().map((name) => {
+      const cells: Record<string, CellData> = {};
+      const spills = this.spills(name);
+      this.hf.getSheetSerialized(this.sheetId(name)).forEach((row, r) =>
+        row.forEach((v, c) => {
+          if (v === null || v === undefined || v === "") return;
+          const address = cellAddress({ row: r, col: c });
+          const spill = spills.get(address);
+          if (spill && spill.anchor !== address) return; // a value a spill put there, not content
+          const content = typeof v === "string" ? (v.startsWith("=") ? this.names_.fromEngine(v) : fromEngineText(v)) : typeof v === "number" || typeof v === "boolean" ? v : String(v);
+          cells[address] = { content };
+        }),
+      );
+      for (const [address, style] of this.layout.styles.get(name) ?? []) cells[address] = { ...(cells[address] ?? { content: null }), style };
+      return this.withLayout({ name, cells });
+    });
+    return { sheets, names: this.names(), activeSheet: this.activeSheet };
+  }
+
+  /** A sheet's data with its widths, merges, heights and print setup. */
+  private withLayout(data: SheetData): SheetData {
+    const name = data.name;
     const widths = this.layout.widths.get(name);
     if (widths && Object.keys(widths).length) data.columnWidths = { ...widths };
     const merges = this.layout.merges.get(name);

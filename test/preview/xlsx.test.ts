@@ -57,6 +57,21 @@ describe("round trip", () => {
     expect(snapshot(new PreviewWorkbook(again).toData())).toEqual(snapshot(second));
   });
 
+  test("the workbook kept without its values (contentData) builds the same workbook again", () => {
+    const wb = demoWorkbook();
+    wb.setTyped("Estimate", "B12", "80");
+    wb.setTyped("Estimate", "Z3", "'=1+1"); // text that looks like a formula
+    const kept = wb.contentData();
+    expect(Object.values(kept.sheets[0].cells).some((c) => c.cached !== undefined)).toBe(false);
+    const again = new PreviewWorkbook(structuredClone(kept)).toData();
+    const first = wb.toData();
+    expect(snapshot(again)).toEqual(snapshot(first));
+    expect(again.names).toEqual(first.names);
+    expect(again.sheets[0].merges).toEqual(first.sheets[0].merges);
+    expect(again.sheets[0].rowHeights).toEqual(first.sheets[0].rowHeights);
+    expect(again.sheets[0].print).toEqual(first.sheets[0].print);
+  });
+
   test("the cached values in the file are what the engine computed, before the engine sees the file again", async () => {
     const wb = demoWorkbook("SI");
     const data = wb.toData();
