@@ -4,6 +4,11 @@
  * through the preview side of the Workbook port. Opens a sample estimate (samples/index.json; `?sample=<file>` picks
  * one), opens and saves .xlsx files, saves a values-only share copy (with the pane's plot as a picture), and shows the
  * one-page summary in its print view (from the toolbar or the pane's button).
+ *
+ * Nothing is lost: a file that cannot be opened leaves the workbook as it was (PreviewWorkbook.load builds aside);
+ * replacing a workbook that holds unsaved changes (another sample, a file, a reload, closing the page) asks first;
+ * unsaved work is kept in the browser after each change (./keep) and offered back after a reload or a crash; Save
+ * asks for the file's name, and never suggests a sample's.
  */
 import "./installShim";
 import * as functions from "../functions/functions";
@@ -15,6 +20,7 @@ import type { Readings } from "../workbook/port";
 import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
 import { isShareStamp } from "../workbook/port";
 import { Grid } from "./grid";
+import { Keeper, type KeptWork, cleanFileName, keptWork } from "./keep";
 import type { FunctionsMetadata } from "./metadata";
 import type { WorkbookData } from "./model";
 import { registerHeadroomFunctions } from "./plugin";
@@ -93,6 +99,8 @@ async function main(): Promise<void> {
   const wb = new PreviewWorkbook(first.workbook);
   opened(current.file, first.notes);
   let fileName = current.file;
+  /** the sample the workbook was opened from, until it is saved under a name of the user's */
+  let sample: string | null = current.file;
   const showName = () => ($("file-name").textContent = fileName);
   showName();
 
@@ -130,20 +138,46 @@ async function main(): Promise<void> {
     else status("No summary yet: fix the inputs the pane lists first, then try again.", true);
   });
 
+  // unsaved work, kept in the browser; nothing is written until a copy kept earlier has been looked for
+  const keeper = new Keeper(wb, () => ({ fileName, sample }), (e) =>
+    status(`Your changes could not be kept in this browser (${e.message}): save them to a file.`, true),
+  );
+  keeper.hold(true);
+  const unsavedMark = $("unsaved-mark");
+  keeper.onDirty((dirty) => (unsavedMark.hidden = !dirty));
+  window.addEventListener("beforeunload", (e) => {
+    if (keeper.dirty) e.preventDefault(); // the browser asks whether to leave
+  });
+
+  /** Before the open workbook is replaced: true if it holds no unsaved change, or the user agrees to lose them. */
+  const mayReplace = (question: string): boolean =>
+    !keeper.dirty || window.confirm(`${question}\n\nThe changes to ${fileName} that are not saved will be lost. To keep them, cancel and use Save .xlsx first.`);
+
+  /** Put `data` in the workbook's place (throws, changing nothing, if it cannot be read), under `name`. */
+  const replace = (data: WorkbookData, name: string, from: string | null): void => {
+    wb.load(data);
+    fileName = name;
+    sample = from;
+    showName();
+    grid.select("A1");
+  };
+
   const picker = $<HTMLSelectElement>("sample-picker");
   for (const s of samples) picker.append(new Option(s.title, s.file, false, s.file === current.file));
   picker.addEventListener("change", async () => {
     const s = samples.find((x) => x.file === picker.value);
     if (!s) return;
+    if (!mayReplace(`Open the sample "${s.title}"?`)) {
+      picker.value = current.file;
+      return;
+    }
     try {
       // the file is read and the workbook built aside: if either fails, the open workbook stays as it was
       const { workbook, notes } = await readBytes(await (await fetchOk(`samples/${s.file}`)).arrayBuffer());
-      wb.load(workbook);
-      opened(s.file, notes);
+      replace(workbook, s.file, s.file);
       current = s;
-      fileName = s.file;
-      showName();
-      grid.select("A1");
+      opened(s.file, notes);
+      await keeper.markClean();
     } catch (e) {
       picker.value = current.file;
       status(`Could not open ${s.file}: ${(e as Error).message}`, true);
@@ -156,22 +190,44 @@ async function main(): Promise<void> {
     const file = input.files?.[0];
     input.value = "";
     if (!file) return;
+    if (!mayReplace(`Open ${file.name}?`)) return;
     try {
       const { workbook, notes } = await readBytes(await file.arrayBuffer());
-      wb.load(workbook);
+      replace(workbook, file.name, null);
       opened(file.name, notes);
-      fileName = file.name;
-      showName();
-      grid.select("A1");
+      await keeper.markClean();
     } catch (e) {
       status(`Could not open ${file.name}: ${(e as Error).message}`, true);
     }
   });
 
+  /** The name Save suggests for a workbook opened from a sample: the estimate's site, never the sample's file. */
+  const suggestedName = (): string => {
+    const site = wb.nameValue("Project_Site");
+    const name = typeof site === "string" ? cleanFileName(site) : "";
+    return name && !samples.some((s) => s.file.toLowerCase() === name.toLowerCase()) ? name : "estimate.xlsx";
+  };
+
   $("save-file").addEventListener("click", async () => {
+    const typed = window.prompt("Save the workbook as (the browser puts the file with your downloads):", sample === null ? fileName : suggestedName());
+    if (typed === null) {
+      status("Not saved.");
+      return;
+    }
+    const name = cleanFileName(typed);
+    if (!name) {
+      status(`Not saved: "${typed}" leaves no file name. Save again and type one.`, true);
+      return;
+    }
+    const revision = wb.revision;
+    const data = wb.toData();
     const { writeXlsx } = await xlsx();
-    download(await writeXlsx(wb.toData(), known), fileName.endsWith(".xlsx") ? fileName : `${fileName}.xlsx`);
-    status(`Saved ${fileName} with formulas and their values.`);
+    download(await writeXlsx(data, known), name);
+    fileName = name;
+    sample = null;
+    showName();
+    await keeper.markClean(revision);
+    status(`Saved ${name} with formulas and their values.`);
   });
 
   $("save-share-copy").addEventListener("click", async () => {
@@ -190,8 +246,44 @@ async function main(): Promise<void> {
     status(`Saved ${name}: values only${withPlot}, for someone without the Headroom add-in.`);
   });
 
+  // a copy kept by an earlier visit (a reload, a crash): offered back, and nothing else is kept until it is answered
+  const offer = $("restore-offer");
+  const offerBack = (kept: KeptWork): void => {
+    $("restore-text").textContent = `Changes to ${kept.fileName} that were not saved to a file are kept in this browser (${new Date(kept.keptAt).toLocaleString()}).`;
+    offer.hidden = false;
+    const answered = () => {
+      offer.hidden = true;
+      keeper.hold(false);
+    };
+    $("restore-accept").onclick = () => {
+      if (!mayReplace(`Restore the changes to ${kept.fileName} kept in this browser?`)) return;
+      try {
+        replace(kept.data, kept.fileName, kept.sample);
+      } catch (e) {
+        status(`Could not restore the changes to ${kept.fileName}: ${(e as Error).message}`, true);
+        return;
+      }
+      status(`Restored the changes to ${kept.fileName}; they are not saved to a file yet.`);
+      answered();
+    };
+    $("restore-decline").onclick = () => {
+      // the copy goes before anything typed since is kept: the keeper does one thing at a time, in order
+      void keeper.forget();
+      status(`Discarded the changes to ${kept.fileName} kept in this browser.`);
+      answered();
+    };
+  };
+  let kept: KeptWork | undefined;
+  try {
+    kept = await keptWork();
+  } catch (e) {
+    status(`This browser keeps no copy of unsaved work (${(e as Error).message}): save to a file as you go.`, true);
+  }
+  if (kept) offerBack(kept);
+  else keeper.hold(false);
+
   // for the browser tests and for curious developers: the live objects
-  (window as unknown as { headroomPreview: unknown }).headroomPreview = { workbook: wb, grid, port, pane };
+  (window as unknown as { headroomPreview: unknown }).headroomPreview = { workbook: wb, grid, port, pane, keeper };
   document.body.dataset.ready = "1";
 }
 

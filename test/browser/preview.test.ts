@@ -13,7 +13,7 @@ import { mkdir, readFile, writeFile } from "node:fs/promises";
 import path from "node:path";
 import type { Server } from "node:http";
 import ExcelJS from "exceljs";
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type Dialog, type Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { setNamed } from "./previewPage";
 import { parseCell } from "../../src/workbook/a1";
@@ -35,6 +35,19 @@ let page: Page;
 const requests: string[] = [];
 const problems: string[] = [];
 
+/** Every dialog the page opened (confirm, prompt, the browser's "leave the page?"), in order. */
+const dialogs: Array<{ type: string; message: string; defaultValue: string }> = [];
+/** How the next dialogs are answered, in order; others: "leave" for leaving the page, Cancel for the rest. */
+const answers: Array<(d: Dialog) => Promise<void>> = [];
+const answerDialogs = (...next: Array<(d: Dialog) => Promise<void>>) => answers.push(...next);
+async function onDialog(d: Dialog): Promise<void> {
+  dialogs.push({ type: d.type(), message: d.message(), defaultValue: d.defaultValue() });
+  const answer = answers.shift();
+  if (answer) await answer(d);
+  else if (d.type() === "beforeunload") await d.accept();
+  else await d.dismiss();
+}
+
 beforeAll(async () => {
   if (!existsSync(CHROMIUM)) {
     throw new Error(`${CHROMIUM} is missing: apt-get install -y --no-install-recommends chromium (see .ci/run)`);
@@ -53,6 +66,7 @@ beforeAll(async () => {
   context = await browser.newContext({ viewport: { width: 1280, height: 800 }, acceptDownloads: true });
   page = await context.newPage();
   page.on("request", (r) => requests.push(r.url()));
+  page.on("dialog", onDialog);
   page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
   page.on("console", (m) => {
     if (m.type() === "error") problems.push(`console: ${m.text()}`);
@@ -65,11 +79,21 @@ afterAll(async () => {
   await new Promise((r) => (server ? server.close(r) : r(undefined)));
 });
 
-async function open(sample?: string): Promise<void> {
+/** Open the preview on a sample; work an earlier test left kept in the browser is declined, unless `keptOffer`. */
+async function open(sample?: string, opts: { keptOffer?: boolean } = {}): Promise<void> {
   await page.goto(`${base}preview/${sample ? `?sample=${encodeURIComponent(sample)}` : ""}`);
   await page.waitForSelector("body[data-ready]", { timeout: 60_000 });
   expect(await page.getAttribute("body", "data-ready")).toBe("1");
+  if (!opts.keptOffer && (await page.locator('[data-role="restore-offer"]').isVisible())) {
+    await page.click('[data-role="restore-decline"]');
+    await kept();
+  }
   await settle();
+}
+
+/** Wait until the page has kept the workbook in the browser's storage. */
+async function kept(p: Page = page): Promise<void> {
+  await p.evaluate(() => (window as unknown as { headroomPreview: { keeper: { idle(): Promise<void> } } }).headroomPreview.keeper.idle());
 }
 
 /** Wait until the pane has read the workbook again and drawn. */
@@ -421,8 +445,9 @@ describe(".xlsx in and out", () => {
     const margin = await valueCellOf("Required margin");
     await typeInto(margin, "12");
     const verdictBefore = await verdict();
+    answerDialogs((d) => d.accept(`saved-${PUMP_SAMPLE}`));
     const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-file"]')]);
-    expect(download.suggestedFilename()).toBe(PUMP_SAMPLE);
+    expect(download.suggestedFilename()).toBe(`saved-${PUMP_SAMPLE}`);
     const saved = path.join(RESULTS, `saved-${PUMP_SAMPLE}`);
     await download.saveAs(saved);
     const wb = new ExcelJS.Workbook();
@@ -552,6 +577,7 @@ describe("nothing is lost", () => {
       ws.getCell("A1").value = 1;
       ws.getCell("A40001").value = 2;
     });
+    answerDialogs((d) => d.accept()); // yes, open it instead
     await page.setInputFiles('[data-role="file-input"]', big);
     await expect.poll(statusText).toBe('Could not open too-many-rows.xlsx: sheet "Estimate" reaches row 40,001; the preview holds at most 40,000 rows');
     expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
@@ -559,6 +585,7 @@ describe("nothing is lost", () => {
     expect(await look()).toEqual(before.look);
     expect(await verdict()).toBe(before.verdict);
     // Save writes this workbook, with the edit
+    answerDialogs((d) => d.accept("after-failed-open.xlsx"));
     const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-file"]')]);
     const saved = path.join(RESULTS, "after-failed-open.xlsx");
     await download.saveAs(saved);
@@ -590,6 +617,161 @@ describe("nothing is lost", () => {
     expect(await page.inputValue('[data-role="formula-bar"]')).toBe("=Flow1*2");
     await typeInto("B1", "1000");
     expect((await cell("B3").textContent())?.trim()).toBe("2000"); // 1000 × 2 (hand arithmetic)
+  });
+  test("choosing another sample with unsaved changes asks first: Cancel keeps everything, OK opens it", async () => {
+    await open(PUMP_SAMPLE);
+    const margin = await valueCellOf("Required margin");
+    await typeInto(margin, "12");
+    expect(await page.locator('[data-role="unsaved-mark"]').isVisible()).toBe(true);
+    const asked = dialogs.length;
+    answerDialogs((d) => d.dismiss());
+    await page.selectOption('[data-role="sample-picker"]', OFFICE_SAMPLE);
+    await expect.poll(() => dialogs.length).toBe(asked + 1);
+    expect(dialogs[asked].type).toBe("confirm");
+    expect(dialogs[asked].message).toMatch(/^Open the sample ".*"\?\n\nThe changes to tinker-row-manufacturing-pump-needed\.xlsx that are not saved will be lost\./);
+    expect(await page.inputValue('[data-role="sample-picker"]')).toBe(PUMP_SAMPLE);
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    expect((await cell(margin).textContent())?.trim()).toBe("12.0");
+
+    answerDialogs((d) => d.accept());
+    await page.selectOption('[data-role="sample-picker"]', OFFICE_SAMPLE);
+    await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, OFFICE_SAMPLE);
+    await settle();
+    expect(await verdict()).toMatch(/^No pump needed/);
+    expect(await page.locator('[data-role="unsaved-mark"]').isVisible()).toBe(false);
+    // nothing unsaved: nothing to ask
+    const before = dialogs.length;
+    await page.selectOption('[data-role="sample-picker"]', PUMP_SAMPLE);
+    await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, PUMP_SAMPLE);
+    expect(dialogs.length).toBe(before);
+  });
+
+  test("opening a file with unsaved changes asks first", async () => {
+    const file = await writeFile("a-colleague.xlsx", (ws) => {
+      ws.getCell("A1").value = "From a colleague";
+    });
+    await open(PUMP_SAMPLE);
+    const margin = await valueCellOf("Required margin");
+    await typeInto(margin, "12");
+    const asked = dialogs.length;
+    answerDialogs((d) => d.dismiss());
+    await page.setInputFiles('[data-role="file-input"]', file);
+    await expect.poll(() => dialogs.length).toBe(asked + 1);
+    expect(dialogs[asked]).toMatchObject({ type: "confirm", message: expect.stringMatching(/^Open a-colleague\.xlsx\?\n\nThe changes to .* will be lost/) });
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    expect((await cell(margin).textContent())?.trim()).toBe("12.0");
+    answerDialogs((d) => d.accept());
+    await page.setInputFiles('[data-role="file-input"]', file);
+    await page.waitForFunction(() => document.querySelector('[data-role="file-name"]')?.textContent === "a-colleague.xlsx");
+    expect((await cell("A1").textContent())?.trim()).toBe("From a colleague");
+  });
+
+  test("closing the page with unsaved changes asks first", async () => {
+    const other = await context.newPage();
+    const seen: string[] = [];
+    other.on("dialog", async (d) => {
+      seen.push(d.type());
+      await d.dismiss(); // stay on the page
+    });
+    await other.goto(`${base}preview/?sample=${encodeURIComponent(OFFICE_SAMPLE)}`);
+    await other.waitForSelector('body[data-ready="1"]', { timeout: 60_000 });
+    if (await other.locator('[data-role="restore-offer"]').isVisible()) await other.click('[data-role="restore-decline"]');
+    await kept(other);
+    // a change typed as a user types it (the browser asks only on a page the user has used)
+    await other.locator('[data-role="grid"] td[data-address="B13"]').click();
+    await other.keyboard.type("71");
+    await other.keyboard.press("Enter");
+    await other.close({ runBeforeUnload: true });
+    await expect.poll(() => seen).toEqual(["beforeunload"]);
+    expect(other.isClosed()).toBe(false);
+    await kept(other);
+    other.removeAllListeners("dialog");
+    other.on("dialog", (d) => d.accept());
+    await other.close({ runBeforeUnload: true });
+    await expect.poll(() => other.isClosed()).toBe(true);
+  });
+
+  test("after each edit the workbook is kept in the browser, and offered back after a reload: Restore brings it back", async () => {
+    await open(PUMP_SAMPLE);
+    const margin = await valueCellOf("Required margin");
+    const sampleMargin = (await cell(margin).textContent())?.trim();
+    await typeInto(margin, "12");
+    await kept();
+    const asked = dialogs.length;
+    await page.reload(); // the browser asks whether to leave; the user leaves
+    await page.waitForSelector('body[data-ready="1"]', { timeout: 60_000 });
+    await settle();
+    expect(dialogs[asked]?.type).toBe("beforeunload");
+    const offer = page.locator('[data-role="restore-offer"]');
+    expect(await offer.isVisible()).toBe(true);
+    expect(await offer.textContent()).toContain(`Changes to ${PUMP_SAMPLE} that were not saved`);
+    expect((await cell(margin).textContent())?.trim()).toBe(sampleMargin);
+    await page.screenshot({ path: `${RESULTS}/preview-restore-offer.png` });
+    await page.click('[data-role="restore-accept"]');
+    await settle();
+    expect(await offer.isVisible()).toBe(false);
+    expect((await cell(margin).textContent())?.trim()).toBe("12.0");
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    expect(await page.locator('[data-role="unsaved-mark"]').isVisible()).toBe(true);
+  });
+
+  test("after a crash too; Discard forgets the kept copy", async () => {
+    const other = await context.newPage();
+    await other.goto(`${base}preview/?sample=${encodeURIComponent(OFFICE_SAMPLE)}`);
+    await other.waitForSelector('body[data-ready="1"]', { timeout: 60_000 });
+    if (await other.locator('[data-role="restore-offer"]').isVisible()) await other.click('[data-role="restore-decline"]');
+    await kept(other);
+    await other.evaluate(() => {
+      type Wb = { activeSheet: string; setTyped(s: string, a: string, t: string): void };
+      const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
+      wb.setTyped(wb.activeSheet, "A1", "Typed before the crash");
+    });
+    await kept(other);
+    // the page's renderer dies: no unload, no question
+    const crashed = other.waitForEvent("crash");
+    const cdp = await context.newCDPSession(other);
+    void cdp.send("Page.crash").catch(() => undefined); // never answers: the page is gone
+    await crashed;
+    await other.close();
+
+    await open(OFFICE_SAMPLE, { keptOffer: true });
+    expect(await page.locator('[data-role="restore-offer"]').textContent()).toContain(`Changes to ${OFFICE_SAMPLE}`);
+    await page.click('[data-role="restore-decline"]');
+    expect(await page.locator('[data-role="restore-offer"]').isVisible()).toBe(false);
+    expect((await cell("A1").textContent())?.trim()).not.toBe("Typed before the crash");
+    await kept(); // the kept copy gone
+    await open(OFFICE_SAMPLE, { keptOffer: true });
+    expect(await page.locator('[data-role="restore-offer"]').isVisible()).toBe(false);
+  });
+
+  test("Save asks for the file's name, and a new estimate is not saved under the sample's name", async () => {
+    await open(PUMP_SAMPLE);
+    await page.click('[data-role="new-sheet"]');
+    await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet="Estimate 2"][aria-selected="true"]');
+    await settle();
+    // Cancel: nothing saved
+    answerDialogs((d) => d.dismiss());
+    await page.click('[data-role="save-file"]');
+    await expect.poll(statusText).toBe("Not saved.");
+    const asked = dialogs.length - 1;
+    expect(dialogs[asked].type).toBe("prompt");
+    // the estimate's site, not the sample's file
+    expect(dialogs[asked].defaultValue).not.toBe(PUMP_SAMPLE);
+    expect(dialogs[asked].defaultValue).toMatch(/^Demo .*\.xlsx$/);
+
+    answerDialogs((d) => d.accept("Hollow Lane warehouse"));
+    const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-file"]')]);
+    expect(download.suggestedFilename()).toBe("Hollow Lane warehouse.xlsx");
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe("Hollow Lane warehouse.xlsx");
+    expect(await page.locator('[data-role="unsaved-mark"]').isVisible()).toBe(false);
+    // saved: the next Save suggests the name it was saved under, and another sample opens without a question
+    answerDialogs((d) => d.dismiss());
+    await page.click('[data-role="save-file"]');
+    await expect.poll(() => dialogs.at(-1)?.defaultValue).toBe("Hollow Lane warehouse.xlsx");
+    const before = dialogs.length;
+    await page.selectOption('[data-role="sample-picker"]', OFFICE_SAMPLE);
+    await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, OFFICE_SAMPLE);
+    expect(dialogs.length).toBe(before);
   });
 });
 
