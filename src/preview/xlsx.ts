@@ -4,7 +4,8 @@
  * Reading: every formula with its cached value (the add-in's functions mapped from `_xldudf_HEADROOM_…` back to
  * `HEADROOM.…` by the known function list, `_xlfn.` dropped, exponents made lowercase: ./formulaText), values,
  * number formats, the cell roles recognised from the styles this module writes, column widths, merges, row heights,
- * a sheet's print area with its print title rows, fit and orientation, and the workbook's defined names. A spilled block (an array formula with its `ref`) becomes its anchor formula;
+ * a sheet's print area with its print title rows, fit and orientation, and the workbook's defined names of cells (one for a
+ * constant, a formula or one sheet is left out, with a note, never changed). A spilled block (an array formula with its `ref`) becomes its anchor formula;
  * the other cells of the block keep only their cached values, so that the engine can spill into them.
  *
  * Writing: formulas in the file's spelling with their current values cached (so that a reader without the add-in,
@@ -18,6 +19,7 @@
  * cell it stands on (README "Images", https://github.com/exceljs/exceljs#images). ExcelJS cannot write charts.
  */
 import type { Workbook as ExcelWorkbook, Worksheet, Cell, CellValue, Fill, Font } from "exceljs";
+import type JSZipType from "jszip";
 import { cellAddress, parseCell, parseRange } from "../workbook/a1";
 import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
 import { storeDynamicArrays } from "./dynamicArrays";
@@ -102,16 +104,50 @@ export async function readXlsx(data: ArrayBuffer | Uint8Array, known: readonly s
   if (!sheets.length) throw new Error("the file holds no worksheet");
 
   const names: DefinedName[] = [];
+  // ExcelJS keeps of a name only the cells it names: a constant goes, a formula becomes its first reference, a name
+  // of one sheet becomes the workbook's. Such names are left out, and said so, rather than changed.
+  const asWritten = await definedNamesAsWritten(data);
   for (const n of wb.definedNames.model as Array<{ name: string; ranges: string[] }>) {
     if (n.name.startsWith("_xlnm.")) continue; // print areas and the like
+    const written = asWritten.get(n.name.toLowerCase());
+    if (written && !written.workbookWide) {
+      notes.push(`name ${n.name} belongs to one sheet; the preview keeps the workbook's names only, so it is left out`);
+      continue;
+    }
+    if (written && !PLAIN_REFERENCE.test(written.text)) {
+      notes.push(`name ${n.name} refers to ${written.text}; the preview keeps names of cells only, so it is left out`);
+      continue;
+    }
     if (n.ranges.length !== 1) {
       notes.push(`name ${n.name} refers to ${n.ranges.length} ranges; left out`);
       continue;
     }
     names.push({ name: n.name, ref: n.ranges[0] });
   }
+  for (const [key, w] of asWritten) {
+    const kept = (wb.definedNames.model as Array<{ name: string }>).some((n) => n.name.toLowerCase() === key);
+    if (!kept && !w.name.startsWith("_xlnm.")) notes.push(`name ${w.name} refers to ${w.text}; the preview keeps names of cells only, so it is left out`);
+  }
   const activeTab = (wb.views?.[0] as { activeTab?: number } | undefined)?.activeTab ?? 0;
   return { workbook: { sheets, names, activeSheet: sheets[activeTab]?.name ?? sheets[0].name }, notes };
+}
+
+/** One cell or one block of a sheet, as a name's reference is written: Estimate!$B$8, 'Pipe run'!$A$2:$D$9. */
+const PLAIN_REFERENCE = /^(?:'(?:[^']|'')+'|[^'!\s]+)!\$?[A-Za-z]{1,3}\$?\d+(?::\$?[A-Za-z]{1,3}\$?\d+)?$/;
+
+/** The file's defined names as written in xl/workbook.xml, read with JSZip (ExcelJS's own, and ./dynamicArrays'). */
+async function definedNamesAsWritten(data: ArrayBuffer | Uint8Array): Promise<Map<string, { name: string; text: string; workbookWide: boolean }>> {
+  const JSZip = await import("jszip").then((m) => ((m as unknown as { default?: typeof JSZipType }).default ?? m) as typeof JSZipType);
+  const xml = (await (await JSZip.loadAsync(data)).file("xl/workbook.xml")?.async("string")) ?? "";
+  const unescape = (x: string) => x.replace(/&(lt|gt|quot|apos|amp);/g, (_m, e: string) => ({ lt: "<", gt: ">", quot: '"', apos: "'", amp: "&" })[e]!);
+  const out = new Map<string, { name: string; text: string; workbookWide: boolean }>();
+  for (const m of xml.matchAll(/<definedName\b([^>]*)>([^<]*)<\/definedName>/g)) {
+    const name = unescape(/\bname="([^"]*)"/.exec(m[1])?.[1] ?? "");
+    const workbookWide = !/\blocalSheetId="/.test(m[1]);
+    // a sheet's own name beside a workbook name of the same spelling: the workbook's is the one ExcelJS keeps
+    if (name && (workbookWide || !out.has(name.toLowerCase()))) out.set(name.toLowerCase(), { name, text: unescape(m[2]).trim(), workbookWide });
+  }
+  return out;
 }
 
 function readSheet(ws: Worksheet, known: readonly string[]): SheetData {

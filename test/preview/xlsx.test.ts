@@ -5,6 +5,7 @@
  */
 import { beforeAll, describe, expect, test } from "vitest";
 import ExcelJS from "exceljs";
+import JSZip from "jszip";
 import * as functions from "../../src/functions/functions";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
@@ -258,5 +259,30 @@ describe("names Excel accepts and the engine would read as cell references", () 
     const reopened = new PreviewWorkbook((await readXlsx(saved, known)).workbook);
     expect(reopened.content("Estimate", "B3")).toBe("=Flow1*2");
     expect(reopened.value("Estimate", "B3")).toBe(2000);
+  });
+});
+
+describe("names the preview cannot keep", () => {
+  test("a name for a constant, a formula or one sheet is left out and said so, never changed into another", async () => {
+    const x = new ExcelJS.Workbook();
+    x.addWorksheet("Estimate").getCell("B2").value = 3;
+    x.definedNames.add("Estimate!$B$2", "Flow1");
+    const zip = await JSZip.loadAsync((await x.xlsx.writeBuffer()) as ArrayBuffer);
+    const xml = (await zip.file("xl/workbook.xml")!.async("string")).replace(
+      "</definedNames>",
+      '<definedName name="Rate">0.05</definedName><definedName name="Twice">Estimate!$B$2*2</definedName>' +
+        '<definedName name="Local1" localSheetId="0">Estimate!$B$2</definedName></definedNames>',
+    );
+    zip.file("xl/workbook.xml", xml);
+    const { workbook, notes } = await readXlsx(await zip.generateAsync({ type: "uint8array" }), known);
+    expect(workbook.names).toEqual([{ name: "Flow1", ref: "Estimate!$B$2" }]);
+    expect(notes).toEqual(
+      expect.arrayContaining([
+        "name Twice refers to Estimate!$B$2*2; the preview keeps names of cells only, so it is left out",
+        "name Local1 belongs to one sheet; the preview keeps the workbook's names only, so it is left out",
+        "name Rate refers to 0.05; the preview keeps names of cells only, so it is left out",
+      ]),
+    );
+    expect(notes).toHaveLength(3);
   });
 });
