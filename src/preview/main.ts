@@ -104,6 +104,17 @@ async function main(): Promise<void> {
   const showName = () => ($("file-name").textContent = fileName);
   showName();
 
+  // unsaved work, kept in the browser; nothing is written until a copy kept earlier has been looked for
+  const keeper = new Keeper(wb, () => ({ fileName, sample }), (e) =>
+    status(`Your changes could not be kept in this browser (${e.message}): save them to a file.`, true),
+  );
+  keeper.hold(true);
+  const unsavedMark = $("unsaved-mark");
+  keeper.onDirty((dirty) => (unsavedMark.hidden = !dirty));
+  window.addEventListener("beforeunload", (e) => {
+    if (keeper.dirty) e.preventDefault(); // the browser asks whether to leave
+  });
+
   const grid = new Grid(wb, {
     sheet: $("grid"),
     tabs: $("sheet-tabs"),
@@ -136,17 +147,6 @@ async function main(): Promise<void> {
     const m = buildModel(readings, port.host);
     if (m.kind === "ready") showSummary(m.estimate, readings);
     else status("No summary yet: fix the inputs the pane lists first, then try again.", true);
-  });
-
-  // unsaved work, kept in the browser; nothing is written until a copy kept earlier has been looked for
-  const keeper = new Keeper(wb, () => ({ fileName, sample }), (e) =>
-    status(`Your changes could not be kept in this browser (${e.message}): save them to a file.`, true),
-  );
-  keeper.hold(true);
-  const unsavedMark = $("unsaved-mark");
-  keeper.onDirty((dirty) => (unsavedMark.hidden = !dirty));
-  window.addEventListener("beforeunload", (e) => {
-    if (keeper.dirty) e.preventDefault(); // the browser asks whether to leave
   });
 
   /** Before the open workbook is replaced: true if it holds no unsaved change, or the user agrees to lose them. */
