@@ -10,10 +10,10 @@
 import * as f from "../src/functions/functions";
 import { MAX_GRID_SPRINKLERS, solveGridDemand } from "../src/engine/gridded";
 import { headLoss } from "../src/engine/friction";
+import { median } from "./timing";
 
 interface Figure { name: string; value: number; unit: string; goal?: string; ok?: boolean }
 
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 /** Median milliseconds per call of `fn` over `rounds` rounds of `n` calls, after a warm-up round. */
 function msPerCall(fn: (i: number) => unknown, n: number, rounds = 7): number {

@@ -14,30 +14,17 @@
 import { type Network, prepareNetwork, solveNetwork } from "../src/engine/network";
 import { epanetModel } from "../test/engine/epanet";
 import { gridNetwork } from "../test/engine/networks";
+import { compare as compareRounds, median, round } from "./timing";
 
 interface Figure { name: string; value: number; unit: string; goal?: string; ok?: boolean }
 
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-
 /** Milliseconds per call of `fn`, one round of `n` calls. */
-function round(fn: () => unknown, n: number): number {
-  const t = performance.now();
-  for (let i = 0; i < n; i++) fn();
-  return (performance.now() - t) / n;
-}
+const roundMs = (fn: () => unknown, n: number) => round(fn, n) / 1e6;
 
-/** Two ways of doing the same work in alternating rounds: each one's median ms per call and the median ratio a/b. */
-function compare(a: () => unknown, b: () => unknown, n: number, rounds = 11) {
-  round(a, n);
-  round(b, n);
-  const as: number[] = [], bs: number[] = [], ratios: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const x = round(a, n), y = round(b, n);
-    as.push(x);
-    bs.push(y);
-    ratios.push(x / y);
-  }
-  return { a: median(as), b: median(bs), ratio: median(ratios) };
+/** Two ways of doing the same work side by side, 11 rounds: each one's median ms per call and the median ratio a/b. */
+function compare(a: () => unknown, b: () => unknown, n: number) {
+  const c = compareRounds(a, b, n, 11);
+  return { a: c.a / 1e6, b: c.b / 1e6, ratio: c.ratio };
 }
 
 /** A gridded system of `lines` × `heads` sprinklers, the design area's 4 × 5 flowing at the far corner. */
@@ -87,8 +74,8 @@ export function networkBench(): Figure[] {
   {
     const net = grid(40, 48);
     const prepared = prepareNetwork(net);
-    const cold = median(Array.from({ length: 9 }, () => round(() => solveNetwork(net), 10)));
-    const warm = median(Array.from({ length: 9 }, () => round(() => solveNetwork(net, { prepared }), 10)));
+    const cold = median(Array.from({ length: 9 }, () => roundMs(() => solveNetwork(net), 10)));
+    const warm = median(Array.from({ length: 9 }, () => roundMs(() => solveNetwork(net, { prepared }), 10)));
     const label = `network 40×48 grid (${net.nodes.length} nodes)`;
     record({ name: `${label}, ms/solve`, value: cold, unit: "ms", goal: "≤ 20", ok: cold <= 20 });
     record({ name: `${label}, prepared, ms/solve`, value: warm, unit: "ms" });

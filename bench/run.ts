@@ -16,6 +16,7 @@
 import { existsSync, readFileSync, writeFileSync } from "node:fs";
 import { gzipSync } from "node:zlib";
 import { installCustomFunctionsShim } from "../src/preview/customFunctionsShim";
+import { compare as compareRounds, median, round } from "./timing";
 
 installCustomFunctionsShim();
 const f = await import("../src/functions/functions");
@@ -30,39 +31,14 @@ interface Figure { name: string; value: number; unit: string; goal?: string; ok?
 const figures: Figure[] = [];
 const record = (fig: Figure) => figures.push(fig);
 
-/** Nanoseconds per call of `fn`, one round of `n` calls. */
-function round(fn: (i: number) => unknown, n: number): number {
-  let sink = 0;
-  const t = process.hrtime.bigint();
-  for (let i = 0; i < n; i++) sink += fn(i) as number;
-  const ns = Number(process.hrtime.bigint() - t) / n;
-  if (sink === -1) console.log(sink); // keeps the results alive
-  return ns;
-}
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-
 /** Median nanoseconds per call of `fn` over `rounds` rounds of `n` calls, after a warm-up round. */
 function nsPerCall(fn: (i: number) => unknown, n = 200_000, rounds = 7): number {
   round(fn, n);
   return median(Array.from({ length: rounds }, () => round(fn, n)));
 }
 
-/**
- * Two ways of doing the same work, timed in alternating rounds (so that a slow stretch of this shared machine
- * hits both alike): the median of each and the median of the per-round ratios a/b.
- */
-function compare(a: (i: number) => unknown, b: (i: number) => unknown, n = 200_000, rounds = 15) {
-  round(a, n);
-  round(b, n);
-  const as: number[] = [], bs: number[] = [], ratios: number[] = [];
-  for (let r = 0; r < rounds; r++) {
-    const x = round(a, n), y = round(b, n);
-    as.push(x);
-    bs.push(y);
-    ratios.push(x / y);
-  }
-  return { a: median(as), b: median(bs), ratio: median(ratios) };
-}
+/** Two ways of doing the same work side by side (./timing.ts), 200,000 calls a round and 15 rounds unless told. */
+const compare = (a: (i: number) => unknown, b: (i: number) => unknown, n = 200_000, rounds = 15) => compareRounds(a, b, n, rounds);
 
 // Inputs vary per call, every one of them, so that neither side gets constants folded or hoisted out of the loop
 // (a constant argument would also let the cell layer's checks of it fold away). The "inline math" is the formula

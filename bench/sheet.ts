@@ -9,13 +9,13 @@ import { registerHeadroomFunctions } from "../src/preview/plugin";
 import type { FunctionsMetadata } from "../src/preview/metadata";
 import { ENGINE_CONFIG } from "../src/preview/workbook";
 import { functionFiles } from "../scripts/function-files.mjs";
+import { median } from "./timing";
 
 const ms = (f: () => void) => {
   const t = performance.now();
   f();
   return performance.now() - t;
 };
-const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 function rows(n: number, formula: (r: number) => string): unknown[][] {
   // A flow, C, internal diameter, the formula, and in F1 the length every row uses

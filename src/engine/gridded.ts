@@ -40,7 +40,7 @@ import {
   headPressure,
   headsPerLine,
 } from "./sprinkler";
-import { checkAreaLayout } from "./tree";
+import { checkAreaLayout, requirePositive } from "./tree";
 import type { Quantity } from "./units";
 
 /** The line where the riser joins the near main when none is given: line 1, at a corner of the grid. */
@@ -244,10 +244,7 @@ function checkInput(inp: GridDemandInput): void {
     ["cFactor", "c_factor", null],
     ["minPressure", "min_pressure", "pressure"],
   ];
-  for (const [key, name, quantity] of positive) {
-    const v = inp[key];
-    if (!(v > 0) || !Number.isFinite(v)) fail(name, quantity ? q(quantity, v) : n(v), "must be greater than 0");
-  }
+  requirePositive(inp, positive);
   if (!(Number.isInteger(inp.lines) && inp.lines >= 1 && inp.lines <= MAX_GRID_LINES)) {
     fail("lines", n(inp.lines), `must be a whole number of branch lines from 1 to ${MAX_GRID_LINES}`);
   }

@@ -182,11 +182,26 @@ function checkInput(inp: AreaDemandInput): void {
     ["cFactor", "c_factor", null],
     ["minPressure", "min_pressure", "pressure"],
   ];
-  for (const [key, name, quantity] of positive) {
-    const v = inp[key];
+  requirePositive(inp, positive);
+  checkAreaLayout(inp);
+}
+
+/**
+ * Refuse any of a solve's arguments that is not a finite number above 0, naming it as the user does.
+ *
+ * Each entry names a field of `inp`, the argument's name and its quantity (null for a plain number, such as C).
+ *
+ * @param inp the solve's inputs, US units
+ * @param fields [field, argument name, quantity] for each argument that must be above 0
+ * @see (common practice) a length, flow or pressure of 0 or less is an input error
+ * @example
+ * requirePositive({ density: 0 }, [["density", "density", "density"]]) // throws "density: got 0 gpm/ft²; must be greater than 0"
+ */
+export function requirePositive<T>(inp: T, fields: ReadonlyArray<readonly [keyof T, string, Quantity | null]>): void {
+  for (const [key, name, quantity] of fields) {
+    const v = inp[key] as unknown as number;
     if (!(v > 0) || !Number.isFinite(v)) fail(name, quantity ? q(quantity, v) : n(v), "must be greater than 0");
   }
-  checkAreaLayout(inp);
 }
 
 /**

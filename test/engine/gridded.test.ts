@@ -12,26 +12,14 @@ import {
 import { type Network, type NetworkSolution, solveNetwork } from "../../src/engine/network";
 import { solveAreaDemand } from "../../src/engine/tree";
 import { errorOf } from "./engineError";
+import { OH1_GRID } from "./networks";
 
 // Hazen-Williams, US form [NFPA 13]: psi/ft = 4.52 Q^1.85 / (C^1.85 d^4.87), written out here so the test does not
 // lean on the engine's own formula.
 const hw = (q: number, d: number, c = 120) => (4.52 * q ** 1.85) / (c ** 1.85 * d ** 4.87);
 
-/** OH1 0.15 gpm/ft² over 1500 ft² [NFPA 13] (from memory), 130 ft² a sprinkler, K 5.6, 13 ft apart, on 10 lines 160 ft long. */
-const base: GridDemandInput = {
-  density: 0.15, // [NFPA 13] (from memory)
-  area: 1500, // [NFPA 13] (from memory)
-  coverage: 130,
-  kFactor: 5.6,
-  headSpacing: 13,
-  lines: 10,
-  lineLength: 160,
-  branchDiameter: 1.38, // 1¼ Schedule 40 [ASME B36.10M]
-  mainDiameter: 2.469, // 2½ Schedule 40 [ASME B36.10M]
-  cFactor: 120, // black steel, wet [NFPA 13]
-  minPressure: 7, // [NFPA 13]
-  feedLine: 1,
-};
+/** The OH1 grid shared with the outside check (./networks.ts). */
+const base: GridDemandInput = OH1_GRID;
 
 /** Every pipe's flow balanced at every junction: what its pipes bring equals what leaves there. */
 function imbalance(net: Network, s: NetworkSolution): number {

@@ -9,22 +9,10 @@ import { describe, expect, it } from "vitest";
 import { type GridDemandInput, gridLayout, gridNetwork, solveGridDemand } from "../../src/engine/gridded";
 import { solveNetwork } from "../../src/engine/network";
 import { solveWithEpanet } from "./epanet";
+import { OH1_GRID } from "./networks";
 
-/** 10 lines × 12 sprinklers: OH1 [NFPA 13] (from memory) at 130 ft² a sprinkler, 13 ft apart, lines 160 ft long. */
-const grid: GridDemandInput = {
-  density: 0.15, // [NFPA 13] (from memory)
-  area: 1500, // [NFPA 13] (from memory)
-  coverage: 130,
-  kFactor: 5.6,
-  headSpacing: 13,
-  lines: 10,
-  lineLength: 160, // floor(160 / 13) = 12 sprinklers a line
-  branchDiameter: 1.38, // 1¼ Schedule 40 [ASME B36.10M]
-  mainDiameter: 2.469, // 2½ Schedule 40 [ASME B36.10M]
-  cFactor: 120, // [NFPA 13]
-  minPressure: 7, // [NFPA 13]
-  feedLine: 1,
-};
+/** 10 lines × 12 sprinklers: the OH1 grid of ./networks.ts. */
+const grid: GridDemandInput = OH1_GRID;
 
 /**
  * The placement found, as the whole grid, solved by both engines: the largest relative difference of the node

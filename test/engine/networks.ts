@@ -4,6 +4,7 @@
  * across it say).
  */
 import { headLoss, velocity } from "../../src/engine/friction";
+import type { GridDemandInput } from "../../src/engine/gridded";
 import type { Network, NetworkNode, NetworkPipe, NetworkSolution } from "../../src/engine/network";
 import { PSI_PER_FT_WATER, type UnitSystem } from "../../src/engine/units";
 
@@ -129,3 +130,23 @@ export function departures(net: Network, s: NetworkSolution, units: UnitSystem =
   const rounding = HEAD_ULPS * Number.EPSILON * Math.max(1, ...heads) * Math.max(0, ...conductance);
   return { imbalance, discharge, fixed, headLoss: headLossGap, supplied, rounding };
 }
+
+/**
+ * An ordinary hazard group 1 grid for the gridded tests: 0.15 gpm/ft² over 1500 ft² [NFPA 13] (from memory), 130 ft²
+ * a sprinkler and K 5.6 (common practice), 13 ft apart on 10 lines 160 ft long (floor(160 / 13) = 12 sprinklers a
+ * line), fed at line 1.
+ */
+export const OH1_GRID: GridDemandInput = {
+  density: 0.15, // [NFPA 13] (from memory)
+  area: 1500, // [NFPA 13] (from memory)
+  coverage: 130, // (common practice)
+  kFactor: 5.6, // the standard ½ in orifice [NFPA 13]
+  headSpacing: 13, // (common practice)
+  lines: 10,
+  lineLength: 160,
+  branchDiameter: 1.38, // 1¼ Schedule 40 [ASME B36.10M]
+  mainDiameter: 2.469, // 2½ Schedule 40 [ASME B36.10M]
+  cFactor: 120, // black steel, wet [NFPA 13]
+  minPressure: 7, // [NFPA 13]
+  feedLine: 1,
+};
