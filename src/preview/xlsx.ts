@@ -93,8 +93,44 @@ export interface ReadResult {
   notes: string[];
 }
 
-/** Read an .xlsx file. `known` lists the add-in's functions as written in cells ("HEADROOM.FRICTION"). */
-export async function readXlsx(data: ArrayBuffer | Uint8Array, known: readonly string[]): Promise<ReadResult> {
+/**
+ * The most cells a file the preview opens may hold. The engine is built from the file in one piece, on the page: at
+ * this size that holds the page still for under a second (`npm run bench:browser` measures it); a larger file is
+ * refused, before it is parsed, with this limit in the message (Excel with the add-in opens it).
+ */
+export const MAX_CELLS = 200_000;
+
+/** A worksheet's cells as the file writes them: every <c> element (with or without a namespace prefix). */
+const CELL_ELEMENT = /<(?:[A-Za-z_][\w.-]*:)?c[\s/>]/g;
+
+/**
+ * The cells the file's worksheets hold, counted in their XML before anything is parsed, so that a file too large to
+ * open is refused quickly. Worksheets are the parts under xl/worksheets/.
+ */
+export async function countCells(data: ArrayBuffer | Uint8Array): Promise<number> {
+  const JSZip = await import("jszip").then((m) => ((m as unknown as { default?: typeof JSZipType }).default ?? m) as typeof JSZipType);
+  const zip = await JSZip.loadAsync(data);
+  let cells = 0;
+  for (const entry of Object.values(zip.files)) {
+    if (entry.dir || !/^xl\/worksheets\/[^/]+\.xml$/i.test(entry.name)) continue;
+    const xml = await entry.async("string");
+    cells += xml.match(CELL_ELEMENT)?.length ?? 0;
+  }
+  return cells;
+}
+
+/**
+ * Read an .xlsx file. `known` lists the add-in's functions as written in cells ("HEADROOM.FRICTION"). A file of more
+ * than `maxCells` cells (MAX_CELLS unless given) is refused before it is parsed.
+ */
+export async function readXlsx(data: ArrayBuffer | Uint8Array, known: readonly string[], opts: { maxCells?: number } = {}): Promise<ReadResult> {
+  const maxCells = opts.maxCells ?? MAX_CELLS;
+  const cells = await countCells(data);
+  if (cells > maxCells) {
+    throw new Error(
+      `it holds ${cells.toLocaleString("en-US")} cells; the preview opens files of at most ${maxCells.toLocaleString("en-US")} cells (Excel with the Headroom add-in opens it)`,
+    );
+  }
   const ExcelJS = await excel();
   const wb = new ExcelJS.Workbook();
   await wb.xlsx.load(data as ArrayBuffer);

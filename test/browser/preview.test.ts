@@ -9,7 +9,7 @@
  * Run with `npm run test:browser` (it builds first).
  */
 import { existsSync } from "node:fs";
-import { mkdir, readFile, writeFile } from "node:fs/promises";
+import { mkdir, readFile, writeFile, writeFile as writeFileBytes } from "node:fs/promises";
 import path from "node:path";
 import type { Server } from "node:http";
 import ExcelJS from "exceljs";
@@ -21,6 +21,8 @@ import { PALETTE } from "../../src/workbook/look";
 import { SHARE_STAMP_ROWS } from "../../src/workbook/port";
 import { CHART_FROM } from "../../src/workbook/template";
 import { startServer } from "../../scripts/start-server.mjs";
+import { MAX_CELLS } from "../../src/preview/xlsx";
+import { bigXlsx } from "../../bench/bigFile";
 
 const CHROMIUM = "/usr/bin/chromium";
 const RESULTS = "test-results";
@@ -599,6 +601,28 @@ describe("nothing is lost", () => {
     await page.keyboard.press("Control+z");
     await settle();
     expect((await cell(margin).textContent())?.trim()).not.toBe("12.0");
+  });
+
+  test("a file of more cells than the preview opens is read off the page and refused, and the workbook stays", async () => {
+    await open(PUMP_SAMPLE);
+    const before = { verdict: await verdict(), look: await look() };
+    // one row of 20 cells past the preview's limit (src/preview/xlsx.ts MAX_CELLS)
+    const rows = MAX_CELLS / 20 + 1;
+    const file = path.join(RESULTS, "too-many-cells.xlsx");
+    await writeFileBytes(file, await bigXlsx(rows, 20));
+    const workers: string[] = [];
+    page.on("worker", (w) => workers.push(w.url()));
+    await page.setInputFiles('[data-role="file-input"]', file);
+    await expect
+      .poll(statusText)
+      .toBe(
+        `Could not open too-many-cells.xlsx: it holds ${(rows * 20).toLocaleString("en-US")} cells; the preview opens files of at most ${MAX_CELLS.toLocaleString("en-US")} cells (Excel with the Headroom add-in opens it)`,
+      );
+    // the file was read by the reader's worker, not on the page
+    expect(workers.some((u) => /\/xlsx-reader\.[0-9a-f]+\.js$/.test(u))).toBe(true);
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    expect(await look()).toEqual(before.look);
+    expect(await verdict()).toBe(before.verdict);
   });
 
   test("a file whose names Excel takes and the engine would read as cells (Flow1, Pump1) opens and computes", async () => {

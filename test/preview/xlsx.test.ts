@@ -10,7 +10,8 @@ import * as functions from "../../src/functions/functions";
 import { registerHeadroomFunctions } from "../../src/preview/plugin";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { templateNames, templateSheet } from "../../src/preview/fromTemplate";
-import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
+import { MAX_CELLS, countCells, readXlsx, writeXlsx } from "../../src/preview/xlsx";
+import { bigXlsx } from "../../bench/bigFile";
 import { isFormula, type WorkbookData } from "../../src/preview/model";
 import type { UnitSystem } from "../../src/engine/units";
 import { PreviewPort } from "../../src/preview/port";
@@ -284,5 +285,47 @@ describe("names the preview cannot keep", () => {
       ]),
     );
     expect(notes).toHaveLength(3);
+  });
+});
+
+describe("a file too large for the preview", () => {
+  test("its cells are counted in the file before anything is parsed: every <c> of every worksheet", async () => {
+    const x = new ExcelJS.Workbook();
+    const a = x.addWorksheet("Estimate");
+    a.getCell("A1").value = 1;
+    a.getCell("B2").value = "two";
+    a.getCell("C3").value = { formula: "A1*3", result: 3 };
+    x.addWorksheet("Runs").getCell("D40").value = 4;
+    const bytes = new Uint8Array((await x.xlsx.writeBuffer()) as ArrayBuffer);
+    // 3 cells on one sheet and 1 on the other, as written above
+    expect(await countCells(bytes)).toBe(4);
+    // a prefixed <x:c> counts too (an empty one included); <col>, <cols>, <cfRule> and parts outside xl/worksheets do not
+    const zip = new JSZip();
+    zip.file(
+      "xl/worksheets/sheet1.xml",
+      '<x:worksheet xmlns:x="http://schemas.openxmlformats.org/spreadsheetml/2006/main"><x:cols><x:col min="1" max="1"/></x:cols>' +
+        '<x:sheetData><x:row r="1"><x:c r="A1"><x:v>1</x:v></x:c><x:c r="B1"/></x:row></x:sheetData>' +
+        '<x:conditionalFormatting sqref="A1"><x:cfRule type="expression"/></x:conditionalFormatting></x:worksheet>',
+    );
+    zip.file("xl/sharedStrings.xml", '<sst><si><t>not a cell</t></si><c r="Z9"/></sst>');
+    expect(await countCells(await zip.generateAsync({ type: "uint8array" }))).toBe(2);
+  });
+
+  test("a file of more cells than the limit is refused, naming both counts; one at the limit opens", async () => {
+    // 4 rows × 3 columns = 12 cells
+    const bytes = await bigXlsx(4, 3);
+    await expect(readXlsx(bytes, known, { maxCells: 11 })).rejects.toThrow(
+      "it holds 12 cells; the preview opens files of at most 11 cells (Excel with the Headroom add-in opens it)",
+    );
+    const { workbook } = await readXlsx(bytes, known, { maxCells: 12 });
+    expect(Object.keys(workbook.sheets[0].cells)).toHaveLength(12);
+  });
+
+  test("the preview's own limit refuses a file one row past it, before ExcelJS parses it", async () => {
+    const cols = 20;
+    const rows = MAX_CELLS / cols + 1;
+    await expect(readXlsx(await bigXlsx(rows, cols), known)).rejects.toThrow(
+      `it holds ${(rows * cols).toLocaleString("en-US")} cells; the preview opens files of at most ${MAX_CELLS.toLocaleString("en-US")} cells`,
+    );
   });
 });
