@@ -57,8 +57,24 @@ function describeRole(v: CellView): string {
   }
 }
 
+/** A block of cells: its top-left and bottom-right corners, 0-based. */
+interface Block {
+  top: number;
+  left: number;
+  bottom: number;
+  right: number;
+}
+
+function blockOf(a: string, b: string): Block {
+  const x = parseCell(a);
+  const y = parseCell(b);
+  return { top: Math.min(x.row, y.row), left: Math.min(x.col, y.col), bottom: Math.max(x.row, y.row), right: Math.max(x.col, y.col) };
+}
+
 export class Grid {
+  /** the active cell (where typing goes) and the anchor: the selection is the block between them */
   private selected = "A1";
+  private anchor = "A1";
   private editor: HTMLInputElement | null = null;
   private editorOriginal = "";
   private table: HTMLTableElement | null = null;
@@ -102,10 +118,26 @@ export class Grid {
     return this.selected;
   }
 
-  /** Select a cell of the active sheet. */
+  /** Select a cell of the active sheet (the selection becomes that one cell). */
   select(address: string): void {
+    this.selectRange(address, address);
+  }
+
+  /**
+   * The selection: the block between the anchor and the active cell, written top-left:bottom-right even for one cell
+   * ("B3:D7", "B3:B3"), and the active cell (where typing goes; one corner of the block).
+   */
+  selectionRange(): { sheet: string; range: string; active: string } {
+    const b = blockOf(this.anchor, this.selected);
+    const range = `${cellAddress({ row: b.top, col: b.left })}:${cellAddress({ row: b.bottom, col: b.right })}`;
+    return { sheet: this.wb.activeSheet, range, active: this.selected };
+  }
+
+  /** Select the block between `anchor` and `active` on the active sheet; `active` becomes the active cell. */
+  selectRange(anchor: string, active: string): void {
     this.cancelEdit();
-    this.selected = address;
+    this.anchor = cellAddress(parseCell(anchor));
+    this.selected = cellAddress(parseCell(active));
     this.render();
   }
 
@@ -120,7 +152,11 @@ export class Grid {
     const nRows = Math.max(rows + SPARE_ROWS, MIN_ROWS);
     const nCols = Math.max(cols + SPARE_COLS, MIN_COLS);
     const sel = parseCell(this.selected);
-    if (sel.row >= nRows || sel.col >= nCols) this.selected = "A1";
+    if (sel.row >= nRows || sel.col >= nCols) this.selected = this.anchor = "A1";
+    const anchor = parseCell(this.anchor);
+    if (anchor.row >= nRows || anchor.col >= nCols) this.anchor = this.selected;
+    const block = blockOf(this.anchor, this.selected);
+    const several = block.bottom > block.top || block.right > block.left;
 
     const widths = this.wb.columnWidths(this.wb.activeSheet);
     const heights = this.wb.rowHeights(this.wb.activeSheet);
@@ -157,7 +193,7 @@ export class Grid {
     for (let c = 0; c < nCols; c++) {
       const th = document.createElement("th");
       th.textContent = columnLetters(c);
-      if (c === sel.col) th.classList.add("current");
+      if (c >= block.left && c <= block.right) th.classList.add("current");
       hr.append(th);
     }
     head.append(hr);
@@ -169,7 +205,7 @@ export class Grid {
       if (heights[r]) tr.style.height = `${Math.round(heights[r] * PX_PER_PT)}px`;
       const th = document.createElement("th");
       th.textContent = String(r + 1);
-      if (r === sel.row) th.classList.add("current");
+      if (r >= block.top && r <= block.bottom) th.classList.add("current");
       tr.append(th);
       const views = Array.from({ length: nCols }, (_, c) => this.wb.cell(this.wb.activeSheet, cellAddress({ row: r, col: c })));
       for (let c = 0; c < nCols; c++) {
@@ -193,6 +229,7 @@ export class Grid {
         }
         this.fillCell(td, view, room);
         if (address === this.selected) td.classList.add("selected");
+        if (several && r >= block.top && r <= block.bottom && c >= block.left && c <= block.right) td.classList.add("in-range");
         tr.append(td);
       }
       body.append(tr);
@@ -266,7 +303,7 @@ export class Grid {
       b.addEventListener("click", () => {
         this.cancelEdit();
         if (name !== this.wb.activeSheet) {
-          this.selected = "A1";
+          this.selected = this.anchor = "A1";
           this.wb.activate(name);
         }
       });
@@ -279,7 +316,7 @@ export class Grid {
     add.title = "Add an empty sheet";
     add.addEventListener("click", () => {
       const name = this.wb.addSheet({ name: `Sheet${this.wb.sheetNames().length + 1}`, cells: {} });
-      this.selected = "A1";
+      this.selected = this.anchor = "A1";
       this.wb.activate(name);
     });
     this.el.tabs.replaceChildren(...tabs, add);
@@ -322,6 +359,7 @@ export class Grid {
     if (!a) return;
     if (this.editor) this.commit(this.editor.value, null);
     this.selected = a;
+    if (!e.shiftKey) this.anchor = a;
     this.render();
     this.el.sheet.focus({ preventScroll: true });
     e.preventDefault();
@@ -378,11 +416,13 @@ export class Grid {
     if (editing) this.el.sheet.focus({ preventScroll: true });
   }
 
-  private move(dir: "down" | "up" | "left" | "right"): void {
+  /** Move the active cell one step; `extend` keeps the anchor (the block grows or shrinks), else the block is one cell. */
+  private move(dir: "down" | "up" | "left" | "right", extend = false): void {
     const a = parseCell(this.selected);
     const row = Math.max(0, a.row + (dir === "down" ? 1 : dir === "up" ? -1 : 0));
     const col = Math.max(0, a.col + (dir === "right" ? 1 : dir === "left" ? -1 : 0));
     this.selected = cellAddress({ row, col });
+    if (!extend) this.anchor = this.selected;
   }
 
   private onKey(e: KeyboardEvent): void {
@@ -412,7 +452,8 @@ export class Grid {
       this.render();
     } else if (moves[e.key]) {
       e.preventDefault();
-      this.move(e.key === "Enter" && e.shiftKey ? "up" : moves[e.key]);
+      if (e.key === "Enter") this.move(e.shiftKey ? "up" : "down");
+      else this.move(moves[e.key], e.shiftKey);
       this.render();
     } else if (e.key === "F2") {
       e.preventDefault();
