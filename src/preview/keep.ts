@@ -1,8 +1,9 @@
 /**
- * Unsaved work kept in the browser: after each change the open workbook is written to the browser's IndexedDB
- * (the platform's store for structured data; no size limit worth the name for a workbook, unlike localStorage's few
- * megabytes of text), so that after a reload or a crash the page can offer it back. Only unsaved work is kept: once the
- * workbook is saved, or the user discards the changes (another file opened, the offer declined), the copy goes.
+ * Unsaved work kept in the browser: after each change (at the page's next idle moment, within KEEP_WITHIN_MS) the
+ * open workbook is written to the browser's IndexedDB (the platform's store for structured data; no size limit worth
+ * the name for a workbook, unlike localStorage's few megabytes of text), so that after a reload or a crash the page can
+ * offer it back. Only unsaved work is kept: once the workbook is saved, or the user discards the changes (another file
+ * opened, the offer declined), the copy goes.
  *
  * One copy per browser profile and origin: two tabs of the preview share it (the latest change wins).
  */
@@ -57,6 +58,17 @@ async function inStore<T>(mode: IDBTransactionMode, request: (store: IDBObjectSt
     tx.oncomplete = () => resolve(r.result);
     tx.onerror = () => reject(tx.error ?? r.error ?? new Error("the browser's storage refused the request"));
     tx.onabort = () => reject(tx.error ?? new Error("the browser's storage gave up the request"));
+  });
+}
+
+/** The longest a change waits to be kept, ms: the page's next idle moment, or this long if it is never idle. */
+export const KEEP_WITHIN_MS = 500;
+
+/** Resolves at the page's next idle moment (requestIdleCallback), or after KEEP_WITHIN_MS at the latest. */
+function whenIdle(): Promise<void> {
+  return new Promise((resolve) => {
+    if (typeof requestIdleCallback === "function") requestIdleCallback(() => resolve(), { timeout: KEEP_WITHIN_MS });
+    else setTimeout(resolve, 0);
   });
 }
 
@@ -132,10 +144,11 @@ export class Keeper {
     this.tell();
     if (!this.dirty || this.held || this.queued) return;
     this.queued = true;
-    // after the current task: one write for a burst of changes (an edit recalculates many cells)
+    // when the page is idle (at most KEEP_WITHIN_MS after the change): one write for a burst of changes, and the
+    // workbook written out while the user is not waiting for the sheet or the pane to redraw
     this.then(
       () =>
-        new Promise<void>((resolve) => setTimeout(resolve, 0)).then(() => {
+        whenIdle().then(() => {
           this.queued = false;
           if (!this.dirty || this.held) return undefined;
           const entry: KeptWork = { ...this.describe(), keptAt: Date.now(), data: this.wb.contentData() };

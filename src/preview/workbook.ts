@@ -5,7 +5,7 @@
  * Call ./plugin's registerHeadroomFunctions (with the CustomFunctions stand-in installed) before creating one.
  */
 import { DetailedCellError, HyperFormula } from "hyperformula";
-import type { ConfigParams, RawCellContent, SimpleCellAddress } from "hyperformula";
+import type { ConfigParams, ExportedChange, RawCellContent, SimpleCellAddress } from "hyperformula";
 import { absoluteRef, cellAddress, columnLetters, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "../workbook/a1";
 import { type CachedValue, type CellContent, type CellData, type CellStyle, type DefinedName, type PrintSetup, type SheetData, type WorkbookData, isFormula, textContent, textOf } from "./model";
 import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
@@ -38,7 +38,27 @@ export interface CellView {
   spillRange?: string;
 }
 
-export type ChangeListener = () => void;
+/**
+ * What a change touched: `cells`, sheet name → the addresses whose content, value or style may have changed (an edit
+ * and what it recalculated); or everything (`cells` undefined: a workbook loaded, another sheet shown, a sheet added or
+ * taken away, an undo or redo, a name changed).
+ */
+export interface WorkbookChange {
+  cells?: ReadonlyMap<string, ReadonlySet<string>>;
+}
+
+export type ChangeListener = (change: WorkbookChange) => void;
+
+const EVERYTHING: WorkbookChange = {};
+
+/** Two changes as one. */
+function merged(a: WorkbookChange | null, b: WorkbookChange): WorkbookChange {
+  if (!a) return b;
+  if (!a.cells || !b.cells) return EVERYTHING;
+  const cells = new Map<string, Set<string>>();
+  for (const c of [a.cells, b.cells]) for (const [sheet, set] of c) cells.set(sheet, new Set([...(cells.get(sheet) ?? []), ...set]));
+  return { cells };
+}
 
 function shown(v: unknown): ShownValue {
   if (v instanceof DetailedCellError) return v.message ? { error: v.value, message: v.message } : { error: v.value };
@@ -100,9 +120,11 @@ export class PreviewWorkbook {
   private names_ = new EngineNames();
   private readonly listeners = new Set<ChangeListener>();
   private spillCache = new Map<string, Map<string, { anchor: string; range: string }>>();
-  /** depth of `group` calls, and whether a change waits for the outermost to end */
+  /** depth of `group` calls, and the change waiting for the outermost to end */
   private grouping = 0;
-  private changeWaiting = false;
+  private changeWaiting: WorkbookChange | null = null;
+  /** cells written or restyled since the engine last reported (they belong to its next report) */
+  private touched = new Map<string, Set<string>>();
   /** for each sheet added: the sheet shown when it was added, shown again when an undo takes it away */
   private readonly shownBefore = new Map<string, string>();
   private revision_ = 0;
@@ -152,7 +174,7 @@ export class PreviewWorkbook {
     this.spillCache = new Map();
     this.revision_++;
     this.activeSheet = data.activeSheet && sheets[data.activeSheet] ? data.activeSheet : data.sheets[0].name;
-    this.engine.on("valuesUpdated", () => this.changed());
+    this.engine.on("valuesUpdated", (changes: ExportedChange[]) => this.recalculated(changes));
     previous?.destroy();
     if (previous) this.changed();
   }
@@ -213,9 +235,10 @@ export class PreviewWorkbook {
       return steps();
     } finally {
       this.grouping--;
-      if (!this.grouping && this.changeWaiting) {
-        this.changeWaiting = false;
-        this.changed();
+      const waiting = this.changeWaiting;
+      if (!this.grouping && waiting) {
+        this.changeWaiting = null;
+        this.changed(waiting);
       }
     }
   }
@@ -290,7 +313,22 @@ export class PreviewWorkbook {
       delete own.demo;
       this.setStyle(sheet, address, own);
     }
+    this.touch(sheet, address);
     this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content, this.names_)]]);
+    // content that leaves every value as it was (text over equal text) gets no report from the engine: tell of it here
+    if (this.touched.size) this.changed({ cells: this.takeTouched() });
+  }
+
+  private touch(sheet: string, address: string): void {
+    let set = this.touched.get(sheet);
+    if (!set) this.touched.set(sheet, (set = new Set()));
+    set.add(address);
+  }
+
+  private takeTouched(): Map<string, Set<string>> {
+    const t = this.touched;
+    this.touched = new Map();
+    return t;
   }
 
   /** Put what a user typed into a cell: formulas, numbers, TRUE/FALSE and text as a spreadsheet reads them. */
@@ -305,6 +343,7 @@ export class PreviewWorkbook {
     if (!m) this.layout.styles.set(sheet, (m = new Map()));
     if (style) m.set(address, style);
     else m.delete(address);
+    this.touch(sheet, address);
   }
 
   /** Every cell of a sheet that holds something or has a style, with its view. */
@@ -330,22 +369,22 @@ export class PreviewWorkbook {
     if (cached) return cached;
     const map = new Map<string, { anchor: string; range: string }>();
     const id = this.sheetId(sheet);
-    const serial = this.hf.getSheetSerialized(id);
-    serial.forEach((row, r) =>
-      row.forEach((content, c) => {
-        if (typeof content !== "string" || !content.startsWith("=")) return;
-        if (!this.hf.isCellPartOfArray({ sheet: id, row: r, col: c })) return;
-        const isFilled = (rr: number, cc: number) =>
-          this.hf.isCellPartOfArray({ sheet: id, row: rr, col: cc }) && this.hf.getCellFormula({ sheet: id, row: rr, col: cc }) === undefined && !map.has(cellAddress({ row: rr, col: cc }));
-        let width = 1;
-        while (isFilled(r, c + width)) width++;
+    const { width, height: rows } = this.hf.getSheetDimensions(id);
+    const part = (row: number, col: number) => this.hf.isCellPartOfArray({ sheet: id, row, col });
+    const isFilled = (rr: number, cc: number) => part(rr, cc) && this.hf.getCellFormula({ sheet: id, row: rr, col: cc }) === undefined && !map.has(cellAddress({ row: rr, col: cc }));
+    // only a formula's own cell anchors a block: the engine's array cells, scanned without writing any formula out
+    for (let r = 0; r < rows; r++) {
+      for (let c = 0; c < width; c++) {
+        if (!part(r, c) || this.hf.getCellFormula({ sheet: id, row: r, col: c }) === undefined) continue;
+        let w = 1;
+        while (isFilled(r, c + w)) w++;
         let height = 1;
         while (isFilled(r + height, c)) height++;
         const anchor = cellAddress({ row: r, col: c });
-        const range = `${anchor}:${cellAddress({ row: r + height - 1, col: c + width - 1 })}`;
-        for (let i = 0; i < height; i++) for (let k = 0; k < width; k++) map.set(cellAddress({ row: r + i, col: c + k }), { anchor, range });
-      }),
-    );
+        const range = `${anchor}:${cellAddress({ row: r + height - 1, col: c + w - 1 })}`;
+        for (let i = 0; i < height; i++) for (let k = 0; k < w; k++) map.set(cellAddress({ row: r + i, col: c + k }), { anchor, range });
+      }
+    }
     this.spillCache.set(sheet, map);
     return map;
   }
@@ -426,13 +465,28 @@ export class PreviewWorkbook {
     return () => this.listeners.delete(listener);
   }
 
-  private changed(): void {
-    this.spillCache = new Map();
+  /** The engine's report of the values it recalculated, with the cells written since the last one. */
+  private recalculated(changes: ExportedChange[]): void {
+    const cells = this.takeTouched();
+    for (const c of changes) {
+      if (!("address" in c)) continue; // a name's value: the cells using it are reported too
+      const sheet = this.hf.getSheetName(c.address.sheet);
+      if (sheet === undefined) continue;
+      let set = cells.get(sheet);
+      if (!set) cells.set(sheet, (set = new Set()));
+      set.add(cellAddress(c.address));
+    }
+    this.changed({ cells });
+  }
+
+  private changed(change: WorkbookChange = EVERYTHING): void {
+    if (change.cells) for (const sheet of change.cells.keys()) this.spillCache.delete(sheet);
+    else this.spillCache = new Map();
     if (this.grouping) {
-      this.changeWaiting = true;
+      this.changeWaiting = merged(this.changeWaiting, change);
       return;
     }
-    for (const l of [...this.listeners]) l();
+    for (const l of [...this.listeners]) l(change);
   }
 
   /** Take the last step back (an edit, or a whole group: a sheet added with its names). */

@@ -124,6 +124,45 @@ describe("spills, names and reloading", () => {
     expect(wb.value("Other", "A2")).toBe(6);
   });
 
+  test("an edit tells its listeners which cells changed: the one written and those it recalculated, nothing else", () => {
+    const wb = new PreviewWorkbook({
+      sheets: [
+        { name: "S", cells: { A1: { content: 2 }, A2: { content: "=A1*3" }, A3: { content: 7 }, B1: { content: "=SEQUENCE(2)" } } },
+        { name: "T", cells: { A1: { content: "=S!A2+1" } } },
+      ],
+      names: [],
+    });
+    const heard: Array<Record<string, string[]> | "everything"> = [];
+    wb.onChange((c) => heard.push(c.cells ? Object.fromEntries([...c.cells].map(([s, set]) => [s, [...set].sort()])) : "everything"));
+    wb.setContent("S", "A1", 4);
+    // A1 written; A2 = A1 × 3 and T!A1 = S!A2 + 1 follow it (spreadsheet dependency, common practice); A3 and B1:B2 do not
+    expect(heard).toEqual([{ S: ["A1", "A2"], T: ["A1"] }]);
+    expect(wb.value("T", "A1")).toBe(13); // 4 × 3 + 1 (hand arithmetic)
+    heard.length = 0;
+    // the same value typed again: still told, for the cell written alone
+    wb.setContent("S", "A3", 7);
+    expect(heard).toEqual([{ S: ["A3"] }]);
+    heard.length = 0;
+    wb.activate("T");
+    expect(heard).toEqual(["everything"]);
+    heard.length = 0;
+    wb.undo();
+    expect(heard).toEqual(["everything"]);
+  });
+
+  test("the spilled blocks are found again after an edit that changes them", () => {
+    const wb = blank();
+    wb.setContent("S", "A1", 2);
+    wb.setContent("S", "A2", 3);
+    wb.setContent("S", "A3", 5);
+    wb.setContent("S", "B1", "=A1:A2*2");
+    expect(wb.spills("S").get("B2")).toEqual({ anchor: "B1", range: "B1:B2" });
+    expect(wb.spills("S").get("B3")).toBeUndefined();
+    wb.setContent("S", "B1", "=A1:A3*2");
+    expect(wb.spills("S").get("B3")).toEqual({ anchor: "B1", range: "B1:B3" });
+    expect(wb.cell("S", "B3")).toMatchObject({ spilledFrom: "B1", value: 10 }); // 5 × 2 (hand arithmetic)
+  });
+
   test("a sheet added under a taken name gets the next free one", () => {
     const wb = blank();
     expect(wb.addSheet({ name: "S", cells: {} })).toBe("S 2");
