@@ -7,11 +7,12 @@
  * Every cell of the active sheet carries data-address ("B7"); inputs, computed cells, spilled cells and errors each
  * have their class; an error cell's message is its title and shows on the message line when selected.
  */
+import { Virtualizer, elementScroll, observeElementOffset, observeElementRect } from "@tanstack/virtual-core";
 import { cellAddress, columnLetters, parseCell, parseRange } from "../workbook/a1";
 import { DEFAULT_COLUMN_WIDTH_PT } from "../workbook/look";
 import { contentText } from "./format";
 import { isFormula } from "./model";
-import type { CellView, PreviewWorkbook } from "./workbook";
+import type { CellView, PreviewWorkbook, WorkbookChange } from "./workbook";
 
 /** Points to CSS pixels. */
 const PX_PER_PT = 96 / 72;
@@ -71,23 +72,100 @@ function blockOf(a: string, b: string): Block {
   return { top: Math.min(x.row, y.row), left: Math.min(x.col, y.col), bottom: Math.max(x.row, y.row), right: Math.max(x.col, y.col) };
 }
 
+/** A row of the table as drawn: its <tr>, its row number and its cells by column. */
+interface DrawnRow {
+  tr: HTMLTableRowElement;
+  th: HTMLTableCellElement;
+  cells: Map<number, HTMLTableCellElement>;
+}
+
+/** What a cell shows, all of it but the selection: drawn again only when this changes. */
+interface CellLook {
+  classes: string;
+  text: string;
+  title: string;
+  demo: boolean;
+  overflowPx: number;
+}
+
+const sameLook = (a: CellLook, b: CellLook) =>
+  a.classes === b.classes && a.text === b.text && a.title === b.title && a.demo === b.demo && a.overflowPx === b.overflowPx;
+
+/** The sheet's frame: what, changed, means the table is laid out again (the rows in view drawn anew). */
+interface Frame {
+  key: string;
+  sheet: string;
+  nRows: number;
+  nCols: number;
+  colPx: number[];
+  heights: Record<number, number>;
+  /** merged blocks: each covered cell → the block's size at its top-left cell, null elsewhere in it */
+  covered: Map<string, { rows: number; cols: number } | null>;
+  merges: Block[];
+}
+
+/** Rows drawn above and below those in view. */
+const OVERSCAN_ROWS = 8;
+/** A row's height when the sheet does not set one, px (preview.css: td height). */
+const ROW_PX = 21;
+
+type Direction = "down" | "up" | "left" | "right";
+
 export class Grid {
   /** the active cell (where typing goes) and the anchor: the selection is the block between them */
   private selected = "A1";
   private anchor = "A1";
   private editor: HTMLInputElement | null = null;
+  private editorCell: HTMLTableCellElement | null = null;
   private editorOriginal = "";
+  /** a change came while the editor was open: every row in view is looked at again when it closes */
+  private staleWhileEditing = false;
   private table: HTMLTableElement | null = null;
+  private frame: Frame | null = null;
+  private head: HTMLTableSectionElement | null = null;
+  private colHeads: HTMLTableCellElement[] = [];
+  private topSpacer: HTMLTableCellElement | null = null;
+  private bottomSpacer: HTMLTableCellElement | null = null;
+  private body: HTMLTableSectionElement | null = null;
+  /** the rows drawn, first to last (a contiguous run), and each drawn cell by address */
+  private drawn = new Map<number, DrawnRow>();
+  private first = 0;
+  private last = -1;
+  private readonly cellEls = new Map<string, HTMLTableCellElement>();
+  private readonly looks = new WeakMap<HTMLTableCellElement, CellLook>();
+  private tabsKey = "";
+  /** frames laid out so far */
+  private frames = 0;
+  private dragging = false;
+  private readonly virtualizer: Virtualizer<HTMLElement, HTMLTableRowElement>;
   private readonly stop: () => void;
+  private readonly unmount: () => void;
 
   constructor(
     private readonly wb: PreviewWorkbook,
     private readonly el: GridElements,
   ) {
-    this.stop = wb.onChange(() => this.render());
+    this.virtualizer = new Virtualizer<HTMLElement, HTMLTableRowElement>({
+      count: 0,
+      getScrollElement: () => el.sheet,
+      estimateSize: (i) => this.rowPx(i),
+      // a new frame (another sheet, other heights) measures its rows anew
+      getItemKey: (i) => `${this.frames}:${i}`,
+      scrollToFn: elementScroll,
+      observeElementRect,
+      observeElementOffset,
+      overscan: OVERSCAN_ROWS,
+      initialRect: { width: el.sheet.clientWidth, height: el.sheet.clientHeight },
+      // scrolled or resized, or a row measured: the rows in view may be others
+      onChange: () => this.drawWindow(),
+    });
+    this.unmount = this.virtualizer._didMount();
+    this.stop = wb.onChange((change) => this.changed(change));
     el.sheet.tabIndex = 0;
     el.sheet.addEventListener("keydown", (e) => this.onKey(e));
     el.sheet.addEventListener("mousedown", (e) => this.onMouse(e));
+    el.sheet.addEventListener("mouseover", (e) => this.onDrag(e));
+    window.addEventListener("mouseup", () => (this.dragging = false));
     el.sheet.addEventListener("dblclick", (e) => {
       const a = this.addressOf(e.target);
       if (a) this.startEdit(null);
@@ -103,11 +181,13 @@ export class Grid {
         el.sheet.focus();
       }
     });
+    this.virtualizer._willUpdate();
     this.render();
   }
 
   dispose(): void {
     this.stop();
+    this.unmount();
   }
 
   get sheet(): string {
@@ -135,37 +215,87 @@ export class Grid {
 
   /** Select the block between `anchor` and `active` on the active sheet; `active` becomes the active cell. */
   selectRange(anchor: string, active: string): void {
+    const a = cellAddress(parseCell(anchor));
+    const b = cellAddress(parseCell(active));
     this.cancelEdit();
-    this.anchor = cellAddress(parseCell(anchor));
-    this.selected = cellAddress(parseCell(active));
-    this.render();
+    this.setSelection(a, b);
   }
 
   // ─── Drawing ───────────────────────────────────────────────────────────────────────────────────────────────────
 
+  /** Draw again whatever changed in view: the sheet's frame, then every cell in view against what it shows. */
   render(): void {
-    if (this.editor) return; // don't pull the editor from under the user; redraw on commit
+    this.changed({});
+  }
+
+  /** The workbook changed: lay the table out again if its frame changed, else draw the cells that changed anew. */
+  private changed(change: WorkbookChange): void {
+    if (this.editor) {
+      // the editor stays under the user's fingers; what changed meanwhile is drawn when it closes
+      this.staleWhileEditing = true;
+      return;
+    }
+    if (!change.cells) this.renderTabs();
+    const frame = this.makeFrame();
+    if (!this.frame || frame.key !== this.frame.key) {
+      this.layOut(frame);
+      this.showSelection();
+      return;
+    }
+    if (change.cells) {
+      const touched = change.cells.get(this.wb.activeSheet);
+      if (!touched) return;
+      const rows = new Set<number>();
+      for (const address of touched) {
+        const r = parseCell(address).row;
+        if (this.drawn.has(r)) rows.add(r);
+      }
+      for (const r of rows) this.refreshRow(r);
+      if (touched.has(this.selected)) this.showSelection(false);
+    } else {
+      for (const r of this.drawn.keys()) this.refreshRow(r);
+      this.showSelection(false);
+    }
+  }
+
+  private makeFrame(): Frame {
+    const sheets = this.wb.sheetNames();
+    if (!sheets.includes(this.wb.activeSheet)) this.wb.activeSheet = sheets[0];
     const sheet = this.wb.activeSheet;
-    if (!this.wb.sheetNames().includes(sheet)) this.wb.activeSheet = this.wb.sheetNames()[0];
-    this.renderTabs();
-    const { rows, cols } = this.wb.extent(this.wb.activeSheet);
+    const { rows, cols } = this.wb.extent(sheet);
     const nRows = Math.max(rows + SPARE_ROWS, MIN_ROWS);
     const nCols = Math.max(cols + SPARE_COLS, MIN_COLS);
+    const widths = this.wb.columnWidths(sheet);
+    const heights = this.wb.rowHeights(sheet);
+    const mergedRanges = this.wb.mergedRanges(sheet);
+    const colPx = Array.from({ length: nCols }, (_, c) => Math.round((widths[c] ?? DEFAULT_COLUMN_WIDTH_PT) * PX_PER_PT));
+    const covered = new Map<string, { rows: number; cols: number } | null>();
+    const merges: Block[] = [];
+    for (const m of mergedRanges) {
+      const r = parseRange(m);
+      merges.push({ top: r.start.row, left: r.start.col, bottom: r.start.row + r.rows - 1, right: r.start.col + r.cols - 1 });
+      for (let i = 0; i < r.rows; i++)
+        for (let k = 0; k < r.cols; k++) covered.set(cellAddress({ row: r.start.row + i, col: r.start.col + k }), i || k ? null : { rows: r.rows, cols: r.cols });
+    }
+    const key = JSON.stringify([sheet, nRows, colPx, heights, mergedRanges]);
+    return { key, sheet, nRows, nCols, colPx, heights, covered, merges };
+  }
+
+  private rowPx(r: number): number {
+    const h = this.frame?.heights[r];
+    return h ? Math.round(h * PX_PER_PT) : ROW_PX;
+  }
+
+  /** A new table for a new frame (another sheet, rows or columns added, widths, heights or merges changed). */
+  private layOut(frame: Frame): void {
+    const sameSheet = this.frame?.sheet === frame.sheet;
+    this.frame = frame;
+    this.frames++;
+    const { nRows, nCols, colPx } = frame;
     const sel = parseCell(this.selected);
     if (sel.row >= nRows || sel.col >= nCols) this.selected = this.anchor = "A1";
     const anchor = parseCell(this.anchor);
     if (anchor.row >= nRows || anchor.col >= nCols) this.anchor = this.selected;
-    const block = blockOf(this.anchor, this.selected);
-    const several = block.bottom > block.top || block.right > block.left;
-
-    const widths = this.wb.columnWidths(this.wb.activeSheet);
-    const heights = this.wb.rowHeights(this.wb.activeSheet);
-    const covered = new Map<string, { rows: number; cols: number } | null>();
-    for (const m of this.wb.mergedRanges(this.wb.activeSheet)) {
-      const r = parseRange(m);
-      for (let i = 0; i < r.rows; i++)
-        for (let k = 0; k < r.cols; k++) covered.set(cellAddress({ row: r.start.row + i, col: r.start.col + k }), i || k ? null : { rows: r.rows, cols: r.cols });
-    }
 
     const table = document.createElement("table");
     table.className = "grid";
@@ -174,12 +304,9 @@ export class Grid {
     corner.style.width = `${ROW_HEAD_PX}px`;
     colgroup.append(corner);
     let total = ROW_HEAD_PX;
-    const colPx: number[] = [];
-    for (let c = 0; c < nCols; c++) {
+    for (const px of colPx) {
       const col = document.createElement("col");
-      const px = Math.round((widths[c] ?? DEFAULT_COLUMN_WIDTH_PT) * PX_PER_PT);
       col.style.width = `${px}px`;
-      colPx.push(px);
       total += px;
       colgroup.append(col);
     }
@@ -190,108 +317,316 @@ export class Grid {
     const head = document.createElement("thead");
     const hr = document.createElement("tr");
     hr.append(Object.assign(document.createElement("th"), { className: "corner" }));
+    this.colHeads = [];
     for (let c = 0; c < nCols; c++) {
       const th = document.createElement("th");
       th.textContent = columnLetters(c);
-      if (c >= block.left && c <= block.right) th.classList.add("current");
+      this.colHeads.push(th);
       hr.append(th);
     }
     head.append(hr);
     table.append(head);
 
+    // the rows out of view are two spacers, above and below those drawn
     const body = document.createElement("tbody");
-    for (let r = 0; r < nRows; r++) {
+    const spacer = () => {
       const tr = document.createElement("tr");
-      if (heights[r]) tr.style.height = `${Math.round(heights[r] * PX_PER_PT)}px`;
-      const th = document.createElement("th");
-      th.textContent = String(r + 1);
-      if (r >= block.top && r <= block.bottom) th.classList.add("current");
-      tr.append(th);
-      const views = Array.from({ length: nCols }, (_, c) => this.wb.cell(this.wb.activeSheet, cellAddress({ row: r, col: c })));
-      for (let c = 0; c < nCols; c++) {
-        const address = cellAddress({ row: r, col: c });
-        const merge = covered.get(address);
-        if (merge === null) continue;
-        const td = document.createElement("td");
-        if (merge) {
-          td.colSpan = merge.cols;
-          td.rowSpan = merge.rows;
-          td.classList.add("merged");
-        }
-        td.dataset.address = address;
-        const view = views[c];
-        let room = 0;
-        if (!merge && typeof view.value === "string" && view.value) {
-          let k = c + 1;
-          while (k < nCols && isEmpty(views[k]) && !covered.has(cellAddress({ row: r, col: k }))) k++;
-          if (k > c + 1) for (let j = c; j < k; j++) room += colPx[j];
-          room = Math.max(0, room - CELL_PADDING_PX);
-        }
-        this.fillCell(td, view, room);
-        if (address === this.selected) td.classList.add("selected");
-        if (several && r >= block.top && r <= block.bottom && c >= block.left && c <= block.right) td.classList.add("in-range");
-        tr.append(td);
-      }
+      tr.className = "spacer";
+      const td = document.createElement("td");
+      td.colSpan = nCols + 1;
+      tr.append(td);
       body.append(tr);
-    }
+      return td;
+    };
+    this.topSpacer = spacer();
+    this.bottomSpacer = spacer();
     table.append(body);
 
-    const scroll = { top: this.el.sheet.scrollTop, left: this.el.sheet.scrollLeft };
+    this.table = table;
+    this.head = head;
+    this.body = body;
+    this.drawn.clear();
+    this.cellEls.clear();
+    this.first = 0;
+    this.last = -1;
+    const scroll = sameSheet ? { top: this.el.sheet.scrollTop, left: this.el.sheet.scrollLeft } : { top: 0, left: 0 };
     this.el.sheet.replaceChildren(table);
+    this.virtualizer.setOptions({ ...this.virtualizer.options, count: nRows, scrollMargin: head.offsetHeight });
+    this.virtualizer.measure();
     this.el.sheet.scrollTop = scroll.top;
     this.el.sheet.scrollLeft = scroll.left;
-    this.table = table;
-    this.showSelection();
+    this.drawWindow();
+    this.paintHeads(null);
+  }
+
+  /** The rows in view (with the overscan), widened to take in whole every merged block they cut. */
+  private wantedRows(): { first: number; last: number } {
+    const frame = this.frame!;
+    const v = this.virtualizer;
+    const margin = v.options.scrollMargin;
+    const top = this.el.sheet.scrollTop;
+    const height = this.el.sheet.clientHeight || v.options.initialRect?.height || 600;
+    let first = (v.getVirtualItemForOffset(top + margin)?.index ?? 0) - OVERSCAN_ROWS;
+    let last = (v.getVirtualItemForOffset(top + height)?.index ?? 0) + OVERSCAN_ROWS;
+    first = Math.max(0, first);
+    last = Math.min(frame.nRows - 1, Math.max(first, last));
+    for (let grew = true; grew; ) {
+      grew = false;
+      for (const m of frame.merges) {
+        if (m.bottom < first || m.top > last) continue;
+        if (m.top < first) [first, grew] = [m.top, true];
+        if (m.bottom > last) [last, grew] = [Math.min(frame.nRows - 1, m.bottom), true];
+      }
+    }
+    return { first, last };
+  }
+
+  private drawing = false;
+
+  /** Draw the rows now in view, drop those out of it, and size the spacers. */
+  private drawWindow(): void {
+    if (!this.frame || !this.body || this.drawing) return;
+    this.drawing = true;
+    try {
+      const { first, last } = this.wantedRows();
+      if (first !== this.first || last !== this.last) {
+        for (const [r, row] of [...this.drawn]) {
+          if (r >= first && r <= last) continue;
+          if (this.editorCell && row.tr.contains(this.editorCell)) continue; // never pull the editor away
+          this.dropRow(r, row);
+        }
+        const above: HTMLTableRowElement[] = [];
+        const below: HTMLTableRowElement[] = [];
+        const overlap = this.drawn.size > 0;
+        for (let r = first; r <= last; r++) {
+          if (this.drawn.has(r)) continue;
+          const tr = this.drawRow(r);
+          (overlap && r < this.first ? above : below).push(tr);
+        }
+        if (above.length) this.topSpacer!.parentElement!.after(...above);
+        if (below.length) this.bottomSpacer!.parentElement!.before(...below);
+        this.first = first;
+        this.last = last;
+      }
+      const items = this.virtualizer.measurementsCache;
+      const margin = this.virtualizer.options.scrollMargin;
+      const topPx = items[first] ? items[first].start - margin : 0;
+      const bottomPx = items[last] && items.length ? items[items.length - 1].end - items[last].end : 0;
+      setHeight(this.topSpacer!, topPx);
+      setHeight(this.bottomSpacer!, bottomPx);
+    } finally {
+      this.drawing = false;
+    }
+  }
+
+  private dropRow(r: number, row: DrawnRow): void {
+    for (const td of row.cells.values()) this.cellEls.delete(td.dataset.address!);
+    row.tr.remove();
+    this.drawn.delete(r);
+  }
+
+  /** A row of the table, its cells filled and the selection marked. */
+  private drawRow(r: number): HTMLTableRowElement {
+    const frame = this.frame!;
+    const tr = document.createElement("tr");
+    tr.dataset.index = String(r);
+    const h = frame.heights[r];
+    if (h) tr.style.height = `${Math.round(h * PX_PER_PT)}px`;
+    const th = document.createElement("th");
+    th.textContent = String(r + 1);
+    tr.append(th);
+    const block = this.block();
+    if (r >= block.top && r <= block.bottom) th.classList.add("current");
+    const cells = new Map<number, HTMLTableCellElement>();
+    const looks = this.rowLooks(r);
+    for (const [c, look] of looks) {
+      const address = cellAddress({ row: r, col: c });
+      const td = document.createElement("td");
+      const merge = frame.covered.get(address);
+      if (merge) {
+        td.colSpan = merge.cols;
+        td.rowSpan = merge.rows;
+      }
+      td.dataset.address = address;
+      td.append(Object.assign(document.createElement("span"), { className: "v" }));
+      this.fill(td, look);
+      cells.set(c, td);
+      this.cellEls.set(address, td);
+      tr.append(td);
+    }
+    this.drawn.set(r, { tr, th, cells });
+    this.virtualizer.measureElement(tr);
+    return tr;
+  }
+
+  /** Look at a drawn row's cells again and draw anew those whose look changed. */
+  private refreshRow(r: number): void {
+    const row = this.drawn.get(r);
+    if (!row) return;
+    for (const [c, look] of this.rowLooks(r)) {
+      const td = row.cells.get(c);
+      if (td && td !== this.editorCell) this.fill(td, look);
+    }
+  }
+
+  /** What each cell of row `r` shows (merged-over cells left out): its classes, text, title, overflow. */
+  private rowLooks(r: number): Map<number, CellLook> {
+    const frame = this.frame!;
+    const { nCols, colPx, covered } = frame;
+    const sheet = frame.sheet;
+    const views = Array.from({ length: nCols }, (_, c) => this.wb.cell(sheet, cellAddress({ row: r, col: c })));
+    const out = new Map<number, CellLook>();
+    for (let c = 0; c < nCols; c++) {
+      const address = cellAddress({ row: r, col: c });
+      const merge = covered.get(address);
+      if (merge === null) continue;
+      const view = views[c];
+      let room = 0;
+      if (!merge && typeof view.value === "string" && view.value) {
+        let k = c + 1;
+        while (k < nCols && isEmpty(views[k]) && !covered.has(cellAddress({ row: r, col: k }))) k++;
+        if (k > c + 1) for (let j = c; j < k; j++) room += colPx[j];
+        room = Math.max(0, room - CELL_PADDING_PX);
+      }
+      out.set(c, this.lookOf(view, room, merge !== undefined));
+    }
+    return out;
   }
 
   /** `overflowPx`: the width text may take, own cell and the empty cells after it (0: its own cell only). */
-  private fillCell(td: HTMLTableCellElement, v: CellView, overflowPx: number): void {
+  private lookOf(v: CellView, overflowPx: number, merged: boolean): CellLook {
+    const classes: string[] = [];
+    let title = "";
+    let demo = false;
+    if (merged) classes.push("merged");
     const role = v.style?.role;
-    if (role) td.classList.add(`role-${role}`);
-    else if (isFormula(v.content)) td.classList.add("role-computed");
-    if (v.style?.bold) td.classList.add("bold");
-    if (v.style?.italic) td.classList.add("italic");
-    if (v.style?.wrap) td.classList.add("wrap");
+    if (role) classes.push(`role-${role}`);
+    else if (isFormula(v.content)) classes.push("role-computed");
+    if (v.style?.bold) classes.push("bold");
+    if (v.style?.italic) classes.push("italic");
+    if (v.style?.wrap) classes.push("wrap");
     if (v.style?.demo) {
-      td.classList.add("demo");
-      td.dataset.demo = "true";
-      td.title = DEMO_NOTE;
+      classes.push("demo");
+      demo = true;
+      title = DEMO_NOTE;
     }
     const value = v.value;
-    let shownText = v.display;
+    let text = v.display;
     if (value !== null && typeof value === "object") {
-      td.classList.add("error");
-      td.title = value.message ? `${value.error} ${value.message}` : value.error;
+      classes.push("error");
+      title = value.message ? `${value.error} ${value.message}` : value.error;
       // a whole spill that failed repeats its anchor's error in every cell: show it once, at the anchor
       if (v.spilledFrom) {
         const anchor = this.wb.value(this.wb.activeSheet, v.spilledFrom);
         if (anchor !== null && typeof anchor === "object" && anchor.error === value.error && anchor.message === value.message) {
-          td.classList.add("error-echo");
-          shownText = "";
+          classes.push("error-echo");
+          text = "";
         }
       }
     } else if (typeof value === "number") {
-      td.classList.add("number");
+      classes.push("number");
     } else if (typeof value === "boolean") {
-      td.classList.add("boolean");
+      classes.push("boolean");
     }
     if (v.spilledFrom) {
-      td.classList.add("spilled");
-      if (!td.title) td.title = `Spilled from ${v.spilledFrom}`;
+      classes.push("spilled");
+      if (!title) title = `Spilled from ${v.spilledFrom}`;
     }
-    if (v.spillRange) td.classList.add("spill-anchor");
-    const span = document.createElement("span");
-    span.className = "v";
-    span.textContent = shownText;
+    if (v.spillRange) classes.push("spill-anchor");
     // text runs on over the empty cells to its right, as in a spreadsheet, and stops at the next one in use
-    if (overflowPx > 0 && typeof value === "string" && value && !v.style?.wrap && td.colSpan === 1) {
-      td.classList.add("overflow");
-      span.style.width = `${overflowPx}px`;
+    let overflow = 0;
+    if (overflowPx > 0 && typeof value === "string" && value && !v.style?.wrap && !merged) {
+      classes.push("overflow");
+      overflow = overflowPx;
     }
-    td.append(span);
+    return { classes: classes.join(" "), text, title, demo, overflowPx: overflow };
+  }
+
+  /** Draw `look` into a cell, touching only what differs from what it shows. */
+  private fill(td: HTMLTableCellElement, look: CellLook, force = false): void {
+    const before = this.looks.get(td);
+    if (!force && before && sameLook(before, look)) return;
+    this.looks.set(td, look);
+    const address = td.dataset.address!;
+    const classes = this.withSelection(look.classes, address);
+    if (td.className !== classes) td.className = classes;
+    if (td.title !== look.title) {
+      if (look.title) td.title = look.title;
+      else td.removeAttribute("title");
+    }
+    if (look.demo && td.dataset.demo !== "true") td.dataset.demo = "true";
+    else if (!look.demo && td.dataset.demo !== undefined) delete td.dataset.demo;
+    let span = td.firstElementChild as HTMLElement | null;
+    if (!span || span.tagName !== "SPAN" || td.childNodes.length !== 1) {
+      span = Object.assign(document.createElement("span"), { className: "v" });
+      td.replaceChildren(span);
+    }
+    if (span.textContent !== look.text) span.textContent = look.text;
+    const width = look.overflowPx ? `${look.overflowPx}px` : "";
+    if (span.style.width !== width) span.style.width = width;
+  }
+
+  /** A cell's classes with the selection's marks. */
+  private withSelection(classes: string, address: string): string {
+    const b = this.block();
+    const { row, col } = parseCell(address);
+    const several = b.bottom > b.top || b.right > b.left;
+    let out = classes;
+    if (several && row >= b.top && row <= b.bottom && col >= b.left && col <= b.right) out += " in-range";
+    if (address === this.selected) out += " selected";
+    if (this.editorCell && this.cellEls.get(address) === this.editorCell) out += " editing";
+    return out.trim();
+  }
+
+  private block(): Block {
+    return blockOf(this.anchor, this.selected);
+  }
+
+  /** Move the selection: only the cells leaving or entering it, and the headers, are drawn again. */
+  private setSelection(anchor: string, active: string): void {
+    const before = this.block();
+    this.anchor = anchor;
+    this.selected = active;
+    const after = this.block();
+    for (const b of [before, after]) {
+      for (let r = Math.max(b.top, this.first); r <= Math.min(b.bottom, this.last); r++) {
+        const row = this.drawn.get(r);
+        if (!row) continue;
+        for (let c = b.left; c <= b.right; c++) {
+          const td = row.cells.get(c);
+          const look = td && this.looks.get(td);
+          if (td && look) {
+            const classes = this.withSelection(look.classes, td.dataset.address!);
+            if (td.className !== classes) td.className = classes;
+          }
+        }
+      }
+    }
+    this.paintHeads(before);
+    this.showSelection();
+  }
+
+  /** The headers of the selection's rows and columns marked "current" (`before`: the block they marked so far). */
+  private paintHeads(before: Block | null): void {
+    const b = this.block();
+    this.colHeads.forEach((th, c) => {
+      const on = c >= b.left && c <= b.right;
+      if (th.classList.contains("current") !== on) th.classList.toggle("current", on);
+    });
+    const rows = before ? [before, b] : [{ top: this.first, bottom: this.last }];
+    for (const x of rows) {
+      for (let r = Math.max(x.top, this.first); r <= Math.min(x.bottom, this.last); r++) {
+        const th = this.drawn.get(r)?.th;
+        const on = r >= b.top && r <= b.bottom;
+        if (th && th.classList.contains("current") !== on) th.classList.toggle("current", on);
+      }
+    }
   }
 
   private renderTabs(): void {
+    const key = JSON.stringify([this.wb.sheetNames(), this.wb.activeSheet]);
+    if (key === this.tabsKey) return;
+    this.tabsKey = key;
     const tabs = this.wb.sheetNames().map((name) => {
       const b = document.createElement("button");
       b.type = "button";
@@ -322,28 +657,66 @@ export class Grid {
     this.el.tabs.replaceChildren(...tabs, add);
   }
 
-  /** Formula bar, name box and message line for the selected cell. */
-  private showSelection(): void {
+  /** Formula bar, name box and message line for the selected cell; `scroll`: bring it into view. */
+  private showSelection(scroll = true): void {
     const v = this.wb.cell(this.wb.activeSheet, this.selected);
-    this.el.nameBox.textContent = this.selected;
-    if (document.activeElement !== this.el.formulaBar) this.el.formulaBar.value = contentText(v.content);
+    const box = this.el.nameBox;
+    if (box instanceof HTMLInputElement) {
+      if (document.activeElement !== box && box.value !== this.selected) box.value = this.selected;
+    } else if (box.textContent !== this.selected) box.textContent = this.selected;
+    if (document.activeElement !== this.el.formulaBar) {
+      const text = contentText(v.content);
+      if (this.el.formulaBar.value !== text) this.el.formulaBar.value = text;
+    }
     const value = v.value;
-    this.el.message.classList.remove("is-error");
-    if (value !== null && typeof value === "object") {
-      this.el.message.classList.add("is-error");
-      this.el.message.textContent = `${value.error}  ${value.message ?? "(no message)"}`;
+    let message: string;
+    const isError = value !== null && typeof value === "object";
+    if (isError) {
+      message = `${value.error}  ${value.message ?? "(no message)"}`;
     } else if (v.spilledFrom) {
       const anchor = this.wb.content(this.wb.activeSheet, v.spilledFrom);
-      this.el.message.textContent = `Spilled from ${v.spilledFrom}: ${String(anchor)}`;
+      message = `Spilled from ${v.spilledFrom}: ${String(anchor)}`;
     } else {
-      this.el.message.textContent = describeRole(v);
+      message = describeRole(v);
     }
-    const td = this.cellElement(this.selected);
+    if (this.el.message.classList.contains("is-error") !== isError) this.el.message.classList.toggle("is-error", isError);
+    if (this.el.message.textContent !== message) this.el.message.textContent = message;
+    if (scroll) this.scrollToCell(this.selected);
+  }
+
+  /**
+   * Scroll the active sheet so that a cell is in view, drawing its row if it was out of view (the selection stays);
+   * returns its <td> (a merged block's top-left cell for a cell under it), or null past the grid's last row.
+   */
+  scrollToCell(address: string): HTMLTableCellElement | null {
+    address = cellAddress(parseCell(address));
+    const { row } = parseCell(address);
+    if (!this.frame || row >= this.frame.nRows) return null;
+    if (row < this.first || row > this.last || !this.cellEls.has(address)) {
+      // out of view: scroll the row to the nearest edge by the virtualiser's offsets, then draw what is now in view
+      const item = this.virtualizer.measurementsCache[row];
+      const margin = this.virtualizer.options.scrollMargin;
+      const view = this.el.sheet.clientHeight - margin;
+      if (item) {
+        const top = item.start - margin;
+        this.el.sheet.scrollTop = top < this.el.sheet.scrollTop ? top : Math.max(0, item.end - margin - view);
+      }
+      this.drawWindow();
+    }
+    const td = this.cellElement(address);
     td?.scrollIntoView({ block: "nearest", inline: "nearest" });
+    return td;
   }
 
   private cellElement(address: string): HTMLTableCellElement | null {
-    return this.table?.querySelector<HTMLTableCellElement>(`td[data-address="${address}"]`) ?? null;
+    const td = this.cellEls.get(address);
+    if (td) return td;
+    // a cell under a merged block: its top-left cell
+    const frame = this.frame;
+    if (!frame || !frame.covered.has(address)) return null;
+    const { row, col } = parseCell(address);
+    const m = frame.merges.find((b) => row >= b.top && row <= b.bottom && col >= b.left && col <= b.right);
+    return m ? (this.cellEls.get(cellAddress({ row: m.top, col: m.left })) ?? null) : null;
   }
 
   // ─── Editing ───────────────────────────────────────────────────────────────────────────────────────────────────
@@ -358,16 +731,26 @@ export class Grid {
     const a = this.addressOf(e.target);
     if (!a) return;
     if (this.editor) this.commit(this.editor.value, null);
-    this.selected = a;
-    if (!e.shiftKey) this.anchor = a;
-    this.render();
+    this.setSelection(e.shiftKey ? this.anchor : a, a);
+    this.dragging = e.button === 0;
     this.el.sheet.focus({ preventScroll: true });
     e.preventDefault();
   }
 
+  /** A drag with the button held: the block runs from where it started to the cell under the pointer. */
+  private onDrag(e: MouseEvent): void {
+    if (!this.dragging || this.editor) return;
+    if (!(e.buttons & 1)) {
+      this.dragging = false;
+      return;
+    }
+    const a = this.addressOf(e.target);
+    if (a && a !== this.selected) this.setSelection(this.anchor, a);
+  }
+
   /** Start editing the selected cell: with `initial` typed text replacing it, or its content (null). */
   startEdit(initial: string | null): void {
-    const td = this.cellElement(this.selected);
+    const td = this.scrollToCell(this.selected);
     if (!td) return;
     const content = contentText(this.wb.content(this.wb.activeSheet, this.selected));
     const input = document.createElement("input");
@@ -393,48 +776,115 @@ export class Grid {
     td.replaceChildren(input);
     td.classList.add("editing");
     this.editor = input;
+    this.editorCell = td;
     this.el.formulaBar.value = input.value;
     input.focus();
     input.setSelectionRange(input.value.length, input.value.length);
   }
 
+  /** Close the editor: its cell shows its value again, and what changed meanwhile is drawn. */
+  private closeEditor(): void {
+    const td = this.editorCell;
+    this.editor = null;
+    this.editorCell = null;
+    if (td?.isConnected) {
+      const r = parseCell(td.dataset.address!).row;
+      const look = this.frame && this.drawn.has(r) ? this.rowLooks(r).get(parseCell(td.dataset.address!).col) : undefined;
+      if (look) this.fill(td, look, true);
+      else td.remove();
+    }
+    if (this.staleWhileEditing) {
+      this.staleWhileEditing = false;
+      this.render();
+    }
+  }
+
   private cancelEdit(): void {
     if (!this.editor) return;
-    this.editor = null;
-    this.render();
+    this.closeEditor();
+    this.showSelection();
   }
 
   /** Write `typed` into the selected cell and move. */
-  commit(typed: string, move: "down" | "up" | "left" | "right" | null): void {
+  commit(typed: string, move: Direction | null): void {
     const editing = this.editor;
-    this.editor = null;
+    if (editing) this.closeEditor();
     // the same text committed again changes nothing, except that a demo value becomes the user's own
     const unchanged = editing && typed === this.editorOriginal && !this.wb.style(this.wb.activeSheet, this.selected)?.demo;
     if (!unchanged) this.wb.setTyped(this.wb.activeSheet, this.selected, typed);
     if (move) this.move(move);
-    this.render();
+    else this.showSelection();
     if (editing) this.el.sheet.focus({ preventScroll: true });
   }
 
-  /** Move the active cell one step; `extend` keeps the anchor (the block grows or shrinks), else the block is one cell. */
-  private move(dir: "down" | "up" | "left" | "right", extend = false): void {
+  /** Move the active cell to `to`; `extend` keeps the anchor (the block grows or shrinks), else the block is one cell. */
+  private moveTo(to: { row: number; col: number }, extend: boolean): void {
+    const frame = this.frame;
+    const row = Math.max(0, Math.min(to.row, (frame?.nRows ?? 1) - 1));
+    const col = Math.max(0, Math.min(to.col, (frame?.nCols ?? 1) - 1));
+    const active = cellAddress({ row, col });
+    this.setSelection(extend ? this.anchor : active, active);
+  }
+
+  /** One step; `extend` keeps the anchor. */
+  private move(dir: Direction, extend = false): void {
     const a = parseCell(this.selected);
-    const row = Math.max(0, a.row + (dir === "down" ? 1 : dir === "up" ? -1 : 0));
-    const col = Math.max(0, a.col + (dir === "right" ? 1 : dir === "left" ? -1 : 0));
-    this.selected = cellAddress({ row, col });
-    if (!extend) this.anchor = this.selected;
+    this.moveTo({ row: a.row + (dir === "down" ? 1 : dir === "up" ? -1 : 0), col: a.col + (dir === "right" ? 1 : dir === "left" ? -1 : 0) }, extend);
+  }
+
+  /** Whether a cell of the active sheet holds nothing (no content, no value). */
+  private blank(row: number, col: number): boolean {
+    const address = cellAddress({ row, col });
+    const sheet = this.wb.activeSheet;
+    const v = this.wb.value(sheet, address);
+    return (v === null || v === "") && this.wb.content(sheet, address) === null;
+  }
+
+  /**
+   * Where Ctrl+arrow goes from the active cell, as in a spreadsheet: from a cell in use with its neighbour in use, to
+   * the last cell in use before a blank; otherwise to the next cell in use; with none, to the grid's edge.
+   */
+  private dataEdge(dir: Direction): { row: number; col: number } {
+    const frame = this.frame!;
+    const { row, col } = parseCell(this.selected);
+    const dr = dir === "down" ? 1 : dir === "up" ? -1 : 0;
+    const dc = dir === "right" ? 1 : dir === "left" ? -1 : 0;
+    const inside = (r: number, c: number) => r >= 0 && c >= 0 && r < frame.nRows && c < frame.nCols;
+    let r = row + dr;
+    let c = col + dc;
+    if (!inside(r, c)) return { row, col };
+    if (!this.blank(row, col) && !this.blank(r, c)) {
+      while (inside(r + dr, c + dc) && !this.blank(r + dr, c + dc)) [r, c] = [r + dr, c + dc];
+      return { row: r, col: c };
+    }
+    while (inside(r, c) && this.blank(r, c)) [r, c] = [r + dr, c + dc];
+    return inside(r, c) ? { row: r, col: c } : { row: r - dr, col: c - dc };
+  }
+
+  /** The row one screen up or down from `row`: as many rows as fit in the view, by the virtualiser's row sizes. */
+  private pageRow(row: number, dir: 1 | -1): number {
+    const v = this.virtualizer;
+    const items = v.measurementsCache;
+    const page = Math.max(ROW_PX, this.el.sheet.clientHeight - v.options.scrollMargin);
+    let to = row;
+    let used = 0;
+    while (items[to + dir] && used + items[to + dir].size <= page) {
+      to += dir;
+      used += items[to].size;
+    }
+    return to === row ? row + dir : to;
   }
 
   private onKey(e: KeyboardEvent): void {
     if (this.editor || e.target !== this.el.sheet) return;
-    const moves: Record<string, "down" | "up" | "left" | "right"> = {
+    const moves: Record<string, Direction> = {
       ArrowDown: "down",
       ArrowUp: "up",
       ArrowLeft: "left",
       ArrowRight: "right",
-      Enter: "down",
     };
     const ctrl = e.ctrlKey || e.metaKey;
+    const here = parseCell(this.selected);
     if (ctrl && (e.key === "z" || e.key === "Z")) {
       e.preventDefault();
       if (e.shiftKey) this.wb.redo();
@@ -449,12 +899,28 @@ export class Grid {
     if (e.key === "Tab") {
       e.preventDefault();
       this.move(e.shiftKey ? "left" : "right");
-      this.render();
+    } else if (e.key === "Enter") {
+      e.preventDefault();
+      this.move(e.shiftKey ? "up" : "down");
     } else if (moves[e.key]) {
       e.preventDefault();
-      if (e.key === "Enter") this.move(e.shiftKey ? "up" : "down");
+      if (ctrl) this.moveTo(this.dataEdge(moves[e.key]), e.shiftKey);
       else this.move(moves[e.key], e.shiftKey);
-      this.render();
+    } else if (e.key === "Home") {
+      e.preventDefault();
+      this.moveTo(ctrl ? { row: 0, col: 0 } : { row: here.row, col: 0 }, e.shiftKey);
+    } else if (e.key === "End" && ctrl) {
+      e.preventDefault();
+      const { rows, cols } = this.wb.extent(this.wb.activeSheet);
+      this.moveTo({ row: rows - 1, col: cols - 1 }, e.shiftKey);
+    } else if (e.key === "PageDown" || e.key === "PageUp") {
+      e.preventDefault();
+      const dir = e.key === "PageDown" ? 1 : -1;
+      const to = this.pageRow(here.row, dir);
+      // the view moves by the same screen, so that the active cell keeps its place on it
+      this.el.sheet.scrollTop += (this.virtualizer.measurementsCache[Math.max(0, Math.min(to, (this.frame?.nRows ?? 1) - 1))]?.start ?? 0) - (this.virtualizer.measurementsCache[here.row]?.start ?? 0);
+      this.drawWindow();
+      this.moveTo({ row: to, col: here.col }, e.shiftKey);
     } else if (e.key === "F2") {
       e.preventDefault();
       this.startEdit(null);
@@ -466,4 +932,9 @@ export class Grid {
       this.startEdit(e.key);
     }
   }
+}
+
+function setHeight(td: HTMLTableCellElement, px: number): void {
+  const h = `${Math.max(0, Math.round(px))}px`;
+  if (td.style.height !== h) td.style.height = h;
 }
