@@ -1,11 +1,14 @@
 /**
  * The preview's grid: one sheet of the preview workbook as a table, with a formula bar, a message line, sheet tabs
  * and keyboard editing. Our own simple design; a spreadsheet's familiar gestures:
- *   click or arrow keys select · type to replace, F2 or double-click to edit in place · Enter commits and moves down,
- *   Tab moves right, Escape cancels · Delete clears · Ctrl+Z / Ctrl+Y undo and redo · the formula bar edits the
- *   selected cell too.
- * Every cell of the active sheet carries data-address ("B7"); inputs, computed cells, spilled cells and errors each
- * have their class; an error cell's message is its title and shows on the message line when selected.
+ *   click or arrow keys select · Shift+click, Shift+arrows or a drag select a block · Home, Ctrl+Home, Ctrl+End,
+ *   PageUp/PageDown and Ctrl+arrows move (Shift extends) · type to replace, F2 or double-click to edit in place · Enter
+ *   commits and moves down, Tab moves right, Escape cancels · Delete clears · Ctrl+Z / Ctrl+Y undo and redo · the
+ *   formula bar edits the selected cell too.
+ * Only the rows in view (and a few around them) are drawn, by @tanstack/virtual-core's measurements; the rest are two
+ * spacer rows. Every drawn cell carries data-address ("B7"); inputs, computed cells, spilled cells and errors each have
+ * their class; an error cell's message is its title and shows on the message line when selected. A change redraws
+ * only the drawn cells whose look changed; a click, only the cells leaving and entering the selection.
  */
 import { Virtualizer, elementScroll, observeElementOffset, observeElementRect } from "@tanstack/virtual-core";
 import { cellAddress, columnLetters, parseCell, parseRange } from "../workbook/a1";
