@@ -11,6 +11,8 @@ import { type CachedValue, type CellContent, type CellData, type CellStyle, type
 import { SPILL_DIGITS, formatValue, parseTyped, type ShownValue } from "./format";
 import { normaliseTypedFormula } from "./formulaText";
 import { EngineNames } from "./names";
+import { toTabText, fromTabText } from "./clipboardText";
+import { type RowChange, cutsThrough, movedCells, movedRow, movedHeights, movedPrintArea, movedRange, movedTitleRows, sameColumn, shiftFormulaRows } from "./rows";
 
 /** The engine's settings: the licence key, Excel's dynamic-array behaviour, and full-precision results. */
 export const ENGINE_CONFIG: Partial<ConfigParams> = {
@@ -85,7 +87,74 @@ class Layout {
     if (s.print) this.prints.set(s.name, { ...s.print });
     else this.prints.delete(s.name);
   }
+
+  /** A copy to keep (styles are replaced, never changed in place, so they are shared). */
+  clone(): Layout {
+    const l = new Layout();
+    for (const [s, m] of this.styles) l.styles.set(s, new Map(m));
+    for (const [s, w] of this.widths) l.widths.set(s, { ...w });
+    for (const [s, m] of this.merges) l.merges.set(s, [...m]);
+    for (const [s, h] of this.heights) l.heights.set(s, { ...h });
+    for (const [s, p] of this.prints) l.prints.set(s, { ...p });
+    return l;
+  }
+
+  /** Rows inserted or deleted on `sheet`: styles, heights, merges and the print area follow. */
+  moveRows(sheet: string, change: RowChange): void {
+    this.styles.set(sheet, movedCells(this.styles.get(sheet) ?? new Map(), change));
+    this.heights.set(sheet, movedHeights(this.heights.get(sheet) ?? {}, change));
+    this.merges.set(sheet, (this.merges.get(sheet) ?? []).map((m) => movedRange(m, change)).filter((m): m is string => m !== null));
+    const print = this.prints.get(sheet);
+    if (print) {
+      const area = movedPrintArea(print.area, change);
+      if (!area) this.prints.delete(sheet);
+      else {
+        const moved: PrintSetup = { ...print, area };
+        const titles = print.titleRows ? movedTitleRows(print.titleRows, change) : undefined;
+        if (titles) moved.titleRows = titles;
+        else delete moved.titleRows;
+        this.prints.set(sheet, moved);
+      }
+    }
+  }
 }
+
+/** A step of the engine's undo history that changed the layout too: the layout before it and after it. */
+interface LayoutStep {
+  before: Layout;
+  after: Layout;
+}
+
+/** What the workbook's own clipboard holds: the block copied or cut, and its cells' styles. */
+interface Clip {
+  sheet: string;
+  /** 0-based top-left cell and size */
+  row: number;
+  col: number;
+  rows: number;
+  cols: number;
+  styles: (CellStyle | undefined)[][];
+  cut: boolean;
+  /** the block as tab-separated text, as it went to the system clipboard */
+  text: string;
+}
+
+/**
+ * The engine's undo and redo stacks (HyperFormula keeps them in its CRUD operations; they are not part of its public
+ * API). Each entry is an object that stays the same while it moves between the stacks, so a layout step can be
+ * attached to it: undo, redo, the undo limit and a new step clearing the redo stack then carry the layout along
+ * exactly as the engine carries the contents. test/preview/rowsAndClipboard.test.ts fails if this shape changes.
+ */
+function undoStacks(hf: HyperFormula): { undoStack: object[]; redoStack: object[] } | undefined {
+  const undoRedo = (hf as unknown as { _crudOperations?: { undoRedo?: { undoStack?: unknown; redoStack?: unknown } } })._crudOperations?.undoRedo;
+  if (!undoRedo || !Array.isArray(undoRedo.undoStack) || !Array.isArray(undoRedo.redoStack)) return undefined;
+  return { undoStack: undoRedo.undoStack as object[], redoStack: undoRedo.redoStack as object[] };
+}
+
+const top = (stack: object[] | undefined): object | undefined => (stack?.length ? stack[stack.length - 1] : undefined);
+
+/** A spilling formula held as a formula of one cell while rows move (see `restructure`). */
+const HELD = { start: "=INDEX(", end: ",1,1)" };
 
 /** The most rows and columns a sheet may have: the engine's (HyperFormula's maxRows and maxColumns). */
 const MAX_ROWS = ENGINE_CONFIG.maxRows ?? HyperFormula.defaultConfig.maxRows;
@@ -128,6 +197,12 @@ export class PreviewWorkbook {
   /** for each sheet added: the sheet shown when it was added, shown again when an undo takes it away */
   private readonly shownBefore = new Map<string, string>();
   private revision_ = 0;
+  /** the layout's steps, attached to the engine's undo entries they belong with */
+  private layoutSteps = new WeakMap<object, LayoutStep>();
+  /** while a step is being recorded: whether it runs, and the layout as it was before its first layout change */
+  private recording = false;
+  private layoutBefore: Layout | null = null;
+  private clip: Clip | null = null;
   activeSheet = "";
 
   constructor(data: WorkbookData) {
@@ -172,6 +247,8 @@ export class PreviewWorkbook {
     this.layout = layout;
     this.names_ = names;
     this.spillCache = new Map();
+    this.layoutSteps = new WeakMap();
+    this.clip = null;
     this.revision_++;
     this.activeSheet = data.activeSheet && sheets[data.activeSheet] ? data.activeSheet : data.sheets[0].name;
     this.engine.on("valuesUpdated", (changes: ExportedChange[]) => this.recalculated(changes));
@@ -202,10 +279,11 @@ export class PreviewWorkbook {
   addSheet(data: SheetData): string {
     const name = freeSheetName(data.name, this.sheetNames());
     const sheet = { ...data, name };
-    this.layout.keep(sheet);
     this.shownBefore.set(name, this.activeSheet);
     this.revision_++;
     this.group(() => {
+      this.touchLayout();
+      this.layout.keep(sheet);
       this.hf.addSheet(name);
       this.hf.setSheetContent(this.sheetId(name), toRows(sheet, this.names_));
       this.changed();
@@ -219,13 +297,39 @@ export class PreviewWorkbook {
    */
   group<T>(steps: () => T): T {
     if (this.grouping) return steps();
-    return this.quietly(() => {
-      let result: T | undefined;
-      this.hf.batch(() => {
-        result = steps();
-      });
-      return result as T;
-    });
+    return this.recorded(() =>
+      this.quietly(() => {
+        let result: T | undefined;
+        this.hf.batch(() => {
+          result = steps();
+        });
+        return result as T;
+      }),
+    );
+  }
+
+  /**
+   * Do `steps`, one step of the engine's undo history at most, and attach to it what they changed in the layout, so
+   * that undo and redo take the layout back and forth with the contents.
+   */
+  private recorded<T>(steps: () => T): T {
+    if (this.recording) return steps();
+    this.recording = true;
+    this.layoutBefore = null;
+    const entryBefore = top(undoStacks(this.hf)?.undoStack);
+    try {
+      return steps();
+    } finally {
+      this.recording = false;
+      const entry = top(undoStacks(this.hf)?.undoStack);
+      if (this.layoutBefore && entry && entry !== entryBefore) this.layoutSteps.set(entry, { before: this.layoutBefore, after: this.layout.clone() });
+      this.layoutBefore = null;
+    }
+  }
+
+  /** Call before changing the layout: the first change of a step being recorded keeps the layout as it was. */
+  private touchLayout(): void {
+    if (this.recording && !this.layoutBefore) this.layoutBefore = this.layout.clone();
   }
 
   /** Do `steps`, telling the listeners of their changes once, at the end. */
@@ -307,16 +411,23 @@ export class PreviewWorkbook {
   /** Put content into a cell (null clears it). A demo value's mark goes: what is there now is the user's. */
   setContent(sheet: string, address: string, content: CellContent): void {
     this.revision_++;
+    this.recorded(() => {
+      this.ownValue(sheet, address);
+      this.touch(sheet, address);
+      this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content, this.names_)]]);
+      // content that leaves every value as it was (text over equal text) gets no report from the engine: tell of it here
+      if (this.touched.size) this.changed({ cells: this.takeTouched() });
+    });
+  }
+
+  /** A demo value's mark goes: what the cell holds now is the user's. */
+  private ownValue(sheet: string, address: string): void {
     const style = this.style(sheet, address);
     if (style?.demo) {
       const own: CellStyle = { ...style };
       delete own.demo;
       this.setStyle(sheet, address, own);
     }
-    this.touch(sheet, address);
-    this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content, this.names_)]]);
-    // content that leaves every value as it was (text over equal text) gets no report from the engine: tell of it here
-    if (this.touched.size) this.changed({ cells: this.takeTouched() });
   }
 
   private touch(sheet: string, address: string): void {
@@ -339,6 +450,7 @@ export class PreviewWorkbook {
 
   setStyle(sheet: string, address: string, style: CellStyle | undefined): void {
     this.revision_++;
+    this.touchLayout();
     let m = this.layout.styles.get(sheet);
     if (!m) this.layout.styles.set(sheet, (m = new Map()));
     if (style) m.set(address, style);
@@ -387,6 +499,268 @@ export class PreviewWorkbook {
     }
     this.spillCache.set(sheet, map);
     return map;
+  }
+
+  // ─── Rows ──────────────────────────────────────────────────────────────────────────────────────────────────────
+
+  /**
+   * Insert `count` empty rows before row `at` (0-based) of `sheet`, as one step to undo. Formulas, names, spills and
+   * the layout follow (styles, row heights, merges and the print area move down; a merge or print area the rows go
+   * into grows). The new rows take the styles of the row above, and, inside a table, the formulas the rows above and
+   * below share (a computed column: the same formula relative to its row). Throws where the sheet would grow past
+   * the rows the preview holds.
+   */
+  insertRows(sheet: string, at: number, count: number): void {
+    const id = this.sheetId(sheet);
+    checkRows(at, count);
+    if (!this.hf.isItPossibleToAddRows(id, [at, count])) {
+      const { rows } = this.extent(sheet);
+      throw new Error(`insert ${rowsWord(count)} at row ${at + 1}: got a sheet of ${rows.toLocaleString("en-US")} rows; the preview holds at most ${MAX_ROWS.toLocaleString("en-US")} rows`);
+    }
+    const change: RowChange = { at, count };
+    this.revision_++;
+    this.restructure(
+      sheet,
+      change,
+      (engine, sid) => {
+        const above = at > 0 ? formulasOf(engine, sid, at - 1) : new Map<number, string>();
+        const below = formulasOf(engine, sid, at);
+        engine.addRows(sid, [at, count]);
+        // a computed column: the rows above and below hold the same formula, relative to their rows
+        for (const [col, formula] of above) {
+          const next = below.get(col);
+          const kind = next === undefined ? undefined : sameColumn(formula, at - 1, next, at);
+          if (!kind) continue;
+          const moved = engine.getCellFormula({ sheet: sid, row: at - 1, col }) ?? formula;
+          for (let k = 1; k <= count; k++) engine.setCellContents({ sheet: sid, row: at - 1 + k, col }, [[shiftFormulaRows(moved, k, kind === "text")]]);
+        }
+      },
+      () => {
+        this.layout.moveRows(sheet, change);
+        if (at > 0) this.styleNewRows(sheet, at - 1, at, count);
+      },
+    );
+  }
+
+  /**
+   * Delete `count` rows from row `at` (0-based) of `sheet`, as one step to undo. Formulas, names, spills and the
+   * layout follow; references into the deleted rows become #REF!, as in a spreadsheet. Throws, changing nothing,
+   * where the rows cut through a merged block (delete all its rows or none).
+   */
+  deleteRows(sheet: string, at: number, count: number): void {
+    const id = this.sheetId(sheet);
+    checkRows(at, count);
+    const change: RowChange = { at, count: -count };
+    const rows = count === 1 ? `row ${at + 1}` : `rows ${at + 1} to ${at + count}`;
+    for (const m of this.mergedRanges(sheet)) {
+      const r = parseRange(m);
+      if (cutsThrough(r.start.row, r.start.row + r.rows - 1, change)) {
+        throw new Error(`delete ${rows}: they cut through the merged cells ${m}; delete all of its rows (${r.start.row + 1} to ${r.start.row + r.rows}) or none`);
+      }
+    }
+    if (!this.hf.isItPossibleToRemoveRows(id, [at, count])) throw new Error(`delete ${rows}: the sheet has no such rows`);
+    this.revision_++;
+    this.restructure(sheet, change, (engine, sid) => engine.removeRows(sid, [at, count]), () => this.layout.moveRows(sheet, change));
+  }
+
+  /** New rows `at`..`at+count-1` take the styles of row `from` (a demo value's mark stays behind: they are empty). */
+  private styleNewRows(sheet: string, from: number, at: number, count: number): void {
+    const styles = this.layout.styles.get(sheet);
+    if (!styles) return;
+    for (const [address, style] of [...styles]) {
+      const a = parseCell(address);
+      if (a.row !== from) continue;
+      const own: CellStyle = { ...style };
+      delete own.demo;
+      for (let k = 0; k < count; k++) styles.set(cellAddress({ row: at + k, col: a.col }), own);
+    }
+  }
+
+  /**
+   * Rows inserted or deleted on `sheet` as one step to undo. The engine's own moving of spilled blocks fails for some
+   * blocks (rows inserted inside one throws; a deletion taken back leaves the block blocked), so the rows move in a
+   * second engine where nothing spills (each spilling formula held as a formula of one cell): `rows` moves them there,
+   * and that engine moves references, names and ranges as for any formula. Then the cells that differ are written
+   * here, in one group: the spilling formulas cleared first and written last, so that undo, which takes the writes
+   * back in reverse, finds their blocks empty when it puts them back. `layout` moves the layout, in the same step.
+   */
+  private restructure(sheet: string, change: RowChange, rows: (engine: HyperFormula, sheet: number) => void, layout: () => void): void {
+    const sheets = this.sheetNames();
+    const ids = sheets.map((name) => this.sheetId(name));
+    const before: RawCellContent[][][] = [];
+    const anchors: Array<Set<string>> = [];
+    const held: Record<string, RawCellContent[][]> = {};
+    sheets.forEach((name, i) => {
+      const spills = this.spills(name);
+      const own = new Set<string>();
+      for (const { anchor } of spills.values()) own.add(anchor);
+      const grid = this.hf.getSheetSerialized(ids[i]).map((row, r) =>
+        row.map((v, c) => {
+          const address = cellAddress({ row: r, col: c });
+          return spills.has(address) && !own.has(address) ? null : (v ?? null); // a spilled value is not content
+        }),
+      );
+      before.push(grid);
+      anchors.push(own);
+      held[name] = grid.map((row, r) => row.map((v, c) => (own.has(cellAddress({ row: r, col: c })) && typeof v === "string" ? `${HELD.start}${v.slice(1)}${HELD.end}` : v)));
+    });
+    const names = this.hf.listNamedExpressions().map((name) => ({ name, expression: this.hf.getNamedExpressionFormula(name) ?? "" }));
+    const engine = HyperFormula.buildFromSheets(held, { ...ENGINE_CONFIG, undoLimit: 0 }, names);
+    const after: RawCellContent[][][] = [];
+    const afterAnchors: Array<Set<string>> = [];
+    let afterNames: Array<{ name: string; expression: string }>;
+    try {
+      rows(engine, sheets.indexOf(sheet));
+      sheets.forEach((name, i) => {
+        const moved = new Set<string>();
+        for (const anchor of anchors[i]) {
+          const a = parseCell(anchor);
+          const row = name === sheet ? movedRow(a.row, change) : a.row;
+          if (row !== null) moved.add(cellAddress({ row, col: a.col }));
+        }
+        afterAnchors.push(moved);
+        after.push(
+          engine.getSheetSerialized(i).map((row, r) =>
+            row.map((v, c) => {
+              if (typeof v === "string" && moved.has(cellAddress({ row: r, col: c })) && v.startsWith(HELD.start) && v.endsWith(HELD.end)) return `=${v.slice(HELD.start.length, -HELD.end.length)}`;
+              return v ?? null;
+            }),
+          ),
+        );
+      });
+      afterNames = engine.listNamedExpressions().map((name) => ({ name, expression: engine.getNamedExpressionFormula(name) ?? "" }));
+    } finally {
+      engine.destroy();
+    }
+    const cellOf = (grid: RawCellContent[][], r: number, c: number): RawCellContent => grid[r]?.[c] ?? null;
+    this.group(() => {
+      sheets.forEach((_, i) => {
+        for (const anchor of anchors[i]) {
+          const a = parseCell(anchor);
+          this.hf.setCellContents({ sheet: ids[i], row: a.row, col: a.col }, [[null]]);
+        }
+      });
+      sheets.forEach((_, i) => {
+        const height = Math.max(before[i].length, after[i].length);
+        for (let r = 0; r < height; r++) {
+          const width = Math.max(before[i][r]?.length ?? 0, after[i][r]?.length ?? 0);
+          for (let c = 0; c < width; c++) {
+            const address = cellAddress({ row: r, col: c });
+            if (afterAnchors[i].has(address)) continue;
+            const old = anchors[i].has(address) ? null : cellOf(before[i], r, c);
+            const now = cellOf(after[i], r, c);
+            if (old !== now) this.hf.setCellContents({ sheet: ids[i], row: r, col: c }, [[now]]);
+          }
+        }
+      });
+      sheets.forEach((_, i) => {
+        for (const anchor of afterAnchors[i]) {
+          const a = parseCell(anchor);
+          this.hf.setCellContents({ sheet: ids[i], row: a.row, col: a.col }, [[cellOf(after[i], a.row, a.col)]]);
+        }
+      });
+      for (const { name, expression } of afterNames) {
+        if (this.hf.getNamedExpressionFormula(name) !== expression) this.hf.changeNamedExpression(name, expression);
+      }
+      this.touchLayout();
+      layout();
+      this.changed();
+    });
+  }
+
+  // ─── Clipboard ─────────────────────────────────────────────────────────────────────────────────────────────────
+
+  /**
+   * Copy a block ("B3:D7" or "B3") of `sheet`: the workbook keeps its formulas and styles for `paste`. Returns the
+   * block as tab-separated text of what its cells show, for the system clipboard.
+   */
+  copyRange(sheet: string, range: string): string {
+    return this.take(sheet, range, false);
+  }
+
+  /** Cut a block: `paste` moves it (formulas that refer to it follow), styles and all. Returns its text, as `copyRange`. */
+  cutRange(sheet: string, range: string): string {
+    return this.take(sheet, range, true);
+  }
+
+  /** The text of the block last copied or cut (null: none, or a cut already pasted). */
+  get clipboardText(): string | null {
+    return this.clip?.text ?? null;
+  }
+
+  private take(sheet: string, range: string, cut: boolean): string {
+    const id = this.sheetId(sheet);
+    const r = parseRange(range);
+    const block = { start: { sheet: id, row: r.start.row, col: r.start.col }, end: { sheet: id, row: r.start.row + r.rows - 1, col: r.start.col + r.cols - 1 } };
+    if (cut) this.hf.cut(block);
+    else this.hf.copy(block);
+    const styles: (CellStyle | undefined)[][] = [];
+    const texts: string[][] = [];
+    for (let i = 0; i < r.rows; i++) {
+      styles.push([]);
+      texts.push([]);
+      for (let k = 0; k < r.cols; k++) {
+        const address = cellAddress({ row: r.start.row + i, col: r.start.col + k });
+        styles[i].push(this.style(sheet, address));
+        texts[i].push(this.cell(sheet, address).display);
+      }
+    }
+    const text = toTabText(texts);
+    this.clip = { sheet, row: r.start.row, col: r.start.col, rows: r.rows, cols: r.cols, styles, cut, text };
+    return text;
+  }
+
+  /**
+   * Paste the block last copied or cut with its top-left cell at `address` of `sheet`, as one step to undo: relative
+   * references move with it, styles go along (a demo value's mark does not: what is pasted is the user's). A cut
+   * block moves, and the clipboard is empty after. Throws where there is nothing to paste or the engine refuses the
+   * place (part of a spill, past the sheet's edge).
+   */
+  paste(sheet: string, address: string): void {
+    const clip = this.clip;
+    if (!clip || this.hf.isClipboardEmpty()) throw new Error("paste: nothing copied yet; select cells and copy them first");
+    const at = this.addr(sheet, address);
+    const end = { row: at.row + clip.rows - 1, col: at.col + clip.cols - 1 };
+    if (end.row >= MAX_ROWS || end.col >= MAX_COLUMNS) {
+      throw new Error(`paste at ${address}: got a block of ${clip.rows} × ${clip.cols} cells; it must fit within row ${MAX_ROWS.toLocaleString("en-US")} and column ${columnLetters(MAX_COLUMNS - 1)}`);
+    }
+    this.revision_++;
+    try {
+      // the engine's paste is one step of its own (it reads values, so it cannot run inside a group)
+      this.recorded(() => this.quietly(() => {
+        this.hf.paste(at);
+        this.touchLayout();
+        if (clip.cut) for (let i = 0; i < clip.rows; i++) for (let k = 0; k < clip.cols; k++) this.setStyle(clip.sheet, cellAddress({ row: clip.row + i, col: clip.col + k }), undefined);
+        for (let i = 0; i < clip.rows; i++) {
+          for (let k = 0; k < clip.cols; k++) {
+            const style = clip.styles[i][k];
+            const own = style ? { ...style } : undefined;
+            if (own) delete own.demo;
+            this.setStyle(sheet, cellAddress({ row: at.row + i, col: at.col + k }), own);
+          }
+        }
+        this.changed();
+      }));
+    } catch (e) {
+      throw new Error(`paste at ${address}: ${(e as Error).message}`);
+    }
+    if (clip.cut) this.clip = null;
+  }
+
+  /**
+   * Paste tab-separated text (from another program, or typed) with its top-left cell at `address`, as one step to
+   * undo: each cell as if typed into it (numbers, TRUE/FALSE, formulas, text), a demo value's mark gone.
+   */
+  pasteText(sheet: string, address: string, text: string): void {
+    const rows = fromTabText(text);
+    if (!rows.length) return;
+    const at = parseCell(address);
+    const width = Math.max(...rows.map((r) => r.length));
+    if (at.row + rows.length > MAX_ROWS || at.col + width > MAX_COLUMNS) {
+      throw new Error(`paste at ${address}: got ${rows.length} × ${width} cells; they must fit within row ${MAX_ROWS.toLocaleString("en-US")} and column ${columnLetters(MAX_COLUMNS - 1)}`);
+    }
+    this.sheetId(sheet);
+    this.group(() => rows.forEach((r, i) => r.forEach((typed, k) => this.setTyped(sheet, cellAddress({ row: at.row + i, col: at.col + k }), typed))));
   }
 
   // ─── Names ─────────────────────────────────────────────────────────────────────────────────────────────────────
@@ -493,8 +867,10 @@ export class PreviewWorkbook {
   undo(): boolean {
     if (!this.hf.isThereSomethingToUndo()) return false;
     this.revision_++;
+    const step = this.layoutSteps.get(top(undoStacks(this.hf)?.undoStack) ?? {});
     this.quietly(() => {
       this.hf.undo();
+      if (step) this.layout = step.before.clone();
       // a sheet taken away: show the one shown when it came
       const sheets = this.sheetNames();
       if (!sheets.includes(this.activeSheet)) {
@@ -512,7 +888,9 @@ export class PreviewWorkbook {
     this.revision_++;
     this.quietly(() => {
       const before = new Set(this.sheetNames());
+      const step = this.layoutSteps.get(top(undoStacks(this.hf)?.redoStack) ?? {});
       this.hf.redo();
+      if (step) this.layout = step.after.clone();
       const added = this.sheetNames().find((s) => !before.has(s));
       if (added) this.activeSheet = added;
       this.changed();
@@ -583,6 +961,25 @@ export class PreviewWorkbook {
     return `${quoteSheet(sheet)}!${address}`;
   }
 }
+
+/** The formulas of one row of an engine's sheet, by column. */
+function formulasOf(engine: HyperFormula, id: number, row: number): Map<number, string> {
+  const out = new Map<number, string>();
+  const { width } = engine.getSheetDimensions(id);
+  for (let col = 0; col < width; col++) {
+    const f = engine.getCellFormula({ sheet: id, row, col });
+    if (f !== undefined) out.set(col, f);
+  }
+  return out;
+}
+
+/** Rows to insert or delete: a row index from 0 and a count from 1, whole numbers. */
+function checkRows(at: number, count: number): void {
+  if (!Number.isInteger(at) || at < 0 || at >= MAX_ROWS) throw new Error(`row: got ${at}; must be a whole number from 0 to ${MAX_ROWS - 1} (0 is row 1)`);
+  if (!Number.isInteger(count) || count < 1) throw new Error(`count: got ${count}; must be a whole number of rows, at least 1`);
+}
+
+const rowsWord = (n: number) => (n === 1 ? "1 row" : `${n.toLocaleString("en-US")} rows`);
 
 function cachedOf(v: ShownValue): CachedValue {
   return v;
