@@ -291,7 +291,7 @@ function numberProblem(name: Exclude<InputName, "Units">, r: Reading, host: Port
     case "missing":
       return host === "excel"
         ? `${name} is not defined. Select the cell that holds ${m.what}, type ${name} in the Name Box and press Enter, or use New estimate sheet.`
-        : `${name} is not defined in this workbook: use New estimate sheet, which defines every name the pane reads (${m.what}), and type your figures into it.`;
+        : `${name} is not defined in this workbook. Select the cell that holds ${m.what}, type ${name} in the name box above the sheet and press Enter, or use New estimate sheet, which defines every name the pane reads.`;
     case "empty":
     case "text":
       return null; // read by the cell functions' own reader (toNumber)

@@ -153,9 +153,9 @@ export type ShareCopyResult =
   | { ok: false; reason: string };
 
 /**
- * Which host a port runs in: Excel (its Name Box and Name Manager define names) or the preview (whose name box shows
- * the selection and cannot define names: a new estimate sheet defines them). The pane's messages say what the user
- * can do there.
+ * Which host a port runs in: Excel (its Name Box and Name Manager define names) or the preview (whose name box above
+ * the sheet defines a new name on the selection but cannot point an existing one elsewhere: a new estimate sheet
+ * defines them all). The pane's messages say what the user can do there.
  */
 export type PortHost = "excel" | "preview";
 

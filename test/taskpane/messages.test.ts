@@ -1,6 +1,6 @@
 /**
- * The pane's messages point where the user can act: a missing name is fixed by the Name Box in Excel but only by a new
- * estimate sheet in the preview (whose name box cannot define names); a name defined on a blank cell is reported as
+ * The pane's messages point where the user can act: a missing name is fixed by the Name Box in Excel and by the name
+ * box above the sheet in the preview (or a new estimate sheet in either); a name defined on a blank cell is reported as
  * that blank cell, not as a name to define.
  */
 import { describe, expect, it } from "vitest";
@@ -30,11 +30,11 @@ describe("a name the workbook does not define", () => {
     ]);
   });
 
-  it("in the preview, whose name box cannot define names: a new estimate sheet, never the Name Box", () => {
+  it("in the preview: its name box above the sheet (which defines a new name on the selection), or a new estimate sheet", () => {
     const [message] = problems(withoutPressure, "preview");
     expect(message).not.toMatch(/Name Box|Name Manager/);
     expect(message).toBe(
-      "Demand_Pressure is not defined in this workbook: use New estimate sheet, which defines every name the pane reads (the pressure the system needs at the supply), and type your figures into it.",
+      "Demand_Pressure is not defined in this workbook. Select the cell that holds the pressure the system needs at the supply, type Demand_Pressure in the name box above the sheet and press Enter, or use New estimate sheet, which defines every name the pane reads.",
     );
   });
 
