@@ -20,6 +20,7 @@ import type { Readings } from "../workbook/port";
 import { DEMO_LOOK, ROLE_STYLES } from "../workbook/look";
 import { isShareStamp } from "../workbook/port";
 import { Grid } from "./grid";
+import { attachGridCommands } from "./gridCommands";
 import { Keeper, type KeptWork, cleanFileName, keptWork } from "./keep";
 import type { FunctionsMetadata } from "./metadata";
 import type { WorkbookData } from "./model";
@@ -120,9 +121,19 @@ async function main(): Promise<void> {
   const grid = new Grid(wb, {
     sheet: $("grid"),
     tabs: $("sheet-tabs"),
-    nameBox: $("name-box"),
+    nameBox: $<HTMLInputElement>("name-box"),
     formulaBar: $<HTMLInputElement>("formula-bar"),
     message: $("cell-message"),
+  });
+  attachGridCommands(grid, wb, {
+    sheet: $("grid"),
+    nameBox: $<HTMLInputElement>("name-box"),
+    formulaBar: $<HTMLInputElement>("formula-bar"),
+    message: $("cell-message"),
+    toolbar: document.querySelector<HTMLElement>("header.bar") ?? document.body,
+    pane: $("pane-host"),
+    insertRows: $<HTMLButtonElement>("insert-rows"),
+    deleteRows: $<HTMLButtonElement>("delete-rows"),
   });
   const port = new PreviewPort(wb);
   // a share copy's sheet (its stamp in A1) says its cells are frozen values

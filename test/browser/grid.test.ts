@@ -63,7 +63,7 @@ const td = (address: string) => page.locator(`[data-role="grid"] td[data-address
 const drawnCells = () => page.locator('[data-role="grid"] td[data-address]').count();
 const selection = () =>
   page.evaluate(() => (window as unknown as { headroomPreview: { grid: { selectionRange(): { sheet: string; range: string; active: string } } } }).headroomPreview.grid.selectionRange());
-const nameBox = async () => ((await page.locator('[data-role="name-box"]').textContent()) ?? "").trim();
+const nameBox = async () => (await page.locator('[data-role="name-box"]').inputValue()).trim();
 
 type Wb = {
   activeSheet: string;

@@ -427,7 +427,7 @@ describe("a 320 px window", () => {
       expect(await narrow.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(320);
       // a click selects the cell, typing lands there, and the pane follows
       await narrow.locator('[data-role="grid"] td[data-address="B13"]').click();
-      expect((await narrow.locator('[data-role="name-box"]').textContent())?.trim()).toBe("B13");
+      expect((await narrow.locator('[data-role="name-box"]').inputValue()).trim()).toBe("B13");
       await narrow.screenshot({ path: `${RESULTS}/preview-320.png`, fullPage: true });
     } finally {
       await narrow.close();
@@ -913,7 +913,7 @@ describe("input lands where the user typed it", () => {
     const label = `A${direct.slice(1)}`;
     expect(await content(direct)).toBeNull();
     await clickAt(direct);
-    expect(await page.locator('[data-role="name-box"]').textContent()).toBe(direct);
+    expect(await page.locator('[data-role="name-box"]').inputValue()).toBe(direct);
     await page.keyboard.type("1250");
     await page.keyboard.press("Enter");
     await settle();
@@ -940,7 +940,7 @@ describe("input lands where the user typed it", () => {
     await settle();
     expect(await content(fittings)).toBeNull();
     await clickAt(fittings);
-    expect(await page.locator('[data-role="name-box"]').textContent()).toBe(fittings);
+    expect(await page.locator('[data-role="name-box"]').inputValue()).toBe(fittings);
     await page.keyboard.type("GV");
     await page.keyboard.press("Enter");
     await settle();
