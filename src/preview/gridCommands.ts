@@ -71,7 +71,7 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
     attempt(() => {
       const s = selection();
       wb.insertRows(s.sheet, s.start.row, s.rows);
-      say(`Inserted ${s.rows === 1 ? "a row" : `${s.rows} rows`} above the old ${rowsText(s.start.row, 1)}; Ctrl+Z takes ${s.rows === 1 ? "it" : "them"} back.`);
+      say(`Inserted ${s.rows === 1 ? "an empty row" : `${s.rows} empty rows`} as ${rowsText(s.start.row, s.rows)}; the rows below moved down. Ctrl+Z takes ${s.rows === 1 ? "it" : "them"} back.`);
       el.sheet.focus({ preventScroll: true });
     });
   const deleteRows = () =>
@@ -180,6 +180,9 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
     (e) => {
       if (e.key !== "F6") return;
       e.preventDefault();
+      // a cell being edited is committed first, as a click elsewhere would
+      const editor = document.activeElement;
+      if (editor instanceof HTMLInputElement && editor.dataset.role === "cell-editor") grid.commit(editor.value, null);
       const n = regions().length;
       const from = regionOf(document.activeElement);
       const start = from < 0 ? (e.shiftKey ? 0 : n - 1) : from;

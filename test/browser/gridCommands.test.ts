@@ -109,7 +109,7 @@ describe("rows", () => {
     await settle();
     const row = run.start.row + 2;
     expect(await ask((wb, a) => wb.cell(wb.activeSheet, a).spillRange, anchor)).toBe(`N${run.start.row + 1}:Q${run.start.row + run.rows + 1}`);
-    expect(await message()).toMatch(/^Inserted a row above the old row \d+; Ctrl\+Z takes it back\.$/);
+    expect(await message()).toBe(`Inserted an empty row as row ${row}; the rows below moved down. Ctrl+Z takes it back.`);
     // a segment typed into it as a user would: 60 ft of 4 in schedule 10 steel, no fittings, level
     await goTo(`A${row}`);
     for (const text of ["Added segment", "4", "10", "steel"]) await typeHere(text, "Tab");
@@ -255,6 +255,11 @@ describe("the keyboard", () => {
     expect((await selection()).active).toBe("C14");
     expect(await focused()).toBe("grid");
     expect(await activeValue("B14")).toBe("x");
+    // F6 from a cell being edited commits it first, then leaves
+    await page.keyboard.type("y");
+    await page.keyboard.press("F6");
+    expect(await focused()).toBe("pane");
+    expect(await activeValue("C14")).toBe("y");
   });
 
   test("ten inputs of a new estimate sheet by keyboard alone, with the name box and Enter: the key presses counted", async () => {
