@@ -10,6 +10,9 @@
  *   engine alone            the same edit on a copy of the same workbook in a second HyperFormula, with nothing
  *                           listening: timed in the same round, beside it, as a ratio (the rules: ratios side by side)
  *   selection click         a mousedown on another cell, timed until the page's layout is done
+ *   opening large files     a file at the preview's cell limit and one of two million cells, opened with the Open
+ *                           button's file input: the time to the answer and the longest stall of the page
+ *                           (./browserOpen.ts)
  *
  * Options (environment): BENCH_DIST=<dir> serves another build (e.g. an older checkout's dist/, for a before/after);
  * BENCH_EDITS (default 15) and BENCH_BIG_EDITS (default 15) set the number of timed edits; BENCH_BIG_ROWS (10000) the
@@ -20,6 +23,7 @@ import { existsSync, readdirSync, statSync } from "node:fs";
 import path from "node:path";
 import { chromium, type Page } from "playwright-core";
 import { startServer } from "../scripts/start-server.mjs";
+import { openBench } from "./browserOpen";
 import { median } from "./timing";
 
 const CHROMIUM = "/usr/bin/chromium";
@@ -242,6 +246,15 @@ async function main() {
     console.log("The table: each row flow (50…449 gpm), C 120, inside diameter (1.049…4.049 in), 100 ft,");
     console.log("=HEADROOM.FRICTION(flow, diameter, C, length) and =Supply_Static-loss: every edit recalculates the");
     console.log(`${BIG_ROWS.toLocaleString("en-US")} differences (the FRICTION cells stay). Timings on this shared machine vary: compare the ratios of one run.`);
+
+    // opening large files: each from a fresh page (a change left unsaved is let go)
+    page.on("dialog", (d) => void d.accept());
+    const reload = async () => {
+      await page.goto(`${url}preview/?sample=${encodeURIComponent(SAMPLE)}`);
+      await page.waitForSelector("body[data-ready]", { timeout: 120_000 });
+      if (await page.locator('[data-role="restore-offer"]').isVisible()) await page.click('[data-role="restore-decline"]');
+    };
+    for (const l of await openBench(page, reload)) console.log(l);
   } finally {
     await browser.close();
     server.close();
