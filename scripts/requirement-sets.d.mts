@@ -24,4 +24,5 @@ export declare function compareVersions(a: string, b: string): number;
 export declare function neededSets(project: Omit<Project, "manifest"> & { manifest?: string }): Map<string, { version: string; uses: string[] }>;
 export declare function manifestSets(manifest: string): Map<string, string>;
 export declare function runtimeChecks(sources: Record<string, string>): Map<string, { version: string; where: string }>;
+export declare function guards(text: string): Map<string, string>;
 export declare function requirementProblems(project: Project): string[];

@@ -144,14 +144,45 @@ export const CODE_ROWS = [
     source: `${EXCEL_REF}excel.worksheetcollection`,
   },
   {
-    api: "WorksheetCollection.onChanged, Range.copyFrom, Worksheet.pageLayout",
-    code: /\bworksheets\.onChanged\b|\.copyFrom\s*\(|\.pageLayout\b/,
+    api: "WorksheetCollection.onChanged, Range.copyFrom, Worksheet.pageLayout, Range.getCellProperties",
+    code: /\bworksheets\.onChanged\b|\.copyFrom\s*\(|\.pageLayout\b|\.getCellProperties\s*\(/,
     excelOnly: true,
     set: "ExcelApi",
     version: "1.9",
     source: `${EXCEL_REF}excel.worksheetcollection, ${EXCEL_REF}excel.range, ${EXCEL_REF}excel.worksheet`,
   },
+  {
+    // the pane names the input behind a formula where Excel has these, else the formula cell: guarded, see GUARD
+    api: "Range.getDirectPrecedents, WorkbookRangeAreas.addresses, Range.getSpillParentOrNullObject",
+    code: /\.getDirectPrecedents\s*\(|\.getSpillParent(?:OrNullObject)?\s*\(/,
+    excelOnly: true,
+    set: "ExcelApi",
+    version: "1.12",
+    source: `${EXCEL_REF}excel.range, ${EXCEL_REF}excel.workbookrangeareas`,
+  },
 ];
+
+/**
+ * A use the add-in does without where the host lacks its set: the file that makes it asks first, through a function
+ * `supports("Set", "x.y")` (the version a literal or a `const` of the same file) that wraps isSetSupported. Uses of
+ * exactly that version in that file need no declaration; the file's other uses of the set still do.
+ */
+const GUARD = /\bsupports\(\s*"([^"]+)"\s*,\s*(?:"([^"]+)"|([A-Za-z_$][\w$]*))\s*\)/g;
+
+/**
+ * The sets a file guards its own uses with, each at the highest version it asks for.
+ *
+ * @param {string} text
+ * @returns {Map<string, string>}
+ */
+export function guards(text) {
+  const out = new Map();
+  for (const m of text.matchAll(GUARD)) {
+    const version = m[2] ?? new RegExp(`\\bconst\\s+${m[3]}\\s*=\\s*"([^"]+)"`).exec(text)?.[1];
+    if (version && (!out.has(m[1]) || compareVersions(version, out.get(m[1])) > 0)) out.set(m[1], version);
+  }
+  return out;
+}
 
 /** @type {MetadataRow[]} */
 export const METADATA_ROWS = [
@@ -207,7 +238,13 @@ export function neededSets({ sources, metadata = {}, manifest = "" }) {
   };
   for (const [file, text] of Object.entries(sources)) {
     const usesExcel = /\bExcel\.\w/.test(text);
-    for (const row of CODE_ROWS) if ((!row.excelOnly || usesExcel) && row.code.test(text)) need(row, file);
+    const guarded = guards(text);
+    for (const row of CODE_ROWS) {
+      if ((row.excelOnly && !usesExcel) || !row.code.test(text)) continue;
+      const guard = guarded.get(row.set);
+      if (guard !== undefined && compareVersions(guard, row.version) === 0) continue; // done without where unsupported
+      need(row, file);
+    }
   }
   for (const row of METADATA_ROWS) if (metadata[row.metadataKey] !== undefined) need(row, "functions.json");
   for (const row of MANIFEST_ROWS) if (row.manifest.test(manifest)) need(row, "manifest.xml");

@@ -14,6 +14,7 @@ import {
   MANIFEST_ROWS,
   METADATA_ROWS,
   compareVersions,
+  guards,
   manifestSets,
   neededSets,
   requirementProblems,
@@ -86,9 +87,24 @@ describe("the requirement-set check itself, on made-up inputs", () => {
     expect(Object.fromEntries(runtimeChecks({ "pane.ts": guardOk }))).toEqual({ ExcelApi: { version: "1.9", where: "pane.ts" } });
     expect(requirementProblems({ sources: { "x.ts": excel, "pane.ts": guardOk }, manifest: toyManifest("") })).toEqual([]);
     expect(requirementProblems({ sources: { "x.ts": excel, "pane.ts": guardLow }, manifest: toyManifest("") })).toEqual([
-      "pane.ts checks ExcelApi 1.8, but the add-in needs 1.9 for WorksheetCollection.onChanged, Range.copyFrom, Worksheet.pageLayout (ExcelApi 1.9) in x.ts",
+      "pane.ts checks ExcelApi 1.8, but the add-in needs 1.9 for WorksheetCollection.onChanged, Range.copyFrom, Worksheet.pageLayout, Range.getCellProperties (ExcelApi 1.9) in x.ts",
     ]);
     expect(requirementProblems({ sources: { "x.ts": excel }, manifest: toyManifest("") })[0]).toMatch(/^ExcelApi 1.9 is neither in manifest.xml/);
+  });
+
+  it("needs no declaration for a use guarded by supports() at its own version, and still needs the file's other uses", () => {
+    const guarded = [
+      'const PRECEDENTS_API = "1.12";',
+      'if (host.supports("ExcelApi", PRECEDENTS_API)) { const p: Excel.WorkbookRangeAreas = r.getDirectPrecedents(); }',
+      "range.copyFrom(used, 'Values');",
+    ].join("\n");
+    expect(Object.fromEntries(guards(guarded))).toEqual({ ExcelApi: "1.12" });
+    expect(Object.fromEntries([...neededSets({ sources: { "x.ts": guarded } })].map(([set, n]) => [set, n.version]))).toEqual({ ExcelApi: "1.9" });
+    // unguarded, the same call asks for 1.12
+    const bare = "const p: Excel.WorkbookRangeAreas = r.getDirectPrecedents();";
+    expect(neededSets({ sources: { "x.ts": bare } }).get("ExcelApi")?.version).toBe("1.12");
+    // a guard of another version guards nothing
+    expect(neededSets({ sources: { "x.ts": bare.replace("const p", 'host.supports("ExcelApi", "1.13"); const p') } }).get("ExcelApi")?.version).toBe("1.12");
   });
 
   it("seeks Excel families only in files that use the Excel namespace (a .merge( elsewhere is not Range.merge)", () => {

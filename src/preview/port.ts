@@ -5,7 +5,7 @@
  * It passes the same contract tests as the Excel side (test/workbook/contract.ts, run by test/preview/port.test.ts).
  */
 import type { UnitSystem } from "../engine/units";
-import { cellAddress, freeSheetName, parseCell, parseRange } from "../workbook/a1";
+import { cellAddress, freeSheetName, parseCell, parseRange, splitSheet } from "../workbook/a1";
 import {
   CANDIDATES_NAME,
   INPUT_NAMES,
@@ -13,9 +13,11 @@ import {
   type InputName,
   SHARE_REFUSAL_LIST,
   SHARE_STAMP_ROWS,
+  SOURCE_WALK_LIMIT,
   type Reading,
   type Readings,
   type ShareCopyResult,
+  type SourceInput,
   type TableReading,
   type WorkbookName,
   type WorkbookPort,
@@ -87,6 +89,59 @@ export class PreviewPort implements WorkbookPort {
       return { kind: "invalid", reason: `${name} refers to ${target.expression}, which is not a cell of this workbook` };
     }
     return shownReading(value, address);
+  }
+
+  async inputsBehind(addresses: readonly string[]): Promise<Record<string, SourceInput[]>> {
+    const out: Record<string, SourceInput[]> = {};
+    for (const a of addresses) out[a] = this.sourcesOf(a);
+    return out;
+  }
+
+  /**
+   * The input cells behind one cell, breadth first through the engine's precedents (HyperFormula's
+   * getCellPrecedents: the cells and blocks a formula reads), a cell a spill fills standing for its anchor.
+   */
+  private sourcesOf(address: string): SourceInput[] {
+    const wb = this.workbook;
+    const hf = wb.hf;
+    const { sheet, range } = splitSheet(address);
+    if (sheet === null || !wb.sheetNames().includes(sheet)) return [];
+    const spills = new Map<string, ReturnType<PreviewWorkbook["spills"]>>();
+    const spillsOf = (s: string) => spills.get(s) ?? spills.set(s, wb.spills(s)).get(s)!;
+    const start = cellAddress(parseRange(range.replace(/\$/g, "")).start);
+    const seen = new Set<string>([`${sheet}!${start}`]);
+    const queue: Array<[string, string]> = [[sheet, start]];
+    const push = (s: string, a: string) => {
+      const key = `${s}!${a}`;
+      if (seen.has(key) || seen.size >= SOURCE_WALK_LIMIT) return;
+      seen.add(key);
+      queue.push([s, a]);
+    };
+    const found: SourceInput[] = [];
+    for (let i = 0; i < queue.length; i++) {
+      const [s, a] = queue[i];
+      const key = `${s}!${a}`;
+      if (i > 0 && wb.style(s, a)?.role === "input") {
+        found.push({ address: key, reading: shownReading(wb.value(s, a), key) });
+        continue;
+      }
+      const spill = spillsOf(s).get(a);
+      if (spill && spill.anchor !== a) {
+        push(s, spill.anchor);
+        continue;
+      }
+      const id = hf.getSheetId(s);
+      if (id === undefined) continue;
+      const at = { sheet: id, ...parseCell(a) };
+      if (!hf.doesCellHaveFormula(at)) continue;
+      for (const p of hf.getCellPrecedents(at)) {
+        const [from, to] = "start" in p ? [p.start, p.end] : [p, p];
+        const name = hf.getSheetName(from.sheet);
+        if (name === undefined) continue;
+        for (let row = from.row; row <= to.row; row++) for (let col = from.col; col <= to.col; col++) push(name, cellAddress({ row, col }));
+      }
+    }
+    return found;
   }
 
   async subscribe(onChange: () => void): Promise<() => Promise<void>> {

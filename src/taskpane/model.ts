@@ -32,6 +32,7 @@ import {
   type Reading,
   type Readings,
   SUMMARY_NAMES,
+  type SourceInput,
   type TableReading,
   type WorkbookName,
 } from "../workbook/port";
@@ -87,6 +88,11 @@ export const BREAKDOWN_TOLERANCE = { ratio: 0.005, psi: 0.05 } as const;
 export interface Problem {
   name: WorkbookName;
   message: string;
+  /**
+   * the cell the user must change, where known: the input found behind a named formula, else the named cell; problems
+   * with the same cell are one input to fix
+   */
+  cell?: string;
 }
 
 /** A candidate design area as the pane judges it, US units: a row of the table of candidates. */
@@ -302,36 +308,99 @@ function numberProblem(name: Exclude<InputName, "Units">, r: Reading, host: Port
   }
 }
 
+/** What the pane has found behind the cells it asked about (WorkbookPort.inputsBehind): address → input cells. */
+export type InputsBehind = Readonly<Record<string, readonly SourceInput[]>>;
+
 /**
- * Names that show one and the same error (one input's text reaching both SITETEST's static and residual, say) are one
- * thing to fix, not several: they are said once, together, so that "N inputs need attention" counts causes.
+ * The addresses of the named cells that show an error other than #BUSY!: the cells whose inputs the pane asks for
+ * (WorkbookPort.inputsBehind) before it builds its model.
  */
-function sameCause(found: Problem[], readings: Readings, host: PortHost): Problem[] {
-  const errorOf = (p: Problem) => {
+export function errorAddresses(readings: Readings): string[] {
+  const out: string[] = [];
+  for (const n of INPUT_NAMES) {
+    const r = readings[n];
+    if (r.kind === "error" && r.code !== "#BUSY!" && r.address && !out.includes(r.address)) out.push(r.address);
+  }
+  return out;
+}
+
+/**
+ * The input behind a named cell's error that the user must change, or null: the nearest input cell it is calculated
+ * from that holds the very text the error's message quotes (`got "1250 gpm"`), or that shows an error itself.
+ */
+function inputBehind(r: Extract<Reading, { kind: "error" }>, behind: InputsBehind): SourceInput | null {
+  const sources = (r.address && behind[r.address]) || [];
+  return (
+    sources.find(
+      (s) =>
+        (s.reading.kind === "error" && s.reading.code !== "#BUSY!") ||
+        (s.reading.kind === "text" && r.message !== undefined && s.reading.value !== "" && r.message.includes(`"${s.reading.value}"`)),
+    ) ?? null
+  );
+}
+
+/** "A", "A and B", "A, B and C". */
+function listed(items: readonly string[]): string {
+  return items.length < 2 ? items.join("") : `${items.slice(0, -1).join(", ")} and ${items[items.length - 1]}`;
+}
+
+/**
+ * Problems that have one cause are said once, so that "N inputs need attention" counts the cells to change:
+ * - names that show an error because of an input they are calculated from (text typed where a number belongs, an
+ *   input that shows an error itself) are said as that input, the cell the user must change, with every name it
+ *   reaches;
+ * - names that show one and the same error with no input found behind it (one input's text reaching both
+ *   SITETEST's static and residual, in a host that cannot follow precedents) are said together.
+ */
+function sameCause(found: Problem[], readings: Readings, host: PortHost, behind: InputsBehind): Problem[] {
+  const errorReading = (p: Problem) => {
     const r = p.name === CANDIDATES_NAME ? undefined : readings[p.name];
-    return r?.kind === "error" && r.message ? `${r.code} ${r.message}` : null;
+    return r?.kind === "error" ? r : null;
+  };
+  const causeOf = (p: Problem): { key: string; input: SourceInput | null } | null => {
+    const r = errorReading(p);
+    if (!r) return null;
+    const input = inputBehind(r, behind);
+    if (input) return { key: `input ${input.address}`, input };
+    return r.message ? { key: `${r.code} ${r.message}`, input: null } : null;
   };
   const out: Problem[] = [];
   const groups = new Map<string, Problem[]>();
   for (const p of found) {
-    const key = errorOf(p);
-    if (key === null) out.push(p);
-    else if (groups.has(key)) groups.get(key)!.push(p);
+    const cause = causeOf(p);
+    if (cause === null) out.push(p);
+    else if (groups.has(cause.key)) groups.get(cause.key)!.push(p);
     else {
       const group = [p];
-      groups.set(key, group);
+      groups.set(cause.key, group);
       out.push(p); // the group's place in the list: its first name's
     }
   }
   return out.map((p) => {
-    const key = errorOf(p);
-    const group = key === null ? [p] : groups.get(key)!;
+    const cause = causeOf(p);
+    if (cause === null) return p;
+    const group = groups.get(cause.key)!;
+    const r = errorReading(p)!;
+    if (cause.input) return { name: p.name, cell: cause.input.address, message: inputMessage(cause.input, group.map((g) => g.name as InputName), readings) };
     if (group.length < 2) return p;
-    const r = readings[p.name as InputName] as Extract<Reading, { kind: "error" }>;
     const names = group.map((g) => `${g.name}${where(readings[g.name as InputName])}`);
-    const list = `${names.slice(0, -1).join(", ")} and ${names[names.length - 1]}`;
-    return { name: p.name, message: `${list} show ${r.code} ${r.message}: one cause; fix the cells they are calculated from ${pointAt(host)}.` };
+    return { name: p.name, ...(p.cell ? { cell: p.cell } : {}), message: `${listed(names)} show ${r.code} ${r.message}: one cause; fix the cells they are calculated from ${pointAt(host)}.` };
   });
+}
+
+/**
+ * The message for an input that makes named cells show an error: the input first (the cell to change), what it
+ * holds, the error's own message, then the names it reaches.
+ */
+function inputMessage(input: SourceInput, names: readonly InputName[], readings: Readings): string {
+  const first = readings[names[0]] as Extract<Reading, { kind: "error" }>;
+  const shown = names.map((n) => `${n}${where(readings[n])}`);
+  const reach = `${listed(shown)} ${names.length === 1 ? "is" : "are"} calculated from it and show${names.length === 1 ? "s" : ""} ${first.code}`;
+  if (input.reading.kind === "error") {
+    return `${input.address} shows ${input.reading.code}${input.reading.message ? ` ${input.reading.message}` : ""}: fix that input. ${reach} until then.`;
+  }
+  const holds = input.reading.kind === "text" ? `holds "${input.reading.value}"` : "is not right";
+  return `${input.address} ${holds}: ${first.message ?? first.code}. Change that input; ${reach} until then.`;
 }
 
 /** Where the user reads a cell's own message. */
@@ -367,7 +436,7 @@ function readUnits(r: Reading, host: PortHost): { units: UnitSystem; assumed: bo
  * Turn the readings into an estimate, or say what is wrong. Busy cells (#BUSY!) give "busy" rather than a problem:
  * Excel is still working on them.
  */
-export function buildModel(readings: Readings, host: PortHost = "excel"): PaneModel {
+export function buildModel(readings: Readings, host: PortHost = "excel", behind: InputsBehind = {}): PaneModel {
   const table = readings[CANDIDATES_NAME];
   /**
    * Where a row of the candidates is wrong, the sheet's verdict block (the governing test, Supply_*) shows errors
@@ -379,6 +448,7 @@ export function buildModel(readings: Readings, host: PortHost = "excel"): PaneMo
       found.some((p) => p.name === CANDIDATES_NAME) ? found.filter((p) => p.name === CANDIDATES_NAME || readings[p.name as InputName]?.kind !== "error") : found,
       readings,
       host,
+      behind,
     );
   const busyCell = (r: Reading) => r.kind === "error" && r.code === "#BUSY!";
   const busy: WorkbookName[] = INPUT_NAMES.filter((n) => busyCell(readings[n]));
@@ -404,11 +474,11 @@ export function buildModel(readings: Readings, host: PortHost = "excel"): PaneMo
         numbers.set(n, toNumber(r.kind === "text" ? r.value : null, argumentOf(n)));
       } catch (e) {
         if (!(e instanceof HeadroomError)) throw e;
-        problems.push({ name: n, message: `${n}${where(r)}: ${e.messageIn(units)}` });
+        problems.push({ name: n, message: `${n}${where(r)}: ${e.messageIn(units)}`, ...(r.address ? { cell: r.address } : {}) });
       }
       return;
     }
-    problems.push({ name: n, message: numberProblem(n, r, host) ?? `${n} cannot be read.` });
+    problems.push({ name: n, message: numberProblem(n, r, host) ?? `${n} cannot be read.`, ...("address" in r && r.address ? { cell: r.address } : {}) });
   };
   for (const n of REQUIRED_NAMES as Exclude<InputName, "Units">[]) read(n);
   // every other name of the verdict and its breakdown is optional (Run_WorstSegment, text, is read on its own below;

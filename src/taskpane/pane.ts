@@ -15,7 +15,7 @@ import { formatFlow, formatPressure } from "../engine/decision";
 import { type UnitSystem, fromUS, unitName } from "../engine/units";
 import type { InputName, Readings, SharePlot, SharePlotSeries, WorkbookPort } from "../workbook/port";
 import { CAUTION, PALETTE } from "../workbook/look";
-import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, type PlotData, buildModel, plotData } from "./model";
+import { BREAKDOWN_PARTS, type Breakdown, type Estimate, type PaneModel, type PlotData, buildModel, errorAddresses, plotData } from "./model";
 import { type FlowAxis, niceMax, renderPlot } from "./plot";
 import { PANE_CSS } from "./styles";
 
@@ -466,7 +466,9 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     if (m.kind === "problems") {
       lastReady = null;
       box.dataset.state = "problems";
-      verdict.textContent = m.problems.length === 1 ? "One input needs attention" : `${m.problems.length} inputs need attention`;
+      // inputs, not names: problems that name the same cell to change are one input
+      const inputs = new Set(m.problems.map((p, i) => p.cell ?? `problem ${i}`)).size;
+      verdict.textContent = inputs === 1 ? "One input needs attention" : `${inputs} inputs need attention`;
       clearLines();
       problems.replaceChildren(...m.problems.map((p) => h(doc, "li", { "data-name": p.name }, p.message)));
       plotBox.hidden = true;
@@ -501,7 +503,11 @@ export function mountPane(root: HTMLElement, port: WorkbookPort, options: PaneOp
     try {
       const readings = await port.readInputs();
       if (destroyed) return;
-      const m = buildModel(readings, port.host);
+      // where named cells show errors: the inputs they are calculated from, so that a message names the cell to change
+      const asked = errorAddresses(readings);
+      const behind = asked.length > 0 ? await port.inputsBehind(asked) : {};
+      if (destroyed) return;
+      const m = buildModel(readings, port.host, behind);
       draw(m);
       if (m.kind === "ready") lastReadings = readings;
       if (summaryButton && m.kind !== "busy") summaryButton.disabled = m.kind !== "ready";

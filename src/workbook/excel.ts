@@ -9,17 +9,19 @@
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
-import { cellAddress, freeSheetName, parseRange, quoteSheet, splitSheet } from "./a1";
+import { cellAddress, freeSheetName, parseCell, parseRange, quoteSheet, splitSheet } from "./a1";
 import {
   CANDIDATES_NAME,
   INPUT_NAMES,
   type InsertResult,
   SHARE_REFUSAL_LIST,
   SHARE_STAMP_ROWS,
+  SOURCE_WALK_LIMIT,
   type Reading,
   type Readings,
   type ShareCopyResult,
   type SharePlot,
+  type SourceInput,
   type TableReading,
   type WorkbookName,
   type WorkbookPort,
@@ -44,6 +46,8 @@ export interface ExcelHost {
   now(): Date;
   /** quiet time before a burst of change events becomes one call, ms */
   settleMs: number;
+  /** whether Excel supports a requirement set at a version (Office.context.requirements.isSetSupported) */
+  supports(set: string, version: string): boolean;
 }
 
 /** The host of a running add-in. */
@@ -53,6 +57,7 @@ export function officeExcelHost(): ExcelHost {
     runIn: (context, batch) => Excel.run(context, batch),
     now: () => new Date(),
     settleMs: 150,
+    supports: (set, version) => Office.context.requirements.isSetSupported(set, version),
   };
 }
 
@@ -63,6 +68,7 @@ export function createExcelPort(host: ExcelHost = officeExcelHost()): WorkbookPo
   return {
     host: "excel",
     readInputs: () => host.run(readInputs),
+    inputsBehind: (addresses) => inputsBehind(host, addresses),
     subscribe: (onChange) => subscribe(host, onChange),
     insertEstimateSheet: (units, scenario) => host.run((ctx) => insertEstimateSheet(ctx, units, scenario)),
     makeShareCopy: (plot) => host.run((ctx) => makeShareCopy(ctx, host.now(), plot)),
@@ -174,6 +180,146 @@ export function cellReading(value: unknown, type: string, address?: string): Rea
     default:
       return { kind: "invalid", reason: `it holds a ${type.toLowerCase()} value, not a number or text`, address };
   }
+}
+
+// ─── What a formula is calculated from ─────────────────────────────────────────────────────────────────────────────
+
+/**
+ * Range.getDirectPrecedents, WorkbookRangeAreas.addresses and Range.getSpillParentOrNullObject are ExcelApi 1.12
+ * (https://learn.microsoft.com/javascript/api/excel/excel.range#excel-excel-range-getdirectprecedents-member(1),
+ * https://learn.microsoft.com/javascript/api/excel/excel.workbookrangeareas), above the 1.9 the pane needs: where
+ * Excel lacks them, the pane names the formula cell instead of the input behind it.
+ */
+const PRECEDENTS_API = "1.12";
+
+async function inputsBehind(host: ExcelHost, addresses: readonly string[]): Promise<Record<string, SourceInput[]>> {
+  const none = () => Object.fromEntries(addresses.map((a) => [a, [] as SourceInput[]]));
+  if (addresses.length === 0 || !host.supports("ExcelApi", PRECEDENTS_API)) return none();
+  return host.run(async (ctx) => {
+    const out: Record<string, SourceInput[]> = {};
+    for (const a of addresses) out[a] = await sourcesOf(ctx, a);
+    return out;
+  });
+}
+
+/** "Sheet1!A1:B4, 'Pipe run'!D1" → its blocks, each with its sheet (a comma inside a quoted sheet name stays). */
+function splitAreas(addresses: string): Array<{ sheet: string; range: string }> {
+  const parts: string[] = [];
+  let quoted = false;
+  let part = "";
+  for (const ch of addresses) {
+    if (ch === "'") quoted = !quoted;
+    if (ch === "," && !quoted) {
+      parts.push(part);
+      part = "";
+    } else part += ch;
+  }
+  parts.push(part);
+  return parts
+    .map((p) => splitSheet(p.trim()))
+    .filter((p): p is { sheet: string; range: string } => p.sheet !== null && p.range !== "")
+    .map((p) => ({ sheet: p.sheet, range: p.range.replace(/\$/g, "") }));
+}
+
+/**
+ * The input cells behind one cell, level by level: each formula cell's direct precedents in one batch (a cell
+ * without any makes the batch fail with ItemNotFound: that level is then asked cell by cell), then what the cells
+ * found hold, their formulas and their fill (Range.getCellProperties, ExcelApi 1.9) in the next. A cell of the input
+ * role (its fill is the input's, ROLE_STYLES.input) ends the walk there; a cell a spill fills continues at the
+ * spill's anchor.
+ */
+async function sourcesOf(ctx: Ctx, address: string): Promise<SourceInput[]> {
+  const start = splitAreas(address)[0];
+  if (!start) return [];
+  const key = (sheet: string, cell: string) => `${quoteSheet(sheet)}!${cell}`;
+  const first = cellAddress(parseRange(start.range).start);
+  const seen = new Set<string>([key(start.sheet, first)]);
+  const found: SourceInput[] = [];
+  let formulas: Array<{ sheet: string; cell: string }> = [{ sheet: start.sheet, cell: first }];
+  let spilled: Array<{ sheet: string; cell: string }> = [];
+  const inputFill = ROLE_STYLES.input.fill!.toUpperCase();
+  while ((formulas.length > 0 || spilled.length > 0) && seen.size < SOURCE_WALK_LIMIT) {
+    const sheetOf = (name: string) => ctx.workbook.worksheets.getItem(name);
+    // the cells the formulas read
+    const ask = () =>
+      formulas.map((f) => {
+        const p = sheetOf(f.sheet).getRange(f.cell).getDirectPrecedents();
+        p.load("addresses");
+        return p;
+      });
+    let areas: string[] = [];
+    const asked = ask();
+    try {
+      await ctx.sync();
+      areas = asked.flatMap((p) => p.addresses);
+    } catch {
+      for (const f of formulas) {
+        const p = sheetOf(f.sheet).getRange(f.cell).getDirectPrecedents();
+        p.load("addresses");
+        try {
+          await ctx.sync();
+          areas.push(...p.addresses);
+        } catch {
+          // a formula that reads no cell
+        }
+      }
+    }
+    // the spills' anchors
+    const parents = spilled.map((c) => {
+      const parent = sheetOf(c.sheet).getRange(c.cell).getSpillParentOrNullObject();
+      parent.load("address");
+      return parent;
+    });
+    if (parents.length) await ctx.sync();
+    for (const parent of parents) if (!parent.isNullObject) areas.push(parent.address);
+
+    // what the cells found hold
+    const blocks: Array<{ sheet: string; start: ReturnType<typeof parseRange>["start"]; cells: string[] }> = [];
+    for (const area of areas.flatMap(splitAreas)) {
+      const r = parseRange(area.range);
+      const cells: string[] = [];
+      for (let i = 0; i < r.rows; i++)
+        for (let j = 0; j < r.cols; j++) {
+          const cell = cellAddress({ row: r.start.row + i, col: r.start.col + j });
+          if (seen.size >= SOURCE_WALK_LIMIT || seen.has(key(area.sheet, cell))) continue;
+          seen.add(key(area.sheet, cell));
+          cells.push(cell);
+        }
+      if (cells.length) blocks.push({ sheet: area.sheet, start: r.start, cells });
+    }
+    const loaded = blocks.map((b) => {
+      const range = sheetOf(b.sheet).getRange(areaOf(b.cells));
+      range.load("formulas,values,valueTypes");
+      return { ...b, range, look: range.getCellProperties({ format: { fill: { color: true } } }) };
+    });
+    if (loaded.length) await ctx.sync();
+    formulas = [];
+    spilled = [];
+    for (const b of loaded) {
+      const top = parseRange(areaOf(b.cells)).start;
+      for (const cell of b.cells) {
+        const p = parseCell(cell);
+        const [i, j] = [p.row - top.row, p.col - top.col];
+        const fill = String(b.look.value[i]?.[j]?.format?.fill?.color ?? "").toUpperCase();
+        const formula = b.range.formulas[i]?.[j];
+        if (fill === inputFill) {
+          found.push({ address: key(b.sheet, cell), reading: cellReading(b.range.values[i][j], b.range.valueTypes[i][j], key(b.sheet, cell)) });
+        } else if (typeof formula === "string" && formula.startsWith("=")) formulas.push({ sheet: b.sheet, cell });
+        else if (b.range.valueTypes[i]?.[j] !== "Empty") spilled.push({ sheet: b.sheet, cell });
+      }
+    }
+  }
+  return found;
+}
+
+/** The smallest block holding these cells of one sheet, "B3:D9". */
+function areaOf(cells: readonly string[]): string {
+  const refs = cells.map(parseCell);
+  const top = Math.min(...refs.map((r) => r.row));
+  const left = Math.min(...refs.map((r) => r.col));
+  const bottom = Math.max(...refs.map((r) => r.row));
+  const right = Math.max(...refs.map((r) => r.col));
+  return `${cellAddress({ row: top, col: left })}:${cellAddress({ row: bottom, col: right })}`;
 }
 
 // ─── Events ──────────────────────────────────────────────────────────────────────────────────────────────────────

@@ -159,11 +159,28 @@ export type ShareCopyResult =
  */
 export type PortHost = "excel" | "preview";
 
+/** An input cell a formula is calculated from: where it is ("Estimate!B15") and what it holds. */
+export interface SourceInput {
+  address: string;
+  reading: Reading;
+}
+
+/** The most cells a walk back from one formula looks at (an estimate sheet holds a few hundred). */
+export const SOURCE_WALK_LIMIT = 2000;
+
 export interface WorkbookPort {
   /** the host the port runs in, for messages that say where to act */
   readonly host: PortHost;
   /** Read every input name in one go. */
   readInputs(): Promise<Readings>;
+  /**
+   * The input cells the cells at `addresses` ("Estimate!B112", as readings give them) are calculated from: the cells
+   * each one's formula reads (its direct precedents), theirs in turn, through every formula cell (a cell a spill fills
+   * counts as its anchor's formula), ending at cells of the input role (shaded as inputs), which are never looked
+   * behind. Each address asked about maps to its inputs, nearest first, at most SOURCE_WALK_LIMIT cells looked at; to
+   * [] where it reads no input, or where the host cannot follow precedents (Excel before ExcelApi 1.12).
+   */
+  inputsBehind(addresses: readonly string[]): Promise<Record<string, SourceInput[]>>;
   /**
    * Call `onChange` after any change to or recalculation of the workbook (bursts may be coalesced into one call).
    * Resolves once the host is listening; the returned function stops the calls.

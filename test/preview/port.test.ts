@@ -11,6 +11,7 @@ import { portContract, type PortHarness } from "../workbook/contract";
 import { generatedMetadata } from "./metadataFixture";
 import { cellAddress } from "../../src/workbook/a1";
 import { demoScenario } from "../../src/workbook/scenario";
+import { buildModel, errorAddresses } from "../../src/taskpane/model";
 
 beforeAll(async () => {
   registerHeadroomFunctions(await generatedMetadata(), functions);
@@ -56,6 +57,14 @@ async function harness(): Promise<PortHarness> {
       const end = cellAddress({ row: top - 2 + rows.length, col: 2 + rows[0].length });
       wb.setName(name, `${INPUT_SHEET}!$D$${top}:$${end.replace(/\d+$/, "")}$${end.replace(/^[A-Z]+/, "")}`);
       nextTableRow += rows.length + 1;
+    },
+    async putInput(cell, content) {
+      wb.setContent(INPUT_SHEET, cell, content);
+      wb.setStyle(INPUT_SHEET, cell, { role: "input" });
+      return `${INPUT_SHEET}!${cell}`;
+    },
+    async putCell(cell, content) {
+      wb.setContent(INPUT_SHEET, cell, content);
     },
     async remove(name) {
       wb.removeName(name);
@@ -131,5 +140,27 @@ describe("undo after the pane's actions on the preview's workbook", () => {
     expect(wb.undo()).toBe(true);
     expect(wb.sheetNames()).not.toContain(made.sheetName);
     expect(wb.activeSheet).toBe(made.sourceSheet);
+  });
+});
+
+describe("the pane's messages over the preview's estimate sheet", () => {
+  test("text typed into a flow test's input: the message names that input, not the supply names' formula cells", async () => {
+    const wb = new PreviewWorkbook({ sheets: [{ name: INPUT_SHEET, cells: {} }], names: [] });
+    const port = new PreviewPort(wb);
+    const { sheetName } = await port.insertEstimateSheet("US", demoScenario("US"));
+    // the input beside the label "Flow measured directly (gpm)", test 1's column
+    const label = wb.cells(sheetName).find((c) => typeof c.content === "string" && c.content.startsWith("Flow measured directly"))!;
+    const input = `B${label.address.slice(1)}`;
+    expect(wb.style(sheetName, input)?.role).toBe("input");
+    wb.setTyped(sheetName, input, "1250 gpm");
+    const readings = await port.readInputs();
+    const asked = errorAddresses(readings);
+    expect(asked.length).toBeGreaterThan(0);
+    const m = buildModel(readings, port.host, await port.inputsBehind(asked));
+    if (m.kind !== "problems") throw new Error(JSON.stringify(m));
+    expect(m.problems).toHaveLength(1);
+    expect(m.problems[0].cell).toBe(`${sheetName}!${input}`);
+    expect(m.problems[0].message).toMatch(new RegExp(`^${sheetName}!${input} holds "1250 gpm": [a-z_]+: got "1250 gpm"; must be a number\\. Change that input; `));
+    expect(m.problems[0].message).toMatch(/Supply_TestFlow \(Estimate!B\d+\)/);
   });
 });

@@ -11,6 +11,7 @@ import {
   type Readings,
   type ShareCopyResult,
   type SharePlot,
+  type SourceInput,
   type TableReading,
   type WorkbookPort,
 } from "../../src/workbook/port";
@@ -63,6 +64,16 @@ export class FakePort implements WorkbookPort {
     this.reads++;
     await Promise.resolve();
     return structuredClone(this.readings);
+  }
+
+  /** the input cells behind each cell, as a test sets them */
+  behind: Record<string, SourceInput[]> = {};
+  /** the addresses the pane asked about, each time */
+  askedBehind: string[][] = [];
+
+  async inputsBehind(addresses: readonly string[]): Promise<Record<string, SourceInput[]>> {
+    this.askedBehind.push([...addresses]);
+    return Object.fromEntries(addresses.map((a) => [a, structuredClone(this.behind[a] ?? [])]));
   }
 
   async subscribe(onChange: () => void): Promise<() => Promise<void>> {

@@ -4,7 +4,7 @@
  * that blank cell, not as a name to define.
  */
 import { describe, expect, it } from "vitest";
-import { type Estimate, buildModel } from "../../src/taskpane/model";
+import { type Estimate, type InputsBehind, buildModel, errorAddresses } from "../../src/taskpane/model";
 import { marginLine, suctionLine } from "../../src/taskpane/pane";
 import { BASE, FakePort, type Values } from "./fakePort";
 
@@ -85,5 +85,69 @@ describe("one cause, said once", () => {
       "excel",
     );
     expect(found).toHaveLength(2);
+  });
+});
+
+describe("an error that comes from an input: the message names the input to change", () => {
+  // text typed into a flow test's input reaches SITETEST, whose spill feeds the three supply names
+  const message = 'residual: got "1250 gpm"; must be a number';
+  const error = (address: string) => ({ kind: "error", code: "#VALUE!", message, address }) as const;
+  const supplyErrors: Values = { ...BASE, Supply_Static: error("Estimate!B112"), Supply_Residual: error("Estimate!B113"), Supply_TestFlow: error("Estimate!B114") };
+  /** what the port finds behind each of the three names: the test's inputs, nearest first */
+  const inputs = (text: string): InputsBehind => {
+    const sources = [
+      { address: "Estimate!B13", reading: { kind: "number", value: 72, address: "Estimate!B13" } },
+      { address: "Estimate!B14", reading: { kind: "text", value: text, address: "Estimate!B14" } },
+      { address: "Estimate!B9", reading: { kind: "text", value: "US", address: "Estimate!B9" } },
+    ] as const;
+    return { "Estimate!B112": sources, "Estimate!B113": sources, "Estimate!B114": sources };
+  };
+  const model = (v: Values, behind: InputsBehind, host: "excel" | "preview" = "preview") => {
+    const m = buildModel(new FakePort(v).readings, host, behind);
+    if (m.kind !== "problems") throw new Error(JSON.stringify(m));
+    return m.problems;
+  };
+
+  it("names the input cell whose text the message quotes, once for every name it reaches, never the formula cells as the place to act", () => {
+    const found = model(supplyErrors, inputs("1250 gpm"));
+    expect(found).toEqual([
+      {
+        name: "Supply_Static",
+        cell: "Estimate!B14",
+        message:
+          `Estimate!B14 holds "1250 gpm": ${message}. Change that input; Supply_Static (Estimate!B112), Supply_Residual (Estimate!B113) ` +
+          "and Supply_TestFlow (Estimate!B114) are calculated from it and show #VALUE! until then.",
+      },
+    ]);
+  });
+
+  it("names an input that shows an error itself", () => {
+    const behind: InputsBehind = {
+      "Estimate!B114": [
+        { address: "Estimate!B13", reading: { kind: "number", value: 72 } },
+        { address: "Estimate!B15", reading: { kind: "error", code: "#N/A", address: "Estimate!B15" } },
+      ],
+    };
+    const found = model({ ...BASE, Supply_TestFlow: { kind: "error", code: "#N/A", address: "Estimate!B114" } }, behind, "excel");
+    expect(found).toEqual([
+      {
+        name: "Supply_TestFlow",
+        cell: "Estimate!B15",
+        message: "Estimate!B15 shows #N/A: fix that input. Supply_TestFlow (Estimate!B114) is calculated from it and shows #N/A until then.",
+      },
+    ]);
+  });
+
+  it("keeps to the formula cells where no input behind them holds the text quoted (or where the host found none)", () => {
+    for (const behind of [inputs("1250"), {}]) {
+      const [only] = model(supplyErrors, behind, "excel");
+      expect(only.message).toMatch(/^Supply_Static \(Estimate!B112\), Supply_Residual \(Estimate!B113\) and Supply_TestFlow \(Estimate!B114\) show #VALUE! /);
+      expect(only.message).toMatch(/fix the cells they are calculated from/);
+    }
+  });
+
+  it("asks the port about the named cells that show an error, #BUSY! aside, each once", () => {
+    const readings = new FakePort({ ...supplyErrors, Demand_Flow: { kind: "error", code: "#BUSY!", address: "Estimate!B40" } }).readings;
+    expect(errorAddresses(readings)).toEqual(["Estimate!B112", "Estimate!B113", "Estimate!B114"]);
   });
 });

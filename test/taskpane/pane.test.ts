@@ -178,6 +178,27 @@ describe("the verdict and the caution", () => {
     expect($("margin")!.textContent).toBe("Margin −10.0 psi, −13 % of the 78.0 psi demand pressure; required 10.0 psi.");
   });
 
+  it("counts the inputs to change, not the names that show their errors", async () => {
+    // one input's text reaches the three supply names; Demand_Flow holds text of its own
+    const message = 'residual: got "1250 gpm"; must be a number';
+    const error = (address: string) => ({ kind: "error", code: "#VALUE!", message, address }) as const;
+    const port = new FakePort({ ...BASE, Supply_Static: error("Estimate!B112"), Supply_Residual: error("Estimate!B113"), Supply_TestFlow: error("Estimate!B114"), Demand_Flow: "abc" });
+    const input = [{ address: "Estimate!B14", reading: { kind: "text", value: "1250 gpm", address: "Estimate!B14" } }] as const;
+    port.behind = { "Estimate!B112": [...input], "Estimate!B113": [...input], "Estimate!B114": [...input] };
+    const root = document.createElement("div");
+    document.body.appendChild(root);
+    const pane = mountPane(root, port, { width: 320 });
+    mounted.push(pane);
+    await pane.ready;
+    await pane.idle();
+    expect(port.askedBehind.at(-1)).toEqual(["Estimate!B112", "Estimate!B113", "Estimate!B114"]);
+    expect(root.querySelector('[data-role="verdict"]')!.textContent).toBe("2 inputs need attention");
+    const items = [...root.querySelectorAll('[data-role="problems"] li')].map((i) => i.textContent);
+    expect(items).toHaveLength(2);
+    expect(items[0]).toMatch(/^Estimate!B14 holds "1250 gpm"/);
+    expect(items[1]).toMatch(/^Demand_Flow \(Estimate!B\d+\): /);
+  });
+
   it("says which names are missing and how to fix them, keeping the caution", async () => {
     const { port, pane, $, root } = await mount({ Units: "US", Supply_Static: 72, Supply_Residual: 58 });
     expect($("verdict")!.textContent).toBe("3 inputs need attention");

@@ -30,6 +30,16 @@ export interface PortHarness {
    * them (null: an empty cell), as a user typing them would.
    */
   putTable(name: string, rows: Array<Array<number | string | null>>): Promise<void>;
+  /**
+   * Put `content` into the cell `cell` ("J1") of the harness's own input sheet, with the look of an input cell (the
+   * input role's fill); returns the cell's address as readings give it ("Inputs!J1").
+   */
+  putInput(cell: string, content: number | string): Promise<string>;
+  /**
+   * Put `content` (a constant, or a formula with `value` for hosts that cannot calculate) into the cell `cell` of the
+   * harness's own input sheet, with no look of its own.
+   */
+  putCell(cell: string, content: number | string, value?: number): Promise<void>;
   /** Delete the workbook's definition of `name`. */
   remove(name: InputName): Promise<void>;
   /** Wait until change notifications caused by earlier calls have been delivered. */
@@ -213,6 +223,38 @@ export function portContract(host: string, makeHarness: () => Promise<PortHarnes
         const r = await h.port.readInputs();
         expect(r.Units).toMatchObject({ kind: "text", value: "SI" });
         expect(r.Required_Margin).toMatchObject({ kind: "number", value: demoScenario("SI").requiredMargin });
+      }),
+    );
+
+    it(
+      "finds the input cells a named formula is calculated from, nearest first, through other formulas, and only inputs",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        const text = await h.putInput("J1", "1250 gpm");
+        const number = await h.putInput("J2", 14);
+        await h.putCell("J3", "=J1*2", 0); // a formula between the name and an input
+        await h.putCell("J4", 3); // a constant, not an input
+        await h.putFormula("Supply_TestFlow", "=J3+J2+J4", 0);
+        const at = (await h.port.readInputs()).Supply_TestFlow;
+        const address = "address" in at ? at.address! : "";
+        expect(address).not.toBe("");
+        const behind = await h.port.inputsBehind([address]);
+        expect(Object.keys(behind)).toEqual([address]);
+        // J2 is read by the name's formula itself, J1 through J3's
+        expect(behind[address].map((s) => s.address)).toEqual([number, text]);
+        expect(behind[address][1].reading).toMatchObject({ kind: "text", value: "1250 gpm" });
+        expect(behind[address][0].reading).toMatchObject({ kind: "number", value: 14 });
+      }),
+    );
+
+    it(
+      "finds no input behind a cell without a formula",
+      withHarness(async (h) => {
+        await fillRequired(h);
+        const at = (await h.port.readInputs()).Supply_Static;
+        const address = "address" in at ? at.address! : "";
+        expect(await h.port.inputsBehind([address])).toEqual({ [address]: [] });
+        expect(await h.port.inputsBehind([])).toEqual({});
       }),
     );
 

@@ -24,7 +24,7 @@ const SETTLE_MS = 5;
 const wait = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function excelPort(fake: FakeExcel, now = new Date()) {
-  return createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => now, settleMs: SETTLE_MS });
+  return createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => now, settleMs: SETTLE_MS, supports: () => true });
 }
 
 /** The harness keeps hand-defined names on a sheet "Inputs": name i of INPUT_NAMES in B(i+1). */
@@ -57,6 +57,13 @@ function harness(fake = new FakeExcel(["Inputs"])): PortHarness {
       const end = cellAddress({ row: top + rows.length - 1, col: 2 + rows[0].length });
       fake.names.set(name, { sheetId: fake.sheetByName("Inputs")!.id, address: `D${top + 1}:${end}` });
       rows.forEach((row, i) => row.forEach((v, j) => fake.setCell("Inputs", cellAddress({ row: top + i, col: 3 + j }), v === null ? null : { value: v })));
+    },
+    putInput: async (cell, content) => {
+      fake.setCell("Inputs", cell, { value: content, style: { "fill/color": ROLE_STYLES.input.fill } });
+      return `Inputs!${cell}`;
+    },
+    putCell: async (cell, content, value) => {
+      fake.setCell("Inputs", cell, typeof content === "string" && content.startsWith("=") ? { value: value ?? 0, formula: content } : { value: content });
     },
     remove: async (name) => {
       fake.names.delete(name);
@@ -267,6 +274,45 @@ describe("Excel port under the pane: an input that reads #BUSY!", () => {
     expect(root.querySelector('[data-role="verdict"]')!.textContent).toMatch(/^No pump needed/);
     await settled(pane.destroy());
     expect(fake.calculated.size).toBe(0);
+  });
+});
+
+describe("Excel port: the inputs behind a formula", () => {
+  it("walks the estimate sheet it inserted back from Supply_TestFlow to the flow test's inputs, shaded as inputs", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const port = excelPort(fake);
+    const { sheetName } = await port.insertEstimateSheet("US", demoScenario("US"));
+    const t = estimateTemplate(demoScenario("US"));
+    const label = t.cells.find((c) => typeof c.value === "string" && c.value.startsWith("Flow measured directly"))!;
+    const input = `B${label.address.slice(1)}`;
+    fake.setCell(sheetName, input, { ...fake.sheetByName(sheetName)!.cells.get(input)!, value: "1250 gpm" });
+    const at = `${sheetName}!${fake.nameTarget("Supply_TestFlow")!.address}`;
+    const behind = (await port.inputsBehind([at]))[at];
+    expect(behind.find((s) => s.address === `${sheetName}!${input}`)?.reading).toMatchObject({ kind: "text", value: "1250 gpm" });
+    // inputs only: every cell found has the input's fill
+    for (const s of behind) expect(fake.sheetByName(sheetName)!.cells.get(s.address.split("!")[1])?.style?.["fill/color"], s.address).toBe(ROLE_STYLES.input.fill);
+  });
+
+  it("asks a formula that reads no cell on its own (getDirectPrecedents throws ItemNotFound for it) and carries on", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    fake.setCell("Inputs", "J1", { value: "abc", style: { "fill/color": ROLE_STYLES.input.fill } });
+    fake.setCell("Inputs", "J2", { value: 2, formula: "=1+1" });
+    fake.setCell("Inputs", "J3", { value: "#VALUE!", error: true, formula: "=J1+1" });
+    fake.setCell("Inputs", "J4", { value: "#VALUE!", error: true, formula: "=J2+J3" });
+    const behind = await excelPort(fake).inputsBehind(["Inputs!J4"]);
+    expect(behind).toEqual({ "Inputs!J4": [{ address: "Inputs!J1", reading: { kind: "text", value: "abc", address: "Inputs!J1" } }] });
+  });
+
+  it("finds nothing, and asks Excel nothing, where Excel lacks ExcelApi 1.12", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    fake.setCell("Inputs", "J1", { value: "abc", style: { "fill/color": ROLE_STYLES.input.fill } });
+    fake.setCell("Inputs", "J2", { value: "#VALUE!", error: true, formula: "=J1+1" });
+    const asked: string[] = [];
+    const port = createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => new Date(), settleMs: SETTLE_MS, supports: (set, v) => (asked.push(`${set} ${v}`), false) });
+    const before = fake.syncs;
+    expect(await port.inputsBehind(["Inputs!J2"])).toEqual({ "Inputs!J2": [] });
+    expect(asked).toEqual(["ExcelApi 1.12"]);
+    expect(fake.syncs).toBe(before);
   });
 });
 

@@ -254,6 +254,29 @@ export class FakeExcel {
     return out;
   }
 
+  /**
+   * The cells and blocks a formula on `sheet` refers to, "Sheet!A1:B2" each: references written in it (text in
+   * quotes aside) and the workbook names it mentions.
+   */
+  references(formula: string, sheet: FakeSheet): string[] {
+    const body = formula.replace(/"(?:[^"]|"")*"/g, '""');
+    const out: string[] = [];
+    const ref = /(?:('(?:[^']|'')+'|[A-Za-z_][A-Za-z0-9_.]*)!)?\$?([A-Z]{1,3})\$?(\d+)(?::\$?([A-Z]{1,3})\$?(\d+))?(?![A-Za-z0-9_(])/g;
+    for (const m of body.matchAll(ref)) {
+      const before = m.index > 0 ? body[m.index - 1] : "";
+      if (/[A-Za-z0-9_.]/.test(before)) continue;
+      const on = m[1] ? this.sheetByName(m[1].replace(/^'|'$/g, "").replace(/''/g, "'")) : sheet;
+      if (!on) continue;
+      out.push(`${quoteSheet(on.name)}!${m[2]}${m[3]}${m[4] ? `:${m[4]}${m[5]}` : ""}`);
+    }
+    for (const [n, t] of this.names) {
+      if (!new RegExp(`(^|[^A-Za-z0-9_.])${n}($|[^A-Za-z0-9_.(])`, "i").test(body)) continue;
+      const on = this.sheets.find((s) => s.id === t.sheetId);
+      if (on) out.push(`${quoteSheet(on.name)}!${t.address}`);
+    }
+    return out;
+  }
+
   nameTarget(n: string): { sheet: string; address: string } | null {
     const t = this.names.get(n);
     if (!t) return null;
@@ -267,6 +290,8 @@ class Session {
   private proxies: Proxy[] = [];
   private pool: OfficeMockObject;
   private poolKey = 0;
+  /** an error the next sync throws (a request of the batch failed, as getDirectPrecedents without precedents) */
+  private failing: Error | null = null;
   /** what the batch under way asked of calculation */
   private suspended = false;
   private namesChanged = new Set<string>();
@@ -287,6 +312,11 @@ class Session {
       },
       workbook: {},
       sync: async function (this: OfficeMockObject) {
+        if (session.failing) {
+          const e = session.failing;
+          session.failing = null;
+          throw e;
+        }
         session.commit();
         x.afterBatch(session.suspended, session.namesChanged, session.calculations);
         session.suspended = false;
@@ -319,6 +349,11 @@ class Session {
           return s ? this.sheetProxy(s) : this.nullProxy();
         },
         add: (n: string) => this.sheetProxy(this.x.addSheet(n)),
+        getItem: (n: string) => {
+          const s = this.x.sheetByName(n);
+          if (!s) throw new Error(`ItemNotFound: no sheet ${n}`);
+          return this.sheetProxy(s);
+        },
         getActiveWorksheet: () => this.sheetProxy(this.x.sheetById(this.x.activeId)),
         onChanged: { add: (h: Handler) => this.handler(this.x.changed, h, ctx) },
         onCalculated: { add: (h: Handler) => this.handler(this.x.calculated, h, ctx) },
@@ -482,6 +517,36 @@ class Session {
             else sheet.cells.set(to, { ...structuredClone(c), formula: undefined });
           }
       },
+      // the cells the block's formulas read: references to cells and blocks, and workbook names (ExcelApi 1.12)
+      getDirectPrecedents: () => {
+        if (!range) throw new Error("the fake finds precedents of blocks only");
+        const found: string[] = [];
+        for (let i = 0; i < range.rows; i++)
+          for (let j = 0; j < range.cols; j++) {
+            const formula = sheet.cells.get(cellAddress({ row: range.start.row + i, col: range.start.col + j }))?.formula;
+            if (formula) found.push(...this.x.references(formula, sheet));
+          }
+        if (found.length === 0) {
+          this.failing = new Error("ItemNotFound: no precedents were found");
+        }
+        return this.proxy({ addresses: [...new Set(found)] });
+      },
+      // the fake holds no spill: every cell's spill parent is a null object
+      getSpillParentOrNullObject: () => this.proxy({ address: "" }, undefined, { isNullObject: true }),
+      // each cell's fill and font as the port wrote them (ExcelApi 1.9)
+      getCellProperties: () => ({
+        value: Array.from({ length: range?.rows ?? 0 }, (_, i) =>
+          Array.from({ length: range?.cols ?? 0 }, (_, j) => {
+            const style = sheet.cells.get(cellAddress({ row: range!.start.row + i, col: range!.start.col + j }))?.style ?? {};
+            return {
+              format: {
+                fill: { color: (style["fill/color"] as string | undefined) ?? "#FFFFFF" },
+                font: { color: (style["font/color"] as string | undefined) ?? "#000000", italic: Boolean(style["font/italic"]) },
+              },
+            };
+          }),
+        ),
+      }),
       getResizedRange: (rows: number, cols: number) => {
         if (!range) throw new Error("the fake resizes blocks only");
         const end = cellAddress({ row: range.start.row + range.rows - 1 + rows, col: range.start.col + range.cols - 1 + cols });

@@ -88,7 +88,7 @@ describe.each(["US", "SI"] as const)("the caution wraps alike in both hosts, %s"
   it("the preview's sheet and the Excel side carry the rule's merges, row heights and wrapping, and nothing else", async () => {
     const preview = previewGeometry(templateSheet(t));
     const fake = new FakeExcel(["Sheet1"]);
-    const { sheetName } = await createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => new Date(), settleMs: 5 }).insertEstimateSheet(units);
+    const { sheetName } = await createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => new Date(), settleMs: 5, supports: () => true }).insertEstimateSheet(units);
     const sheet = fake.sheetByName(sheetName)!;
     const excel = excelGeometry(sheet);
     expect(preview).toEqual(ruleGeometry(lines));
@@ -104,7 +104,7 @@ describe.each(["US", "SI"] as const)("the caution wraps alike in both hosts, %s"
     if (!previewCopy.ok) return;
 
     const fake = new FakeExcel(["Sheet1"]);
-    const port = createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => new Date(2026, 4, 4), settleMs: 5 });
+    const port = createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => new Date(2026, 4, 4), settleMs: 5, supports: () => true });
     const { sheetName } = await port.insertEstimateSheet(units);
     // what Excel shows once every function has answered
     for (const c of fake.sheetByName(sheetName)!.cells.values()) if (c.formula) Object.assign(c, { value: 1, error: false });
