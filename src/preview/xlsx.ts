@@ -332,11 +332,35 @@ export async function writeXlsx(
     const at = parseCell(p.at);
     ws.addImage(image, { tl: { col: at.col, row: at.row }, ext: { width: p.width, height: p.height }, editAs: "oneCell" });
   }
-  for (const n of data.names) wb.definedNames.add(n.ref.replace(/^=/, ""), n.name);
   const active = Math.max(0, data.sheets.findIndex((s) => s.name === data.activeSheet));
   wb.views = [{ x: 0, y: 0, width: 20000, height: 12000, firstSheet: 0, activeTab: active, visibility: "visible" }];
   const buffer = await wb.xlsx.writeBuffer();
-  return storeDynamicArrays(new Uint8Array(buffer as ArrayBuffer), date);
+  const bytes = await storeDynamicArrays(new Uint8Array(buffer as ArrayBuffer), date);
+  return data.names.length ? storeDefinedNames(bytes, data.names, known, date) : bytes;
+}
+
+/**
+ * The workbook's names, written into xl/workbook.xml as the preview holds them. ExcelJS keeps of a name only the
+ * cells it names (a constant such as 10 or a formula such as Estimate!$B$8*2 comes out garbled, or throws), so every
+ * name is written here, as Excel writes one: `<definedName name="…">text</definedName>` with the text of its
+ * reference or formula (no "=", the add-in's functions as `_xldudf_…`), inside the one <definedNames> that follows
+ * <sheets> (ECMA-376 Part 1, 18.2.27 workbook: sheets, functionGroups, externalReferences, definedNames), before the
+ * print areas ExcelJS writes there.
+ */
+async function storeDefinedNames(bytes: Uint8Array, names: readonly DefinedName[], known: readonly string[], date: Date): Promise<Uint8Array> {
+  const JSZip = await import("jszip").then((m) => ((m as unknown as { default?: typeof JSZipType }).default ?? m) as typeof JSZipType);
+  const zip = await JSZip.loadAsync(bytes);
+  const part = "xl/workbook.xml";
+  const xml = await zip.file(part)!.async("string");
+  const escape = (x: string) => x.replace(/&/g, "&amp;").replace(/</g, "&lt;").replace(/>/g, "&gt;").replace(/"/g, "&quot;");
+  const elements = names.map((n) => `<definedName name="${escape(n.name)}">${escape(toFileFormula(`=${n.ref.replace(/^=/, "")}`, known))}</definedName>`).join("");
+  let out: string;
+  if (/<definedNames>/.test(xml)) out = xml.replace("<definedNames>", `<definedNames>${elements}`);
+  else if (/<definedNames\/>/.test(xml)) out = xml.replace("<definedNames/>", `<definedNames>${elements}</definedNames>`);
+  else out = xml.replace("</sheets>", `</sheets><definedNames>${elements}</definedNames>`);
+  zip.file(part, out, { date });
+  for (const entry of Object.values(zip.files)) entry.date = date;
+  return zip.generateAsync({ type: "uint8array", compression: "DEFLATE" });
 }
 
 function resultOf(v: CachedValue | undefined): unknown {

@@ -329,3 +329,49 @@ describe("a file too large for the preview", () => {
     );
   });
 });
+
+describe("defined names of every kind, written as the preview holds them", () => {
+  /** The file's <definedName> elements, name → text (XML entities undone). */
+  function definedNames(bytes: Uint8Array): Record<string, string> {
+    const xml = zipEntry(bytes, "xl/workbook.xml");
+    const unescape = (x: string) => x.replace(/&(lt|gt|quot|apos|amp);/g, (_m, e: string) => ({ lt: "<", gt: ">", quot: '"', apos: "'", amp: "&" })[e]!);
+    return Object.fromEntries([...xml.matchAll(/<definedName name="([^"]*)"[^>]*>([^<]*)<\/definedName>/g)].map((m) => [unescape(m[1]), unescape(m[2])]));
+  }
+
+  test("a constant, a formula and text come back exactly as written, beside the names of cells", async () => {
+    const wb = demoWorkbook();
+    wb.setName("Rule_Margin", "10");
+    wb.setName("Twice_Static", "=Estimate!$B$13*2");
+    wb.setName("Rule_Units", '="SI"');
+    wb.setName("Rule_Friction", "=HEADROOM.FRICTION(500,4.026,120)*2");
+    const held = Object.fromEntries(wb.names().map((n) => [n.name, n.ref]));
+    expect(held.Rule_Margin).toBe("10");
+    expect(held.Twice_Static).toBe("Estimate!$B$13*2");
+    const bytes = await writeXlsx(wb.toData(), known, { date: new Date(Date.UTC(2026, 0, 1)) });
+    const written = definedNames(bytes);
+    expect(written.Rule_Margin).toBe("10");
+    expect(written.Twice_Static).toBe("Estimate!$B$13*2");
+    expect(written.Rule_Units).toBe('"SI"');
+    // the add-in's function as Excel stores it in a file
+    expect(written.Rule_Friction).toBe("_xldudf_HEADROOM_FRICTION(500,4.026,120)*2");
+    expect(written.Supply_Static).toBe(held.Supply_Static);
+    // opened again: the names of cells as they were; the others, kept out by the reader, are named with their own text
+    const back = await readXlsx(bytes, known);
+    expect(back.workbook.names).toEqual(wb.names().filter((n) => !n.name.startsWith("Rule_") && n.name !== "Twice_Static"));
+    expect(back.notes).toContain("name Rule_Margin refers to 10; the preview keeps names of cells only, so it is left out");
+    expect(back.notes).toContain("name Twice_Static refers to Estimate!$B$13*2; the preview keeps names of cells only, so it is left out");
+    // Excel opens it with its workbook part well formed: one <definedNames>, after <sheets>
+    const xml = zipEntry(bytes, "xl/workbook.xml");
+    expect(xml.match(/<definedNames>/g)).toHaveLength(1);
+    expect(xml.indexOf("</sheets>")).toBeLessThan(xml.indexOf("<definedNames>"));
+  });
+
+  test("a workbook whose only names are constants still gets them", async () => {
+    const wb = new PreviewWorkbook({ sheets: [{ name: "Notes", cells: { A1: { content: 1 } } }], names: [] });
+    wb.setName("Rule_Margin", "10");
+    const bytes = await writeXlsx(wb.toData(), known);
+    expect(definedNames(bytes)).toEqual({ Rule_Margin: "10" });
+    const xml = zipEntry(bytes, "xl/workbook.xml");
+    expect(xml.indexOf("</sheets>")).toBeLessThan(xml.indexOf("<definedNames>"));
+  });
+});
