@@ -20,6 +20,7 @@ export interface SampleSpec {
 /** A light-hazard office building on a strong street main: the supply suffices with room to spare. */
 const office: Scenario = {
   units: "US",
+  values: "sample",
   site: "Quill Street offices, three storeys (sample)",
   address: "40 Quill Street, Sampleford",
   preparedBy: "Placeholder Fire Engineering (sample)",
@@ -73,6 +74,7 @@ const office: Scenario = {
 /** An ordinary hazard group 2 light-manufacturing building at the end of a long, weak main: it needs a pump. */
 const manufacturing: Scenario = {
   units: "US",
+  values: "sample",
   site: "Unit 4, Tinker Row light manufacturing (sample)",
   address: "4 Tinker Row, Exampleton Industrial Estate",
   preparedBy: "Sample Sprinkler Design Ltd. (sample)",
@@ -116,6 +118,7 @@ const manufacturing: Scenario = {
 /** A workshop and store worked in SI units (bar, L/min, mm, DN sizes). */
 const workshopSI: Scenario = {
   units: "SI",
+  values: "sample",
   site: "Kiln Lane workshop and store (sample)",
   address: "9 Kiln Lane, Sampleburgh",
   preparedBy: "Example Fire Consultants (sample)",
@@ -162,6 +165,7 @@ const workshopSI: Scenario = {
  */
 const parkingDry: Scenario = {
   units: "US",
+  values: "sample",
   site: "Linden Yard parking deck over shops (sample)",
   address: "2 Linden Yard, Exampleford",
   preparedBy: "Sample Sprinkler Design Ltd. (sample)",
@@ -209,6 +213,7 @@ const parkingDry: Scenario = {
  */
 const storage: Scenario = {
   units: "US",
+  values: "sample",
   site: "Harrow Row distribution centre, rack storage (sample)",
   address: "11 Harrow Row, Sampleton Park",
   preparedBy: "Example Fire Consultants (sample)",
@@ -270,6 +275,7 @@ const storage: Scenario = {
  */
 const assemblyGrid: Scenario = {
   units: "US",
+  values: "sample",
   site: "Fallow Road assembly hall, single storey (sample)",
   address: "2 Fallow Road, Sampleford",
   preparedBy: "Sample Hydraulics Office (sample)",

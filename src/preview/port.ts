@@ -31,7 +31,7 @@ import { demoScenario, type Scenario } from "../workbook/scenario";
 import { estimateTemplate } from "../workbook/template";
 import { markDemoValues, templateNames, templateSheet } from "./fromTemplate";
 import { type CellData, type CellStyle, type SheetData, textContent } from "./model";
-import { FROZEN_NOTE, INPUTS_NOTE } from "../workbook/look";
+import { FROZEN_NOTE, INPUT_NOTES } from "../workbook/look";
 import type { PreviewWorkbook } from "./workbook";
 
 export class PreviewPort implements WorkbookPort {
@@ -206,7 +206,7 @@ export class PreviewPort implements WorkbookPort {
       const a = parseCell(v.address);
       const to = cellAddress({ row: a.row + SHARE_STAMP_ROWS, col: a.col });
       // frozen: the note asking to overwrite the inputs says there are none
-      const value = v.content === INPUTS_NOTE ? FROZEN_NOTE : (v.value as number | string | boolean | null);
+      const value = typeof v.content === "string" && INPUT_NOTES.includes(v.content) ? FROZEN_NOTE : (v.value as number | string | boolean | null);
       const style = frozenStyle(v.style);
       // text as text: "=HYPERLINK(…)" shown by a cell is held behind an apostrophe, never a live formula in the copy
       cells[to] = { content: typeof value === "string" ? textContent(value) : value, ...(style ? { style } : {}) };

@@ -43,8 +43,15 @@ export const PALETTE = {
  */
 export const DEMO_LOOK = { font: "#8A5A00", italic: true } as const;
 
-/** The note under the caution of every estimate sheet; a share copy, whose cells are frozen, leaves it out. */
+/** The note under the caution of a new estimate sheet; a share copy, whose cells are frozen, leaves it out. */
 export const INPUTS_NOTE = "Shaded cells are inputs: overwrite the demo values. White cells are calculated by the HEADROOM functions.";
+
+/** The note in its place on a sample's estimate sheet, whose inputs hold the sample's own values, not demo values. */
+export const SAMPLE_NOTE =
+  "Shaded cells are inputs, holding this sample's values (an invented project): change one and the verdict follows. White cells are calculated by the HEADROOM functions.";
+
+/** Every note that says which cells are inputs: a share copy says FROZEN_NOTE in its place. */
+export const INPUT_NOTES: readonly string[] = [INPUTS_NOTE, SAMPLE_NOTE];
 
 /** What a share copy says in the note's place: its cells are values, none to overwrite. */
 export const FROZEN_NOTE = "Every cell holds a frozen value: nothing here is an input or recalculates. Change the estimate sheet and make a new copy.";

@@ -101,6 +101,11 @@ export interface FlowTestInput {
 /** Everything an estimate sheet is filled with. All numbers are in `units`. */
 export interface Scenario {
   units: UnitSystem;
+  /**
+   * whose values the inputs hold: a new estimate sheet's demo values, for the user to overwrite (the default), or a
+   * sample's own; the note under the caution says which
+   */
+  values?: "demo" | "sample";
   site: string;
   address: string;
   preparedBy: string;

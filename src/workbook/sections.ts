@@ -15,7 +15,7 @@
 import { CURVE_DEMAND_FLOW_FACTOR, SUPPLY_CURVE_FLOW_FACTOR, SUPPLY_CURVE_POINTS } from "../engine/curve";
 import { type UnitSystem, unitName } from "../engine/units";
 import { cellAddress, columnLetters, parseCell } from "./a1";
-import { CAUTION, type CellRole, INPUTS_NOTE, PALETTE } from "./look";
+import { CAUTION, type CellRole, INPUTS_NOTE, PALETTE, SAMPLE_NOTE } from "./look";
 import { CANDIDATES_NAME, type WorkbookName } from "./port";
 import type { Scenario } from "./scenario";
 import type { ChartSeries, Section, TemplateCell, TemplateName } from "./sheet";
@@ -259,7 +259,7 @@ export function projectSection(s: Scenario, row: number): Section<UnitsRefs> {
   sh.row++;
   sh.put("A", "caution", CAUTION);
   sh.row++;
-  sh.put("A", "note", INPUTS_NOTE);
+  sh.put("A", "note", s.values === "sample" ? SAMPLE_NOTE : INPUTS_NOTE);
   sh.row++;
   sh.skip();
 

@@ -11,6 +11,8 @@ import { PreviewPort } from "../../src/preview/port";
 import { PreviewWorkbook } from "../../src/preview/workbook";
 import { readXlsx, writeXlsx } from "../../src/preview/xlsx";
 import { SAMPLES } from "../../samples/scenarios";
+import { FROZEN_NOTE, INPUTS_NOTE, SAMPLE_NOTE } from "../../src/workbook/look";
+import { demoScenario } from "../../src/workbook/scenario";
 import { generatedMetadata } from "./metadataFixture";
 
 let known: string[];
@@ -94,18 +96,28 @@ describe("demo values are marked until overwritten", () => {
 });
 
 describe("a share copy looks frozen", () => {
+  test("the note of a new estimate sheet, like a sample's, gives way to the frozen note", async () => {
+    const wb = empty();
+    // the demo scenario given as the user's own: nothing marked as a demo value, the new sheet's note
+    const { sheetName } = await new PreviewPort(wb).insertEstimateSheet("US", demoScenario("US"));
+    const note = wb.cells(sheetName).find((v) => v.content === INPUTS_NOTE)!;
+    const made = new PreviewPort(wb, () => new Date(2026, 4, 4)).shareCopyData();
+    if (!made.ok) throw new Error(made.reason);
+    expect(made.sheet.cells[note.address.replace(/\d+$/, (r) => String(Number(r) + 2))].content).toBe(FROZEN_NOTE);
+  });
+
   test("no input shading and no note asking to overwrite the demo values; numbers keep their formats", async () => {
     const wb = empty();
     const { sheetName } = await new PreviewPort(wb).insertEstimateSheet("US", SAMPLES[0].scenario);
-    const note = wb.cells(sheetName).find((v) => typeof v.content === "string" && /overwrite the demo values/.test(v.content));
-    expect(note, "the estimate sheet says to overwrite the demo values").toBeDefined();
+    const note = wb.cells(sheetName).find((v) => v.content === SAMPLE_NOTE);
+    expect(note, "the sample's estimate sheet says which cells are inputs").toBeDefined();
     const inputs = wb.cells(sheetName).filter((v) => v.style?.role === "input" && typeof v.value === "number" && v.style.numFmt);
     expect(inputs.length).toBeGreaterThan(10);
     const made = new PreviewPort(wb, () => new Date(2026, 4, 4)).shareCopyData();
     if (!made.ok) throw new Error(made.reason);
     const cells = Object.values(made.sheet.cells);
     expect(cells.filter((c) => c.style?.role === "input")).toEqual([]);
-    expect(cells.filter((c) => typeof c.content === "string" && /overwrite the demo values/.test(c.content))).toEqual([]);
+    expect(cells.filter((c) => typeof c.content === "string" && /^Shaded cells are inputs/.test(c.content))).toEqual([]);
     expect(made.sheet.cells[note!.address.replace(/\d+$/, (r) => String(Number(r) + 2))].content).toMatch(/frozen value/);
     expect(cells.filter((c) => c.style?.demo)).toEqual([]);
     // the values of the inputs are still there, two rows down under the stamp, in their number formats

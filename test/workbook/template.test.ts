@@ -14,7 +14,7 @@ import { CANDIDATES_NAME, INPUT_NAMES, SUMMARY_NAMES } from "../../src/workbook/
 import { SAMPLES } from "../../samples/scenarios";
 import { PreviewPort } from "../../src/preview/port";
 import { type Scenario, demoScenario } from "../../src/workbook/scenario";
-import { CAUTION } from "../../src/workbook/look";
+import { CAUTION, INPUTS_NOTE, SAMPLE_NOTE } from "../../src/workbook/look";
 import { type SheetTemplate, spillCells, templateExtent } from "../../src/workbook/sheet";
 import { estimateTemplate } from "../../src/workbook/template";
 import { generatedMetadata } from "../preview/metadataFixture";
@@ -249,5 +249,19 @@ describe("the flow test's description on the sheet", () => {
     const { port } = calculated({ ...s, flowTests: s.flowTests.map((t) => ({ ...t, when: "" })) });
     const r = await port.readInputs();
     expect(r.Supply_When).toMatchObject({ kind: "text", value: "" });
+  });
+});
+
+describe("the note under the caution says whose values the inputs hold", () => {
+  const notes = (t: SheetTemplate) => t.cells.filter((c) => c.role === "note" && typeof c.value === "string" && /^Shaded cells are inputs/.test(c.value)).map((c) => c.value);
+
+  it.each(["US", "SI"] as const)("a new estimate sheet (the %s demo): overwrite the demo values", (units) => {
+    expect(notes(estimateTemplate(demoScenario(units)))).toEqual([INPUTS_NOTE]);
+  });
+
+  it.each(SAMPLES.map((x) => [x.file, x.scenario] as const))("a sample (%s): its values are the sample's, never demo values to overwrite", (_, s) => {
+    const t = estimateTemplate(s);
+    expect(notes(t)).toEqual([SAMPLE_NOTE]);
+    expect(t.cells.filter((c) => typeof c.value === "string" && /demo values/.test(c.value))).toEqual([]);
   });
 });
