@@ -89,6 +89,7 @@ export class Keeper {
   private chain: Promise<void> = Promise.resolve();
   private readonly listeners = new Set<(dirty: boolean) => void>();
   private wasDirty = false;
+  private failed: Error | null = null;
 
   constructor(
     private readonly wb: PreviewWorkbook,
@@ -157,8 +158,21 @@ export class Keeper {
     );
   }
 
+  /** Why the last write or forgetting failed, or null where the last one went through. */
+  get failing(): Error | null {
+    return this.failed;
+  }
+
   private then(step: () => Promise<void>): Promise<void> {
-    this.chain = this.chain.then(step).catch((e: unknown) => this.onError(e instanceof Error ? e : new Error(String(e))));
+    this.chain = this.chain
+      .then(step)
+      .then(() => {
+        this.failed = null;
+      })
+      .catch((e: unknown) => {
+        this.failed = e instanceof Error ? e : new Error(String(e));
+        this.onError(this.failed);
+      });
     return this.chain;
   }
 

@@ -28,6 +28,7 @@ import { registerHeadroomFunctions } from "./plugin";
 import { picturePlace, plotPng } from "./picture";
 import { PreviewPort } from "./port";
 import { readOffPage } from "./reader";
+import { type Recheck, StatusLine, showInPicker } from "./status";
 import { PreviewWorkbook } from "./workbook";
 
 interface SampleEntry {
@@ -58,10 +59,12 @@ function toolbarButton(role: string): HTMLButtonElement {
   return el;
 }
 
-function status(text: string, error = false): void {
-  const el = $("preview-status");
-  el.textContent = text;
-  el.classList.toggle("is-error", error);
+let line: StatusLine | undefined;
+/** What the last action did, or (error) what is wrong; `recheck` says whether an error still holds after a change. */
+function status(text: string, error = false, recheck?: Recheck): void {
+  line ??= new StatusLine($("preview-status"));
+  if (error) line.error(text, recheck);
+  else line.show(text);
 }
 
 async function fetchOk(url: string): Promise<Response> {
@@ -104,12 +107,32 @@ async function main(): Promise<void> {
   let fileName = current.file;
   /** the sample the workbook was opened from, until it is saved under a name of the user's */
   let sample: string | null = current.file;
-  const showName = () => ($("file-name").textContent = fileName);
+  const picker = $<HTMLSelectElement>("sample-picker");
+  for (const s of samples) picker.append(new Option(s.title, s.file, false, s.file === current.file));
+  // the file's name in the bar, and the sample menu: a sample's title only while that sample is what the grid shows
+  const showName = () => {
+    $("file-name").textContent = fileName;
+    showInPicker(picker, sample, fileName);
+  };
   showName();
+  // an error in the status line is checked again after each change, and goes once it no longer holds
+  let recheckQueued = false;
+  wb.onChange(() => {
+    if (recheckQueued) return;
+    recheckQueued = true;
+    queueMicrotask(() => {
+      recheckQueued = false;
+      void line?.changed();
+    });
+  });
 
   // unsaved work, kept in the browser; nothing is written until a copy kept earlier has been looked for
-  const keeper = new Keeper(wb, () => ({ fileName, sample }), (e) =>
-    status(`Your changes could not be kept in this browser (${e.message}): save them to a file.`, true),
+  const notKept = (e: Error) => `Your changes could not be kept in this browser (${e.message}): save them to a file.`;
+  const keeper: Keeper = new Keeper(wb, () => ({ fileName, sample }), (e) =>
+    status(notKept(e), true, async () => {
+      await keeper.idle();
+      return keeper.failing ? notKept(keeper.failing) : null;
+    }),
   );
   keeper.hold(true);
   const unsavedMark = $("unsaved-mark");
@@ -158,8 +181,9 @@ async function main(): Promise<void> {
   toolbarButton("print-summary").addEventListener("click", async () => {
     const readings = await port.readInputs();
     const m = buildModel(readings, port.host);
+    const noSummary = "No summary yet: fix the inputs the pane lists first, then try again.";
     if (m.kind === "ready") showSummary(m.estimate, readings);
-    else status("No summary yet: fix the inputs the pane lists first, then try again.", true);
+    else status(noSummary, true, async () => (buildModel(await port.readInputs(), port.host).kind === "ready" ? null : noSummary));
   });
 
   /** Before the open workbook is replaced: true if it holds no unsaved change, or the user agrees to lose them. */
@@ -175,13 +199,11 @@ async function main(): Promise<void> {
     grid.select("A1");
   };
 
-  const picker = $<HTMLSelectElement>("sample-picker");
-  for (const s of samples) picker.append(new Option(s.title, s.file, false, s.file === current.file));
   picker.addEventListener("change", async () => {
     const s = samples.find((x) => x.file === picker.value);
     if (!s) return;
     if (!mayReplace(`Open the sample "${s.title}"?`)) {
-      picker.value = current.file;
+      showName();
       return;
     }
     try {
@@ -192,7 +214,7 @@ async function main(): Promise<void> {
       opened(s.file, notes);
       await keeper.markClean();
     } catch (e) {
-      picker.value = current.file;
+      showName();
       status(`Could not open ${s.file}: ${(e as Error).message}`, true);
     }
   });
@@ -246,11 +268,15 @@ async function main(): Promise<void> {
   $("save-share-copy").addEventListener("click", async () => {
     const made = port.shareCopyData();
     if (!made.ok) {
-      status(made.reason, true);
+      status(made.reason, true, () => {
+        const again = port.shareCopyData();
+        return again.ok ? null : again.reason;
+      });
       return;
     }
     const { writeXlsx } = await xlsx();
-    const name = `${fileName.replace(/\.xlsx$/i, "")} share copy.xlsx`;
+    // named after what is open: the name Save suggests for a sample's workbook, never the sample's file
+    const name = `${(sample === null ? fileName : suggestedName()).replace(/\.xlsx$/i, "")} share copy.xlsx`;
     // the pane's plot goes with the numbers, as a picture (ExcelJS writes no chart)
     const plot = await plotPng(document.querySelector<SVGSVGElement>('[data-role="pane-host"] svg[data-role="plot"]'));
     const pictures = plot ? [{ sheet: made.sheet.name, at: picturePlace(made.sheet), ...plot }] : [];

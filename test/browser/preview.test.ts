@@ -142,6 +142,8 @@ async function scan(selector: string, p: Page = page): Promise<Record<string, st
     return out;
   }, selector);
 }
+/** The text of the option the sample menu shows. */
+const pickerShows = () => page.$eval('[data-role="sample-picker"]', (s: HTMLSelectElement) => s.options[s.selectedIndex]?.textContent ?? "");
 const verdict = async () => ((await page.locator('[data-role="verdict"]').textContent()) ?? "").trim();
 
 /** Select a cell, type as a user would, press Enter. */
@@ -508,6 +510,10 @@ describe(".xlsx in and out", () => {
     await open(OFFICE_SAMPLE);
     const sheetsBefore = await page.locator('[data-role="sheet-tabs"] [data-sheet]').count();
     const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-share-copy"]')]);
+    // named after the estimate's site, as Save suggests for a sample's workbook, never after the sample's file
+    const site = await page.evaluate(() => (window as unknown as { headroomPreview: { workbook: { nameValue(n: string): unknown } } }).headroomPreview.workbook.nameValue("Project_Site"));
+    expect(download.suggestedFilename()).toBe(`${site} share copy.xlsx`);
+    expect(download.suggestedFilename()).not.toContain(OFFICE_SAMPLE.replace(/\.xlsx$/, ""));
     const saved = path.join(RESULTS, download.suggestedFilename());
     await download.saveAs(saved);
     const wb = new ExcelJS.Workbook();
@@ -719,6 +725,12 @@ describe("nothing is lost", () => {
     await page.setInputFiles('[data-role="file-input"]', file);
     await page.waitForFunction(() => document.querySelector('[data-role="file-name"]')?.textContent === "a-colleague.xlsx");
     expect((await (await at("A1")).textContent())?.trim()).toBe("From a colleague");
+    // the sample menu names what the grid shows: the file, not the sample opened before it
+    expect(await pickerShows()).toBe("Your file: a-colleague.xlsx");
+    await page.selectOption('[data-role="sample-picker"]', OFFICE_SAMPLE);
+    await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, OFFICE_SAMPLE);
+    expect(await pickerShows()).toBe("Office building, light hazard: no pump needed (US)");
+    expect(await page.locator('[data-role="sample-picker"] option[data-role="own-file"]').count()).toBe(0);
   });
 
   test("closing the page with unsaved changes asks first", async () => {
@@ -818,6 +830,7 @@ describe("nothing is lost", () => {
     const [download] = await Promise.all([page.waitForEvent("download"), page.click('[data-role="save-file"]')]);
     expect(download.suggestedFilename()).toBe("Hollow Lane warehouse.xlsx");
     expect(await page.locator('[data-role="file-name"]').textContent()).toBe("Hollow Lane warehouse.xlsx");
+    expect(await pickerShows()).toBe("Your file: Hollow Lane warehouse.xlsx");
     expect(await page.locator('[data-role="unsaved-mark"]').isVisible()).toBe(false);
     // saved: the next Save suggests the name it was saved under, and another sample opens without a question
     answerDialogs((d) => d.dismiss());
@@ -827,6 +840,24 @@ describe("nothing is lost", () => {
     await page.selectOption('[data-role="sample-picker"]', OFFICE_SAMPLE);
     await page.waitForFunction((name) => document.querySelector('[data-role="file-name"]')?.textContent === name, OFFICE_SAMPLE);
     expect(dialogs.length).toBe(before);
+  });
+});
+
+describe("the status line", () => {
+  test("\"No summary yet\" goes once the inputs are fixed, and never stays red over a workbook that is fine", async () => {
+    await open(PUMP_SAMPLE);
+    const status = page.locator('[data-role="preview-status"]');
+    await setNamed(page, "Required_Margin", "ten");
+    await page.click('.bar [data-role="print-summary"]');
+    await expect.poll(() => status.textContent()).toBe("No summary yet: fix the inputs the pane lists first, then try again.");
+    expect(await status.getAttribute("class")).toMatch(/is-error/);
+    // another input changed, the margin still text: the refusal stands
+    await setNamed(page, "Suction_Minimum", "20");
+    await settle();
+    expect(await status.getAttribute("class")).toMatch(/is-error/);
+    await setNamed(page, "Required_Margin", "10");
+    await expect.poll(() => status.getAttribute("class")).not.toMatch(/is-error/);
+    expect(await status.textContent()).toBe("");
   });
 });
 
@@ -1005,6 +1036,22 @@ describe("input lands where the user typed it", () => {
     expect(await status.getAttribute("class")).toMatch(/is-error/);
     page.off("download", count);
     expect(downloads).toBe(0);
+    // typed over, one by one: red while any demo value remains, then the refusal goes
+    const left = await demo();
+    const retype = (addresses: string[]) =>
+      page.evaluate((addresses) => {
+        type Wb = { activeSheet: string; content(s: string, a: string): unknown; setTyped(s: string, a: string, t: string): void };
+        const wb = (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook;
+        for (const a of addresses) wb.setTyped(wb.activeSheet, a, String(wb.content(wb.activeSheet, a)));
+      }, addresses);
+    await retype(left.slice(0, -1));
+    await settle();
+    expect(await status.getAttribute("class")).toMatch(/is-error/);
+    expect(await status.textContent()).toContain(left.at(-1)!);
+    await retype(left.slice(-1));
+    await settle();
+    await expect.poll(() => status.getAttribute("class")).not.toMatch(/is-error/);
+    expect(await status.textContent()).toBe("");
     // a sample's own sheet carries no marks
     await page.click('[data-role="sheet-tabs"] [data-sheet="Estimate"]');
     expect(await demo()).toEqual([]);
