@@ -5,7 +5,9 @@
  * Requirement sets used: ExcelApi 1.1 (application.calculate, charts.add, chart.delete), 1.2 (range.merge), 1.4
  * (names.getItemOrNullObject, NamedItem.getRangeOrNullObject, worksheet.names, charts.getItemOrNullObject), 1.6
  * (application.suspendApiCalculationUntilNextSync), 1.7 (chart series, worksheet.copy, worksheets.onActivated), 1.8
- * (worksheets.onCalculated), 1.9 (worksheets.onChanged, range.copyFrom, worksheet.pageLayout).
+ * (worksheets.onCalculated), 1.9 (worksheets.onChanged and its details, range.copyFrom, range.getCellProperties,
+ * worksheet.pageLayout); where Excel has it, 1.12 (range.getDirectPrecedents, range.getSpillParentOrNullObject: the
+ * inputs behind a formula), checked with isSetSupported first.
  * Everything goes through an ExcelHost so that tests can run it against office-addin-mock.
  */
 import type { UnitSystem } from "../engine/units";
@@ -26,12 +28,13 @@ import {
   type WorkbookName,
   type WorkbookPort,
   candidatesShapeProblem,
+  demoRefusal,
   isoDate,
   shareRefusal,
   shareStamp,
 } from "./port";
 import { type Scenario, demoScenario } from "./scenario";
-import { ROLE_STYLES, wrappedLines } from "./look";
+import { DEMO_LOOK, FROZEN_NOTE, INPUT_NOTES, ROLE_STYLES, wrappedLines } from "./look";
 import type { ChartSeries, SheetTemplate, TemplateChart, TemplatePrint } from "./sheet";
 import { CHART_FROM, CHART_TO, estimateTemplate } from "./template";
 
@@ -336,7 +339,10 @@ async function subscribe(host: ExcelHost, onChange: () => void): Promise<() => P
     }, host.settleMs);
   };
   const { context, handlers } = await host.run(async (ctx) => {
-    const changed = ctx.workbook.worksheets.onChanged.add(poke);
+    const changed = ctx.workbook.worksheets.onChanged.add(async (e) => {
+      await poke();
+      if (live) await typedOver(host, e);
+    });
     const calculated = ctx.workbook.worksheets.onCalculated.add(poke);
     // the names the pane reads depend on the active sheet (its own names first): another sheet activated, read again
     // (WorksheetCollection.onActivated, ExcelApi 1.7, https://learn.microsoft.com/office/dev/add-ins/excel/excel-add-ins-events)
@@ -352,6 +358,38 @@ async function subscribe(host: ExcelHost, onChange: () => void): Promise<() => P
       await ctx.sync();
     });
   };
+}
+
+/**
+ * A value typed over a demo value is the user's: the cell loses the demo look (DEMO_LOOK) for the input's own. Excel
+ * keeps a cell's format when a value is typed into it, so the port does it, on the change event of one cell whose
+ * value before was not empty (WorksheetChangedEventArgs.details, "the information about the change detail ... when
+ * the Changed event is triggered on a single cell", ExcelApi 1.9,
+ * https://learn.microsoft.com/javascript/api/excel/excel.worksheetchangedeventargs): the same value typed again
+ * counts, and the add-in's own writes into a new sheet's empty cells do not.
+ */
+async function typedOver(host: ExcelHost, e: Excel.WorksheetChangedEventArgs): Promise<void> {
+  const before = e.details?.valueBefore;
+  if (e.changeType !== "RangeEdited" || before === undefined || before === null || before === "") return;
+  try {
+    await host.run(async (ctx) => {
+      const range = ctx.workbook.worksheets.getItem(e.worksheetId).getRange(splitSheet(e.address).range);
+      const look = range.getCellProperties({ format: { font: { color: true, italic: true } } });
+      await ctx.sync();
+      const font = look.value[0]?.[0]?.format?.font;
+      if (!isDemoLook(font)) return;
+      range.format.font.color = ROLE_STYLES.input.font!;
+      range.format.font.italic = false;
+      await ctx.sync();
+    });
+  } catch {
+    // the sheet went meanwhile: nothing to mark
+  }
+}
+
+/** Whether a cell's font is the demo look. */
+function isDemoLook(font: { color?: string; italic?: boolean } | undefined): boolean {
+  return String(font?.color ?? "").toUpperCase() === DEMO_LOOK.font.toUpperCase() && font?.italic === DEMO_LOOK.italic;
 }
 
 // ─── New estimate sheet ──────────────────────────────────────────────────────────────────────────────────────────
@@ -389,6 +427,9 @@ async function insertEstimateSheet(ctx: Ctx, units: UnitSystem, scenario?: Scena
   ctx.application.suspendApiCalculationUntilNextSync();
   const sheet = wb.worksheets.add(sheetName);
   writeCells(sheet, template);
+  // the demo's values are invented: marked, as the preview marks them, until the user types over them (a given
+  // scenario's are its own)
+  if (!scenario) markDemoValues(sheet, template);
   const namesMoved: WorkbookName[] = [];
   template.names.forEach((n, i) => {
     if (!existing[i].isNullObject) {
@@ -437,6 +478,17 @@ function writeCells(sheet: Excel.Worksheet, t: SheetTemplate): void {
     block.format.wrapText = true;
     block.format.verticalAlignment = "Top";
     block.format.rowHeight = line.height;
+  }
+}
+
+/** The demo look on every input holding a value, but the Units cell, which the user chose in the pane. */
+function markDemoValues(sheet: Excel.Worksheet, t: SheetTemplate): void {
+  const units = t.names.find((n) => n.name === "Units")?.address;
+  for (const c of t.cells) {
+    if (c.role !== "input" || c.value === undefined || c.value === "" || c.address === units) continue;
+    const font = sheet.getRange(c.address).format.font;
+    font.color = DEMO_LOOK.font;
+    font.italic = DEMO_LOOK.italic;
   }
 }
 
@@ -517,13 +569,30 @@ async function makeShareCopy(ctx: Ctx, now: Date, plot?: SharePlot): Promise<Sha
   const errors = errorCells(used);
   if (errors.length > 0) return { ok: false, reason: shareRefusal(errors.slice(0, SHARE_REFUSAL_LIST), errors.length) };
 
+  // each cell's look (Range.getCellProperties, ExcelApi 1.9): demo values refuse the copy; inputs lose their shading
+  const looks = used.getCellProperties({ format: { fill: { color: true }, font: { color: true, italic: true } } });
+  await ctx.sync();
   const sourceName = source.name;
+  const { demo, inputs, notes } = lookOf(used, looks.value);
+  if (demo.length > 0) {
+    return { ok: false, reason: demoRefusal(demo.slice(0, SHARE_REFUSAL_LIST).map((a) => `${sourceName}!${a}`), demo.length) };
+  }
+
   const copyName = await freeName(ctx, `${sourceName} values ${isoDate(now)}`);
   const copy = source.copy("After", source);
   copy.name = copyName;
   const area = splitSheet(used.address).range;
   copy.getRange(area).copyFrom(used, "Values");
   copy.getRange(`1:${SHARE_STAMP_ROWS}`).insert("Down");
+  // frozen: an input is a value like any other, unshaded, and the note asking to overwrite the inputs says there are none
+  const down = (a: string) => cellAddress({ row: parseCell(a).row + SHARE_STAMP_ROWS, col: parseCell(a).col });
+  for (const a of inputs) {
+    const format = copy.getRange(down(a)).format;
+    format.fill.clear();
+    format.font.color = ROLE_STYLES.computed.font!;
+    format.font.italic = false;
+  }
+  for (const a of notes) copy.getRange(down(a)).values = [[cellConstant(FROZEN_NOTE)]];
   const stamp = copy.getRange("A1");
   stamp.values = [[shareStamp(sourceName, now)]];
   stamp.format.font.bold = true;
@@ -603,6 +672,26 @@ async function addSharePlot(ctx: Ctx, copy: Excel.Worksheet, used: Excel.Range, 
   const to = { row: from.row + place.rows - 1, col: from.col + place.cols - 1 };
   addChart(copy, { title: plot.title, xTitle: plot.xTitle, yTitle: plot.yTitle, series, from: at(from.row, from.col), to: at(to.row, to.col) });
   await ctx.sync();
+}
+
+/**
+ * The cells of a loaded range that hold a demo value (the demo look, not empty), that are inputs (the input's fill)
+ * and that hold the note saying which cells are inputs: addresses (A1) of the range's sheet.
+ */
+function lookOf(range: Excel.Range, looks: Excel.CellProperties[][]): { demo: string[]; inputs: string[]; notes: string[] } {
+  const start = parseRange(splitSheet(range.address).range).start;
+  const inputFill = ROLE_STYLES.input.fill!.toUpperCase();
+  const out = { demo: [] as string[], inputs: [] as string[], notes: [] as string[] };
+  range.values.forEach((row, i) =>
+    row.forEach((v, j) => {
+      const a = cellAddress({ row: start.row + i, col: start.col + j });
+      const format = looks[i]?.[j]?.format;
+      if (isDemoLook(format?.font) && range.valueTypes[i][j] !== "Empty") out.demo.push(a);
+      if (String(format?.fill?.color ?? "").toUpperCase() === inputFill) out.inputs.push(a);
+      if (typeof v === "string" && INPUT_NOTES.includes(v)) out.notes.push(a);
+    }),
+  );
+  return out;
 }
 
 /** Addresses (Sheet!A1) and shown errors of every error cell of a loaded range. */

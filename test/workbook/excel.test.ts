@@ -7,13 +7,13 @@ import { PreviewWorkbook } from "../../src/preview/workbook";
 import { BUSY_REREAD_MS, mountPane } from "../../src/taskpane/pane";
 import { cellAddress, parseCell, parseRange } from "../../src/workbook/a1";
 import { createExcelPort } from "../../src/workbook/excel";
-import { CANDIDATES_NAME, INPUT_NAMES, type InputName, SHARE_STAMP, type SharePlot } from "../../src/workbook/port";
+import { CANDIDATES_NAME, INPUT_NAMES, type InputName, SHARE_STAMP, SHARE_STAMP_ROWS, type SharePlot, demoRefusal } from "../../src/workbook/port";
 import { demoScenario } from "../../src/workbook/scenario";
-import { CAUTION, PALETTE, ROLE_STYLES } from "../../src/workbook/look";
+import { CAUTION, DEMO_LOOK, FROZEN_NOTE, INPUTS_NOTE, PALETTE, ROLE_STYLES } from "../../src/workbook/look";
 import { spillCells } from "../../src/workbook/sheet";
 import { estimateTemplate } from "../../src/workbook/template";
 import { portContract, type PortHarness } from "./contract";
-import { FakeExcel } from "./fakeExcel";
+import { type FakeCell, FakeExcel } from "./fakeExcel";
 import { generatedMetadata } from "../preview/metadataFixture";
 
 beforeAll(async () => {
@@ -431,11 +431,61 @@ describe("Excel port: the estimate sheet", () => {
   });
 });
 
+describe("Excel port: demo values", () => {
+  const hasDemoLook = (c: FakeCell | undefined) => c?.style?.["font/color"] === DEMO_LOOK.font && c?.style?.["font/italic"] === true;
+  /** The cells of a new sheet that hold a demo value: its inputs holding a value, the Units the user chose aside. */
+  const demoCells = (units: "US" | "SI") => {
+    const t = estimateTemplate(demoScenario(units));
+    const unitsCell = t.names.find((n) => n.name === "Units")!.address;
+    return t.cells.filter((c) => c.role === "input" && c.value !== undefined && c.value !== "" && c.address !== unitsCell).map((c) => c.address);
+  };
+
+  it("a new estimate sheet marks its demo values with the preview's look: italic, brown, over the input's fill", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const { sheetName } = await excelPort(fake).insertEstimateSheet("US");
+    const sheet = fake.sheetByName(sheetName)!;
+    const demo = demoCells("US");
+    expect(demo.length).toBeGreaterThan(30);
+    for (const a of demo) {
+      expect(hasDemoLook(sheet.cells.get(a)), a).toBe(true);
+      expect(sheet.cells.get(a)?.style?.["fill/color"], a).toBe(ROLE_STYLES.input.fill);
+    }
+    const marked = [...sheet.cells].filter(([, c]) => hasDemoLook(c)).map(([a]) => a);
+    expect(marked.sort()).toEqual([...demo].sort());
+    // a scenario of the user's own holds no demo value
+    const own = await excelPort(fake).insertEstimateSheet("US", demoScenario("US"));
+    expect([...fake.sheetByName(own.sheetName)!.cells.values()].filter(hasDemoLook)).toEqual([]);
+  });
+
+  it("refuses a share copy while demo values remain, naming them; a value typed over one (the same again too) is the user's", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const port = excelPort(fake, new Date(2026, 4, 4));
+    const { sheetName } = await port.insertEstimateSheet("US");
+    calculate(fake, sheetName, (a) => parseCell(a).row + 1);
+    const demo = demoCells("US");
+    const sheetsBefore = fake.sheets.map((s) => s.name);
+    const refused = await port.makeShareCopy();
+    expect(refused).toEqual({ ok: false, reason: demoRefusal(demo.slice(0, 5).map((a) => `${sheetName}!${a}`), demo.length) });
+    expect(fake.sheets.map((s) => s.name)).toEqual(sheetsBefore);
+
+    // the user types over each one, with the pane listening
+    const stop = await port.subscribe(() => {});
+    const sheet = fake.sheetByName(sheetName)!;
+    for (const a of demo) fake.setCell(sheetName, a, { ...structuredClone(sheet.cells.get(a)!) });
+    await vi.waitFor(() => expect([...sheet.cells.values()].filter(hasDemoLook)).toEqual([]));
+    // typed over: the input's own look again
+    expect(sheet.cells.get(demo[0])?.style).toMatchObject({ "font/color": ROLE_STYLES.input.font, "font/italic": false, "fill/color": ROLE_STYLES.input.fill });
+    await stop();
+    expect((await port.makeShareCopy()).ok).toBe(true);
+  });
+});
+
 describe("Excel port: share copy", () => {
   async function calculatedEstimate() {
     const fake = new FakeExcel(["Sheet1"]);
     const port = excelPort(fake, new Date(2026, 4, 4));
-    const { sheetName } = await port.insertEstimateSheet("US");
+    // the demo scenario given as the user's own: no demo value marked, nothing to refuse the copy for
+    const { sheetName } = await port.insertEstimateSheet("US", demoScenario("US"));
     // what Excel shows once every function has answered: a number per formula cell (its row, to tell them apart)
     calculate(fake, sheetName, (a) => parseCell(a).row + 1);
     return { fake, port, sheetName };
@@ -455,11 +505,32 @@ describe("Excel port: share copy", () => {
       const p = parseCell(a);
       const moved = copy.cells.get(cellAddress({ row: p.row + 2, col: p.col }));
       expect(moved?.formula, a).toBeUndefined();
-      expect(moved?.value, a).toEqual(c.value);
+      // the note asking to overwrite the inputs says the cells are frozen instead
+      expect(moved?.value, a).toEqual(c.value === INPUTS_NOTE ? FROZEN_NOTE : c.value);
     }
     // the names still point at the source
     expect(fake.nameTarget("Supply_Static")?.sheet).toBe(sheetName);
     expect(copy.charts).toHaveLength(1);
+  });
+
+  it("looks frozen: no input shading, and the frozen note where the inputs note was", async () => {
+    const { fake, port, sheetName } = await calculatedEstimate();
+    const note = [...fake.sheetByName(sheetName)!.cells].find(([, c]) => c.value === INPUTS_NOTE)![0];
+    const inputs = [...fake.sheetByName(sheetName)!.cells].filter(([, c]) => c.style?.["fill/color"] === ROLE_STYLES.input.fill);
+    expect(inputs.length).toBeGreaterThan(30);
+    const result = await port.makeShareCopy();
+    if (!result.ok) throw new Error(result.reason);
+    const copy = fake.sheetByName(result.sheetName)!;
+    const down = (a: string) => cellAddress({ row: parseCell(a).row + SHARE_STAMP_ROWS, col: parseCell(a).col });
+    expect(copy.cells.get(down(note))?.value).toBe(FROZEN_NOTE);
+    expect([...copy.cells].filter(([, c]) => c.style?.["fill/color"] === ROLE_STYLES.input.fill)).toEqual([]);
+    // the inputs' values stay, in the calculated cells' ink
+    for (const [a, c] of inputs) {
+      expect(copy.cells.get(down(a))?.value, a).toEqual(c.value);
+      expect(copy.cells.get(down(a))?.style?.["font/color"], a).toBe(ROLE_STYLES.computed.font);
+    }
+    // the source keeps its look
+    expect(fake.sheetByName(sheetName)!.cells.get(inputs[0][0])?.style?.["fill/color"]).toBe(ROLE_STYLES.input.fill);
   });
 
   it("refuses while cells show #BUSY!, says so, and adds no sheet", async () => {

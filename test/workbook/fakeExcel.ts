@@ -142,12 +142,17 @@ export class FakeExcel {
     return s;
   }
 
-  /** Set a cell as a user would; fires the change events. */
+  /**
+   * Set a cell as a user would; fires the change events, with the change's details (the value before and after, as
+   * Excel gives them for a change of one cell: WorksheetChangedEventArgs.details, ExcelApi 1.9).
+   */
   setCell(sheet: string, address: string, cell: FakeCell | null): void {
     const s = this.sheetByName(sheet)!;
+    const before = s.cells.get(address)?.value ?? "";
     if (cell === null) s.cells.delete(address);
     else s.cells.set(address, cell);
-    void this.fire(this.changed, { address: `${sheet}!${address}`, changeType: "RangeEdited", source: "Local" });
+    const details = { valueBefore: before, valueAfter: cell?.value ?? "" };
+    void this.fire(this.changed, { address: `${sheet}!${address}`, worksheetId: String(s.id), changeType: "RangeEdited", source: "Local", details });
     if (cell?.formula) void this.fire(this.calculated, { address: `${sheet}!${address}` });
   }
 
@@ -349,8 +354,9 @@ class Session {
           return s ? this.sheetProxy(s) : this.nullProxy();
         },
         add: (n: string) => this.sheetProxy(this.x.addSheet(n)),
+        // by name or by id, as WorksheetCollection.getItem takes either
         getItem: (n: string) => {
-          const s = this.x.sheetByName(n);
+          const s = this.x.sheetByName(n) ?? this.x.sheets.find((x) => String(x.id) === n);
           if (!s) throw new Error(`ItemNotFound: no sheet ${n}`);
           return this.sheetProxy(s);
         },
@@ -498,7 +504,18 @@ class Session {
         rowHeight: 0,
         wrapText: false,
         verticalAlignment: "",
-        fill: { color: "" },
+        fill: {
+          color: "",
+          // RangeFill.clear: the fill goes (ExcelApi 1.1)
+          clear: () => {
+            if (!range) return;
+            for (let i = 0; i < range.rows; i++)
+              for (let j = 0; j < range.cols; j++) {
+                const c = sheet.cells.get(cellAddress({ row: range.start.row + i, col: range.start.col + j }));
+                if (c?.style) delete c.style["fill/color"];
+              }
+          },
+        },
         font: { color: "", bold: false, italic: false, size: 11 },
       },
       merge: () => {

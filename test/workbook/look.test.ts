@@ -105,7 +105,8 @@ describe.each(["US", "SI"] as const)("the caution wraps alike in both hosts, %s"
 
     const fake = new FakeExcel(["Sheet1"]);
     const port = createExcelPort({ run: fake.run, runIn: fake.runIn, now: () => new Date(2026, 4, 4), settleMs: 5, supports: () => true });
-    const { sheetName } = await port.insertEstimateSheet(units);
+    // the demo scenario given as the user's own, as the preview's sheet above: no demo value to refuse the copy for
+    const { sheetName } = await port.insertEstimateSheet(units, demoScenario(units));
     // what Excel shows once every function has answered
     for (const c of fake.sheetByName(sheetName)!.cells.values()) if (c.formula) Object.assign(c, { value: 1, error: false });
     const made = await port.makeShareCopy();
