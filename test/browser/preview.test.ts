@@ -252,6 +252,9 @@ describe("the preview of the sample that needs a pump", () => {
     // the pane says which input is wrong instead of a verdict
     expect(await page.locator('[data-role="problems"] li').count()).toBeGreaterThan(0);
     expect(await page.locator('[data-role="problems"]').textContent()).toMatch(/Supply_Static/);
+    // said as the input to change (the cell typed into), once for every name it reaches: one input needs attention
+    expect(await page.locator('[data-role="problems"] li').first().textContent()).toMatch(new RegExp(`^Estimate!${staticCell} holds "abc": `));
+    expect(await verdict()).toBe("One input needs attention");
     // every other input still holds what it held
     const after = await inputs();
     for (const [address, text] of Object.entries(before)) {
