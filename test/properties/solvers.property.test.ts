@@ -6,10 +6,9 @@
 import { describe, expect } from "vitest";
 import { fc, test } from "@fast-check/vitest";
 import * as f from "../../src/functions/functions";
-import { velocity } from "../../src/engine/friction";
 import { scheduleSizes } from "../../src/engine/pipes";
 import { solveAreaDemand, solveHeadsDemand } from "../../src/engine/tree";
-import { gridLayout, solveGridDemand } from "../../src/engine/gridded";
+import { GRID_FLOOR_TOLERANCE, gridLayout, solveGridDemand } from "../../src/engine/gridded";
 import { STANDARD_RATED_CAPACITIES_GPM } from "../../src/engine/pump";
 import { BAR_PER_PSI, KSI_PER_KUS, L_PER_GAL, M2_PER_FT2, MMMIN_PER_GPMFT2, MM_PER_IN, M_PER_FT } from "../../src/engine/units";
 import { BLANKS, NOT_NUMBERS, NOT_POSITIVE, arb, givesError } from "./arbitraries";
@@ -138,16 +137,20 @@ describe("HEADSDEMAND", () => {
     expect(line1(a.branch * k)).toBeGreaterThan(line1(a.branch));
   });
   test.prop([design, d(0.6, 0.95)], RUNS)(
-    "pressure never falls as the branch lines shrink, the water within 20 ft/s (common practice)",
+    "pressure never falls as the branch lines shrink, where the cross main loses no more than the remote line (common practice)",
     (a, k) => {
       // Not so beyond: a smaller branch line lowers each further line's K, so the further lines draw less and the cross
-      // main loses less. Where the cross main's loss dominates, the pressure at the last line then falls (found by this
-      // property: 38 lines of one K 8.18 sprinkler at 7 psi on a 4 in cross main, 1103 gpm at 28 ft/s, came out
-      // 33.971964 psi with 4 in branch lines and 33.971952 psi with 3 in ones). Within 20 ft/s in the cross main and in
-      // the smaller branch lines, none was found in 67 000 random designs of 1 to 40 sprinklers.
+      // main loses less. Where the cross main's loss dominates, the pressure at the last line then falls. Found by this
+      // property, first at 28 ft/s in the cross main (38 lines of one K 8.18 sprinkler at 7 psi on a 4 in cross main:
+      // 33.971964 psi with 4 in branch lines, 33.971952 psi with 3 in ones), then within 20 ft/s too (35 lines of one
+      // K 5.6 sprinkler at 7.19 psi, 20.4 ft apart, on a 3.95 in cross main, C 100: 50.21 psi with 1.20 in branch
+      // lines, 49.49 psi with 0.91 in ones, 1.4 % less; the cross main loses 75 times what the remote line does). Where
+      // the cross main loses no more than the remote line, none was found in some 120 000 random designs of 1 to 40
+      // sprinklers.
       const before = solveHeadsDemand(engineInput(a));
       const after = solveHeadsDemand(engineInput(a, a.branch * k));
-      fc.pre(velocity(before.flow, a.main) <= 20 && velocity(after.lineFlows[0], a.branch * k) <= 20);
+      const crossMainLoss = before.pressure - before.linePressures[0];
+      fc.pre(crossMainLoss <= before.linePressures[0] - a.pmin);
       expect(after.pressure).toBeGreaterThanOrEqual(before.pressure * (1 - 1e-12));
       expect(solveHeads(a, a.branch * k)[1]).toBe(after.pressure);
     },
@@ -237,7 +240,8 @@ describe("GRIDDEMAND", () => {
     const qReq = Math.max(a.density * a.coverage, a.k * Math.sqrt(7)); // [NFPA 13]
     const flows = r.solved!.grid.flowing.map((i) => s.outflow[i]);
     r.solved!.grid.flowing.forEach((i) => expect(s.outflow[i] / (a.k * Math.sqrt(s.pressure[i]))).toBeCloseTo(1, 12));
-    expect(Math.abs(Math.min(...flows) / qReq - 1)).toBeLessThanOrEqual(1e-7);
+    // within 1e-7 as the search asks, or GRID_FLOOR_TOLERANCE where its bracket closed at the network solve's floor
+    expect(Math.abs(Math.min(...flows) / qReq - 1)).toBeLessThanOrEqual(GRID_FLOOR_TOLERANCE);
     expect(flows.reduce((x, y) => x + y, 0) / r.flow).toBeCloseTo(1, 10);
   });
   test.prop([gridded, d(1.05, 1.6)], GRID_RUNS)("pressure never rises as the branch lines grow", (a, k) => {
