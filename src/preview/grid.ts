@@ -16,6 +16,7 @@ import { DEFAULT_COLUMN_WIDTH_PT } from "../workbook/look";
 import { contentText } from "./format";
 import { isFormula } from "./model";
 import type { CellView, PreviewWorkbook, WorkbookChange } from "./workbook";
+import { isShareStamp } from "../workbook/port";
 
 /** Points to CSS pixels. */
 const PX_PER_PT = 96 / 72;
@@ -48,6 +49,9 @@ function isEmpty(v: CellView): boolean {
 
 /** What a demo value's cell says, as its title and on the message line. */
 const DEMO_NOTE = "Demo value of a new estimate sheet: type your own over it (F2, then Enter, keeps this one as yours).";
+
+/** What any cell of a share copy's sheet says on the message line. */
+const FROZEN_CELL = "A frozen value of this share copy: change the estimate sheet and make a new copy.";
 
 function describeRole(v: CellView): string {
   if (v.style?.demo) return DEMO_NOTE;
@@ -680,7 +684,7 @@ export class Grid {
       const anchor = this.wb.content(this.wb.activeSheet, v.spilledFrom);
       message = `Spilled from ${v.spilledFrom}: ${String(anchor)}`;
     } else {
-      message = describeRole(v);
+      message = isShareStamp(this.wb.value(this.wb.activeSheet, "A1")) ? FROZEN_CELL : describeRole(v);
     }
     if (this.el.message.classList.contains("is-error") !== isError) this.el.message.classList.toggle("is-error", isError);
     if (this.el.message.textContent !== message) this.el.message.textContent = message;

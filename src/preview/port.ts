@@ -244,12 +244,15 @@ export class PreviewPort implements WorkbookPort {
   }
 }
 
-/** A cell's style in a share copy: an input is a frozen value like any other, unshaded; number formats stay. */
+/**
+ * A cell's style in a share copy: an input or a calculated cell is a frozen value like any other, neither shaded nor
+ * marked as calculated; number formats stay.
+ */
 function frozenStyle(style: CellStyle | undefined): CellStyle | undefined {
   if (!style) return undefined;
   const kept: CellStyle = { ...style };
   delete kept.demo;
-  if (kept.role === "input") delete kept.role;
+  if (kept.role === "input" || kept.role === "computed") delete kept.role;
   return Object.keys(kept).length ? kept : undefined;
 }
 

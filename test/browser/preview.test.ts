@@ -203,6 +203,7 @@ describe("the preview of the sample that needs a pump", () => {
     expect((await (await at(verdictCell)).textContent())?.trim()).toBe(await verdict());
     expect(await (await at("B13")).getAttribute("class")).toMatch(/role-input/); // test 1's static pressure
     expect(Object.keys(await scan(".spilled")).length).toBeGreaterThan(10);
+    await at("A1"); // the sheet from its top, as it opens
     await page.screenshot({ path: `${RESULTS}/preview.png` });
   });
 
@@ -1068,8 +1069,11 @@ describe("input lands where the user typed it", () => {
     await page.waitForSelector('[data-role="sheet-tabs"] [data-sheet^="Estimate values "][aria-selected="true"]');
     expect(await banner.isVisible()).toBe(true);
     expect(await banner.textContent()).toMatch(/frozen values/);
-    expect(await scan(".role-input")).toEqual({});
+    // neither shaded as inputs nor marked as calculated: every cell is a frozen value, and says so when selected
+    expect(await scan(".role-input, .role-computed")).toEqual({});
     expect(Object.values(await scan("td")).filter((text) => /overwrite the demo values/.test(text))).toEqual([]);
+    await (await at("B15")).click();
+    expect(await page.locator('[data-role="cell-message"]').textContent()).toBe("A frozen value of this share copy: change the estimate sheet and make a new copy.");
     await page.screenshot({ path: `${RESULTS}/preview-share-copy.png` });
     await page.click('[data-role="sheet-tabs"] [data-sheet="Estimate"]');
     expect(await banner.isVisible()).toBe(false);

@@ -116,7 +116,7 @@ describe("a share copy looks frozen", () => {
     const made = new PreviewPort(wb, () => new Date(2026, 4, 4)).shareCopyData();
     if (!made.ok) throw new Error(made.reason);
     const cells = Object.values(made.sheet.cells);
-    expect(cells.filter((c) => c.style?.role === "input")).toEqual([]);
+    expect(cells.filter((c) => c.style?.role === "input" || c.style?.role === "computed")).toEqual([]);
     expect(cells.filter((c) => typeof c.content === "string" && /^Shaded cells are inputs/.test(c.content))).toEqual([]);
     expect(made.sheet.cells[note!.address.replace(/\d+$/, (r) => String(Number(r) + 2))].content).toMatch(/frozen value/);
     expect(cells.filter((c) => c.style?.demo)).toEqual([]);
