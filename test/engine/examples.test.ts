@@ -99,6 +99,7 @@ const OWN_VALUES: Readonly<Record<string, string>> = {
   "pump.ts RATED_PRESSURE_STEP_BAR": "the vocabulary's rounding rule for PUMPSIZE",
   "units.ts QUANTITIES": "unit names, with the factors defined above it",
   "gridded.ts GRID_SEARCH_TOLERANCE": "the grid search's own tolerance",
+  "gridded.ts GRID_FLOOR_TOLERANCE": "the grid search's own tolerance where the network solve's floor is reached",
   "gridded.ts DEFAULT_FEED_LINE": "the vocabulary's default",
   "gridded.ts GRID_TIE_TOLERANCE": "the grid search's own tolerance",
 };
