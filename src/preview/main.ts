@@ -193,30 +193,54 @@ async function main(): Promise<void> {
   /** Put `data` in the workbook's place (throws, changing nothing, if it cannot be read), under `name`. */
   const replace = (data: WorkbookData, name: string, from: string | null): void => {
     wb.load(data);
+    loads++;
     fileName = name;
     sample = from;
     showName();
     grid.select("A1");
   };
 
+  /** Opens begun: each takes the next number, and an answer that a later open has overtaken is dropped. */
+  let opens = 0;
+  /** Workbooks put in place so far: a save that finishes after another workbook came does not rename it. */
+  let loads = 0;
+
+  /**
+   * Open the workbook `read` gives in place of the open one, under `name`. Asked first while there are unsaved
+   * changes; the file is read off the page, which keeps answering, so if the workbook changed meanwhile it is asked
+   * again; an open overtaken by a later one is dropped; one that fails leaves the workbook as it was. True if opened.
+   */
+  const openWorkbook = async (question: string, read: () => Promise<{ workbook: WorkbookData; notes: string[] }>, name: string, from: string | null): Promise<boolean> => {
+    if (!mayReplace(question)) return false;
+    const ticket = ++opens;
+    const revision = wb.revision;
+    status(`Opening ${name}…`);
+    let result: { workbook: WorkbookData; notes: string[] };
+    try {
+      result = await read();
+      if (ticket !== opens) return false;
+      const changed = wb.revision !== revision && keeper.dirty;
+      if (changed && !window.confirm(`The workbook changed while ${name} was being read.\n\nOpen ${name} in its place? The changes to ${fileName} that are not saved will be lost.`)) {
+        status(`Did not open ${name}: the workbook is as you left it.`);
+        return false;
+      }
+      // the workbook is built aside: if that fails, the open workbook stays as it was
+      replace(result.workbook, name, from);
+    } catch (e) {
+      if (ticket === opens) status(`Could not open ${name}: ${(e as Error).message}`, true);
+      return false;
+    }
+    opened(name, result.notes);
+    await keeper.markClean();
+    return true;
+  };
+
   picker.addEventListener("change", async () => {
     const s = samples.find((x) => x.file === picker.value);
     if (!s) return;
-    if (!mayReplace(`Open the sample "${s.title}"?`)) {
-      showName();
-      return;
-    }
-    try {
-      // the file is read and the workbook built aside: if either fails, the open workbook stays as it was
-      const { workbook, notes } = await readBytes(await (await fetchOk(`samples/${s.file}`)).arrayBuffer());
-      replace(workbook, s.file, s.file);
-      current = s;
-      opened(s.file, notes);
-      await keeper.markClean();
-    } catch (e) {
-      showName();
-      status(`Could not open ${s.file}: ${(e as Error).message}`, true);
-    }
+    const done = await openWorkbook(`Open the sample "${s.title}"?`, async () => readBytes(await (await fetchOk(`samples/${s.file}`)).arrayBuffer()), s.file, s.file);
+    if (done) current = s;
+    showName();
   });
 
   const input = $<HTMLInputElement>("file-input");
@@ -225,15 +249,7 @@ async function main(): Promise<void> {
     const file = input.files?.[0];
     input.value = "";
     if (!file) return;
-    if (!mayReplace(`Open ${file.name}?`)) return;
-    try {
-      const { workbook, notes } = await readBytes(await file.arrayBuffer());
-      replace(workbook, file.name, null);
-      opened(file.name, notes);
-      await keeper.markClean();
-    } catch (e) {
-      status(`Could not open ${file.name}: ${(e as Error).message}`, true);
-    }
+    await openWorkbook(`Open ${file.name}?`, async () => readBytes(await file.arrayBuffer()), file.name, null);
   });
 
   /** The name Save suggests for a workbook opened from a sample: the estimate's site, never the sample's file. */
@@ -255,14 +271,17 @@ async function main(): Promise<void> {
       return;
     }
     const revision = wb.revision;
+    const loaded = loads;
     const data = wb.toData();
     const { writeXlsx } = await xlsx();
     download(await writeXlsx(data, known), name);
+    status(`Saved ${name} with formulas and their values.`);
+    // another workbook opened while this one was written keeps its own name
+    if (loads !== loaded) return;
     fileName = name;
     sample = null;
     showName();
     await keeper.markClean(revision);
-    status(`Saved ${name} with formulas and their values.`);
   });
 
   $("save-share-copy").addEventListener("click", async () => {

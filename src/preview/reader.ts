@@ -1,7 +1,8 @@
 /**
  * Opening a file without holding the page still: the bytes go to a worker (./readWorker.ts) that unzips, counts and
  * parses them, and the page only receives the workbook read, or the reason it could not be. Where the browser
- * cannot start the worker, the file is read on the page instead (the same ./xlsx.ts readXlsx, only slower to answer).
+ * cannot start the worker, the file is read on the page instead (the same ./xlsx.ts readXlsx, only slower to answer);
+ * a worker that started and then failed ends the open with its error (the bytes were handed to it).
  */
 import type { ReadAnswer, ReadRequest } from "./readWorker";
 import type { ReadResult } from "./xlsx";

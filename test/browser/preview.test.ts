@@ -664,6 +664,41 @@ describe("nothing is lost", () => {
     expect(await verdict()).toBe(before.verdict);
   });
 
+  test("an edit made while a file is read off the page is asked about again: Cancel keeps it, the file is not opened", async () => {
+    await open(PUMP_SAMPLE);
+    const margin = await valueCellOf("Required margin");
+    // a file large enough to take a while in the reader (100,000 cells), so that the edit lands while it reads
+    const file = path.join(RESULTS, "slow-to-read.xlsx");
+    await writeFileBytes(file, await bigXlsx(5000, 20));
+    dialogs.length = 0;
+    answerDialogs((d) => d.dismiss()); // the workbook changed meanwhile: no, keep it
+    await page.setInputFiles('[data-role="file-input"]', file);
+    expect(await statusText()).toBe("Opening slow-to-read.xlsx…");
+    await typeInto(margin, "13");
+    await expect.poll(statusText, { timeout: 60_000 }).toBe("Did not open slow-to-read.xlsx: the workbook is as you left it.");
+    expect(dialogs.map((d) => d.message)).toEqual([expect.stringMatching(/^The workbook changed while slow-to-read\.xlsx was being read\./)]);
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(PUMP_SAMPLE);
+    expect((await (await at(margin)).textContent())?.trim()).toBe("13.0");
+  });
+
+  test("of two opens, the later wins: a sample picked while a large file is read is what stays open", async () => {
+    await open(PUMP_SAMPLE);
+    const file = path.join(RESULTS, "overtaken.xlsx");
+    await writeFileBytes(file, await bigXlsx(5000, 20));
+    const reader = page.waitForEvent("worker");
+    await page.setInputFiles('[data-role="file-input"]', file);
+    const fileReader = await reader;
+    const answered = fileReader.waitForEvent("close", { timeout: 60_000 }); // the page ends each reader once it has answered
+    expect(await statusText()).toBe("Opening overtaken.xlsx…");
+    await page.selectOption('[data-role="sample-picker"]', OFFICE_SAMPLE);
+    await expect.poll(statusText, { timeout: 60_000 }).toBe(`Opened ${OFFICE_SAMPLE}.`);
+    // the large file's answer comes after and is dropped
+    await answered;
+    await settle();
+    expect(await page.locator('[data-role="file-name"]').textContent()).toBe(OFFICE_SAMPLE);
+    expect(await statusText()).toBe(`Opened ${OFFICE_SAMPLE}.`);
+  });
+
   test("a file whose names Excel takes and the engine would read as cells (Flow1, Pump1) opens and computes", async () => {
     await open(OFFICE_SAMPLE);
     const file = await writeFile("names-like-cells.xlsx", (ws, wb) => {
