@@ -108,6 +108,8 @@ export class PreviewPort implements WorkbookPort {
     if (sheet === null || !wb.sheetNames().includes(sheet)) return [];
     const spills = new Map<string, ReturnType<PreviewWorkbook["spills"]>>();
     const spillsOf = (s: string) => spills.get(s) ?? spills.set(s, wb.spills(s)).get(s)!;
+    const sizes = new Map<number, { width: number; height: number }>();
+    const sizeOf = (id: number) => sizes.get(id) ?? sizes.set(id, hf.getSheetDimensions(id)).get(id)!;
     const start = cellAddress(parseRange(range.replace(/\$/g, "")).start);
     const seen = new Set<string>([`${sheet}!${start}`]);
     const queue: Array<[string, string]> = [[sheet, start]];
@@ -138,7 +140,13 @@ export class PreviewPort implements WorkbookPort {
         const [from, to] = "start" in p ? [p.start, p.end] : [p, p];
         const name = hf.getSheetName(from.sheet);
         if (name === undefined) continue;
-        for (let row = from.row; row <= to.row; row++) for (let col = from.col; col <= to.col; col++) push(name, cellAddress({ row, col }));
+        // a whole column (B:B) ends at row Infinity, a whole row (3:3) at column Infinity: the sheet's filled part
+        // bounds the block, and the walk's limit ends it
+        const { width, height } = sizeOf(from.sheet);
+        const lastRow = Math.min(to.row, height - 1);
+        const lastCol = Math.min(to.col, width - 1);
+        for (let row = from.row; row <= lastRow && seen.size < SOURCE_WALK_LIMIT; row++)
+          for (let col = from.col; col <= lastCol && seen.size < SOURCE_WALK_LIMIT; col++) push(name, cellAddress({ row, col }));
       }
     }
     return found;

@@ -164,3 +164,23 @@ describe("the pane's messages over the preview's estimate sheet", () => {
     expect(m.problems[0].message).toMatch(/Supply_TestFlow \(Estimate!B\d+\)/);
   });
 });
+
+describe("the preview's walk back to the inputs over a whole column or row", () => {
+  // HyperFormula gives B:B as a block ending at row Infinity, 3:3 as one ending at column Infinity
+  test(
+    "finds the inputs in a column or row a formula reads whole, and ends",
+    async () => {
+      const { execFile } = await import("node:child_process");
+      const script = new URL("./wholeColumnWalk.ts", import.meta.url).pathname;
+      // a hang guard, not a timing check: a walk that never ends is killed and the test fails
+      const out = await new Promise<string>((resolve, reject) =>
+        execFile(process.execPath, ["--import", "tsx", script], { timeout: 15_000 }, (err, stdout) => (err ? reject(err.killed ? new Error("the walk did not end: killed") : err) : resolve(stdout))),
+      );
+      const behind = JSON.parse(out) as Record<string, Array<{ address: string; reading: unknown }>>;
+      expect(behind["S!C1"].map((s) => s.address)).toEqual(["S!A1", "S!B2"]);
+      expect(behind["S!C1"][0].reading).toMatchObject({ kind: "text", value: "abc" });
+      expect(behind["S!C2"].map((s) => s.address)).toEqual(["S!D3"]);
+    },
+    30_000,
+  );
+});
