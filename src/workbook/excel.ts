@@ -198,11 +198,26 @@ const PRECEDENTS_API = "1.12";
 async function inputsBehind(host: ExcelHost, addresses: readonly string[]): Promise<Record<string, SourceInput[]>> {
   const none = () => Object.fromEntries(addresses.map((a) => [a, [] as SourceInput[]]));
   if (addresses.length === 0 || !host.supports("ExcelApi", PRECEDENTS_API)) return none();
-  return host.run(async (ctx) => {
-    const out: Record<string, SourceInput[]> = {};
-    for (const a of addresses) out[a] = await sourcesOf(ctx, a);
-    return out;
-  });
+  // best effort: what is found only sharpens the pane's messages, so a walk Excel fails maps its address to no
+  // input (the pane then names the formula cell) and never keeps the pane from showing its problems
+  try {
+    return await host.run(async (ctx) => {
+      const out: Record<string, SourceInput[]> = {};
+      for (const a of addresses) out[a] = await sourcesOf(ctx, a).catch(() => []);
+      return out;
+    });
+  } catch {
+    return none();
+  }
+}
+
+/** A block's cells, or null for a whole column or row ("K:K", "3:3") and anything else that is not a block of cells. */
+function cellBlock(range: string): ReturnType<typeof parseRange> | null {
+  try {
+    return parseRange(range);
+  } catch {
+    return null;
+  }
 }
 
 /** "Sheet1!A1:B4, 'Pipe run'!D1" → its blocks, each with its sheet (a comma inside a quoted sheet name stays). */
@@ -279,7 +294,9 @@ async function sourcesOf(ctx: Ctx, address: string): Promise<SourceInput[]> {
     // what the cells found hold
     const blocks: Array<{ sheet: string; start: ReturnType<typeof parseRange>["start"]; cells: string[] }> = [];
     for (const area of areas.flatMap(splitAreas)) {
-      const r = parseRange(area.range);
+      // a whole column or row read by a formula (SUM(K:K)) is passed over: its cells are not walked
+      const r = cellBlock(area.range);
+      if (!r) continue;
       const cells: string[] = [];
       for (let i = 0; i < r.rows; i++)
         for (let j = 0; j < r.cols; j++) {

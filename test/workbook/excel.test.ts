@@ -303,6 +303,54 @@ describe("Excel port: the inputs behind a formula", () => {
     expect(behind).toEqual({ "Inputs!J4": [{ address: "Inputs!J1", reading: { kind: "text", value: "abc", address: "Inputs!J1" } }] });
   });
 
+  it("passes over a whole column or row a formula reads (getDirectPrecedents gives Sheet!$K:$K) and finds the inputs beside it", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    fake.setCell("Inputs", "J1", { value: "abc", style: { "fill/color": ROLE_STYLES.input.fill } });
+    fake.setCell("Inputs", "K1", { value: 5 });
+    fake.setCell("Inputs", "J2", { value: "#VALUE!", error: true, formula: "=J1+SUM(K:K)+SUM(3:3)" });
+    const behind = await excelPort(fake).inputsBehind(["Inputs!J2"]);
+    expect(Object.keys(behind)).toEqual(["Inputs!J2"]);
+    expect(behind["Inputs!J2"]).toContainEqual({ address: "Inputs!J1", reading: { kind: "text", value: "abc", address: "Inputs!J1" } });
+  });
+
+  it("is best effort: where Excel fails the walk, the address maps to no input and the call does not fail", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    fake.setCell("Inputs", "J1", { value: "abc", style: { "fill/color": ROLE_STYLES.input.fill } });
+    fake.setCell("Inputs", "J2", { value: "#VALUE!", error: true, formula: "=J1+1" });
+    const failing = createExcelPort({
+      run: () => Promise.reject(new Error("GeneralException: the request failed")),
+      runIn: fake.runIn,
+      now: () => new Date(),
+      settleMs: SETTLE_MS,
+      supports: () => true,
+    });
+    expect(await failing.inputsBehind(["Inputs!J2"])).toEqual({ "Inputs!J2": [] });
+  });
+
+  it("under the pane: a name reading a whole column shows its problem, naming the input behind it", async () => {
+    const fake = new FakeExcel(["Inputs"]);
+    const h = harness(fake);
+    // the flow-test and demand inputs of the engine's decision tests [NFPA 291]
+    for (const [name, value] of [["Units", "US"], ["Supply_Static", 72], ["Supply_TestFlow", 1100], ["Demand_Flow", 562], ["Demand_Pressure", 48]] as const) {
+      await h.put(name, value);
+    }
+    // an input that shows an error itself: the problem names it rather than the name's formula cell
+    fake.setCell("Inputs", "J1", { value: "#N/A", error: true, style: { "fill/color": ROLE_STYLES.input.fill } });
+    await h.putFormula("Supply_Residual", "=J1+SUM(K:K)", 0);
+    const residual = fake.nameTarget("Supply_Residual")!.address;
+    Object.assign(fake.sheetByName("Inputs")!.cells.get(residual)!, { value: "#VALUE!", error: true });
+    const doc = new Window().document as unknown as Document;
+    const root = doc.createElement("div");
+    doc.body.appendChild(root);
+    const pane = mountPane(root, excelPort(fake), { width: 320 });
+    await pane.ready;
+    await pane.idle();
+    const m = pane.model();
+    if (m?.kind !== "problems") throw new Error(JSON.stringify(m));
+    expect(m.problems.map((p) => p.cell)).toContain("Inputs!J1");
+    await pane.destroy();
+  });
+
   it("finds nothing, and asks Excel nothing, where Excel lacks ExcelApi 1.12", async () => {
     const fake = new FakeExcel(["Inputs"]);
     fake.setCell("Inputs", "J1", { value: "abc", style: { "fill/color": ROLE_STYLES.input.fill } });

@@ -274,6 +274,16 @@ export class FakeExcel {
       if (!on) continue;
       out.push(`${quoteSheet(on.name)}!${m[2]}${m[3]}${m[4] ? `:${m[4]}${m[5]}` : ""}`);
     }
+    // whole columns (B:B) and whole rows (3:3), which Excel's getDirectPrecedents gives as "Sheet1!$B:$B", "Sheet1!$3:$3"
+    const whole = /(?:('(?:[^']|'')+'|[A-Za-z_][A-Za-z0-9_.]*)!)?(\$?[A-Z]{1,3}:\$?[A-Z]{1,3}|\$?\d+:\$?\d+)(?![A-Za-z0-9_(])/g;
+    for (const m of body.matchAll(whole)) {
+      const before = m.index > 0 ? body[m.index - 1] : "";
+      if (/[A-Za-z0-9_.:$]/.test(before)) continue;
+      const on = m[1] ? this.sheetByName(m[1].replace(/^'|'$/g, "").replace(/''/g, "'")) : sheet;
+      if (!on) continue;
+      const [a, b] = m[2].replace(/\$/g, "").split(":");
+      out.push(`${quoteSheet(on.name)}!$${a}:$${b}`);
+    }
     for (const [n, t] of this.names) {
       if (!new RegExp(`(^|[^A-Za-z0-9_.])${n}($|[^A-Za-z0-9_.(])`, "i").test(body)) continue;
       const on = this.sheets.find((s) => s.id === t.sheetId);
