@@ -383,11 +383,14 @@ async function subscribe(host: ExcelHost, onChange: () => void): Promise<() => P
  * value before was not empty (WorksheetChangedEventArgs.details, "the information about the change detail ... when
  * the Changed event is triggered on a single cell", ExcelApi 1.9,
  * https://learn.microsoft.com/javascript/api/excel/excel.worksheetchangedeventargs): the same value typed again
- * counts, and the add-in's own writes into a new sheet's empty cells do not.
+ * counts, and the add-in's own writes into a new sheet's empty cells do not. A change of many cells comes without
+ * details: replacedOver.
  */
 async function typedOver(host: ExcelHost, e: Excel.WorksheetChangedEventArgs): Promise<void> {
-  const before = e.details?.valueBefore;
-  if (e.changeType !== "RangeEdited" || before === undefined || before === null || before === "") return;
+  if (e.changeType !== "RangeEdited") return;
+  if (!e.details) return replacedOver(host, e);
+  const before = e.details.valueBefore;
+  if (before === undefined || before === null || before === "") return;
   try {
     await host.run(async (ctx) => {
       const range = ctx.workbook.worksheets.getItem(e.worksheetId).getRange(splitSheet(e.address).range);
@@ -402,6 +405,84 @@ async function typedOver(host: ExcelHost, e: Excel.WorksheetChangedEventArgs): P
   } catch {
     // the sheet went meanwhile: nothing to mark
   }
+}
+
+/**
+ * A change of more than one cell (a paste, a fill, Ctrl+Enter, Delete over a block) comes without details: the port
+ * reads the changed cells that can hold a demo value (the template's demo cells' block) in one round trip, and a cell
+ * of the demo look whose value is no longer its demo value (either unit system's) is the user's. A cell still
+ * holding its demo value keeps the look: the add-in's own writes of a new sheet, a demo value pasted back. A block
+ * the demo cells lie outside of costs no round trip.
+ */
+async function replacedOver(host: ExcelHost, e: Excel.WorksheetChangedEventArgs): Promise<void> {
+  const changed = blockBounds(splitSheet(e.address).range);
+  const demo = demoValues();
+  if (!changed) return;
+  const top = Math.max(changed.top, demo.bounds.top);
+  const left = Math.max(changed.left, demo.bounds.left);
+  const bottom = Math.min(changed.bottom, demo.bounds.bottom);
+  const right = Math.min(changed.right, demo.bounds.right);
+  if (top > bottom || left > right) return;
+  try {
+    await host.run(async (ctx) => {
+      const sheet = ctx.workbook.worksheets.getItem(e.worksheetId);
+      const range = sheet.getRange(`${cellAddress({ row: top, col: left })}:${cellAddress({ row: bottom, col: right })}`);
+      range.load("values");
+      const look = range.getCellProperties({ format: { font: { color: true, italic: true } } });
+      await ctx.sync();
+      let cleared = 0;
+      for (let i = 0; i <= bottom - top; i++)
+        for (let j = 0; j <= right - left; j++) {
+          const cell = cellAddress({ row: top + i, col: left + j });
+          const was = demo.values.get(cell);
+          if (!was || !isDemoLook(look.value[i]?.[j]?.format?.font) || was.includes(range.values[i]?.[j] as string | number | boolean)) continue;
+          const font = sheet.getRange(cell).format.font;
+          font.color = ROLE_STYLES.input.font!;
+          font.italic = false;
+          cleared++;
+        }
+      if (cleared > 0) await ctx.sync();
+    });
+  } catch {
+    // the sheet went meanwhile: nothing to mark
+  }
+}
+
+/** "B3:D9", "B:D" (whole columns), "3:9" (whole rows) → its rows and columns from 0, a whole one's end at Infinity. */
+function blockBounds(range: string): { top: number; left: number; bottom: number; right: number } | null {
+  const r = range.replace(/\$/g, "");
+  const cols = /^([A-Z]+):([A-Z]+)$/.exec(r);
+  if (cols) {
+    const [a, b] = [parseCell(`${cols[1]}1`).col, parseCell(`${cols[2]}1`).col];
+    return { top: 0, left: Math.min(a, b), bottom: Infinity, right: Math.max(a, b) };
+  }
+  const rows = /^(\d+):(\d+)$/.exec(r);
+  if (rows) {
+    const [a, b] = [Number(rows[1]) - 1, Number(rows[2]) - 1];
+    return { top: Math.min(a, b), left: 0, bottom: Math.max(a, b), right: Infinity };
+  }
+  const block = cellBlock(r);
+  return block && { top: block.start.row, left: block.start.col, bottom: block.start.row + block.rows - 1, right: block.start.col + block.cols - 1 };
+}
+
+let demoValuesMade: { values: Map<string, Array<string | number | boolean>>; bounds: { top: number; left: number; bottom: number; right: number } } | undefined;
+
+/** The demo value of each cell a new sheet marks (markDemoValues), in either unit system, and their block. */
+function demoValues(): NonNullable<typeof demoValuesMade> {
+  if (demoValuesMade) return demoValuesMade;
+  const values = new Map<string, Array<string | number | boolean>>();
+  for (const units of ["US", "SI"] as const) {
+    for (const c of demoCellsOf(estimateTemplate(demoScenario(units)))) values.set(c.address, [...(values.get(c.address) ?? []), c.value]);
+  }
+  const refs = [...values.keys()].map(parseCell);
+  const bounds = {
+    top: Math.min(...refs.map((r) => r.row)),
+    left: Math.min(...refs.map((r) => r.col)),
+    bottom: Math.max(...refs.map((r) => r.row)),
+    right: Math.max(...refs.map((r) => r.col)),
+  };
+  demoValuesMade = { values, bounds };
+  return demoValuesMade;
 }
 
 /** Whether a cell's font is the demo look. */
@@ -500,13 +581,17 @@ function writeCells(sheet: Excel.Worksheet, t: SheetTemplate): void {
 
 /** The demo look on every input holding a value, but the Units cell, which the user chose in the pane. */
 function markDemoValues(sheet: Excel.Worksheet, t: SheetTemplate): void {
-  const units = t.names.find((n) => n.name === "Units")?.address;
-  for (const c of t.cells) {
-    if (c.role !== "input" || c.value === undefined || c.value === "" || c.address === units) continue;
+  for (const c of demoCellsOf(t)) {
     const font = sheet.getRange(c.address).format.font;
     font.color = DEMO_LOOK.font;
     font.italic = DEMO_LOOK.italic;
   }
+}
+
+/** The template's inputs holding a value, but the Units cell: the cells a new sheet marks as demo values. */
+function demoCellsOf(t: SheetTemplate): Array<SheetTemplate["cells"][number] & { value: string | number }> {
+  const units = t.names.find((n) => n.name === "Units")?.address;
+  return t.cells.filter((c): c is SheetTemplate["cells"][number] & { value: string | number } => c.role === "input" && c.value !== undefined && c.value !== "" && c.address !== units);
 }
 
 /**

@@ -528,6 +528,47 @@ describe("Excel port: demo values", () => {
   });
 });
 
+describe("Excel port: demo values replaced a block at a time", () => {
+  const hasDemoLook = (c: FakeCell | undefined) => c?.style?.["font/color"] === DEMO_LOOK.font && c?.style?.["font/italic"] === true;
+
+  it("a paste, fill or Ctrl+Enter over demo values (a change of many cells, without details) leaves the demo look only on cells still holding their demo value", async () => {
+    const fake = new FakeExcel(["Sheet1"]);
+    const port = excelPort(fake, new Date(2026, 4, 4));
+    const { sheetName } = await port.insertEstimateSheet("US");
+    calculate(fake, sheetName, (a) => parseCell(a).row + 1);
+    const sheet = fake.sheetByName(sheetName)!;
+    const marked = () => [...sheet.cells].filter(([, c]) => hasDemoLook(c)).map(([a]) => a);
+    const demo = marked();
+    // two demo cells one above the other: the first replaced, the second given its own demo value again
+    const [first, second] = demo
+      .map((a) => [a, cellAddress({ row: parseCell(a).row + 1, col: parseCell(a).col })])
+      .find(([, below]) => demo.includes(below))!;
+    const stop = await port.subscribe(() => {});
+    const cell = (a: string, value: string | number) => ({ ...structuredClone(sheet.cells.get(a)!), value });
+    const own = typeof sheet.cells.get(first)!.value === "number" ? (sheet.cells.get(first)!.value as number) + 1 : "typed by the user";
+    fake.setBlock(sheetName, `${first}:${second}`, [[cell(first, own)], [cell(second, sheet.cells.get(second)!.value as number | string)]]);
+    await vi.waitFor(() => expect(hasDemoLook(sheet.cells.get(first))).toBe(false));
+    expect(sheet.cells.get(first)?.style).toMatchObject({ "font/color": ROLE_STYLES.input.font, "font/italic": false, "fill/color": ROLE_STYLES.input.fill });
+    expect(hasDemoLook(sheet.cells.get(second))).toBe(true);
+    expect(marked().sort()).toEqual(demo.filter((a) => a !== first).sort());
+
+    // a block the demo values lie outside of: no round trip to Excel
+    const syncs = fake.syncs;
+    fake.setBlock(sheetName, "AA200:AB201", [[{ value: 1 }, { value: 2 }], [{ value: 3 }, { value: 4 }]]);
+    await wait(4 * SETTLE_MS);
+    expect(fake.syncs).toBe(syncs);
+    await stop();
+
+    // the share copy is refused for the demo values left, no longer for the one replaced
+    const left = demo
+      .filter((a) => a !== first)
+      .map(parseCell)
+      .sort((a, b) => a.row - b.row || a.col - b.col)
+      .map((r) => `${sheetName}!${cellAddress(r)}`);
+    expect(await port.makeShareCopy()).toEqual({ ok: false, reason: demoRefusal(left.slice(0, 5), demo.length - 1) });
+  });
+});
+
 describe("Excel port: share copy", () => {
   async function calculatedEstimate() {
     const fake = new FakeExcel(["Sheet1"]);

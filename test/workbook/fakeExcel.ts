@@ -156,6 +156,23 @@ export class FakeExcel {
     if (cell?.formula) void this.fire(this.calculated, { address: `${sheet}!${address}` });
   }
 
+  /**
+   * Set a block of cells as a user would in one step (a paste, a fill, Ctrl+Enter): one change event for the block,
+   * without details, which Excel gives for a change of one cell only (WorksheetChangedEventArgs.details, ExcelApi 1.9).
+   */
+  setBlock(sheet: string, range: string, cells: Array<Array<FakeCell | null>>): void {
+    const s = this.sheetByName(sheet)!;
+    const r = parseRange(range);
+    cells.forEach((row, i) =>
+      row.forEach((cell, j) => {
+        const a = cellAddress({ row: r.start.row + i, col: r.start.col + j });
+        if (cell === null) s.cells.delete(a);
+        else s.cells.set(a, cell);
+      }),
+    );
+    void this.fire(this.changed, { address: `${sheet}!${range}`, worksheetId: String(s.id), changeType: "RangeEdited", source: "Local" });
+  }
+
   /** Activate a sheet as a user would (clicking its tab); fires the activation events. */
   activate(sheet: string): void {
     const s = this.sheetByName(sheet)!;
