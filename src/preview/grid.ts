@@ -824,6 +824,18 @@ export class Grid {
     if (editing) this.el.sheet.focus({ preventScroll: true });
   }
 
+  /**
+   * Commit the cell being edited, if any, into its own cell (as a click elsewhere would), before a command changes
+   * the sheet or the selection; the keyboard focus stays where it was, unless it was in the editor.
+   */
+  commitEdit(): void {
+    const editor = this.editor;
+    if (!editor) return;
+    const focused = document.activeElement;
+    this.commit(editor.value, null);
+    if (focused instanceof HTMLElement && focused !== editor && focused.isConnected) focused.focus({ preventScroll: true });
+  }
+
   /** Move the active cell to `to`; `extend` keeps the anchor (the block grows or shrinks), else the block is one cell. */
   private moveTo(to: { row: number; col: number }, extend: boolean): void {
     const frame = this.frame;
@@ -883,7 +895,9 @@ export class Grid {
   }
 
   private onKey(e: KeyboardEvent): void {
-    if (this.editor || e.target !== this.el.sheet) return;
+    if (e.target !== this.el.sheet) return;
+    // an editor left open while the grid itself has the keys (a button took the focus) is committed first
+    this.commitEdit();
     const moves: Record<string, Direction> = {
       ArrowDown: "down",
       ArrowUp: "up",

@@ -69,6 +69,7 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
   const rowsText = (top: number, n: number) => (n === 1 ? `row ${top + 1}` : `rows ${top + 1} to ${top + n}`);
   const insertRows = () =>
     attempt(() => {
+      grid.commitEdit();
       const s = selection();
       wb.insertRows(s.sheet, s.start.row, s.rows);
       say(`Inserted ${s.rows === 1 ? "an empty row" : `${s.rows} empty rows`} as ${rowsText(s.start.row, s.rows)}; the rows below moved down. Ctrl+Z takes ${s.rows === 1 ? "it" : "them"} back.`);
@@ -76,6 +77,7 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
     });
   const deleteRows = () =>
     attempt(() => {
+      grid.commitEdit();
       const s = selection();
       wb.deleteRows(s.sheet, s.start.row, s.rows);
       grid.select(cellAddress(s.start));
@@ -90,6 +92,7 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
     if (!gridFocused()) return;
     e.preventDefault();
     attempt(() => {
+      grid.commitEdit();
       const s = selection();
       const text = cut ? wb.cutRange(s.sheet, s.range) : wb.copyRange(s.sheet, s.range);
       e.clipboardData?.setData("text/plain", text);
@@ -103,6 +106,7 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
     e.preventDefault();
     const text = e.clipboardData?.getData("text/plain") ?? "";
     attempt(() => {
+      grid.commitEdit();
       const s = selection();
       const at = cellAddress(s.start);
       const ours = wb.clipboardText;
@@ -140,7 +144,16 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
       el.sheet.focus();
     } else if (e.key === "Enter") {
       e.preventDefault();
-      const action = readNameBox(wb, el.nameBox.value, grid.sheet);
+      const typed = el.nameBox.value;
+      // a cell being edited is committed first: going elsewhere or naming the selection keeps what was typed
+      try {
+        grid.commitEdit();
+      } catch (err) {
+        say((err as Error).message, true);
+        return;
+      }
+      el.nameBox.value = typed; // the commit moved the focus through the grid, which showed the active cell here
+      const action = readNameBox(wb, typed, grid.sheet);
       if (action.kind === "problem") {
         say(action.message, true);
         el.nameBox.select();
@@ -182,7 +195,7 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
       e.preventDefault();
       // a cell being edited is committed first, as a click elsewhere would
       const editor = document.activeElement;
-      if (editor instanceof HTMLInputElement && editor.dataset.role === "cell-editor") grid.commit(editor.value, null);
+      if (editor instanceof HTMLInputElement && editor.dataset.role === "cell-editor") grid.commitEdit();
       const n = regions().length;
       const from = regionOf(document.activeElement);
       const start = from < 0 ? (e.shiftKey ? 0 : n - 1) : from;

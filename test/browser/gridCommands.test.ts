@@ -162,6 +162,55 @@ describe("rows", () => {
   });
 });
 
+describe("a cell being edited", () => {
+  test("Insert rows, Delete rows and the name box commit the typed text to its own cell first", async () => {
+    await open(OFFICE_SAMPLE);
+    await page.click('[data-role="sheet-tabs"] .tab.add');
+    await goTo("A1");
+    await typeHere("top", "Enter");
+    await goTo("A3");
+    await typeHere("below", "Enter");
+    // typing in A2, then Insert rows: the text stays in its cell, which moves down to A3 with the row
+    await goTo("A2");
+    await page.keyboard.type("typed");
+    await page.click('[data-role="insert-rows"]');
+    await settle();
+    expect(await activeContent("A2")).toBeNull();
+    expect(await activeContent("A3")).toBe("typed");
+    expect(await activeContent("A4")).toBe("below");
+    // a click elsewhere afterwards writes nothing more
+    await page.click('td[data-address="C1"]');
+    await settle();
+    expect(await activeContent("A2")).toBeNull();
+    expect(await activeContent("A3")).toBe("typed");
+
+    // typing in A3, then Delete rows: the text is committed, then its row goes; the row under it moves up
+    await goTo("A3");
+    await page.keyboard.type("gone with its row");
+    await page.click('[data-role="delete-rows"]');
+    await settle();
+    expect(await activeContent("A3")).toBe("below");
+    await page.click('td[data-address="C1"]');
+    await settle();
+    expect(await activeContent("A3")).toBe("below");
+
+    // typing in B1, then going to a cell with the name box: the text is kept
+    await goTo("B1");
+    await page.keyboard.type("kept");
+    await goTo("D4");
+    expect(await activeContent("B1")).toBe("kept");
+    expect((await selection()).active).toBe("D4");
+
+    // typing in B2, then naming the selection with the name box: the text is kept and the editor closed
+    await goTo("B2");
+    await page.keyboard.type("named");
+    await goTo("Edited_Cell");
+    expect(await activeContent("B2")).toBe("named");
+    expect(await ask((wb) => wb.nameTarget("Edited_Cell"), null)).toMatchObject({ kind: "cell", address: "B2" });
+    expect(await page.locator('[data-role="cell-editor"]').count()).toBe(0);
+  });
+});
+
 describe("copy and paste", () => {
   test("a copied block pastes elsewhere with its references moved; tab-separated text goes in as typed; each one Ctrl+Z", async () => {
     await open(OFFICE_SAMPLE);
