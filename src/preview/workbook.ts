@@ -523,6 +523,7 @@ export class PreviewWorkbook {
       sheet,
       change,
       (engine, sid) => {
+        const filled: Fill[] = [];
         const above = at > 0 ? formulasOf(engine, sid, at - 1) : new Map<number, string>();
         const below = formulasOf(engine, sid, at);
         engine.addRows(sid, [at, count]);
@@ -532,8 +533,12 @@ export class PreviewWorkbook {
           const kind = next === undefined ? undefined : sameColumn(formula, at - 1, next, at);
           if (!kind) continue;
           const moved = engine.getCellFormula({ sheet: sid, row: at - 1, col }) ?? formula;
-          for (let k = 1; k <= count; k++) engine.setCellContents({ sheet: sid, row: at - 1 + k, col }, [[shiftFormulaRows(moved, k, kind === "text")]]);
+          for (let k = 1; k <= count; k++) {
+            engine.setCellContents({ sheet: sid, row: at - 1 + k, col }, [[shiftFormulaRows(moved, k, kind === "text")]]);
+            filled.push({ from: { row: at - 1, col }, to: { row: at - 1 + k, col } });
+          }
         }
+        return filled;
       },
       () => {
         this.layout.moveRows(sheet, change);
@@ -560,7 +565,15 @@ export class PreviewWorkbook {
     }
     if (!this.hf.isItPossibleToRemoveRows(id, [at, count])) throw new Error(`delete ${rows}: the sheet has no such rows`);
     this.revision_++;
-    this.restructure(sheet, change, (engine, sid) => engine.removeRows(sid, [at, count]), () => this.layout.moveRows(sheet, change));
+    this.restructure(
+      sheet,
+      change,
+      (engine, sid) => {
+        engine.removeRows(sid, [at, count]);
+        return [];
+      },
+      () => this.layout.moveRows(sheet, change),
+    );
   }
 
   /** New rows `at`..`at+count-1` take the styles of row `from` (a demo value's mark stays behind: they are empty). */
@@ -582,9 +595,10 @@ export class PreviewWorkbook {
    * second engine where nothing spills (each spilling formula held as a formula of one cell): `rows` moves them there,
    * and that engine moves references, names and ranges as for any formula. Then the cells that differ are written
    * here, in one group: the spilling formulas cleared first and written last, so that undo, which takes the writes
-   * back in reverse, finds their blocks empty when it puts them back. `layout` moves the layout, in the same step.
+   * back in reverse, finds their blocks empty when it puts them back. `rows` returns the cells it filled from another
+   * (after the move): one filled from a spilling formula spills too. `layout` moves the layout, in the same step.
    */
-  private restructure(sheet: string, change: RowChange, rows: (engine: HyperFormula, sheet: number) => void, layout: () => void): void {
+  private restructure(sheet: string, change: RowChange, rows: (engine: HyperFormula, sheet: number) => Fill[], layout: () => void): void {
     const sheets = this.sheetNames();
     const ids = sheets.map((name) => this.sheetId(name));
     const before: RawCellContent[][][] = [];
@@ -610,7 +624,9 @@ export class PreviewWorkbook {
     const afterAnchors: Array<Set<string>> = [];
     let afterNames: Array<{ name: string; expression: string }>;
     try {
-      rows(engine, sheets.indexOf(sheet));
+      // the second engine's sheets by name: its positions need not follow ours (a name like "7" goes first)
+      const engineId = (name: string) => engine.getSheetId(name)!;
+      const filled = rows(engine, engineId(sheet));
       sheets.forEach((name, i) => {
         const moved = new Set<string>();
         for (const anchor of anchors[i]) {
@@ -618,9 +634,11 @@ export class PreviewWorkbook {
           const row = name === sheet ? movedRow(a.row, change) : a.row;
           if (row !== null) moved.add(cellAddress({ row, col: a.col }));
         }
+        // a cell filled from a spilling formula holds one too: written out as typed, and last, as the others
+        if (name === sheet) for (const { from, to } of filled) if (moved.has(cellAddress(from))) moved.add(cellAddress(to));
         afterAnchors.push(moved);
         after.push(
-          engine.getSheetSerialized(i).map((row, r) =>
+          engine.getSheetSerialized(engineId(name)).map((row, r) =>
             row.map((v, c) => {
               if (typeof v === "string" && moved.has(cellAddress({ row: r, col: c })) && v.startsWith(HELD.start) && v.endsWith(HELD.end)) return `=${v.slice(HELD.start.length, -HELD.end.length)}`;
               return v ?? null;
@@ -963,6 +981,12 @@ export class PreviewWorkbook {
 }
 
 /** The formulas of one row of an engine's sheet, by column. */
+/** A cell filled from another when rows are inserted (0-based rows and columns, after the move). */
+interface Fill {
+  from: { row: number; col: number };
+  to: { row: number; col: number };
+}
+
 function formulasOf(engine: HyperFormula, id: number, row: number): Map<number, string> {
   const out = new Map<number, string>();
   const { width } = engine.getSheetDimensions(id);

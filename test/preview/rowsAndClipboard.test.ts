@@ -151,6 +151,44 @@ describe("deleting rows", () => {
   });
 });
 
+describe("rows and spilling formulas, rows and sheet order", () => {
+  test("a row inserted in a column of spilling formulas takes the column's formula as written, and it spills", () => {
+    const wb = new PreviewWorkbook({
+      sheets: [{ name: "S", cells: { A1: { content: 1 }, A2: { content: 2 }, A3: { content: 3 }, B1: { content: "=A1*{1,2,3}" }, B2: { content: "=A2*{1,2,3}" }, B3: { content: "=A3*{1,2,3}" } } }],
+      names: [],
+      activeSheet: "S",
+    });
+    wb.insertRows("S", 1, 1);
+    // the rows above and below hold the same formula relative to their rows, so the new row takes it (common practice)
+    expect(wb.content("S", "B2")).toBe("=A2*{1,2,3}");
+    expect(wb.cell("S", "B2").spillRange).toBe("B2:D2");
+    expect(wb.content("S", "B1")).toBe("=A1*{1,2,3}");
+    expect(wb.content("S", "B3")).toBe("=A3*{1,2,3}");
+    expect(wb.cell("S", "B3").spillRange).toBe("B3:D3");
+    expect(wb.value("S", "D3")).toBe(6); // A3 (2, moved down) × 3 (hand arithmetic)
+    expect(wb.value("S", "D4")).toBe(9); // A4 (3, moved down) × 3 (hand arithmetic)
+    wb.undo();
+    expect(wb.content("S", "B2")).toBe("=A2*{1,2,3}");
+    expect(wb.value("S", "D2")).toBe(6); // 2 × 3 (hand arithmetic)
+    expect(wb.content("S", "B4")).toBeNull();
+  });
+
+  test("a sheet named like a number keeps its own cells when rows move on another sheet, and after undo", () => {
+    const wb = new PreviewWorkbook({ sheets: [{ name: "Estimate", cells: { A1: { content: "est-a1" }, A2: { content: "est-a2" }, A3: { content: 3 } } }], names: [], activeSheet: "Estimate" });
+    wb.addSheet({ name: "7", cells: { A1: { content: "seven-a1" }, A2: { content: 77 } } });
+    const cellsOf = (name: string) => Object.fromEntries(Object.entries(wb.contentData().sheets.find((x) => x.name === name)!.cells).map(([a, c]) => [a, c.content]));
+    wb.insertRows("Estimate", 1, 1);
+    expect(cellsOf("Estimate")).toEqual({ A1: "est-a1", A3: "est-a2", A4: 3 });
+    expect(cellsOf("7")).toEqual({ A1: "seven-a1", A2: 77 });
+    wb.undo();
+    expect(cellsOf("Estimate")).toEqual({ A1: "est-a1", A2: "est-a2", A3: 3 });
+    expect(cellsOf("7")).toEqual({ A1: "seven-a1", A2: 77 });
+    wb.deleteRows("7", 0, 1);
+    expect(cellsOf("Estimate")).toEqual({ A1: "est-a1", A2: "est-a2", A3: 3 });
+    expect(cellsOf("7")).toEqual({ A1: 77 });
+  });
+});
+
 describe("the pipe-run table of a new estimate sheet", () => {
   function estimate(): { wb: PreviewWorkbook; sheet: string; anchor: string } {
     const t = estimateTemplate(demoScenario("US"));
