@@ -701,8 +701,12 @@ export class PreviewWorkbook {
     return this.take(sheet, range, true);
   }
 
-  /** The text of the block last copied or cut (null: none, or a cut already pasted). */
+  /**
+   * The text of the block last copied or cut (null: none, a cut already pasted, or a cut the engine let go of: any
+   * edit after a cut ends it, and what was cut is then only text on the system clipboard).
+   */
   get clipboardText(): string | null {
+    if (this.clip && this.hf.isClipboardEmpty()) this.clip = null;
     return this.clip?.text ?? null;
   }
 
@@ -735,8 +739,9 @@ export class PreviewWorkbook {
    * place (part of a spill, past the sheet's edge).
    */
   paste(sheet: string, address: string): void {
+    if (this.clip && this.hf.isClipboardEmpty()) this.clip = null;
     const clip = this.clip;
-    if (!clip || this.hf.isClipboardEmpty()) throw new Error("paste: nothing copied yet; select cells and copy them first");
+    if (!clip) throw new Error("paste: nothing copied yet; select cells and copy them first");
     const at = this.addr(sheet, address);
     const end = { row: at.row + clip.rows - 1, col: at.col + clip.cols - 1 };
     if (end.row >= MAX_ROWS || end.col >= MAX_COLUMNS) {

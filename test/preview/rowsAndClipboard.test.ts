@@ -335,6 +335,21 @@ describe("copy, cut and paste", () => {
     expect(wb.style("S", "C1")).toEqual({ role: "input" });
   });
 
+  test("a cut followed by an edit: the workbook's block is gone, and its text pastes as typed", () => {
+    const wb = new PreviewWorkbook({ sheets: [{ name: "S", cells: { A1: { content: 1, style: { role: "input" } }, A2: { content: 2 }, B1: { content: "=A1*10" } } }], names: [], activeSheet: "S" });
+    const text = wb.cutRange("S", "A1:A2");
+    expect(wb.clipboardText).toBe(text);
+    wb.setTyped("S", "D5", "x");
+    // the edit ends the cut (common practice): nothing of the workbook's own to paste, the text is what remains
+    expect(wb.clipboardText).toBeNull();
+    expect(() => wb.paste("S", "C1")).toThrow("paste: nothing copied yet; select cells and copy them first");
+    wb.pasteText("S", "C1", text);
+    expect(wb.value("S", "C1")).toBe(1);
+    expect(wb.value("S", "C2")).toBe(2);
+    expect(wb.content("S", "A1")).toBe(1); // the cut cells stay where they were
+    expect(wb.value("S", "B1")).toBe(10); // 1 × 10 (hand arithmetic)
+  });
+
   test("tab-separated text from elsewhere: each cell as typed, one step to undo", () => {
     const wb = new PreviewWorkbook({ sheets: [{ name: "S", cells: {} }], names: [] });
     wb.setTyped("S", "A1", "keep");
