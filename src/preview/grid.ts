@@ -412,18 +412,38 @@ export class Grid {
         }
         if (above.length) this.topSpacer!.parentElement!.after(...above);
         if (below.length) this.bottomSpacer!.parentElement!.before(...below);
+        // the edited row kept outside the window stays in sheet order: the window's rows move around it (moving the
+        // editor's own row would take the focus from it)
+        const kept = this.keptRow(first, last);
+        if (kept) {
+          const rows = [...this.drawn].filter(([r]) => r !== kept.r).sort(([a], [b]) => a - b).map(([, row]) => row.tr);
+          if (kept.r < first) kept.tr.after(...rows);
+          else kept.tr.before(...rows);
+        }
         this.first = first;
         this.last = last;
       }
       const items = this.virtualizer.measurementsCache;
       const margin = this.virtualizer.options.scrollMargin;
-      const topPx = items[first] ? items[first].start - margin : 0;
-      const bottomPx = items[last] && items.length ? items[items.length - 1].end - items[last].end : 0;
+      // the kept row's own height comes off the spacer on its side, so the window's rows stay where they belong
+      const kept = this.keptRow(first, last);
+      const keptPx = kept ? (items[kept.r]?.size ?? 0) : 0;
+      const topPx = Math.max(0, (items[first] ? items[first].start - margin : 0) - (kept && kept.r < first ? keptPx : 0));
+      const bottomPx = Math.max(0, (items[last] && items.length ? items[items.length - 1].end - items[last].end : 0) - (kept && kept.r > last ? keptPx : 0));
       setHeight(this.topSpacer!, topPx);
       setHeight(this.bottomSpacer!, bottomPx);
     } finally {
       this.drawing = false;
     }
+  }
+
+  /** The drawn row holding the editor when it lies outside the window `first`..`last`. */
+  private keptRow(first: number, last: number): { r: number; tr: HTMLTableRowElement } | undefined {
+    if (!this.editorCell) return undefined;
+    for (const [r, row] of this.drawn) {
+      if ((r < first || r > last) && row.tr.contains(this.editorCell)) return { r, tr: row.tr };
+    }
+    return undefined;
   }
 
   private dropRow(r: number, row: DrawnRow): void {

@@ -211,6 +211,30 @@ describe("a cell being edited", () => {
   });
 });
 
+describe("scrolling while a cell is edited", () => {
+  test("the edited cell's row stays drawn and every drawn row stays in sheet order", async () => {
+    await open(PUMP_SAMPLE);
+    await goTo("A1");
+    await page.keyboard.type("typed");
+    const drawnRows = () =>
+      page.evaluate(() => [...document.querySelectorAll('[data-role="grid"] tbody tr')].map((tr) => tr.querySelector("td[data-address]")?.getAttribute("data-address")).filter((a): a is string => !!a).map((a) => Number(a.replace(/^[A-Z]+/, ""))));
+    const scrollTo = async (part: number) => {
+      await page.evaluate((p) => {
+        const sheet = document.querySelector<HTMLElement>('[data-role="grid"]')!;
+        sheet.scrollTop = (sheet.scrollHeight - sheet.clientHeight) * p;
+      }, part);
+      await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r))));
+    };
+    for (const part of [1, 0.5, 0.8, 0.3, 1]) {
+      await scrollTo(part);
+      const rows = await drawnRows();
+      expect(rows).toContain(1);
+      expect(rows, `scrolled to ${part}`).toEqual([...rows].sort((a, b) => a - b));
+    }
+    expect(await page.locator('[data-role="cell-editor"]').inputValue()).toBe("typed");
+  });
+});
+
 describe("copy and paste", () => {
   test("a copied block pastes elsewhere with its references moved; tab-separated text goes in as typed; each one Ctrl+Z", async () => {
     await open(OFFICE_SAMPLE);
