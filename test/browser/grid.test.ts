@@ -5,47 +5,30 @@
  * The DOM is watched with a MutationObserver: what a click or an edit changes in the grid is counted against what
  * really changed. No timings here: those are `npm run bench:browser`'s.
  */
-import { existsSync } from "node:fs";
-import type { Server } from "node:http";
-import { chromium, type Browser, type Page } from "playwright-core";
+import type { Page } from "playwright-core";
 import { afterAll, beforeAll, beforeEach, describe, expect, test } from "vitest";
 import { cellAddress, parseCell } from "../../src/workbook/a1";
-import { startServer } from "../../scripts/start-server.mjs";
+import { type PreviewSession, openSample, startPreview } from "./previewPage";
 
-const CHROMIUM = "/usr/bin/chromium";
 const PUMP_SAMPLE = "tinker-row-manufacturing-pump-needed.xlsx";
 /** Rows of the long sheet (the issue's 10,000-row case). */
 const LONG_ROWS = 10_000;
 
-let server: Server;
-let browser: Browser;
+let session: PreviewSession;
 let page: Page;
-let base: string;
-const problems: string[] = [];
 
 beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: apt-get install -y --no-install-recommends chromium (see .ci/run)`);
-  if (!existsSync("dist/preview/index.html")) throw new Error("dist/preview/index.html is missing: run npm run build");
-  const started = await startServer({ dir: "dist", port: 0 });
-  server = started.server;
-  base = started.url;
-  browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: ["--disable-gpu", "--disable-quic"] });
-  page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
-  page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
-  page.on("dialog", (d) => (d.type() === "beforeunload" ? d.accept() : d.dismiss()));
+  session = await startPreview();
+  page = session.page;
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await new Promise((r) => (server ? server.close(r) : r(undefined)));
-  expect(problems).toEqual([]);
+  await session?.close();
+  expect(session.problems).toEqual([]);
 });
 
 async function open(): Promise<void> {
-  await page.goto(`${base}preview/?sample=${encodeURIComponent(PUMP_SAMPLE)}`);
-  await page.waitForSelector("body[data-ready]", { timeout: 60_000 });
-  expect(await page.getAttribute("body", "data-ready")).toBe("1");
-  if (await page.locator('[data-role="restore-offer"]').isVisible()) await page.click('[data-role="restore-decline"]');
+  await openSample(session, PUMP_SAMPLE);
   await settle();
 }
 

@@ -5,48 +5,30 @@
  *
  * Run with `npm run test:browser` (it builds first).
  */
-import { existsSync } from "node:fs";
-import type { Server } from "node:http";
-import { chromium, type Browser, type JSHandle, type Page } from "playwright-core";
+import type { JSHandle, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { parseRange } from "../../src/workbook/a1";
-import { startServer } from "../../scripts/start-server.mjs";
+import { type PreviewSession, openSample, startPreview } from "./previewPage";
 
-const CHROMIUM = "/usr/bin/chromium";
 const PUMP_SAMPLE = "tinker-row-manufacturing-pump-needed.xlsx";
 const OFFICE_SAMPLE = "quill-street-office-supply-suffices.xlsx";
 
-let server: Server;
-let base: string;
-let browser: Browser;
+let session: PreviewSession;
 let page: Page;
-const problems: string[] = [];
 
 beforeAll(async () => {
-  if (!existsSync(CHROMIUM)) throw new Error(`${CHROMIUM} is missing: apt-get install -y --no-install-recommends chromium (see .ci/run)`);
-  if (!existsSync("dist/preview/index.html")) throw new Error("dist/preview/index.html is missing: run npm run build");
-  const started = await startServer({ dir: "dist", port: 0 });
-  server = started.server;
-  base = started.url;
-  browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: ["--disable-gpu", "--disable-quic"] });
-  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } });
-  page = await context.newPage();
-  page.on("dialog", (d) => void (d.type() === "beforeunload" ? d.accept() : d.dismiss()));
-  page.on("pageerror", (e) => problems.push(`page error: ${e.message}`));
+  session = await startPreview();
+  page = session.page;
 });
 
 afterAll(async () => {
-  await browser?.close();
-  await new Promise((r) => (server ? server.close(r) : r(undefined)));
-  expect(problems).toEqual([]);
+  await session?.close();
+  expect(session.problems).toEqual([]);
 });
 
 /** Open the preview on a sample, declining work an earlier test left kept in the browser. */
 async function open(sample: string): Promise<void> {
-  await page.goto(`${base}preview/?sample=${encodeURIComponent(sample)}`);
-  await page.waitForSelector("body[data-ready]", { timeout: 60_000 });
-  expect(await page.getAttribute("body", "data-ready")).toBe("1");
-  if (await page.locator('[data-role="restore-offer"]').isVisible()) await page.click('[data-role="restore-decline"]');
+  await openSample(session, sample);
   workbook = await page.evaluateHandle(() => (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook);
   await settle();
 }
