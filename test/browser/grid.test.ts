@@ -6,29 +6,19 @@
  * really changed. No timings here: those are `npm run bench:browser`'s.
  */
 import type { Page } from "playwright-core";
-import { afterAll, beforeAll, beforeEach, describe, expect, test } from "vitest";
+import { beforeAll, beforeEach, describe, expect, test } from "vitest";
 import { cellAddress, parseCell } from "../../src/workbook/a1";
-import { type PreviewSession, openSample, startPreview } from "./previewPage";
+import { openSample, usePreview } from "./previewPage";
 
 const PUMP_SAMPLE = "tinker-row-manufacturing-pump-needed.xlsx";
 /** Rows of the long sheet (the issue's 10,000-row case). */
 const LONG_ROWS = 10_000;
 
-let session: PreviewSession;
 let page: Page;
-
-beforeAll(async () => {
-  session = await startPreview();
-  page = session.page;
-});
-
-afterAll(async () => {
-  await session?.close();
-  expect(session.problems).toEqual([]);
-});
+const session = usePreview((s) => (page = s.page));
 
 async function open(): Promise<void> {
-  await openSample(session, PUMP_SAMPLE);
+  await openSample(session(), PUMP_SAMPLE);
   await settle();
 }
 

@@ -6,29 +6,19 @@
  * Run with `npm run test:browser` (it builds first).
  */
 import type { JSHandle, Page } from "playwright-core";
-import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { describe, expect, test } from "vitest";
 import { parseRange } from "../../src/workbook/a1";
-import { type PreviewSession, openSample, startPreview } from "./previewPage";
+import { openSample, usePreview } from "./previewPage";
 
 const PUMP_SAMPLE = "tinker-row-manufacturing-pump-needed.xlsx";
 const OFFICE_SAMPLE = "quill-street-office-supply-suffices.xlsx";
 
-let session: PreviewSession;
 let page: Page;
-
-beforeAll(async () => {
-  session = await startPreview();
-  page = session.page;
-});
-
-afterAll(async () => {
-  await session?.close();
-  expect(session.problems).toEqual([]);
-});
+const session = usePreview((s) => (page = s.page));
 
 /** Open the preview on a sample, declining work an earlier test left kept in the browser. */
 async function open(sample: string): Promise<void> {
-  await openSample(session, sample);
+  await openSample(session(), sample);
   workbook = await page.evaluateHandle(() => (window as unknown as { headroomPreview: { workbook: Wb } }).headroomPreview.workbook);
   await settle();
 }

@@ -4,6 +4,7 @@
  */
 import { existsSync } from "node:fs";
 import { chromium, type Page } from "playwright-core";
+import { afterAll, beforeAll, expect } from "vitest";
 import { startServer } from "../../scripts/start-server.mjs";
 
 const CHROMIUM = "/usr/bin/chromium";
@@ -67,4 +68,24 @@ export async function openSample(s: PreviewSession, sample: string): Promise<voi
   await s.page.waitForSelector("body[data-ready]", { timeout: 60_000 });
   if ((await s.page.getAttribute("body", "data-ready")) !== "1") throw new Error(`the preview did not start on ${sample}`);
   if (await s.page.locator('[data-role="restore-offer"]').isVisible()) await s.page.click('[data-role="restore-decline"]');
+}
+
+/**
+ * A test file's browser: started before its first test (`onStart` gets it) and closed after its last, which fails if
+ * the page reported an error meanwhile. Returns the session's getter.
+ */
+export function usePreview(onStart: (s: PreviewSession) => void = () => {}): () => PreviewSession {
+  let session: PreviewSession | undefined;
+  beforeAll(async () => {
+    session = await startPreview();
+    onStart(session);
+  });
+  afterAll(async () => {
+    await session?.close();
+    expect(session?.problems ?? []).toEqual([]);
+  });
+  return () => {
+    if (!session) throw new Error("the preview has not started");
+    return session;
+  };
 }
