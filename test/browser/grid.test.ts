@@ -11,7 +11,7 @@ import { cellAddress, parseCell } from "../../src/workbook/a1";
 import { openSample, usePreview } from "./previewPage";
 
 const PUMP_SAMPLE = "tinker-row-manufacturing-pump-needed.xlsx";
-/** Rows of the long sheet (the 10,000-row case). */
+/** Rows of the long sheet: 10,000, the size the grid is meant to keep up with. */
 const LONG_ROWS = 10_000;
 
 let page: Page;

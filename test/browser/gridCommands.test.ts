@@ -352,7 +352,7 @@ describe("the keyboard", () => {
     await settle();
     for (const { address } of inputs) expect(await ask((wb, a) => wb.style(wb.activeSheet, a)?.demo, address), address).toBeUndefined();
     console.log(`ten inputs of a new estimate sheet: ${presses} key presses (102 before the name box and Tab/F6)`);
-    expect(presses).toBeLessThan(102); // the count measured before this change (issue 11)
+    expect(presses).toBeLessThan(102); // the count measured with the grid before the name box and Tab/F6
   });
 });
 

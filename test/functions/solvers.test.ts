@@ -285,7 +285,7 @@ describe("AREADEMAND", () => {
     // the end sprinkler is the same in both: 0.20 × 120 = 24 gpm at (24 / 8)² = 9 psi [NFPA 13]
     expect(wetEnd).toBeCloseTo(9, 12);
     expect(dryEnd).toBeCloseTo(9, 12);
-    // The whole-number figures issue 12 gives for this area, 397 gpm at 43 psi and 611 gpm at 78 psi, are the solve
+    // The whole-number figures for this area, 397 gpm at 43 psi (wet) and 611 gpm at 78 psi (dry), are the solve
     // test/engine/tree.test.ts works through by hand, here on 4 lines: reproduced to the precision stated.
     expect(Math.round(wetFlow)).toBe(397);
     expect(Math.round(wetPressure)).toBe(43);

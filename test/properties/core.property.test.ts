@@ -33,7 +33,7 @@ const cFactor = { bad: [...NOT_NUMBERS, ...BLANKS, ...NOT_POSITIVE, 201, 1e6] };
 const optionalPositive = { bad: [...NOT_NUMBERS, ...NOT_POSITIVE] };
 const units = { bad: BAD_UNITS };
 
-/** The issue-2 functions with a valid call and what each argument must refuse. */
+/** The core functions (friction, supply, sprinkler, decision) with a valid call and what each argument must refuse. */
 export const CORE_SPECS: FnSpec[] = [
   { name: "FRICTION", fn: f.friction as Call, valid: [500, 4.026, 120, 100, null], args: [nonNegative, positive, cFactor, nonNegative, units] },
   { name: "FRICTIONRATE", fn: f.frictionrate as Call, valid: [500, 4.026, 120, null], args: [nonNegative, positive, cFactor, units] },
