@@ -199,8 +199,8 @@ export class PreviewWorkbook {
   private revision_ = 0;
   /** the layout's steps, attached to the engine's undo entries they belong with */
   private layoutSteps = new WeakMap<object, LayoutStep>();
-  /** while a step is being recorded: whether it runs, and the layout as it was before its first layout change */
-  private recording = false;
+  /** while one undo step runs: whether it does, and the layout as it was before its first layout change */
+  private inUndoStep = false;
   private layoutBefore: Layout | null = null;
   private clip: Clip | null = null;
   activeSheet = "";
@@ -297,7 +297,7 @@ export class PreviewWorkbook {
    */
   group<T>(steps: () => T): T {
     if (this.grouping) return steps();
-    return this.recorded(() =>
+    return this.asUndoStep(() =>
       this.quietly(() => {
         let result: T | undefined;
         this.hf.batch(() => {
@@ -312,24 +312,24 @@ export class PreviewWorkbook {
    * Do `steps`, one step of the engine's undo history at most, and attach to it what they changed in the layout, so
    * that undo and redo take the layout back and forth with the contents.
    */
-  private recorded<T>(steps: () => T): T {
-    if (this.recording) return steps();
-    this.recording = true;
+  private asUndoStep<T>(steps: () => T): T {
+    if (this.inUndoStep) return steps();
+    this.inUndoStep = true;
     this.layoutBefore = null;
     const entryBefore = top(undoStacks(this.hf)?.undoStack);
     try {
       return steps();
     } finally {
-      this.recording = false;
+      this.inUndoStep = false;
       const entry = top(undoStacks(this.hf)?.undoStack);
       if (this.layoutBefore && entry && entry !== entryBefore) this.layoutSteps.set(entry, { before: this.layoutBefore, after: this.layout.clone() });
       this.layoutBefore = null;
     }
   }
 
-  /** Call before changing the layout: the first change of a step being recorded keeps the layout as it was. */
+  /** Call before changing the layout: the first change within an undo step keeps the layout as it was. */
   private touchLayout(): void {
-    if (this.recording && !this.layoutBefore) this.layoutBefore = this.layout.clone();
+    if (this.inUndoStep && !this.layoutBefore) this.layoutBefore = this.layout.clone();
   }
 
   /** Do `steps`, telling the listeners of their changes once, at the end. */
@@ -411,7 +411,7 @@ export class PreviewWorkbook {
   /** Put content into a cell (null clears it). A demo value's mark goes: what is there now is the user's. */
   setContent(sheet: string, address: string, content: CellContent): void {
     this.revision_++;
-    this.recorded(() => {
+    this.asUndoStep(() => {
       this.ownValue(sheet, address);
       this.touch(sheet, address);
       this.hf.setCellContents(this.addr(sheet, address), [[toEngine(content, this.names_)]]);
@@ -750,7 +750,7 @@ export class PreviewWorkbook {
     this.revision_++;
     try {
       // the engine's paste is one step of its own (it reads values, so it cannot run inside a group)
-      this.recorded(() => this.quietly(() => {
+      this.asUndoStep(() => this.quietly(() => {
         this.hf.paste(at);
         this.touchLayout();
         if (clip.cut) for (let i = 0; i < clip.rows; i++) for (let k = 0; k < clip.cols; k++) this.setStyle(clip.sheet, cellAddress({ row: clip.row + i, col: clip.col + k }), undefined);

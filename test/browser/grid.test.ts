@@ -64,7 +64,7 @@ async function sheetWith(name: string, cells: Record<string, unknown>): Promise<
 }
 
 /**
- * Start recording what changes under the grid: each mutation's cell (its data-address), or "(structure)" for rows or
+ * Start watching what changes under the grid: each mutation's cell (its data-address), or "(structure)" for rows or
  * cells added or taken away, "(header)" for the row and column headers. `stopWatching` returns the records.
  */
 async function watch(): Promise<void> {
