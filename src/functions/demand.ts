@@ -158,8 +158,11 @@ function areaDemandRow(
   return demandRow(solveAreaDemand(inp, headLoss(u)), u);
 }
 
-/** A solved tree design area as AREADEMAND and HEADSDEMAND spill it: [flow, pressure, heads, lines, end_pressure]. */
-function demandRow(r: AreaDemand, u: UnitSystem): unknown[][] {
+/**
+ * A solved design area as AREADEMAND and HEADSDEMAND spill it, and GRIDDEMAND begins its row: [flow, pressure, heads,
+ * lines, end_pressure].
+ */
+function demandRow(r: Pick<AreaDemand, "flow" | "pressure" | "heads" | "lines" | "endPressure">, u: UnitSystem): unknown[][] {
   return [
     [
       fromUS("flow", r.flow, u),
@@ -282,17 +285,7 @@ export function griddemand(
       feedLine: isBlank(feed_line) ? DEFAULT_FEED_LINE : numberArg(feed_line, "feed_line"),
     };
     const r = solveGridDemand(inp, headLoss(u));
-    return [
-      [
-        fromUS("flow", r.flow, u),
-        fromUS("pressure", r.pressure, u),
-        r.heads,
-        r.lines,
-        fromUS("pressure", r.endPressure, u),
-        r.firstLine,
-        r.firstHead,
-      ],
-    ];
+    return [[...demandRow(r, u)[0], r.firstLine, r.firstHead]];
   });
 }
 
