@@ -120,10 +120,11 @@ export function attachGridCommands(grid: Grid, wb: PreviewWorkbook, el: CommandE
         cols = lines[0].split("\t").length;
         wb.paste(s.sheet, at);
       } else if (text) {
-        wb.pasteText(s.sheet, at, text);
-        const lines = text.replace(/\r?\n$/, "").split(/\r?\n/);
-        rows = lines.length;
-        cols = Math.max(...lines.map((l) => l.split("\t").length));
+        ({ rows, cols } = wb.pasteText(s.sheet, at, text));
+        if (!rows) {
+          say("Nothing to paste: the clipboard's text holds no cell.", true);
+          return;
+        }
       } else {
         say("Nothing to paste: the clipboard holds no text.", true);
         return;

@@ -772,18 +772,20 @@ export class PreviewWorkbook {
 
   /**
    * Paste tab-separated text (from another program, or typed) with its top-left cell at `address`, as one step to
-   * undo: each cell as if typed into it (numbers, TRUE/FALSE, formulas, text), a demo value's mark gone.
+   * undo: each cell as if typed into it (numbers, TRUE/FALSE, formulas, text), a demo value's mark gone. Returns the
+   * block's size (0 × 0 for text that holds no cell).
    */
-  pasteText(sheet: string, address: string, text: string): void {
+  pasteText(sheet: string, address: string, text: string): { rows: number; cols: number } {
     const rows = fromTabText(text);
-    if (!rows.length) return;
+    if (!rows.length) return { rows: 0, cols: 0 };
     const at = parseCell(address);
-    const width = Math.max(...rows.map((r) => r.length));
+    const width = rows.reduce((w, r) => Math.max(w, r.length), 0);
     if (at.row + rows.length > MAX_ROWS || at.col + width > MAX_COLUMNS) {
       throw new Error(`paste at ${address}: got ${rows.length} × ${width} cells; they must fit within row ${MAX_ROWS.toLocaleString("en-US")} and column ${columnLetters(MAX_COLUMNS - 1)}`);
     }
     this.sheetId(sheet);
     this.group(() => rows.forEach((r, i) => r.forEach((typed, k) => this.setTyped(sheet, cellAddress({ row: at.row + i, col: at.col + k }), typed))));
+    return { rows: rows.length, cols: width };
   }
 
   // ─── Names ─────────────────────────────────────────────────────────────────────────────────────────────────────

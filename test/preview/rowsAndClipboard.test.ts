@@ -353,7 +353,8 @@ describe("copy, cut and paste", () => {
   test("tab-separated text from elsewhere: each cell as typed, one step to undo", () => {
     const wb = new PreviewWorkbook({ sheets: [{ name: "S", cells: {} }], names: [] });
     wb.setTyped("S", "A1", "keep");
-    wb.pasteText("S", "B2", "1,250\t=B2*2\r\n2-1/2\tTRUE\r\n'40\t\"two\tcells\"\r\n");
+    // 3 rows of 2 cells, whatever the text's tabs and line ends inside quotes
+    expect(wb.pasteText("S", "B2", "1,250\t=B2*2\r\n2-1/2\tTRUE\r\n'40\t\"two\tcells\"\r\n")).toEqual({ rows: 3, cols: 2 });
     expect(wb.value("S", "B2")).toBe(1250);
     expect(wb.value("S", "C2")).toBe(2500); // 1250 × 2 (hand arithmetic)
     expect(wb.value("S", "B3")).toBe("2-1/2"); // a nominal size stays text (common practice)
@@ -363,6 +364,9 @@ describe("copy, cut and paste", () => {
     wb.undo();
     for (const a of ["B2", "C2", "B3", "C3", "B4", "C4"]) expect(wb.content("S", a), a).toBeNull();
     expect(wb.value("S", "A1")).toBe("keep");
+    // a quoted cell with a line break in it is one cell: 1 row of 2
+    expect(wb.pasteText("S", "B2", '"line\nbreak"\t5')).toEqual({ rows: 1, cols: 2 });
+    expect(wb.pasteText("S", "B2", "")).toEqual({ rows: 0, cols: 0 });
   });
 
   test("tab-separated text: quoting and line ends (common practice)", () => {
