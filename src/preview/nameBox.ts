@@ -18,6 +18,20 @@ const RANGE = /^\$?([A-Za-z]{1,3})\$?(\d+)(?::\$?([A-Za-z]{1,3})\$?(\d+))?$/;
 const LAST_COLUMN = columnIndex("XFD");
 /** A name as Excel takes one (from memory): a letter, "_" or "\" first, then letters, digits, "." and "_". */
 const NAME = /^[\p{L}_\\][\p{L}\p{N}_.]*$/u;
+/** The longest name Excel takes, in characters (from memory). */
+const MAX_NAME_LENGTH = 255;
+
+/** Whether Excel would take `text` as a new name (from memory): the pattern above, no cell, R or C, TRUE or FALSE. */
+function newName(text: string): boolean {
+  return (
+    NAME.test(text) &&
+    text.length <= MAX_NAME_LENGTH &&
+    !cellLike(text) &&
+    !/^[RrCc]$/.test(text) &&
+    !/^[Rr]\d*[Cc]\d*$/.test(text) &&
+    !/^(true|false)$/i.test(text)
+  );
+}
 
 const WHAT = "type a cell (B14), a block (B3:D7), a sheet's cell (Estimate!B14) or a workbook name (Supply_Static), then press Enter";
 
@@ -60,6 +74,6 @@ export function readNameBox(wb: PreviewWorkbook, typed: string, sheet: string): 
   if (target?.kind === "cell") return { kind: "go", sheet: target.sheet, range: target.address };
   if (target?.kind === "range") return { kind: "go", sheet: target.sheet, range: target.range };
   if (target?.kind === "other") return { kind: "problem", message: `Name box: ${text} names a value or a formula (${target.expression}), not cells: there is nothing to select.` };
-  if (NAME.test(text) && !cellLike(text) && !/^[RrCc]$/.test(text) && !/^[Rr]\d*[Cc]\d*$/.test(text)) return { kind: "define", name: text };
+  if (newName(text)) return { kind: "define", name: text };
   return { kind: "problem", message: `Name box: got "${text}"; ${WHAT}.` };
 }

@@ -54,6 +54,9 @@ describe("the name box", () => {
     expect(readNameBox(wb, "Demand_Pressure", "Estimate")).toEqual({ kind: "define", name: "Demand_Pressure" });
     expect(readNameBox(wb, "Tank10", "Estimate")).toEqual({ kind: "define", name: "Tank10" });
     expect(readNameBox(wb, "R1C1", "Estimate").kind).toBe("problem");
+    // Excel refuses TRUE and FALSE as names, and names longer than 255 characters (from memory)
+    for (const refused of ["TRUE", "false", "A".repeat(10) + "_".repeat(246)]) expect(readNameBox(wb, refused, "Estimate").kind, refused).toBe("problem");
+    expect(readNameBox(wb, "A".repeat(10) + "_".repeat(245), "Estimate").kind).toBe("define");
   });
 
   test("anything else says what the box takes and changes nothing", () => {
